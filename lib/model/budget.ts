@@ -1,0 +1,63 @@
+/**
+ * Energy and enstrophy budgets of one step, model units. Energy E = ½⟨|∇ψ|² + k_d²ψ²⟩ = ½Σ|q̂|²/K²,
+ * kinetic energy KE = ½⟨|∇ψ|²⟩, potential enstrophy Z = ½⟨q²⟩ (domain means; sums over the full
+ * plane). Rates are instantaneous, at the state the step starts from:
+ *   dE/dt = injection − drag − hyper − largeScale + transfer,
+ * with transfer = the net nonlinear term Σ Re(q̂* (−Ĵ))/K², which the dealiased Jacobian makes zero
+ * to round-off. So `transfer` is the budget's residual: it closes to round-off at every step.
+ * Injection is the ensemble-mean rate for white-noise forcing (ε, exact for additive noise), the
+ * instantaneous rate ⟨−ψ F⟩ for steady forcing. `realized*` are what the step actually did.
+ */
+export interface QuadraticBudget {
+  /** Value at the start of the step. */
+  value: number;
+  injection: number;
+  drag: number;
+  hyper: number;
+  largeScale: number;
+  /** Net nonlinear transfer: zero to round-off (the residual of the rate budget). */
+  transfer: number;
+  /** injection − drag − hyper − largeScale + transfer. */
+  tendency: number;
+  /** Change over the step divided by dt (includes the random kick of this step). */
+  realizedTendency: number;
+  /** What this step's random kick added, divided by dt (0 unless the forcing is stochastic). */
+  realizedInjection: number;
+}
+
+export interface StepReport {
+  /** Model time and step count after the step; dt used; CFL number at the start of the step. */
+  time: number;
+  steps: number;
+  dt: number;
+  cfl: number;
+  maxU: number;
+  maxV: number;
+  /** Kinetic energy at the start of the step. */
+  kinetic: number;
+  energy: QuadraticBudget;
+  enstrophy: QuadraticBudget;
+}
+
+export function emptyBudget(): QuadraticBudget {
+  return {
+    value: 0,
+    injection: 0,
+    drag: 0,
+    hyper: 0,
+    largeScale: 0,
+    transfer: 0,
+    tendency: 0,
+    realizedTendency: 0,
+    realizedInjection: 0,
+  };
+}
+
+export function emptyReport(): StepReport {
+  return { time: 0, steps: 0, dt: 0, cfl: 0, maxU: 0, maxV: 0, kinetic: 0, energy: emptyBudget(), enstrophy: emptyBudget() };
+}
+
+/** A plain copy, safe to keep or send (reports are reused and overwritten step after step). */
+export function copyReport(r: StepReport): StepReport {
+  return { ...r, energy: { ...r.energy }, enstrophy: { ...r.enstrophy } };
+}

@@ -1,0 +1,46 @@
+import { xoroshiro128plus, xoroshiro128plusFromState } from 'pure-rand/generator/xoroshiro128plus';
+import { uniformFloat64 } from 'pure-rand/distribution/uniformFloat64';
+
+/** The generator's full state: four 32-bit integers (xoroshiro128+ from pure-rand). */
+export type RandomState = readonly [number, number, number, number];
+
+type Generator = ReturnType<typeof xoroshiro128plus>;
+
+/**
+ * A seeded, reproducible stream of uniform and Gaussian numbers whose whole state can be saved and
+ * restored, so a checkpointed run resumes on the very same draws. Gaussians come in pairs from the
+ * Box–Muller transform with nothing cached between calls, so the state is the generator's alone.
+ */
+export class RandomStream {
+  private gen: Generator;
+
+  constructor(seed: number) {
+    this.gen = xoroshiro128plus(seed | 0);
+  }
+
+  /** Uniform in [0, 1) with 53 random bits. */
+  uniform(): number {
+    return uniformFloat64(this.gen);
+  }
+
+  /**
+   * A complex Gaussian with E|z|² = variance, written to out[0] (re) and out[1] (im); re and im are
+   * independent normals of variance `variance`/2.
+   */
+  complexGaussian(variance: number, out: Float64Array): void {
+    const u1 = 1 - this.uniform(); // (0, 1]: log is finite
+    const u2 = this.uniform();
+    const r = Math.sqrt(-variance * Math.log(u1));
+    out[0] = r * Math.cos(2 * Math.PI * u2);
+    out[1] = r * Math.sin(2 * Math.PI * u2);
+  }
+
+  getState(): RandomState {
+    const s = this.gen.getState();
+    return [s[0], s[1], s[2], s[3]];
+  }
+
+  setState(state: RandomState): void {
+    this.gen = xoroshiro128plusFromState([state[0], state[1], state[2], state[3]]);
+  }
+}

@@ -1,0 +1,273 @@
+import { emptyReport, type QuadraticBudget, type StepReport } from './budget';
+import type { Forcing } from './forcing';
+import type { Grid } from './grid';
+import type { LinearOperator } from './linearOperator';
+import type { NonlinearTerm } from './nonlinearTerm';
+import type { ModelParams } from './params';
+import type { RandomStream } from './randomStream';
+
+/**
+ * Above this CFL number, dt·(max|u|/dx + max|v|/dy), the step is refused: RK4 is stable for
+ * advection by a spectral derivative only while dt·|u|·k_max ≤ 2√2, and with the 2/3 rule
+ * k_max = (2π/3)/dx, which allows about 1.35; the stop leaves a margin for the speeds not being
+ * at their maxima in both directions at once.
+ */
+export const CFL_LIMIT = 1.5;
+
+/** The run stopped: a non-finite state or a CFL number above the limit. */
+export class BlowUpError extends Error {
+  readonly report: { time: number; steps: number; dt: number; cfl: number; maxU: number; maxV: number; reason: string };
+  constructor(reason: string, r: StepReport) {
+    super(
+      `run stopped at t = ${r.time.toPrecision(6)}, step ${r.steps}: ${reason} ` +
+        `(dt = ${r.dt.toPrecision(4)}, CFL = ${r.cfl.toPrecision(4)}, max|u| = ${r.maxU.toPrecision(4)}, max|v| = ${r.maxV.toPrecision(4)})`,
+    );
+    this.name = 'BlowUpError';
+    this.report = { time: r.time, steps: r.steps, dt: r.dt, cfl: r.cfl, maxU: r.maxU, maxV: r.maxV, reason };
+  }
+}
+
+/**
+ * Integrating-factor RK4 (the linear terms, waves and damping, are integrated exactly):
+ *   a = N(q),  b = N(E½(q + ½dt·a)),  c = N(E½q + ½dt·b),  d = N(E q + dt·E½c),
+ *   q ← E q + dt/6·(E a + 2E½(b + c) + d),   E = e^{L dt}, E½ = e^{L dt/2},
+ * N = −J(ψ, q) + F_steady; then the stochastic kick q̂ += √dt ξ. Fourth order in dt for the
+ * deterministic part. One step allocates nothing. `report` is overwritten by every step.
+ */
+export class Stepper {
+  readonly grid: Grid;
+  readonly qHat: Float64Array;
+  time = 0;
+  steps = 0;
+  /** The step in use (fixed, or the last adaptive choice). */
+  dt: number;
+  readonly report: StepReport = emptyReport();
+  private readonly dtMax: number;
+  private readonly cfl: number;
+  private readonly lin: LinearOperator;
+  private readonly nl: NonlinearTerm;
+  private readonly forcing: Forcing;
+  private readonly rng: RandomStream;
+  private readonly a: Float64Array;
+  private readonly b: Float64Array;
+  private readonly c: Float64Array;
+  private readonly d: Float64Array;
+  private readonly w: Float64Array;
+  private readonly kick = new Float64Array(2);
+
+  constructor(grid: Grid, p: ModelParams, lin: LinearOperator, nl: NonlinearTerm, forcing: Forcing, rng: RandomStream) {
+    this.grid = grid;
+    this.lin = lin;
+    this.nl = nl;
+    this.forcing = forcing;
+    this.rng = rng;
+    this.dtMax = p.dt;
+    this.cfl = p.cfl;
+    this.dt = p.dt;
+    const ns = 2 * grid.spectralSize;
+    this.qHat = new Float64Array(ns);
+    this.a = new Float64Array(ns);
+    this.b = new Float64Array(ns);
+    this.c = new Float64Array(ns);
+    this.d = new Float64Array(ns);
+    this.w = new Float64Array(ns);
+  }
+
+  /** N(q) = −J(ψ, q) + F_steady into out. */
+  private tendency(q: Float64Array, out: Float64Array): void {
+    this.nl.evaluate(q, out);
+    if (this.forcing.kind === 'steady') {
+      const f = this.forcing.steady;
+      for (let i = 0; i < out.length; i++) out[i] += f[i];
+    }
+  }
+
+  /**
+   * The adaptive step for `speed` = max|u|/dx + max|v|/dy: the largest rung dtMax·2^(−j/8) with
+   * dt·speed ≤ cfl. dt moves down at once but up only by two rungs or more, so it does not flicker
+   * (each change rebuilds the propagators).
+   */
+  private chooseStep(speed: number): number {
+    if (this.cfl <= 0) return this.dtMax;
+    const target = speed > 0 ? this.cfl / speed : Infinity;
+    const j = target >= this.dtMax ? 0 : Math.ceil(8 * Math.log2(this.dtMax / target));
+    const rung = this.dtMax * Math.pow(2, -j / 8);
+    return rung < this.dt || rung > this.dt * 1.18 ? rung : this.dt;
+  }
+
+  /** Advance one step. Throws BlowUpError (state unchanged) on a non-finite result or CFL > CFL_LIMIT. */
+  step(): StepReport {
+    const { a, b, c, d, w, qHat: q } = this;
+    const { nkx, Kx, keptRows, dx, dy } = this.grid;
+    const lin = this.lin;
+    const r = this.report;
+    this.nl.evaluate(q, a);
+    const speed = this.nl.maxU / dx + this.nl.maxV / dy;
+    // Budgets at the start of the step (fused with adding the steady forcing to a).
+    this.startBudget(q, a);
+    const dt = this.chooseStep(speed);
+    this.dt = dt;
+    lin.setStep(dt);
+    r.dt = dt;
+    r.cfl = dt * speed;
+    r.maxU = this.nl.maxU;
+    r.maxV = this.nl.maxV;
+    r.time = this.time;
+    r.steps = this.steps;
+    if (!(r.cfl <= CFL_LIMIT)) throw new BlowUpError(Number.isFinite(r.cfl) ? `CFL number above ${CFL_LIMIT}` : 'non-finite velocity', r);
+    const e1 = lin.halfStep;
+    const e2 = lin.fullStep;
+    const h = 0.5 * dt;
+    // Stage 2: w = E½(q + ½dt a)
+    for (let k = 0; k < keptRows.length; k++) {
+      const row = 2 * keptRows[k] * nkx;
+      for (let t = row; t < row + 2 * (Kx + 1); t += 2) {
+        const xr = q[t] + h * a[t];
+        const xi = q[t + 1] + h * a[t + 1];
+        w[t] = e1[t] * xr - e1[t + 1] * xi;
+        w[t + 1] = e1[t] * xi + e1[t + 1] * xr;
+      }
+    }
+    this.tendency(w, b);
+    // Stage 3: w = E½ q + ½dt b
+    for (let k = 0; k < keptRows.length; k++) {
+      const row = 2 * keptRows[k] * nkx;
+      for (let t = row; t < row + 2 * (Kx + 1); t += 2) {
+        w[t] = e1[t] * q[t] - e1[t + 1] * q[t + 1] + h * b[t];
+        w[t + 1] = e1[t] * q[t + 1] + e1[t + 1] * q[t] + h * b[t + 1];
+      }
+    }
+    this.tendency(w, c);
+    // Stage 4: w = E q + dt E½ c
+    for (let k = 0; k < keptRows.length; k++) {
+      const row = 2 * keptRows[k] * nkx;
+      for (let t = row; t < row + 2 * (Kx + 1); t += 2) {
+        w[t] = e2[t] * q[t] - e2[t + 1] * q[t + 1] + dt * (e1[t] * c[t] - e1[t + 1] * c[t + 1]);
+        w[t + 1] = e2[t] * q[t + 1] + e2[t + 1] * q[t] + dt * (e1[t] * c[t + 1] + e1[t + 1] * c[t]);
+      }
+    }
+    this.tendency(w, d);
+    // Combination into w (the state is only replaced once the result is known to be finite).
+    const s = dt / 6;
+    const invK2 = lin.invK2;
+    let eNew = 0;
+    let zNew = 0;
+    for (let k = 0; k < keptRows.length; k++) {
+      const row = keptRows[k] * nkx;
+      for (let ix = 0; ix <= Kx; ix++) {
+        const m = row + ix;
+        const t = 2 * m;
+        const ar = e2[t] * a[t] - e2[t + 1] * a[t + 1];
+        const ai = e2[t] * a[t + 1] + e2[t + 1] * a[t];
+        const br = b[t] + c[t];
+        const bi = b[t + 1] + c[t + 1];
+        const mr = 2 * (e1[t] * br - e1[t + 1] * bi);
+        const mi = 2 * (e1[t] * bi + e1[t + 1] * br);
+        const nr = e2[t] * q[t] - e2[t + 1] * q[t + 1] + s * (ar + mr + d[t]);
+        const ni = e2[t] * q[t + 1] + e2[t + 1] * q[t] + s * (ai + mi + d[t + 1]);
+        w[t] = nr;
+        w[t + 1] = ni;
+        const sq = (ix === 0 ? 0.5 : 1) * (nr * nr + ni * ni);
+        eNew += sq * invK2[m];
+        zNew += sq;
+      }
+    }
+    if (!Number.isFinite(eNew + zNew)) throw new BlowUpError('non-finite state', r);
+    this.kick[0] = this.kick[1] = 0;
+    if (this.forcing.kind === 'stochastic') this.forcing.kick(w, dt, this.rng, this.kick);
+    q.set(w);
+    this.time += dt;
+    this.steps += 1;
+    r.time = this.time;
+    r.steps = this.steps;
+    r.energy.realizedInjection = this.kick[0] / dt;
+    r.enstrophy.realizedInjection = this.kick[1] / dt;
+    r.energy.realizedTendency = (eNew + this.kick[0] - r.energy.value) / dt;
+    r.enstrophy.realizedTendency = (zNew + this.kick[1] - r.enstrophy.value) / dt;
+    return r;
+  }
+
+  /** Energy, enstrophy and their rates at state q with nonlinear term a; adds F_steady to a. */
+  private startBudget(q: Float64Array, a: Float64Array): void {
+    const { nkx, Kx, keptRows } = this.grid;
+    const lin = this.lin;
+    const { invK2, dragRate, hyperRate, lsRate } = lin;
+    const steady = this.forcing.kind === 'steady' ? this.forcing.steady : null;
+    let e = 0;
+    let ke = 0;
+    let z = 0;
+    let eDrag = 0;
+    let eHyper = 0;
+    let eLs = 0;
+    let eTr = 0;
+    let eInj = 0;
+    let zDrag = 0;
+    let zHyper = 0;
+    let zLs = 0;
+    let zTr = 0;
+    let zInj = 0;
+    const kd2Free = this.grid.k2;
+    for (let k = 0; k < keptRows.length; k++) {
+      const row = keptRows[k] * nkx;
+      for (let ix = 0; ix <= Kx; ix++) {
+        const m = row + ix;
+        const t = 2 * m;
+        // Full-plane weight: the conjugate of a kx > 0 mode is not stored; ½ of the ½·2 is folded in.
+        const wgt = ix === 0 ? 0.5 : 1;
+        const qr = q[t];
+        const qi = q[t + 1];
+        const sq = wgt * (qr * qr + qi * qi); // this mode's share of Z
+        const em = sq * invK2[m]; // its share of E
+        e += em;
+        ke += em * kd2Free[m] * invK2[m];
+        z += sq;
+        const dr = 2 * dragRate[m];
+        const hr = 2 * hyperRate[m];
+        const lr = 2 * lsRate[m];
+        eDrag += dr * em;
+        eHyper += hr * em;
+        eLs += lr * em;
+        zDrag += dr * sq;
+        zHyper += hr * sq;
+        zLs += lr * sq;
+        const tr = 2 * wgt * (qr * a[t] + qi * a[t + 1]);
+        eTr += tr * invK2[m];
+        zTr += tr;
+        if (steady) {
+          const fr = steady[t];
+          const fi = steady[t + 1];
+          const inj = 2 * wgt * (qr * fr + qi * fi);
+          eInj += inj * invK2[m];
+          zInj += inj;
+          a[t] += fr;
+          a[t + 1] += fi;
+        }
+      }
+    }
+    if (this.forcing.kind === 'stochastic') {
+      // Ensemble-mean rates of white-in-time forcing: ε = σ² Σ_list 1/K², η = σ² N_list.
+      eInj = this.forcing.variance * sumOver(this.forcing.modes, invK2);
+      zInj = this.forcing.variance * this.forcing.count;
+    }
+    const r = this.report;
+    r.kinetic = ke;
+    fill(r.energy, e, eInj, eDrag, eHyper, eLs, eTr);
+    fill(r.enstrophy, z, zInj, zDrag, zHyper, zLs, zTr);
+  }
+}
+
+function sumOver(idx: Int32Array, values: Float64Array): number {
+  let s = 0;
+  for (let i = 0; i < idx.length; i++) s += values[idx[i]];
+  return s;
+}
+
+function fill(bud: QuadraticBudget, value: number, inj: number, drag: number, hyper: number, ls: number, tr: number): void {
+  bud.value = value;
+  bud.injection = inj;
+  bud.drag = drag;
+  bud.hyper = hyper;
+  bud.largeScale = ls;
+  bud.transfer = tr;
+  bud.tendency = inj - drag - hyper - ls + tr;
+}
