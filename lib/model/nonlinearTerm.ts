@@ -11,95 +11,94 @@ import type { RealTransform2D } from './realTransform2D';
  * round-off. It needs only u and v on the grid (one inverse pair) and the products uv and v² − u²
  * back (one forward pair): 4 real transforms instead of 5. In Fourier space
  *   −Ĵ = (kx² − ky²)·(uv)^ + kx·ky·(v² − u²)^.
- * The result is exactly zero outside the kept modes. Build once per grid; a call allocates nothing.
+ * The velocities are written straight into the transform's block and the products formed in place on
+ * its work grid, so no stage copies a field. The result is exactly zero outside the kept modes and
+ * exactly Hermitian in the kx = 0 column. Build once per grid; a call allocates nothing.
  */
 export class NonlinearTerm {
   private readonly grid: Grid;
   private readonly lin: LinearOperator;
   private readonly xf: RealTransform2D;
-  private readonly uHat: Float64Array;
-  private readonly vHat: Float64Array;
-  private readonly pHat: Float64Array;
-  private readonly sHat: Float64Array;
-  /** Grid velocity of the last evaluation (u, v), then reused for the products. */
-  readonly u: Float64Array;
-  readonly v: Float64Array;
-  private readonly p: Float64Array;
-  private readonly s: Float64Array;
   /** Largest |u| and |v| on the grid in the last evaluation. */
   maxU = 0;
   maxV = 0;
 
   constructor(grid: Grid, lin: LinearOperator, xf: RealTransform2D) {
+    if (!xf.pruned) throw new RangeError('NonlinearTerm needs the pruned transform');
     this.grid = grid;
     this.lin = lin;
     this.xf = xf;
-    const ns = 2 * grid.spectralSize;
-    this.uHat = new Float64Array(ns);
-    this.vHat = new Float64Array(ns);
-    this.pHat = new Float64Array(ns);
-    this.sHat = new Float64Array(ns);
-    this.u = new Float64Array(grid.size);
-    this.v = new Float64Array(grid.size);
-    this.p = new Float64Array(grid.size);
-    this.s = new Float64Array(grid.size);
   }
 
   /** out ← −J(ψ, q) from qHat; out and qHat must differ. Sets maxU, maxV. */
   evaluate(qHat: Float64Array, out: Float64Array): void {
-    const { nkx, Kx, kx, ky, keptRows } = this.grid;
+    const { nkx, ny, Kx, kx, ky, keptRows, size } = this.grid;
     const invK2 = this.lin.invK2;
-    const uHat = this.uHat;
-    const vHat = this.vHat;
-    // Velocities: ψ̂ = −q̂/K², û = −i ky ψ̂, v̂ = i kx ψ̂.
+    const xf = this.xf;
+    const cols = 2 * (Kx + 1);
+    const bOff = 2 * (Kx + 1);
+    // Velocities into the block: ψ̂ = −q̂/K², û = −i ky ψ̂ (columns of a), v̂ = i kx ψ̂ (of b).
+    const block = xf.block;
     for (let r = 0; r < keptRows.length; r++) {
       const jy = keptRows[r];
       const kyv = ky[jy];
+      const src = jy * nkx;
+      const dst = 2 * jy * cols;
       for (let ix = 0; ix <= Kx; ix++) {
-        const q = jy * nkx + ix;
-        const pr = -qHat[2 * q] * invK2[q];
-        const pi = -qHat[2 * q + 1] * invK2[q];
-        uHat[2 * q] = kyv * pi;
-        uHat[2 * q + 1] = -kyv * pr;
-        vHat[2 * q] = -kx[ix] * pi;
-        vHat[2 * q + 1] = kx[ix] * pr;
+        const m = src + ix;
+        const pr = -qHat[2 * m] * invK2[m];
+        const pi = -qHat[2 * m + 1] * invK2[m];
+        block[dst + 2 * ix] = kyv * pi;
+        block[dst + 2 * ix + 1] = -kyv * pr;
+        block[dst + bOff + 2 * ix] = -kx[ix] * pi;
+        block[dst + bOff + 2 * ix + 1] = kx[ix] * pr;
       }
     }
-    const u = this.u;
-    const v = this.v;
-    this.xf.inversePair(uHat, vHat, u, v);
-    // Products on the grid, and the largest speeds for the CFL number.
-    const p = this.p;
-    const s = this.s;
+    xf.inverseBlockToWork();
+    // Products in place on the work grid, (u, v) → (uv, v² − u²), and the largest speeds.
+    const W = xf.work;
     let mu = 0;
     let mv = 0;
-    for (let i = 0; i < u.length; i++) {
-      const ui = u[i];
-      const vi = v[i];
-      p[i] = ui * vi;
-      s[i] = vi * vi - ui * ui;
-      const au = ui < 0 ? -ui : ui;
-      const av = vi < 0 ? -vi : vi;
+    for (let i = 0; i < 2 * size; i += 2) {
+      const u = W[i];
+      const v = W[i + 1];
+      W[i] = u * v;
+      W[i + 1] = v * v - u * u;
+      const au = u < 0 ? -u : u;
+      const av = v < 0 ? -v : v;
       if (au > mu) mu = au;
       if (av > mv) mv = av;
     }
     this.maxU = mu;
     this.maxV = mv;
-    const pHat = this.pHat;
-    const sHat = this.sHat;
-    this.xf.forwardPair(p, s, pHat, sHat);
+    const R = xf.forwardWorkToBlock();
+    const scale = 1 / size;
     out.fill(0);
     for (let r = 0; r < keptRows.length; r++) {
       const jy = keptRows[r];
       const kyv = ky[jy];
+      const src = 2 * jy * cols;
+      const dst = jy * nkx;
       for (let ix = 0; ix <= Kx; ix++) {
-        const q = jy * nkx + ix;
         const kxv = kx[ix];
-        const a = kxv * kxv - kyv * kyv;
-        const b = kxv * kyv;
-        out[2 * q] = a * pHat[2 * q] + b * sHat[2 * q];
-        out[2 * q + 1] = a * pHat[2 * q + 1] + b * sHat[2 * q + 1];
+        const a = (kxv * kxv - kyv * kyv) * scale;
+        const b = kxv * kyv * scale;
+        const t = 2 * (dst + ix);
+        out[t] = a * R[src + 2 * ix] + b * R[src + bOff + 2 * ix];
+        out[t + 1] = a * R[src + 2 * ix + 1] + b * R[src + bOff + 2 * ix + 1];
       }
+    }
+    out[0] = out[1] = 0;
+    // Exact Hermitian symmetry of the kx = 0 column (round-off differs between ±ky otherwise).
+    for (let jy = 1; jy <= this.grid.Ky; jy++) {
+      const p = 2 * jy * nkx;
+      const n = 2 * (ny - jy) * nkx;
+      const re = 0.5 * (out[p] + out[n]);
+      const im = 0.5 * (out[p + 1] - out[n + 1]);
+      out[p] = re;
+      out[p + 1] = im;
+      out[n] = re;
+      out[n + 1] = -im;
     }
   }
 }

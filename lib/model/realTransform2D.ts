@@ -1,168 +1,234 @@
-import FFT from 'fft.js';
-import { ColumnFFT } from './columnFFT';
+import { BatchFFT } from './batchFFT';
 import type { Grid } from './grid';
 
 /**
  * Real 2D transforms between grid fields and the half-plane layout of `grid.ts`, two fields at a time.
  *
- * Built once per grid (twiddles, scratch); a call allocates nothing. Two real fields a, b travel
- * together as one complex field a + i·b, which halves the row transforms. Column transforms (along y)
- * run batched over the packed columns only (see `ColumnFFT`).
+ * Two real fields a, b travel together as one complex field a + i·b. The y transforms run batched
+ * over the packed kx columns of both spectra (a "block", row y, columns 0..top of a then of b); the
+ * x transforms run batched over all y on a complex grid stored x-major (the "work grid", point
+ * (x, y) at 2·(x·ny + y)), so both are long contiguous loops (`BatchFFT`) with one transpose between.
+ * The stepper works on the work grid directly (products are pointwise, so its layout does not
+ * matter there); the public pair calls transpose to and from the row-major layout of grid.ts.
  *
  * `pruned = true` (the stepper's plan) touches only the modes the 2/3 rule keeps: inverse transforms
- * read kept modes only and treat the rest as zero; forward transforms write kept modes and set every
- * other stored coefficient (and the mean) to exactly zero. `pruned = false` is the exact full
- * transform, for analysis of arbitrary fields.
- *
- * Normalisation as in `grid.ts`: forward divides by nx·ny, inverse does not. Inputs and outputs must
- * be distinct arrays; inputs are left unchanged.
+ * read kept modes only, forward transforms write kept modes and set every other stored coefficient
+ * (and the mean) to exactly zero. `pruned = false` is the exact full transform. Forward results are
+ * made exactly Hermitian in the self-conjugate columns. Built once per grid; calls allocate nothing.
+ * Normalisation as in `grid.ts`: forward divides by nx·ny, inverse does not.
  */
 export class RealTransform2D {
   readonly grid: Grid;
   readonly pruned: boolean;
-  /** Columns 0..kxTop are transformed; rows listed in `rows` carry data. */
-  private readonly kxTop: number;
-  private readonly rows: Int32Array;
-  private readonly rowFFT: FFT;
-  private readonly colFFT: ColumnFFT;
-  /** Packed block: row y holds columns 0..kxTop of field a, then of field b. */
-  private readonly block: Float64Array;
-  private readonly rowIn: Float64Array;
-  private readonly rowOut: Float64Array;
-  /** Zero partners for single-field calls (never written) and sinks for the unused outputs. */
-  private readonly zeroSpec: Float64Array;
-  private readonly zeroGrid: Float64Array;
-  private readonly sinkSpec: Float64Array;
-  private readonly sinkGrid: Float64Array;
+  /** Columns 0..top are transformed. */
+  readonly top: number;
+  /** Rows of the half plane that carry data. */
+  readonly rows: Int32Array;
+  /** Packed block, row y: columns 0..top of field a, then of field b (complex). */
+  readonly block: Float64Array;
+  /** Complex work grid, x-major: (x, y) at 2·(x·ny + y). */
+  readonly work: Float64Array;
+  private readonly yFFT: BatchFFT;
+  private readonly xFFT: BatchFFT;
+  private readonly rowIsData: Uint8Array;
 
   constructor(grid: Grid, pruned: boolean) {
     this.grid = grid;
     this.pruned = pruned;
-    this.kxTop = pruned ? grid.Kx : grid.nkx - 1;
+    this.top = pruned ? grid.Kx : grid.nkx - 1;
     if (pruned) {
       this.rows = grid.keptRows;
     } else {
       this.rows = new Int32Array(grid.ny);
       for (let j = 0; j < grid.ny; j++) this.rows[j] = j;
     }
-    const cols = 2 * (this.kxTop + 1);
-    this.rowFFT = new FFT(grid.nx);
-    this.colFFT = new ColumnFFT(grid.ny, cols);
+    this.rowIsData = new Uint8Array(grid.ny);
+    for (const r of this.rows) this.rowIsData[r] = 1;
+    const cols = 2 * (this.top + 1);
+    this.yFFT = new BatchFFT(grid.ny, cols);
+    this.xFFT = new BatchFFT(grid.nx, grid.ny);
     this.block = new Float64Array(2 * grid.ny * cols);
-    this.rowIn = new Float64Array(2 * grid.nx);
-    this.rowOut = new Float64Array(2 * grid.nx);
-    this.zeroSpec = new Float64Array(2 * grid.spectralSize);
-    this.zeroGrid = new Float64Array(grid.size);
-    this.sinkSpec = new Float64Array(2 * grid.spectralSize);
-    this.sinkGrid = new Float64Array(grid.size);
+    this.work = new Float64Array(2 * grid.size);
   }
 
-  /** Grid fields a, b from half-plane spectra aHat, bHat (unnormalised sum over the full plane). */
-  inversePair(aHat: Float64Array, bHat: Float64Array, a: Float64Array, b: Float64Array): void {
-    const { nx, ny, nkx } = this.grid;
-    const top = this.kxTop;
+  /**
+   * Inverse of the block: on entry `block` holds the two half-plane spectra on the rows that carry
+   * data (other rows are cleared here; the mean is dropped when pruned). On return `work` holds
+   * a + i·b on the x-major grid. The block is overwritten.
+   */
+  inverseBlockToWork(): void {
+    const { nx, ny } = this.grid;
+    const top = this.top;
     const cols = 2 * (top + 1);
-    const bOff = 2 * (top + 1);
     const block = this.block;
-    // Stage 1: pack the columns that carry data; rows outside `rows` stay zero.
-    block.fill(0);
-    const rows = this.rows;
-    for (let r = 0; r < rows.length; r++) {
-      const jy = rows[r];
-      const src = 2 * jy * nkx;
-      const dst = 2 * jy * cols;
-      for (let t = 0; t < bOff; t++) {
-        block[dst + t] = aHat[src + t];
-        block[dst + bOff + t] = bHat[src + t];
-      }
-    }
-    if (this.pruned) block[0] = block[1] = block[bOff] = block[bOff + 1] = 0; // the mean is not kept
-    // Stage 2: backward transforms down the columns.
-    this.colFFT.transform(block, 1);
-    // Stage 3: per grid row, one complex transform of length nx gives both real rows.
-    // Z = A + iB over the full kx line (A, B Hermitian in kx); z = Σ Z e^{+ikx} = conj(FFT(conj Z)).
-    const rowIn = this.rowIn;
-    const rowOut = this.rowOut;
+    for (let y = 0; y < ny; y++) if (!this.rowIsData[y]) block.fill(0, 2 * y * cols, 2 * (y + 1) * cols);
+    if (this.pruned) block[0] = block[1] = block[cols] = block[cols + 1] = 0;
+    const R = this.yFFT.transform(block, 1);
+    // Expand to the full kx line, Z = A + iB with Z(−kx) = conj(A) + i·conj(B), transposed x-major.
+    const W = this.work;
+    const bOff = top + 1;
     const nyq = nx / 2;
-    for (let y = 0; y < ny; y++) {
-      const base = 2 * y * cols;
-      rowIn.fill(0);
-      for (let ix = 0; ix <= top; ix++) {
-        const ar = block[base + 2 * ix];
-        const ai = block[base + 2 * ix + 1];
-        const br = block[base + bOff + 2 * ix];
-        const bi = block[base + bOff + 2 * ix + 1];
-        // conj(Z[ix]), Z[ix] = (ar − bi) + i(ai + br)
-        rowIn[2 * ix] = ar - bi;
-        rowIn[2 * ix + 1] = -(ai + br);
-        if (ix > 0 && ix < nyq) {
-          // conj(Z[nx − ix]), Z[nx − ix] = conj(A) + i conj(B) = (ar + bi) + i(br − ai)
-          const m = nx - ix;
-          rowIn[2 * m] = ar + bi;
-          rowIn[2 * m + 1] = -(br - ai);
+    const TILE = 16;
+    for (let y0 = 0; y0 < ny; y0 += TILE) {
+      const y1 = Math.min(ny, y0 + TILE);
+      for (let kx = 0; kx <= top; kx++) {
+        const up = 2 * kx * ny;
+        const down = 2 * (nx - kx) * ny;
+        for (let y = y0; y < y1; y++) {
+          const s = 2 * (y * cols + kx);
+          const sb = 2 * (y * cols + bOff + kx);
+          const ar = R[s], ai = R[s + 1], br = R[sb], bi = R[sb + 1];
+          W[up + 2 * y] = ar - bi;
+          W[up + 2 * y + 1] = ai + br;
+          if (kx > 0 && kx < nyq) {
+            W[down + 2 * y] = ar + bi;
+            W[down + 2 * y + 1] = br - ai;
+          }
         }
       }
-      this.rowFFT.transform(rowOut, rowIn);
-      const g = y * nx;
-      for (let x = 0; x < nx; x++) {
-        a[g + x] = rowOut[2 * x];
-        b[g + x] = -rowOut[2 * x + 1];
+    }
+    if (top + 1 <= nx - top - 1) W.fill(0, 2 * (top + 1) * ny, 2 * (nx - top) * ny);
+    const out = this.xFFT.transform(W, 1);
+    if (out !== W) W.set(out);
+  }
+
+  /**
+   * Forward of the work grid: on entry `work` holds a + i·b (x-major); on return `block` holds the
+   * unnormalised half-line spectra of a and b, y-transformed (row y = ky index, columns as above).
+   * The work grid is overwritten. Returns the array holding the block (this.block or scratch).
+   */
+  forwardWorkToBlock(): Float64Array {
+    const { nx, ny } = this.grid;
+    const top = this.top;
+    const cols = 2 * (top + 1);
+    const bOff = top + 1;
+    const Y = this.xFFT.transform(this.work, -1);
+    const block = this.block;
+    const TILE = 16;
+    for (let y0 = 0; y0 < ny; y0 += TILE) {
+      const y1 = Math.min(ny, y0 + TILE);
+      for (let k = 0; k <= top; k++) {
+        const up = 2 * k * ny;
+        const down = 2 * (k === 0 ? 0 : nx - k) * ny;
+        for (let y = y0; y < y1; y++) {
+          const yr = Y[up + 2 * y], yi = Y[up + 2 * y + 1];
+          const zr = Y[down + 2 * y], zi = Y[down + 2 * y + 1];
+          const d = 2 * (y * cols + k);
+          const db = 2 * (y * cols + bOff + k);
+          block[d] = 0.5 * (yr + zr);
+          block[d + 1] = 0.5 * (yi - zi);
+          block[db] = 0.5 * (yi + zi);
+          block[db + 1] = -0.5 * (yr - zr);
+        }
+      }
+    }
+    return this.yFFT.transform(block, -1);
+  }
+
+  /** Grid fields a, b (row-major, grid.ts) from half-plane spectra aHat, bHat. */
+  inversePair(aHat: Float64Array, bHat: Float64Array, a: Float64Array, b: Float64Array): void {
+    const { nx, ny, nkx } = this.grid;
+    const cols = 2 * (this.top + 1);
+    const n = 2 * (this.top + 1);
+    const block = this.block;
+    for (const jy of this.rows) {
+      const src = 2 * jy * nkx;
+      const dst = 2 * jy * cols;
+      for (let t = 0; t < n; t++) {
+        block[dst + t] = aHat[src + t];
+        block[dst + n + t] = bHat[src + t];
+      }
+    }
+    this.inverseBlockToWork();
+    const W = this.work;
+    for (let x = 0; x < nx; x++) {
+      const base = 2 * x * ny;
+      for (let y = 0; y < ny; y++) {
+        a[y * nx + x] = W[base + 2 * y];
+        b[y * nx + x] = W[base + 2 * y + 1];
       }
     }
   }
 
-  /** Half-plane spectra aHat, bHat of grid fields a, b (divided by nx·ny). */
+  /** Half-plane spectra aHat, bHat of grid fields a, b (row-major), divided by nx·ny. */
   forwardPair(a: Float64Array, b: Float64Array, aHat: Float64Array, bHat: Float64Array): void {
-    const { nx, ny, nkx, size } = this.grid;
-    const top = this.kxTop;
-    const cols = 2 * (top + 1);
-    const bOff = 2 * (top + 1);
-    const block = this.block;
-    const rowIn = this.rowIn;
-    const rowOut = this.rowOut;
-    // Stage 1: per grid row, transform a + ib and split into the two half-line spectra.
-    for (let y = 0; y < ny; y++) {
-      const g = y * nx;
-      for (let x = 0; x < nx; x++) {
-        rowIn[2 * x] = a[g + x];
-        rowIn[2 * x + 1] = b[g + x];
-      }
-      this.rowFFT.transform(rowOut, rowIn);
-      const base = 2 * y * cols;
-      for (let k = 0; k <= top; k++) {
-        const m = k === 0 ? 0 : nx - k;
-        const yr = rowOut[2 * k];
-        const yi = rowOut[2 * k + 1];
-        const zr = rowOut[2 * m];
-        const zi = rowOut[2 * m + 1];
-        block[base + 2 * k] = 0.5 * (yr + zr);
-        block[base + 2 * k + 1] = 0.5 * (yi - zi);
-        block[base + bOff + 2 * k] = 0.5 * (yi + zi);
-        block[base + bOff + 2 * k + 1] = -0.5 * (yr - zr);
+    const { nx, ny } = this.grid;
+    const W = this.work;
+    for (let x = 0; x < nx; x++) {
+      const base = 2 * x * ny;
+      for (let y = 0; y < ny; y++) {
+        W[base + 2 * y] = a[y * nx + x];
+        W[base + 2 * y + 1] = b[y * nx + x];
       }
     }
-    // Stage 2: forward transforms down the columns.
-    this.colFFT.transform(block, -1);
-    // Stage 3: unpack the rows that carry data, normalised; everything else is exactly zero.
-    const scale = 1 / size;
+    this.unpackBlock(this.forwardWorkToBlock(), aHat, bHat);
+  }
+
+  /** Normalise a forward block into two half-plane spectra, zero elsewhere, Hermitian columns exact. */
+  unpackBlock(R: Float64Array, aHat: Float64Array, bHat: Float64Array): void {
+    const nkx = this.grid.nkx;
+    const cols = 2 * (this.top + 1);
+    const n = 2 * (this.top + 1);
+    const scale = 1 / this.grid.size;
     aHat.fill(0);
     bHat.fill(0);
-    const rows = this.rows;
-    for (let r = 0; r < rows.length; r++) {
-      const jy = rows[r];
+    for (const jy of this.rows) {
       const src = 2 * jy * cols;
       const dst = 2 * jy * nkx;
-      for (let t = 0; t < bOff; t++) {
-        aHat[dst + t] = block[src + t] * scale;
-        bHat[dst + t] = block[src + bOff + t] * scale;
+      for (let t = 0; t < n; t++) {
+        aHat[dst + t] = R[src + t] * scale;
+        bHat[dst + t] = R[src + n + t] * scale;
       }
     }
-    if (this.pruned) {
-      aHat[0] = aHat[1] = 0;
-      bHat[0] = bHat[1] = 0;
-    }
+    if (this.pruned) aHat[0] = aHat[1] = bHat[0] = bHat[1] = 0;
     this.symmetrise(aHat);
     this.symmetrise(bHat);
+  }
+
+  /** Grid field from one spectrum (the partner is zero). */
+  inverse(aHat: Float64Array, a: Float64Array): void {
+    const { nx, ny, nkx } = this.grid;
+    const cols = 2 * (this.top + 1);
+    const n = 2 * (this.top + 1);
+    const block = this.block;
+    for (const jy of this.rows) {
+      const src = 2 * jy * nkx;
+      const dst = 2 * jy * cols;
+      for (let t = 0; t < n; t++) {
+        block[dst + t] = aHat[src + t];
+        block[dst + n + t] = 0;
+      }
+    }
+    this.inverseBlockToWork();
+    const W = this.work;
+    for (let x = 0; x < nx; x++) {
+      const base = 2 * x * ny;
+      for (let y = 0; y < ny; y++) a[y * nx + x] = W[base + 2 * y];
+    }
+  }
+
+  /** Spectrum of one grid field. */
+  forward(a: Float64Array, aHat: Float64Array): void {
+    const { nx, ny } = this.grid;
+    const W = this.work;
+    for (let x = 0; x < nx; x++) {
+      const base = 2 * x * ny;
+      for (let y = 0; y < ny; y++) {
+        W[base + 2 * y] = a[y * nx + x];
+        W[base + 2 * y + 1] = 0;
+      }
+    }
+    const R = this.forwardWorkToBlock();
+    const nkx = this.grid.nkx;
+    const cols = 2 * (this.top + 1);
+    const n = 2 * (this.top + 1);
+    const scale = 1 / this.grid.size;
+    aHat.fill(0);
+    for (const jy of this.rows) {
+      for (let t = 0; t < n; t++) aHat[2 * jy * nkx + t] = R[2 * jy * cols + t] * scale;
+    }
+    if (this.pruned) aHat[0] = aHat[1] = 0;
+    this.symmetrise(aHat);
   }
 
   /**
@@ -172,8 +238,8 @@ export class RealTransform2D {
    */
   private symmetrise(fHat: Float64Array): void {
     const { ny, nkx, nx } = this.grid;
-    const columns = this.kxTop === nx / 2 ? [0, nx / 2] : [0];
-    for (const ix of columns) {
+    const last = this.top === nx / 2 ? nx / 2 : 0;
+    for (let ix = 0; ix <= last; ix += nx / 2) {
       for (let jy = 1; jy < ny / 2; jy++) {
         const a = 2 * (jy * nkx + ix);
         const b = 2 * ((ny - jy) * nkx + ix);
@@ -184,16 +250,7 @@ export class RealTransform2D {
         fHat[b] = re;
         fHat[b + 1] = -im;
       }
+      if (last === 0) break;
     }
-  }
-
-  /** Grid field a from its half-plane spectrum (one field: the partner slot carries zeros). */
-  inverse(aHat: Float64Array, a: Float64Array): void {
-    this.inversePair(aHat, this.zeroSpec, a, this.sinkGrid);
-  }
-
-  /** Half-plane spectrum of one grid field. */
-  forward(a: Float64Array, aHat: Float64Array): void {
-    this.forwardPair(a, this.zeroGrid, aHat, this.sinkSpec);
   }
 }
