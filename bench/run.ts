@@ -1,0 +1,61 @@
+/**
+ * `npm run bench [-- options]`: Stria's benchmarks. Figures for the README come from here, never from
+ * timed tests.
+ *   (default)          ms per default step at n = 128, 256, 512, and the C/FFTW reference beside it
+ *   --json             one JSON object per line instead of a table
+ *   --sizes a,b,c      other sizes
+ *   --no-reference     skip the reference run
+ *   --scaling          sizes 64..1024 and the fitted exponent of the cost against N² log N
+ */
+import { referenceUnavailable, runReference, type ReferenceTiming } from './reference';
+import { timeStep, type StepTiming } from './stepBench';
+import { fitScaling } from './scaling';
+
+const args = process.argv.slice(2);
+const has = (flag: string) => args.includes(flag);
+const value = (flag: string) => {
+  const i = args.indexOf(flag);
+  return i >= 0 ? args[i + 1] : undefined;
+};
+const json = has('--json');
+const scaling = has('--scaling');
+const sizes = (value('--sizes') ?? (scaling ? '64,128,256,512,1024' : '128,256,512')).split(',').map(Number);
+
+function emit(obj: Record<string, unknown>, line: string): void {
+  if (json) console.log(JSON.stringify(obj));
+  else console.log(line);
+}
+
+const timings: StepTiming[] = [];
+if (!json) console.log(`Stria step benchmark (scheme ifrk4, Node ${process.version}); median of timed batches`);
+for (const n of sizes) {
+  const t = timeStep(n);
+  timings.push(t);
+  emit({ ...t }, `  n = ${String(n).padStart(4)}   ${t.ms_per_step.toFixed(3).padStart(9)} ms/step`);
+}
+
+if (scaling && timings.length >= 2) {
+  const fit = fitScaling(timings);
+  emit(
+    { kind: 'scaling', exponent_N: fit.exponentN, exponent_N2logN: fit.exponentN2logN, sizes },
+    `  cost ∝ N^${fit.exponentN.toFixed(3)}; against N² log N the exponent is ${fit.exponentN2logN.toFixed(3)} (1 means exactly N² log N)`,
+  );
+}
+
+if (!has('--no-reference')) {
+  const why = referenceUnavailable();
+  if (why) {
+    emit({ kind: 'reference', skipped: why }, `  C/FFTW reference skipped: ${why}`);
+  } else {
+    const ref: ReferenceTiming[] = runReference();
+    if (!json) console.log('C/FFTW reference step (same scheme, 20 real transforms per step), same session:');
+    for (const r of ref) {
+      const ours = timings.find((t) => t.n === r.n);
+      const ratio = ours ? ours.ms_per_step / r.ms_per_step : undefined;
+      emit(
+        { kind: 'reference', n: r.n, reference_ms_per_step: r.ms_per_step, stria_ms_per_step: ours?.ms_per_step, ratio },
+        `  n = ${String(r.n).padStart(4)}   ${r.ms_per_step.toFixed(3).padStart(9)} ms/step` + (ratio ? `   Stria/reference = ${ratio.toFixed(2)}` : ''),
+      );
+    }
+  }
+}
