@@ -1,0 +1,5 @@
+import { expose } from 'comlink';
+import { SimulationHost } from './simulationHost';
+
+// The simulation worker: one model per worker, driven through the verbs of SimulationApi.
+expose(new SimulationHost());
