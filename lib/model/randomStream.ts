@@ -7,6 +7,22 @@ export type RandomState = readonly [number, number, number, number];
 type Generator = ReturnType<typeof xoroshiro128plus>;
 
 /**
+ * Spread a user's seed over all 32 bits before it becomes the generator's state: xoroshiro128+ seeded
+ * directly with 1000 and 1001 starts on nearly equal draws, which would correlate the members of an
+ * ensemble run with consecutive seeds. The mix is the 32-bit finaliser of MurmurHash3 (a bijection,
+ * so distinct seeds stay distinct).
+ */
+export function mixSeed(seed: number): number {
+  let h = seed >>> 0;
+  h ^= h >>> 16;
+  h = Math.imul(h, 0x85ebca6b);
+  h ^= h >>> 13;
+  h = Math.imul(h, 0xc2b2ae35);
+  h ^= h >>> 16;
+  return h | 0;
+}
+
+/**
  * A seeded, reproducible stream of uniform and Gaussian numbers whose whole state can be saved and
  * restored, so a checkpointed run resumes on the very same draws. Gaussians come in pairs from the
  * Box–Muller transform with nothing cached between calls, so the state is the generator's alone.
@@ -15,7 +31,7 @@ export class RandomStream {
   private gen: Generator;
 
   constructor(seed: number) {
-    this.gen = xoroshiro128plus(seed | 0);
+    this.gen = xoroshiro128plus(mixSeed(seed));
   }
 
   /** Uniform in [0, 1) with 53 random bits. */

@@ -1,9 +1,10 @@
 import { uniformFloat64 } from 'pure-rand/distribution/uniformFloat64';
 import { xoroshiro128plus } from 'pure-rand/generator/xoroshiro128plus';
+import { mixSeed } from '../../lib/model/randomStream';
 
 /** A seeded uniform [−1, 1) source for test inputs, so every test input is reproducible. */
 export function seededSigned(seed: number): () => number {
-  const rng = xoroshiro128plus(seed);
+  const rng = xoroshiro128plus(mixSeed(seed));
   return () => 2 * uniformFloat64(rng) - 1;
 }
 
