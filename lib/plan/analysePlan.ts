@@ -1,0 +1,52 @@
+import { checkPlan, type PlanCheck } from './checks';
+import { forcedModesForCost, runCost, type RunCost } from './cost';
+import { matchedRun, type MatchedRun, type MatchedRunOptions } from './matchedRun';
+import { predictPlan, type PlanPredictions } from './predictions';
+import { resolvePlan, type ResolvedPlan } from './resolvePlan';
+import { planScaling, type UnitScaling } from './units';
+
+/** Everything the planner says about one plan: the Plan view and `stria plan` show this. */
+export interface PlanAnalysis {
+  plan: ResolvedPlan;
+  /** Stria's unit scaling of the plan (identity for a model-unit plan). */
+  scaling: UnitScaling;
+  predictions: PlanPredictions;
+  checks: PlanCheck[];
+  /** The planned run's cost if it were run with Stria's model on this machine (× speed). */
+  cost: RunCost;
+  /** The matched cheap run, or null with `matchedError` when no grid can hold one. */
+  matched: MatchedRun | null;
+  matchedError: string | null;
+  /** The same checks applied to the matched run. */
+  matchedChecks: PlanCheck[];
+}
+
+/**
+ * Resolve, predict, check, cost and match a plan input. Throws PlanInputError for an invalid input;
+ * everything after validation is reported, not thrown.
+ */
+export function analysePlan(input: unknown, opts: MatchedRunOptions = {}): PlanAnalysis {
+  const plan = resolvePlan(input);
+  const predictions = predictPlan(plan);
+  const checks = checkPlan(plan, predictions);
+  const modes = forcedModesForCost({ nx: plan.nx, ny: plan.ny, Lx: plan.Lx, Ly: plan.Ly, kf: plan.kf, dkf: plan.dkf });
+  const cost = runCost(plan.nx, plan.ny, predictions.stepsPlanned.value, modes, opts.speed ?? 1, opts.reference);
+  let matched: MatchedRun | null = null;
+  let matchedError: string | null = null;
+  try {
+    matched = matchedRun(plan, predictions, opts);
+  } catch (e) {
+    if (!(e instanceof RangeError)) throw e;
+    matchedError = e.message;
+  }
+  return {
+    plan,
+    scaling: planScaling(plan),
+    predictions,
+    checks,
+    cost,
+    matched,
+    matchedError,
+    matchedChecks: matched ? checkPlan(matched.plan, matched.predictions) : [],
+  };
+}

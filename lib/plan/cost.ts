@@ -1,0 +1,188 @@
+import * as v from 'valibot';
+import measured from './measuredStep.json';
+
+/**
+ * What a run costs in Stria's own model: memory of its arrays, floating-point work per step, and
+ * wall time from a measured step time.
+ *
+ * Memory, counted from lib/model for an nx × ny grid (S = ny·(nx/2 + 1) half-plane modes,
+ * K = ⌊nx/3⌋ kept columns, C = 2(K + 1) packed block columns, M forced modes; Float64 unless noted):
+ *   Stepper         state q̂, RK stage tendencies a, b, c, d, stage input w     6 × 2S
+ *   LinearOperator  1/K², drag, hyper, large-scale and wave rates              5 × S
+ *                   propagators e^{L dt/2}, e^{L dt}                           2 × 2S
+ *                   kept mask (Uint8)                                          S bytes
+ *   Grid            k², kx, ky                                                 S + nx/2 + 1 + ny
+ *                   kept rows (Int32)                                          2⌊ny/3⌋ + 1
+ *   RealTransform2D packed block, complex work grid                            2·ny·C + 2·nx·ny
+ *                   row mask (Uint8)                                           ny bytes
+ *     y FFT         twiddles, scratch                                          2·ny + 2·ny·C
+ *     x FFT         twiddles, scratch                                          2·nx + 2·nx·ny
+ *   Forcing         steady pattern, annulus lists (Int32 × 2), a draw pair     2S + 2M int32 + 2
+ *   Model           a spectrum buffer for fields                               2S
+ *   Stepper         the kick pair                                              2
+ * For large square grids this is ≈ 13 N + 4 N + 8/3 N doubles ≈ 157 bytes per grid point (N = nx·ny).
+ *
+ * Work per step: the IF-RK4 step evaluates the nonlinear term 4 times, each one inverse and one
+ * forward pair transform (two real fields as one complex 2D FFT over the kept columns): per
+ * transform C complex FFTs of length ny and ny of length nx. A complex FFT of length n counts the
+ * conventional 5 n log₂ n flops [practice], so
+ *   flops/step = 4 · 2 · 5 · (C·ny·log₂ ny + ny·nx·log₂ nx) ≈ 66.7 n² log₂ n for n × n (C ≈ 2n/3).
+ * Pointwise work (products, the RK combination) is O(N) and not counted.
+ *
+ * Wall time: t_step(nx, ny) = t_ref · (N log₂ N)/(N_ref log₂ N_ref) / speed, with t_ref measured at
+ * N_ref = n_ref² by `npm run bench` (measuredStep.json) and `speed` the user's machine relative to
+ * the one that measured it (2 = twice as fast).
+ */
+
+/** One array of the model and its size. */
+export interface ArrayCount {
+  owner: string;
+  name: string;
+  elements: number;
+  bytesPerElement: number;
+  bytes: number;
+}
+
+export interface MemoryEstimate {
+  arrays: ArrayCount[];
+  totalBytes: number;
+  /** totalBytes / (nx·ny). */
+  bytesPerPoint: number;
+}
+
+/**
+ * Memory of a model on nx × ny with `forcedModes` independent modes on the forcing annulus
+ * (`annulusModeCount`; the model reports the same number as `forcedModes`).
+ */
+export function modelMemory(nx: number, ny: number, forcedModes: number): MemoryEstimate {
+  const S = ny * (nx / 2 + 1);
+  const C = 2 * (Math.floor(nx / 3) + 1);
+  const keptRows = 2 * Math.floor(ny / 3) + 1;
+  const rows: Array<[string, string, number, number]> = [
+    ['Stepper', 'state q̂ and RK stages a, b, c, d, w', 6 * 2 * S, 8],
+    ['Stepper', 'kick pair', 2, 8],
+    ['LinearOperator', 'rates 1/K², drag, hyper, large-scale, wave', 5 * S, 8],
+    ['LinearOperator', 'propagators e^{L dt/2}, e^{L dt}', 2 * 2 * S, 8],
+    ['LinearOperator', 'kept mask', S, 1],
+    ['Grid', 'k², kx, ky', S + nx / 2 + 1 + ny, 8],
+    ['Grid', 'kept rows', keptRows, 4],
+    ['RealTransform2D', 'packed block', 2 * ny * C, 8],
+    ['RealTransform2D', 'complex work grid', 2 * nx * ny, 8],
+    ['RealTransform2D', 'row mask', ny, 1],
+    ['BatchFFT (y)', 'twiddles and scratch', 2 * ny + 2 * ny * C, 8],
+    ['BatchFFT (x)', 'twiddles and scratch', 2 * nx + 2 * nx * ny, 8],
+    ['Forcing', 'steady pattern and draw pair', 2 * S + 2, 8],
+    ['Forcing', 'annulus modes and mirrors', 2 * forcedModes, 4],
+    ['Model', 'field spectrum buffer', 2 * S, 8],
+  ];
+  const arrays = rows.map(([owner, name, elements, b]) => ({ owner, name, elements, bytesPerElement: b, bytes: elements * b }));
+  const totalBytes = arrays.reduce((s, a) => s + a.bytes, 0);
+  return { arrays, totalBytes, bytesPerPoint: totalBytes / (nx * ny) };
+}
+
+/**
+ * Independent forced modes of the annulus |k − k_f| ≤ δk, counted as lib/model/forcing.ts lists
+ * them: kept modes (|ix| ≤ ⌊nx/3⌋, |m| ≤ ⌊ny/3⌋) with kx > 0, and kx = 0 with ky > 0 when the zonal
+ * modes are forced. Any consistent length unit. Cost O(⌊nx/3⌋ + modes): per column only the rows
+ * near the ring are tested, with the model's own test.
+ */
+export function annulusModeCount(p: { nx: number; ny: number; Lx: number; Ly: number; kf: number; dkf: number; force_zonal?: boolean }): number {
+  const dkx = (2 * Math.PI) / p.Lx;
+  const dky = (2 * Math.PI) / p.Ly;
+  const Kx = Math.floor(p.nx / 3);
+  const Ky = Math.floor(p.ny / 3);
+  const zonal = p.force_zonal ?? true;
+  const lo = Math.max(0, p.kf - p.dkf);
+  const hi = p.kf + p.dkf;
+  let count = 0;
+  for (let i = 0; i <= Kx && i * dkx <= hi * (1 + 1e-12); i++) {
+    const kx2 = (i * dkx) ** 2;
+    const jLo = Math.sqrt(Math.max(0, lo * lo - kx2)) / dky;
+    const jHi = Math.sqrt(Math.max(0, hi * hi - kx2)) / dky;
+    for (let j = Math.max(0, Math.floor(jLo) - 1); j <= Math.min(Ky, Math.ceil(jHi) + 1); j++) {
+      if (Math.abs(Math.hypot(i * dkx, j * dky) - p.kf) > p.dkf) continue;
+      // Rows ±j; at kx = 0 only ky > 0 is independent, and only when the zonal modes are forced.
+      if (i === 0) count += j > 0 && zonal ? 1 : 0;
+      else count += j === 0 ? 1 : 2;
+    }
+  }
+  return count;
+}
+
+/** Above this many expected annulus modes, `forcedModesForCost` estimates instead of counting. */
+const COUNT_LIMIT = 2_000_000;
+
+/**
+ * The annulus mode count for a cost estimate: exact (`annulusModeCount`) while the ring is small
+ * enough to count quickly, else its half-plane area 2π k_f δk/(dkx·dky). The lists cost 8 bytes a
+ * mode, a small share of the total either way.
+ */
+export function forcedModesForCost(p: { nx: number; ny: number; Lx: number; Ly: number; kf: number; dkf: number }): number {
+  const area = (2 * Math.PI * p.kf * p.dkf) / (((2 * Math.PI) / p.Lx) * ((2 * Math.PI) / p.Ly));
+  return area > COUNT_LIMIT ? Math.round(area) : annulusModeCount(p);
+}
+
+/** Nominal floating-point operations of one step on nx × ny (FFTs only, 5 n log₂ n per complex FFT). */
+export function flopsPerStep(nx: number, ny: number): number {
+  const C = 2 * (Math.floor(nx / 3) + 1);
+  const perTransform = 5 * (C * ny * Math.log2(ny) + ny * nx * Math.log2(nx));
+  return 4 * 2 * perTransform;
+}
+
+/** The reference step time, read from measuredStep.json and checked. */
+export interface MeasuredStep {
+  n: number;
+  ms_per_step: number;
+  measured_on: string;
+  how: string;
+}
+
+const MeasuredStepSchema = v.object({
+  format: v.literal('stria-measured-step'),
+  version: v.literal(1),
+  n: v.pipe(v.number(), v.integer(), v.minValue(2)),
+  ms_per_step: v.pipe(v.number(), v.check((x) => Number.isFinite(x) && x > 0, 'a positive number of milliseconds')),
+  measured_on: v.string(),
+  how: v.string(),
+});
+
+/** Parse a measured-step record (the JSON the benchmark writes); throws naming the bad field. */
+export function parseMeasuredStep(json: unknown): MeasuredStep {
+  const r = v.safeParse(MeasuredStepSchema, json);
+  if (!r.success) {
+    const i = r.issues[0];
+    throw new RangeError(`measured step time: ${i.path?.map((p) => String(p.key)).join('.') ?? '(record)'}: ${i.message}`);
+  }
+  return r.output;
+}
+
+/** The figure this build of Stria was shipped with. */
+export const MEASURED_STEP: Readonly<MeasuredStep> = Object.freeze(parseMeasuredStep(measured));
+
+/**
+ * Seconds per step on nx × ny: the reference time scaled as N log₂ N (N = nx·ny, i.e. n² log n for
+ * square grids) and divided by `speed`, the machine's speed relative to the measuring one.
+ */
+export function stepSeconds(nx: number, ny: number, speed = 1, ref: MeasuredStep = MEASURED_STEP): number {
+  if (!(speed > 0 && Number.isFinite(speed))) throw new RangeError(`machine-speed factor must be a finite number > 0, got ${speed}`);
+  const N = nx * ny;
+  const Nref = ref.n * ref.n;
+  return ((ref.ms_per_step / 1000) * (N * Math.log2(N))) / (Nref * Math.log2(Nref)) / speed;
+}
+
+/** The cost of a run of `steps` steps on nx × ny. */
+export interface RunCost {
+  memory: MemoryEstimate;
+  flopsPerStep: number;
+  steps: number;
+  secondsPerStep: number;
+  wallSeconds: number;
+  speed: number;
+  reference: MeasuredStep;
+}
+
+/** Memory, work and wall time of `steps` steps on nx × ny with `forcedModes` annulus modes. */
+export function runCost(nx: number, ny: number, steps: number, forcedModes: number, speed = 1, ref: MeasuredStep = MEASURED_STEP): RunCost {
+  const secondsPerStep = stepSeconds(nx, ny, speed, ref);
+  return { memory: modelMemory(nx, ny, forcedModes), flopsPerStep: flopsPerStep(nx, ny), steps, secondsPerStep, wallSeconds: steps * secondsPerStep, speed, reference: ref };
+}

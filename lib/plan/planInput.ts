@@ -1,0 +1,222 @@
+import * as v from 'valibot';
+import { RHINES_DEFINITIONS, type RhinesConvention } from '../analysis/scales';
+import { THRESHOLDS } from './thresholds';
+
+/**
+ * The planned run's inputs, as a researcher states them: in physical units (SI: m, s, rad/s) or in
+ * model units (any consistent length and time units, e.g. the model's own). Validated at the
+ * boundary by `validatePlanInput`; everything else in lib/plan trusts a validated input.
+ *
+ * Per field, in the plan's units (L = length, T = time):
+ *   rotation        a planet and latitude (physical only; f = 2Ω sin φ, β = 2Ω cos φ/R), or β [1/(L·T)]
+ *                   directly, optionally with f [1/T]
+ *   deformation     none (L_d = ∞), L_d [L], or layer depth H [L] and reduced gravity g′ [L/T²], giving
+ *                   L_d = √(g′H)/|f|
+ *   drive           energy injection rate ε [L²/T³], or a target rms velocity U [L/T] (then ε = μU²)
+ *   dragTime        1/μ [T], the damping time of the linear drag on vorticity
+ *   forcing         wavelength λ_f [L] (k_f = 2π/λ_f) and the annulus half-width as a fraction δk/k_f
+ *   domain          Lx, Ly [L] (doubly periodic; y is the jet-crossing direction)
+ *   grid            points nx, ny (powers of two), or the largest acceptable spacing dx, dy [L]
+ *   hyperviscosity  order p and damping time τ at the grid scale [T]: ν = 1/(τ k_max^{2p})
+ *   runLength       the planned run length [T]
+ *   cfl             CFL number for the time step (default the model's 0.5)
+ *   rhines          the Rhines convention used for the jet spacing (default k_R = (β/2U)^½)
+ */
+export type UnitSystem = 'physical' | 'model';
+
+export type RotationInput =
+  | { kind: 'planet'; planet: 'earth' | 'jupiter'; latitudeDeg: number }
+  | { kind: 'beta'; beta: number; f?: number };
+export type DeformationInput = { kind: 'none' } | { kind: 'radius'; Ld: number } | { kind: 'layer'; H: number; gPrime: number };
+export type DriveInput = { kind: 'injection'; eps: number } | { kind: 'velocity'; U: number };
+export type GridInput = { kind: 'points'; nx: number; ny: number } | { kind: 'spacing'; dx: number; dy: number };
+
+export interface PlanInput {
+  units: UnitSystem;
+  /** A name for the plan (shown in reports; free text). */
+  title?: string;
+  rotation: RotationInput;
+  deformation: DeformationInput;
+  drive: DriveInput;
+  dragTime: number;
+  forcing: { wavelength: number; halfWidth: number };
+  domain: { Lx: number; Ly: number };
+  grid: GridInput;
+  hyperviscosity: { order: number; gridDampingTime: number };
+  runLength: number;
+  cfl?: number;
+  rhines?: RhinesConvention;
+}
+
+/** Smallest and largest grid sizes a plan may name (powers of two). */
+export const PLAN_SIZE_MIN = 32;
+export const PLAN_SIZE_MAX = 65_536;
+
+function positive(what: string) {
+  const range = `${what}: a finite number > 0`;
+  return v.pipe(
+    v.number(range),
+    v.check((x) => Number.isFinite(x) && x > 0, `out of range (${range})`),
+  );
+}
+
+function between(what: string, lo: number, hi: number, open: boolean) {
+  const range = `${what}: a finite number ${open ? '>' : '≥'} ${lo} and ${open ? '<' : '≤'} ${hi}`;
+  return v.pipe(
+    v.number(range),
+    v.check((x) => Number.isFinite(x) && (open ? x > lo && x < hi : x >= lo && x <= hi), `out of range (${range})`),
+  );
+}
+
+const isPow2 = (n: number) => Number.isInteger(n) && n > 0 && (n & (n - 1)) === 0;
+const points = (what: string) =>
+  v.pipe(
+    v.number(`${what}: a power of two from ${PLAN_SIZE_MIN} to ${PLAN_SIZE_MAX}`),
+    v.check((n) => isPow2(n) && n >= PLAN_SIZE_MIN && n <= PLAN_SIZE_MAX, `must be a power of two from ${PLAN_SIZE_MIN} to ${PLAN_SIZE_MAX}`),
+  );
+
+const kindOf = (options: string) => `must be one of ${options}`;
+
+/** The valibot schema of a plan input (per field; cross-field rules are in `validatePlanInput`). */
+export const PlanInputSchema = v.strictObject({
+  units: v.picklist(['physical', 'model'], kindOf('"physical", "model"')),
+  title: v.optional(v.pipe(v.string('a text'), v.maxLength(200, 'at most 200 characters'))),
+  rotation: v.variant(
+    'kind',
+    [
+      v.strictObject({
+        kind: v.literal('planet'),
+        planet: v.picklist(['earth', 'jupiter'], kindOf('"earth", "jupiter"')),
+        latitudeDeg: between('latitude (degrees, planetocentric)', -90, 90, true),
+      }),
+      v.strictObject({ kind: v.literal('beta'), beta: positive('β'), f: v.optional(between('f', -1e30, 1e30, true)) }),
+    ],
+    kindOf('{ kind: "planet", planet, latitudeDeg } or { kind: "beta", beta, f? }'),
+  ),
+  deformation: v.variant(
+    'kind',
+    [
+      v.strictObject({ kind: v.literal('none') }),
+      v.strictObject({ kind: v.literal('radius'), Ld: positive('deformation radius L_d') }),
+      v.strictObject({ kind: v.literal('layer'), H: positive('layer depth H'), gPrime: positive('reduced gravity g′') }),
+    ],
+    kindOf('{ kind: "none" }, { kind: "radius", Ld } or { kind: "layer", H, gPrime }'),
+  ),
+  drive: v.variant(
+    'kind',
+    [
+      v.strictObject({ kind: v.literal('injection'), eps: positive('energy injection rate ε') }),
+      v.strictObject({ kind: v.literal('velocity'), U: positive('target rms velocity U') }),
+    ],
+    kindOf('{ kind: "injection", eps } or { kind: "velocity", U }'),
+  ),
+  dragTime: positive('drag damping time 1/μ'),
+  forcing: v.strictObject({
+    wavelength: positive('forcing wavelength λ_f'),
+    halfWidth: between('annulus half-width δk/k_f', 0, 1, true),
+  }),
+  domain: v.strictObject({ Lx: positive('domain length Lx'), Ly: positive('domain length Ly') }),
+  grid: v.variant(
+    'kind',
+    [
+      v.strictObject({ kind: v.literal('points'), nx: points('nx'), ny: points('ny') }),
+      v.strictObject({ kind: v.literal('spacing'), dx: positive('grid spacing dx'), dy: positive('grid spacing dy') }),
+    ],
+    kindOf('{ kind: "points", nx, ny } or { kind: "spacing", dx, dy }'),
+  ),
+  hyperviscosity: v.strictObject({
+    order: v.pipe(
+      v.number('hyperviscosity order p: an integer from 1 to 8'),
+      v.check((p) => Number.isInteger(p) && p >= 1 && p <= 8, 'must be an integer from 1 to 8'),
+    ),
+    gridDampingTime: positive('damping time at the grid scale τ'),
+  }),
+  runLength: positive('run length'),
+  cfl: v.optional(v.pipe(v.number('CFL number'), v.check((c) => Number.isFinite(c) && c > 0 && c <= 1.2, 'out of range (CFL number: > 0 and ≤ 1.2)'))),
+  rhines: v.optional(v.picklist(Object.keys(RHINES_DEFINITIONS) as RhinesConvention[], kindOf(Object.keys(RHINES_DEFINITIONS).map((k) => `"${k}"`).join(', ')))),
+});
+
+/** One refused input: the field (dotted path), the value given, and what is allowed. */
+export interface PlanIssue {
+  field: string;
+  value: unknown;
+  message: string;
+}
+
+/** Thrown when a plan input is refused; `issues` lists every refused field. */
+export class PlanInputError extends Error {
+  readonly issues: PlanIssue[];
+  constructor(issues: PlanIssue[]) {
+    super(issues.map((i) => `${i.field} = ${show(i.value)}: ${i.message}`).join('; '));
+    this.name = 'PlanInputError';
+    this.issues = issues;
+  }
+}
+
+/** The plan input with defaults filled (cfl, rhines), as every other planner module receives it. */
+export type ValidPlanInput = PlanInput & { cfl: number; rhines: RhinesConvention };
+
+/**
+ * Check a plan input field by field and across fields; return it with defaults filled. Throws
+ * PlanInputError naming each bad field, its value and the allowed range.
+ */
+export function validatePlanInput(input: unknown): ValidPlanInput {
+  const parsed = v.safeParse(PlanInputSchema, input);
+  if (!parsed.success) {
+    throw new PlanInputError(
+      parsed.issues.map((issue) => {
+        const field = issue.path?.map((p) => String(p.key)).join('.') ?? '(plan)';
+        const unknownKey = issue.type === 'strict_object' && issue.kind === 'schema' && issue.expected === 'never';
+        return { field, value: issue.input, message: unknownKey ? 'is not a plan field' : issue.message };
+      }),
+    );
+  }
+  const p = parsed.output as PlanInput;
+  const issues: PlanIssue[] = [];
+  if (p.units === 'model' && p.rotation.kind === 'planet') {
+    issues.push({ field: 'rotation.kind', value: 'planet', message: 'a planet gives f and β in SI units: use units "physical", or give β in model units' });
+  }
+  if (p.deformation.kind === 'layer') {
+    const f = p.rotation.kind === 'planet' ? NaN : p.rotation.f;
+    const atEquator = p.rotation.kind === 'planet' && p.rotation.latitudeDeg === 0;
+    if ((p.rotation.kind === 'beta' && (f === undefined || f === 0)) || atEquator) {
+      issues.push({
+        field: 'deformation.kind',
+        value: 'layer',
+        message: 'L_d = √(g′H)/|f| needs f ≠ 0: give the rotation as a planet off the equator, give f, or give L_d directly',
+      });
+    }
+  }
+  if (p.grid.kind === 'spacing') {
+    for (const [axis, L, d] of [['dx', p.domain.Lx, p.grid.dx], ['dy', p.domain.Ly, p.grid.dy]] as const) {
+      const n = pointsForSpacing(L, d);
+      if (n > PLAN_SIZE_MAX) {
+        issues.push({ field: `grid.${axis}`, value: d, message: `needs ${n} points across the domain, more than ${PLAN_SIZE_MAX}: widen the spacing or shrink the domain` });
+      }
+    }
+  }
+  if (issues.length) throw new PlanInputError(issues);
+  return { ...p, cfl: p.cfl ?? THRESHOLDS.defaultCfl, rhines: p.rhines ?? 'kR' };
+}
+
+/**
+ * Points across a length L for a largest acceptable spacing d: the smallest power of two n ≥ 32
+ * with L/n ≤ d (the spacing given is an upper bound; the plan reports the spacing it gets).
+ */
+export function pointsForSpacing(L: number, d: number): number {
+  const need = L / d;
+  let n = PLAN_SIZE_MIN;
+  // Allow for the round-off of L/d when d divides L exactly.
+  while (n < need * (1 - 1e-12)) n *= 2;
+  return n;
+}
+
+function show(value: unknown): string {
+  if (typeof value === 'string') return JSON.stringify(value);
+  if (typeof value === 'number' || typeof value === 'boolean' || value === null || value === undefined) return String(value);
+  try {
+    return JSON.stringify(value).slice(0, 60);
+  } catch {
+    return typeof value;
+  }
+}
