@@ -1,133 +1,149 @@
-import { mkdir } from 'node:fs/promises';
-import { resolve } from 'node:path';
+import { readFile } from 'node:fs/promises';
 import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchChromium, type BrowserSession } from './support/browser';
+import { canvasSample, modelTime, openApp, pause, screenshot, status, steps, waitForSteps, type AppPage } from './support/app';
 
-const SCREENSHOT = resolve(import.meta.dirname, 'artifacts/field.png');
 // Drawn at twice the CSS resolution, to check that the canvas backing store follows devicePixelRatio.
 const DPR = 2;
+const FIELD = '[data-testid=field-canvas]';
 
-interface Sample {
-  /** FNV-1a hash of the canvas pixels as read back from its 2D context. */
-  hash: number;
-  /** Pixels clearly red (positive ζ) and clearly blue (negative ζ). */
-  red: number;
-  blue: number;
-  width: number;
-  height: number;
-  cssWidth: number;
-  cssHeight: number;
-  frames: number;
-  time: number;
-  steps: number;
+/** The plot box of the figure in CSS pixels, as the page laid it out. */
+async function plotBox(page: Page): Promise<{ x: number; y: number; w: number; h: number }> {
+  return JSON.parse((await page.locator(FIELD).getAttribute('data-plot')) ?? 'null');
 }
 
-/** Read the canvas pixels and the readouts in one go, in the page. */
-function sample(page: Page): Promise<Sample> {
-  return page.evaluate(() => {
-    const canvas = document.querySelector<HTMLCanvasElement>('[data-testid=field-canvas]');
-    const ctx = canvas?.getContext('2d');
-    if (!canvas || !ctx) throw new Error('no field canvas');
-    const data = ctx.getImageData(0, 0, canvas.width, canvas.height).data;
-    let hash = 0x811c9dc5;
-    let red = 0;
-    let blue = 0;
-    for (let i = 0; i < data.length; i += 4) {
-      for (let j = 0; j < 3; j++) hash = Math.imul(hash ^ data[i + j], 0x01000193) >>> 0;
-      if (data[i] > data[i + 2] + 40) red++;
-      if (data[i + 2] > data[i] + 40) blue++;
-    }
-    const text = (id: string) => Number(document.querySelector(`[data-testid=${id}]`)?.textContent ?? NaN);
-    return {
-      hash,
-      red,
-      blue,
-      width: canvas.width,
-      height: canvas.height,
-      cssWidth: canvas.clientWidth,
-      cssHeight: canvas.clientHeight,
-      frames: Number(canvas.dataset.frames),
-      time: text('model-time'),
-      steps: text('model-steps'),
-    };
-  });
+/** Pixels of the plot area only (not axes and colour bar): clearly red, clearly blue, and a hash. */
+function plotSample(page: Page, box: { x: number; y: number; w: number; h: number }) {
+  return page.evaluate(
+    ([b, dpr]) => {
+      const canvas = document.querySelector<HTMLCanvasElement>('[data-testid=field-canvas]');
+      const ctx = canvas?.getContext('2d');
+      if (!canvas || !ctx) throw new Error('no field canvas');
+      const data = ctx.getImageData(Math.round(b.x * dpr), Math.round(b.y * dpr), Math.round(b.w * dpr), Math.round(b.h * dpr)).data;
+      let red = 0;
+      let blue = 0;
+      let hash = 0x811c9dc5;
+      for (let i = 0; i < data.length; i += 4) {
+        for (let j = 0; j < 3; j++) hash = Math.imul(hash ^ data[i + j], 0x01000193) >>> 0;
+        if (data[i] > data[i + 2] + 40) red++;
+        if (data[i + 2] > data[i] + 40) blue++;
+      }
+      return { red, blue, hash, n: data.length / 4 };
+    },
+    [box, DPR] as const,
+  );
 }
-
-/** Wait until the readouts show a model time beyond t (the page is playing). */
-async function waitForTime(page: Page, t: number): Promise<void> {
-  await page.waitForFunction((t0) => Number(document.querySelector('[data-testid=model-time]')?.textContent) > t0, t, { timeout: 60_000 });
-}
-
-const status = (page: Page) => page.getByTestId('status').textContent();
 
 describe('Field view in Chromium', () => {
   let session: BrowserSession;
-  let page: Page;
-  const problems: string[] = [];
+  let app: AppPage;
 
   beforeAll(async () => {
-    session = await launchChromium({ deviceScaleFactor: DPR });
-    page = await session.context.newPage();
-    page.on('pageerror', (e) => problems.push(`page error: ${e.message}`));
-    page.on('console', (m) => {
-      // The readback hint is provoked by this test's own getImageData calls, not by the page.
-      if (m.text().includes('willReadFrequently')) return;
-      if (m.type() === 'error' || m.type() === 'warning') problems.push(`console ${m.type()}: ${m.text()}`);
-    });
-    page.on('requestfailed', (r) => problems.push(`request failed: ${r.url()}`));
-    page.on('response', (r) => {
-      if (r.status() >= 400) problems.push(`HTTP ${r.status()}: ${r.url()}`);
-    });
-    await page.goto(inject('baseUrl'));
+    session = await launchChromium({ deviceScaleFactor: DPR, width: 1300, height: 1000 });
+    app = await openApp(session);
   });
 
   afterAll(async () => {
     await session?.close();
   });
 
-  it('draws ζ, and the field and the model time move on while playing', async () => {
-    await page.getByText('not a weather or ocean forecast').waitFor();
-    await waitForTime(page, 0.5);
-    const a = await sample(page);
-    expect(a.frames).toBeGreaterThan(0);
-    // A forced turbulent field has both signs of vorticity, and the colour map shows them apart.
-    expect(a.red).toBeGreaterThan(0.05 * a.width * a.height);
-    expect(a.blue).toBeGreaterThan(0.05 * a.width * a.height);
-    // The backing store is the CSS box times devicePixelRatio, and the domain is square.
-    expect(a.width).toBe(Math.round(a.cssWidth * DPR));
-    expect(a.height).toBe(Math.round(a.cssHeight * DPR));
-    expect(a.cssWidth).toBe(a.cssHeight);
+  it('opens on the default scenario playing, with the caution shown', async () => {
+    const { page } = app;
+    await expect.poll(() => status(page)).toBe('playing');
+    await expect(page.getByTestId('not-a-forecast').innerText()).resolves.toMatch(/not a weather, ocean or climate forecast/);
+    await expect(page.getByTestId('not-a-forecast').innerText()).resolves.toMatch(/Stria's own/);
+    await expect(page.getByTestId('scenario').inputValue()).resolves.toBe('jets');
+  });
 
-    await waitForTime(page, a.time + 2);
-    const b = await sample(page);
-    expect(b.time).toBeGreaterThan(a.time);
-    expect(b.steps).toBeGreaterThan(a.steps);
-    expect(b.frames).toBeGreaterThan(a.frames);
+  it('draws u with both signs (the jets eastward, the flow between westward), in a backing store of CSS size × devicePixelRatio, and it moves on while playing', async () => {
+    const { page } = app;
+    await waitForSteps(page, 200);
+    const box = await plotBox(page);
+    const a = await plotSample(page, box);
+    // u has both signs, and the colour map shows them apart.
+    expect(a.red).toBeGreaterThan(0.05 * a.n);
+    expect(a.blue).toBeGreaterThan(0.05 * a.n);
+    const css = await page.locator(FIELD).evaluate((c: HTMLCanvasElement) => ({ w: c.clientWidth, h: c.clientHeight, bw: c.width, bh: c.height }));
+    expect(css.bw).toBe(Math.round(css.w * DPR));
+    expect(css.bh).toBe(Math.round(css.h * DPR));
+    // The domain is square, and so is the plot.
+    expect(box.w).toBe(box.h);
+
+    const frames = Number(await page.locator(FIELD).getAttribute('data-frames'));
+    const t = await modelTime(page);
+    await page.waitForFunction((t0) => Number(document.querySelector('[data-testid=model-time]')?.textContent) > t0 + 1, t, { timeout: 60_000 });
+    const b = await plotSample(page, box);
     expect(b.hash).not.toBe(a.hash);
-
-    await mkdir(resolve(SCREENSHOT, '..'), { recursive: true });
-    await page.screenshot({ path: SCREENSHOT, fullPage: true });
+    expect(Number(await page.locator(FIELD).getAttribute('data-frames'))).toBeGreaterThan(frames);
+    await screenshot(page, 'field.png');
   });
 
   it('pauses, steps once and plays again', async () => {
-    await page.getByTestId('pause').click();
-    await expect.poll(() => status(page)).toBe('paused');
-    const held = await sample(page);
-    await page.waitForTimeout(400);
-    const still = await sample(page);
-    expect(still.steps).toBe(held.steps);
-    expect(still.hash).toBe(held.hash);
-
+    const { page } = app;
+    await pause(page);
+    const held = await steps(page);
+    const still = await canvasSample(page, FIELD);
+    await page.waitForTimeout(300);
+    expect(await steps(page)).toBe(held);
+    expect((await canvasSample(page, FIELD)).hash).toBe(still.hash);
     await page.getByTestId('step').click();
-    await expect.poll(async () => (await sample(page)).steps).toBe(held.steps + 1);
-
-    await page.getByTestId('play').click();
+    await expect.poll(() => steps(page)).toBe(held + 1);
+    await page.getByTestId('play-pause').click();
     await expect.poll(() => status(page)).toBe('playing');
-    await waitForTime(page, still.time + 0.2);
+  });
+
+  it('runs until a given model time, then pauses there', async () => {
+    const { page } = app;
+    await pause(page);
+    const target = Math.ceil((await modelTime(page)) + 1);
+    await page.locator('#run-until').fill(String(target));
+    await page.getByTestId('run-until').click();
+    await expect.poll(() => status(page), { timeout: 60_000 }).toBe('paused');
+    const t = await modelTime(page);
+    expect(t).toBeGreaterThanOrEqual(target);
+    // It stopped at the first step past the target: less than one step (dt ≤ 0.02) beyond it.
+    expect(t - target).toBeLessThan(0.02);
+    await page.getByTestId('play-pause').click();
+    await expect.poll(() => status(page)).toBe('playing');
+  });
+
+  it('switches to ζ and to a fixed colour range', async () => {
+    const { page } = app;
+    await page.getByTestId('field-zeta').check();
+    await expect.poll(() => page.locator(FIELD).getAttribute('aria-label')).toMatch(/^ζ {2}relative vorticity/);
+    await page.getByTestId('range-fixed').check();
+    const fixed = Number(await page.locator(FIELD).getAttribute('data-range'));
+    expect(fixed).toBeGreaterThan(0);
+    await waitForSteps(page, (await steps(page)) + 20);
+    expect(Number(await page.locator(FIELD).getAttribute('data-range'))).toBe(fixed);
+    await screenshot(page, 'field-zeta-fixed.png');
+  });
+
+  it('exports the figure as a PNG file', async () => {
+    const { page } = app;
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('export-png').click()]);
+    expect(download.suggestedFilename()).toMatch(/^stria-zeta-t\d+\.\d\d\.png$/);
+    const bytes = await readFile(await download.path());
+    expect(Array.from(bytes.subarray(0, 8))).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+    // The PNG is the whole figure at device resolution: IHDR width and height follow the signature.
+    const css = await page.locator(FIELD).evaluate((c: HTMLCanvasElement) => [c.width, c.height]);
+    expect([bytes.readUInt32BE(16), bytes.readUInt32BE(20)]).toEqual(css);
+  });
+
+  it('records the field as a WebM video', async () => {
+    const { page } = app;
+    await page.getByTestId('record').click();
+    await waitForSteps(page, (await steps(page)) + 100);
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('record').click()]);
+    expect(download.suggestedFilename()).toMatch(/\.webm$/);
+    const bytes = await readFile(await download.path());
+    // Every WebM file starts with the EBML magic number.
+    expect(Array.from(bytes.subarray(0, 4))).toEqual([0x1a, 0x45, 0xdf, 0xa3]);
+    expect(bytes.length).toBeGreaterThan(1000);
   });
 
   it('ran without page errors or console warnings', () => {
-    expect(problems).toEqual([]);
+    expect(app.problems).toEqual([]);
   });
 });

@@ -1,24 +1,35 @@
 import { transfer, wrap, type Remote } from 'comlink';
+import type { Checkpoint } from '../lib/model/checkpoint';
+import type { FieldName } from '../lib/model/fields';
 import type { ModelParams } from '../lib/model/params';
-import type { SimulationApi, Snapshot } from '../workers/simulationApi';
+import type { ReconfigureResult, SimulationApi, Snapshot, SnapshotRequest } from '../workers/simulationApi';
+import { BudgetHistory } from './budgetHistory';
+import { RateMeter } from './rateMeter';
 
 /**
- * The UI's side of the simulation worker: it holds only the latest snapshot, never the model.
- * Snapshots are pulled once per animation frame at most (one request in flight, the next made from
- * requestAnimationFrame), and each snapshot's field buffer goes back to the worker once a newer one
- * has replaced it, so playing allocates no field arrays.
+ * The UI's side of the simulation worker: it holds only the latest snapshot and the budget history
+ * it was sent, never the model. Snapshots are pulled once per animation frame at most (one request in
+ * flight, the next made from requestAnimationFrame); the buffers of a replaced snapshot go back to the
+ * worker with the next request, so playing allocates no arrays.
  */
 export class SimulationClient {
-  /** The latest snapshot: raw state (its field array is never proxied), replaced whole. */
+  /** The latest snapshot: raw state (its arrays are never proxied), replaced whole. */
   snapshot = $state.raw<Snapshot | null>(null);
   /** Snapshots received so far: the signal views redraw on. */
   received = $state(0);
+  /** Bumped whenever the budget history changed (the history itself is not reactive). */
+  budgetVersion = $state(0);
+  stepsPerSecond = $state(0);
   error = $state<string | null>(null);
+  readonly budget = new BudgetHistory();
 
   private readonly worker: Worker;
   private readonly api: Remote<SimulationApi>;
-  private spare: Float64Array | null = null;
+  private readonly meter = new RateMeter();
+  private spareField: Float64Array | null = null;
+  private spareBudget: Float64Array | null = null;
   private frame = 0;
+  private pulling = false;
   private closed = false;
 
   constructor() {
@@ -27,20 +38,43 @@ export class SimulationClient {
     this.worker.addEventListener('error', (e) => this.fail(e.message || 'the simulation worker failed to start'));
   }
 
-  /** Build the model from `params` (completed with the defaults) and, when asked, start playing. */
+  /** Start a new run from `params` (validated by the caller) and, when asked, play it. */
   async start(params: Partial<ModelParams>, autoplay = true): Promise<void> {
-    try {
+    await this.guard(async () => {
       await this.api.init(params);
       if (autoplay) await this.api.play();
-      void this.pull(0);
-    } catch (e) {
-      this.fail(e);
-    }
+    });
+    this.ensurePulling();
   }
 
-  play = (): Promise<void> => this.api.play().catch((e: unknown) => this.fail(e));
-  pause = (): Promise<void> => this.api.pause().catch((e: unknown) => this.fail(e));
-  stepOnce = (): Promise<void> => this.api.stepOnce().then(() => undefined, (e: unknown) => this.fail(e));
+  /** Resume a saved run; plays when asked. Rejects (with the reason) when the worker refuses it. */
+  async restore(cp: Checkpoint, autoplay = false): Promise<void> {
+    await this.api.restore(transfer(cp, [cp.qHat.buffer]));
+    if (autoplay) await this.api.play();
+    this.error = null;
+    this.ensurePulling();
+  }
+
+  /** The current run from t = 0 with its current parameters and seed, playing if it was. */
+  reset = (): Promise<void> => {
+    const snap = this.snapshot;
+    return snap ? this.start(snap.params, snap.playing) : Promise.resolve();
+  };
+
+  play = (): Promise<void> => this.guard(() => this.api.play());
+  pause = (): Promise<void> => this.guard(() => this.api.pause());
+  stepOnce = (): Promise<void> => this.guard(async () => void (await this.api.stepOnce()));
+  runUntil = (time: number): Promise<void> => this.guard(() => this.api.runUntil(time));
+  togglePlay = (): Promise<void> => (this.snapshot?.playing ? this.pause() : this.play());
+  setField = (name: FieldName): Promise<void> => this.guard(() => this.api.setField(name));
+
+  reconfigure(changes: Partial<ModelParams>): Promise<ReconfigureResult> {
+    return this.api.reconfigure(changes);
+  }
+
+  checkpoint(): Promise<Checkpoint> {
+    return this.api.checkpoint();
+  }
 
   /** Stop pulling, release the model and end the worker. */
   dispose(): void {
@@ -49,24 +83,45 @@ export class SimulationClient {
     this.api.dispose().catch(() => undefined).finally(() => this.worker.terminate());
   }
 
+  private ensurePulling(): void {
+    if (this.pulling || this.closed) return;
+    this.pulling = true;
+    void this.pull(0);
+  }
+
   /** Wait for a snapshot newer than `after`, keep it, and ask again on the next frame. */
   private async pull(after: number): Promise<void> {
     if (this.closed) return;
-    const spare = this.spare;
-    this.spare = null;
+    const request: SnapshotRequest = { after };
+    const buffers: ArrayBuffer[] = [];
+    if (this.spareField) buffers.push((request.recycleField = this.spareField).buffer as ArrayBuffer);
+    if (this.spareBudget) buffers.push((request.recycleBudget = this.spareBudget).buffer as ArrayBuffer);
+    this.spareField = this.spareBudget = null;
     let snap: Snapshot;
     try {
-      snap = await (spare ? this.api.nextSnapshot(after, transfer(spare, [spare.buffer])) : this.api.nextSnapshot(after));
+      snap = await this.api.nextSnapshot(transfer(request, buffers));
     } catch (e) {
       if (!this.closed) this.fail(e);
+      this.pulling = false;
       return;
     }
     if (this.closed) return;
-    // The replaced snapshot has been drawn; its buffer can go back with the next request.
-    this.spare = this.snapshot?.zeta ?? null;
+    if (this.budget.ingest(snap.epoch, snap.budget)) this.budgetVersion++;
+    this.stepsPerSecond = snap.playing ? this.meter.sample(snap.steps, performance.now()) : 0;
+    // The replaced snapshot has been drawn; its buffers go back with the next request.
+    this.spareField = this.snapshot?.values ?? null;
+    this.spareBudget = snap.budget.data;
     this.snapshot = snap;
     this.received++;
     this.frame = requestAnimationFrame(() => void this.pull(snap.version));
+  }
+
+  private async guard(run: () => Promise<void>): Promise<void> {
+    try {
+      await run();
+    } catch (e) {
+      this.fail(e);
+    }
   }
 
   private fail(e: unknown): void {

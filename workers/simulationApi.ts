@@ -1,5 +1,9 @@
 import type { StepReport } from '../lib/model/budget';
+import type { Checkpoint } from '../lib/model/checkpoint';
+import type { FieldName } from '../lib/model/fields';
 import type { ModelParams } from '../lib/model/params';
+import type { ParamIssue } from '../lib/model/validateParams';
+import type { BudgetRows } from './budgetRows';
 
 /**
  * The verbs of the simulation worker. The UI imports these types only; the worker owns the model.
@@ -9,45 +13,87 @@ import type { ModelParams } from '../lib/model/params';
  *    requestAnimationFrame callback, so requests come no faster than frames;
  *  - the worker answers a request as soon as its state is newer than `after` (at once if it
  *    already is, else after the next step or slice of steps), so many steps coalesce into one reply;
- *  - the field buffer is transferred to the UI, and the UI hands a buffer it no longer needs back
- *    with a later request (`recycle`), so steady play allocates nothing on either side.
+ *  - each snapshot carries the selected field (`setField`) and the budget rows of every step taken
+ *    since the previous snapshot (see budgetRows.ts), both transferred; the UI hands buffers it no
+ *    longer needs back with a later request, so steady play allocates nothing on either side.
  */
 export interface SimulationApi {
   /** Build a new model (parameters completed with the defaults and validated; throws ParamError). Leaves it paused. */
   init(params: Partial<ModelParams>): Promise<InitInfo>;
   /** Step continuously, in slices that leave room for messages, until `pause` or a blow-up. */
   play(): Promise<void>;
+  /** Stop stepping (also cancels a `runUntil`). */
   pause(): Promise<void>;
   /** Pause, then advance one step; returns its report. */
   stepOnce(): Promise<StepReport>;
-  /** The next snapshot whose `version` exceeds `after` (see the protocol above). */
-  nextSnapshot(after: number, recycle?: Float64Array): Promise<Snapshot>;
+  /** Play until the model time reaches `time` (the first step ending at or after it), then pause. */
+  runUntil(time: number): Promise<void>;
+  /**
+   * Change parameters without stopping: physical ones in place; a new grid carries the state over,
+   * truncated or padded; a new domain starts afresh. Refused changes leave the run as it was.
+   */
+  reconfigure(changes: Partial<ModelParams>): Promise<ReconfigureResult>;
+  /** Which field the snapshots carry (u by default); answers a waiting request with it at once. */
+  setField(name: FieldName): Promise<void>;
+  /** Everything needed to resume bit for bit; its spectrum is a copy, transferred. */
+  checkpoint(): Promise<Checkpoint>;
+  /** Replace the run by one resumed from a checkpoint (throws on a bad one). Leaves it paused. */
+  restore(cp: Checkpoint): Promise<InitInfo>;
+  /** The next snapshot whose `version` exceeds `request.after` (see the protocol above). */
+  nextSnapshot(request: SnapshotRequest): Promise<Snapshot>;
   /** Stop stepping, drop the model and answer nothing more; call before terminating the worker. */
   dispose(): Promise<void>;
 }
 
-/** What `init` settled on. */
+/** What `init` or `restore` settled on. */
 export interface InitInfo {
   params: ModelParams;
   /** Independent forced modes on the annulus (0 for unforced runs). */
   forcedModes: number;
 }
 
+/**
+ * How a reconfiguration went: refused with the reason per field, or applied as `inPlace` (same
+ * state, time and random stream), `regrid` (state carried to the new grid) or `fresh` (new domain:
+ * a new run from t = 0).
+ */
+export type ReconfigureResult = { applied: true; how: 'inPlace' | 'regrid' | 'fresh'; params: ModelParams } | { applied: false; issues: ParamIssue[] };
+
+export interface SnapshotRequest {
+  after: number;
+  /** A field buffer of an earlier snapshot, for reuse (transferred back). */
+  recycleField?: Float64Array;
+  /** A budget-row buffer of an earlier snapshot, for reuse (transferred back). */
+  recycleBudget?: Float64Array;
+}
+
 /** One view of the model state, sent by transfer. */
 export interface Snapshot {
-  /** Increases with every change of state (steps, a new model, a stop); starts at 1 after `init`. */
+  /** Increases with every change of what a snapshot shows (steps, parameters, field, a new run, a stop); 1 after the first `init`. */
   version: number;
-  /** Relative vorticity ζ on the grid (model units, 1/time), row-major with y slow: ζ[jy·nx + ix]. */
-  zeta: Float64Array;
+  /** Increases with every new run (init, restore, a new domain); budget history restarts with it. */
+  epoch: number;
+  /** The field in `values`. */
+  field: FieldName;
+  /** That field on the grid (model units), row-major with y slow: values[jy·nx + ix]. */
+  values: Float64Array;
   nx: number;
   ny: number;
   Lx: number;
   Ly: number;
+  /** The parameters in force. */
+  params: ModelParams;
   time: number;
   steps: number;
   /** The report of the last step (all zeros before the first step). */
   report: StepReport;
+  /** Budget rows of the steps since the previous snapshot, oldest first. */
+  budget: BudgetRows;
+  /** Fingerprint of the state's bits (stateChecksum.ts). */
+  checksum: string;
   playing: boolean;
+  /** The model time a `runUntil` is heading for, or null. */
+  until: number | null;
   /** Why the run stopped (a blow-up), or null while it can go on. */
   stopped: string | null;
 }

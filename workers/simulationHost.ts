@@ -1,9 +1,14 @@
 import { transfer } from 'comlink';
 import { copyReport, type StepReport } from '../lib/model/budget';
+import type { Checkpoint } from '../lib/model/checkpoint';
+import type { FieldName } from '../lib/model/fields';
 import { Model } from '../lib/model/model';
 import type { ModelParams } from '../lib/model/params';
+import { ParamError, validateParams } from '../lib/model/validateParams';
+import { BudgetRowBuffer } from './budgetRows';
 import { macrotask } from './macrotask';
-import type { InitInfo, SimulationApi, Snapshot } from './simulationApi';
+import type { InitInfo, ReconfigureResult, SimulationApi, Snapshot, SnapshotRequest } from './simulationApi';
+import { stateChecksum } from './stateChecksum';
 
 /** Stepping time per slice before the host yields to its message queue (ms): short enough that
  * pause and snapshot requests are answered within a frame, long enough that yielding costs little. */
@@ -22,26 +27,31 @@ interface PendingRequest {
 export class SimulationHost implements SimulationApi {
   private model: Model | null = null;
   private playing = false;
+  private until: number | null = null;
   private stopped: string | null = null;
   private version = 0;
+  private epoch = 0;
+  /** The opening field is u: eastward jets show directly as bands of u > 0. */
+  private field: FieldName = 'u';
   private pending: PendingRequest | null = null;
   /** A field buffer handed back by the UI, reused for the next snapshot. */
-  private spare: Float64Array | null = null;
+  private spareField: Float64Array | null = null;
+  private spareBudget: Float64Array | null = null;
+  private readonly rows = new BudgetRowBuffer();
   /** The next slice of play, queued behind whatever messages are waiting. */
   private readonly nextSlice = macrotask(() => this.slice());
 
   async init(params: Partial<ModelParams>): Promise<InitInfo> {
-    const model = new Model({ ...params });
-    this.model = model;
-    this.playing = false;
-    this.stopped = null;
-    this.spare = null;
-    this.changed();
-    return { params: { ...model.params }, forcedModes: model.forcedModes };
+    return this.begin(new Model({ ...params }));
+  }
+
+  async restore(cp: Checkpoint): Promise<InitInfo> {
+    return this.begin(Model.restore(cp));
   }
 
   async play(): Promise<void> {
     this.requireModel();
+    this.until = null;
     if (this.stopped !== null || this.playing) return;
     this.playing = true;
     this.changed();
@@ -49,24 +59,67 @@ export class SimulationHost implements SimulationApi {
   }
 
   async pause(): Promise<void> {
-    if (!this.playing) return;
+    const was = this.playing;
     this.playing = false;
-    this.changed();
+    this.until = null;
+    if (was) this.changed();
   }
 
   async stepOnce(): Promise<StepReport> {
     const model = this.requireModel();
     this.playing = false;
-    if (this.stopped === null) this.advance(() => model.step(1));
+    this.until = null;
+    if (this.stopped === null) this.advance(() => this.stepAndRecord(model));
     this.changed();
     return copyReport(model.report);
   }
 
-  nextSnapshot(after: number, recycle?: Float64Array): Promise<Snapshot> {
-    if (recycle) this.spare = recycle;
+  async runUntil(time: number): Promise<void> {
+    const model = this.requireModel();
+    if (!Number.isFinite(time)) throw new RangeError(`runUntil: the time must be a finite number, got ${time}`);
+    if (model.time >= time || this.stopped !== null) return;
+    this.until = time;
+    this.playing = true;
+    this.changed();
+    this.nextSlice.queue();
+  }
+
+  async reconfigure(changes: Partial<ModelParams>): Promise<ReconfigureResult> {
+    const model = this.requireModel();
+    try {
+      validateParams({ ...model.params, ...changes });
+    } catch (e) {
+      if (e instanceof ParamError) return { applied: false, issues: e.issues };
+      throw e;
+    }
+    const old = model.params;
+    const next = model.reconfigure(changes);
+    const how = next === model ? 'inPlace' : next.params.Lx !== old.Lx || next.params.Ly !== old.Ly ? 'fresh' : 'regrid';
+    if (how === 'fresh') this.newEpoch();
+    this.model = next;
+    // New parameters may well cure a blow-up (a smaller dt, more hyperviscosity): let it try again.
+    this.stopped = null;
+    this.changed();
+    return { applied: true, how, params: { ...next.params } };
+  }
+
+  async setField(name: FieldName): Promise<void> {
+    if (name === this.field) return;
+    this.field = name;
+    this.changed();
+  }
+
+  async checkpoint(): Promise<Checkpoint> {
+    const cp = this.requireModel().checkpoint();
+    return transfer(cp, [cp.qHat.buffer]);
+  }
+
+  nextSnapshot(request: SnapshotRequest): Promise<Snapshot> {
+    if (request.recycleField) this.spareField = request.recycleField;
+    if (request.recycleBudget) this.spareBudget = request.recycleBudget;
     if (this.pending) return Promise.reject(new Error('nextSnapshot: a request is already waiting; keep one in flight'));
     return new Promise<Snapshot>((resolve, reject) => {
-      this.pending = { after, resolve, reject };
+      this.pending = { after: request.after, resolve, reject };
       this.answer();
     });
   }
@@ -80,15 +133,40 @@ export class SimulationHost implements SimulationApi {
     p?.reject(new Error('simulation disposed'));
   }
 
-  /** One slice of continuous play: step until the slice time is used, then publish and yield. */
+  private begin(model: Model): InitInfo {
+    this.model = model;
+    this.playing = false;
+    this.until = null;
+    this.stopped = null;
+    this.newEpoch();
+    this.changed();
+    return { params: { ...model.params }, forcedModes: model.forcedModes };
+  }
+
+  private newEpoch(): void {
+    this.epoch++;
+    this.rows.clear();
+  }
+
+  private stepAndRecord(model: Model): void {
+    model.step(1);
+    this.rows.push(model.report);
+  }
+
+  /** One slice of continuous play: step until the slice time is used (or the target time is reached), then publish and yield. */
   private slice(): void {
     const model = this.model;
     if (!this.playing || !model) return;
     const t0 = performance.now();
+    const until = this.until;
     this.advance(() => {
-      do model.step(1);
-      while (performance.now() - t0 < SLICE_MS);
+      do this.stepAndRecord(model);
+      while (performance.now() - t0 < SLICE_MS && (until === null || model.time < until));
     });
+    if (until !== null && model.time >= until) {
+      this.playing = false;
+      this.until = null;
+    }
     this.changed();
     if (this.playing) this.nextSlice.queue();
   }
@@ -99,6 +177,7 @@ export class SimulationHost implements SimulationApi {
       run();
     } catch (e) {
       this.playing = false;
+      this.until = null;
       this.stopped = e instanceof Error ? e.message : String(e);
     }
   }
@@ -117,26 +196,34 @@ export class SimulationHost implements SimulationApi {
     p.resolve(this.snapshot(model));
   }
 
-  /** Fill a field buffer (the spare when it fits) and mark it for transfer, not copy. */
+  /** Fill a field buffer (the spare when it fits), hand over the budget rows, and mark both for transfer. */
   private snapshot(model: Model): Snapshot {
     const { nx, ny, Lx, Ly } = model.params;
-    const zeta = this.spare && this.spare.length === nx * ny ? this.spare : new Float64Array(nx * ny);
-    this.spare = null;
-    model.field('zeta', zeta);
+    const values = this.spareField && this.spareField.length === nx * ny ? this.spareField : new Float64Array(nx * ny);
+    this.spareField = null;
+    model.field(this.field, values);
+    const budget = this.rows.take(this.spareBudget);
+    this.spareBudget = null;
     const snap: Snapshot = {
       version: this.version,
-      zeta,
+      epoch: this.epoch,
+      field: this.field,
+      values,
       nx,
       ny,
       Lx,
       Ly,
+      params: { ...model.params },
       time: model.time,
       steps: model.steps,
       report: copyReport(model.report),
+      budget,
+      checksum: stateChecksum(model.qHat),
       playing: this.playing,
+      until: this.until,
       stopped: this.stopped,
     };
-    return transfer(snap, [zeta.buffer]);
+    return transfer(snap, [values.buffer, budget.data.buffer]);
   }
 
   private requireModel(): Model {

@@ -1,6 +1,9 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { Model } from '../../lib/model/model';
+import { BUDGET_ROW_WIDTH } from '../../workers/budgetRows';
+import type { Snapshot } from '../../workers/simulationApi';
 import { SimulationHost } from '../../workers/simulationHost';
+import { stateChecksum } from '../../workers/stateChecksum';
 
 // A small grid with the forcing annulus inside its dealiased range, so each step takes well under 1 ms.
 const SMALL = { nx: 32, ny: 32, kf: 6, dkf: 1 };
@@ -18,11 +21,11 @@ describe('SimulationHost', () => {
     const info = await host.init(SMALL);
     expect(info.params.nx).toBe(32);
     expect(info.forcedModes).toBeGreaterThan(0);
-    const s = await host.nextSnapshot(0);
+    const s = await host.nextSnapshot({ after: 0 });
     expect(s.version).toBe(1);
     expect([s.nx, s.ny, s.steps, s.time]).toEqual([32, 32, 0, 0]);
-    expect(s.zeta).toBeInstanceOf(Float64Array);
-    expect(s.zeta.length).toBe(32 * 32);
+    expect(s.values).toBeInstanceOf(Float64Array);
+    expect(s.values.length).toBe(32 * 32);
     expect(s.playing).toBe(false);
     expect(s.stopped).toBeNull();
   });
@@ -30,9 +33,9 @@ describe('SimulationHost', () => {
   it('waits for a change, then sends the same bits as a model stepped directly', async () => {
     host = new SimulationHost();
     await host.init(SMALL);
-    const first = await host.nextSnapshot(0);
+    const first = await host.nextSnapshot({ after: 0 });
     let answered = false;
-    const next = host.nextSnapshot(first.version).then((s) => ((answered = true), s));
+    const next = host.nextSnapshot({ after: first.version }).then((s) => ((answered = true), s));
     await sleep(20);
     expect(answered).toBe(false);
     const report = await host.stepOnce();
@@ -41,14 +44,14 @@ describe('SimulationHost', () => {
     expect(report.steps).toBe(s.report.steps);
     const direct = new Model(SMALL);
     direct.step(1);
-    expect(Array.from(s.zeta)).toEqual(Array.from(direct.field('zeta')));
+    expect(Array.from(s.values)).toEqual(Array.from(direct.field('u')));
     expect(s.report.time).toBe(direct.report.time);
   });
 
   it('coalesces many steps of play into one snapshot per request, and pause holds the state', async () => {
     host = new SimulationHost();
     await host.init(SMALL);
-    const s0 = await host.nextSnapshot(0);
+    const s0 = await host.nextSnapshot({ after: 0 });
     await host.play();
     // Ask at a frame-like pace until the run is well under way; replies cover many steps each
     // (no wall-clock bound, so a busy machine only makes this slower, never wrong).
@@ -56,7 +59,7 @@ describe('SimulationHost', () => {
     let widest = 0;
     for (let i = 0; i < 400 && s1.steps <= 20; i++) {
       await sleep(25);
-      const next = await host.nextSnapshot(s1.version);
+      const next = await host.nextSnapshot({ after: s1.version });
       widest = Math.max(widest, next.steps - s1.steps);
       s1 = next;
     }
@@ -65,10 +68,10 @@ describe('SimulationHost', () => {
     expect(widest).toBeGreaterThan(1);
     expect(s1.time).toBeGreaterThan(0);
     await host.pause();
-    const paused = await host.nextSnapshot(s1.version);
+    const paused = await host.nextSnapshot({ after: s1.version });
     expect(paused.playing).toBe(false);
     await sleep(50);
-    const later = host.nextSnapshot(paused.version);
+    const later = host.nextSnapshot({ after: paused.version });
     let answered = false;
     void later.then(() => (answered = true));
     await sleep(50);
@@ -80,9 +83,9 @@ describe('SimulationHost', () => {
   it('refuses a second request while one is waiting', async () => {
     host = new SimulationHost();
     await host.init(SMALL);
-    const s = await host.nextSnapshot(0);
-    const waiting = host.nextSnapshot(s.version);
-    await expect(host.nextSnapshot(s.version)).rejects.toThrow(/already waiting/);
+    const s = await host.nextSnapshot({ after: 0 });
+    const waiting = host.nextSnapshot({ after: s.version });
+    await expect(host.nextSnapshot({ after: s.version })).rejects.toThrow(/already waiting/);
     await host.stepOnce();
     expect((await waiting).steps).toBe(1);
   });
@@ -90,28 +93,28 @@ describe('SimulationHost', () => {
   it('fills a recycled buffer instead of allocating one', async () => {
     host = new SimulationHost();
     await host.init(SMALL);
-    const s0 = await host.nextSnapshot(0);
+    const s0 = await host.nextSnapshot({ after: 0 });
     await host.stepOnce();
-    const s1 = await host.nextSnapshot(s0.version, s0.zeta);
-    expect(s1.zeta).toBe(s0.zeta);
+    const s1 = await host.nextSnapshot({ after: s0.version, recycleField: s0.values });
+    expect(s1.values).toBe(s0.values);
     // A buffer of the wrong size is not used.
     await host.stepOnce();
-    const s2 = await host.nextSnapshot(s1.version, new Float64Array(7));
-    expect(s2.zeta.length).toBe(32 * 32);
+    const s2 = await host.nextSnapshot({ after: s1.version, recycleField: new Float64Array(7) });
+    expect(s2.values.length).toBe(32 * 32);
   });
 
   it('stops on a blow-up, keeps the last good state and will not play on', async () => {
     host = new SimulationHost();
     // A fixed step far above the CFL limit for an energetic start: the first step is refused.
     await host.init({ ...SMALL, init_energy: 100, cfl: 0, dt: 1 });
-    const s0 = await host.nextSnapshot(0);
+    const s0 = await host.nextSnapshot({ after: 0 });
     await host.stepOnce();
-    const s1 = await host.nextSnapshot(s0.version);
+    const s1 = await host.nextSnapshot({ after: s0.version });
     expect(s1.stopped).toMatch(/CFL/);
     expect(s1.steps).toBe(0);
-    expect(Array.from(s1.zeta)).toEqual(Array.from(s0.zeta));
+    expect(Array.from(s1.values)).toEqual(Array.from(s0.values));
     await host.play();
-    const s2 = await host.nextSnapshot(0);
+    const s2 = await host.nextSnapshot({ after: 0 });
     expect(s2.playing).toBe(false);
   });
 
@@ -124,12 +127,119 @@ describe('SimulationHost', () => {
 
   it('answers a request made before init once the model exists, and rejects it on dispose otherwise', async () => {
     host = new SimulationHost();
-    const early = host.nextSnapshot(0);
+    const early = host.nextSnapshot({ after: 0 });
     await host.init(SMALL);
     expect((await early).version).toBe(1);
-    const s = await host.nextSnapshot(0);
-    const orphan = host.nextSnapshot(s.version);
+    const s = await host.nextSnapshot({ after: 0 });
+    const orphan = host.nextSnapshot({ after: s.version });
     await host.dispose();
     await expect(orphan).rejects.toThrow(/disposed/);
+  });
+
+  it('sends one budget row per step since the last snapshot, and the checksum of the state', async () => {
+    host = new SimulationHost();
+    await host.init(SMALL);
+    const s0 = await host.nextSnapshot({ after: 0 });
+    expect(s0.budget.rows).toBe(0);
+    for (let i = 0; i < 3; i++) await host.stepOnce();
+    const s1 = await host.nextSnapshot({ after: s0.version });
+    expect(s1.budget.rows).toBe(3);
+    const direct = new Model(SMALL);
+    const times: number[] = [];
+    for (let i = 0; i < 3; i++) times.push(direct.step(1).time);
+    expect(Array.from({ length: 3 }, (_, i) => s1.budget.data[i * BUDGET_ROW_WIDTH])).toEqual(times);
+    expect(s1.checksum).toBe(stateChecksum(direct.qHat));
+    expect(s1.checksum).not.toBe(s0.checksum);
+    // Rows already sent are not sent again.
+    await host.stepOnce();
+    expect((await host.nextSnapshot({ after: s1.version, recycleBudget: s1.budget.data })).budget.rows).toBe(1);
+  });
+
+  it('carries the selected field, switching at once even while paused', async () => {
+    host = new SimulationHost();
+    await host.init(SMALL);
+    await host.stepOnce();
+    const s0 = await host.nextSnapshot({ after: 0 });
+    expect(s0.field).toBe('u');
+    await host.setField('zeta');
+    const s1 = await host.nextSnapshot({ after: s0.version });
+    expect(s1.field).toBe('zeta');
+    const direct = new Model(SMALL);
+    direct.step(1);
+    expect(Array.from(s1.values)).toEqual(Array.from(direct.field('zeta')));
+  });
+
+  it('runs until a model time, then pauses there', async () => {
+    host = new SimulationHost();
+    const info = await host.init(SMALL);
+    const target = 40 * info.params.dt;
+    await host.runUntil(target);
+    let s = await host.nextSnapshot({ after: 0 });
+    while (s.playing) s = await host.nextSnapshot({ after: s.version });
+    expect(s.until).toBeNull();
+    expect(s.time).toBeGreaterThanOrEqual(target);
+    // It stopped on the first step that reached the target.
+    expect(s.time - s.report.dt).toBeLessThan(target);
+  });
+
+  it('changes physical parameters in place, keeping time, state and random stream', async () => {
+    host = new SimulationHost();
+    await host.init(SMALL);
+    for (let i = 0; i < 3; i++) await host.stepOnce();
+    const r = await host.reconfigure({ mu: 0.05, beta: 3 });
+    expect(r).toMatchObject({ applied: true, how: 'inPlace' });
+    await host.stepOnce();
+    const s = await host.nextSnapshot({ after: 0 });
+    expect([s.steps, s.params.mu, s.params.beta]).toEqual([4, 0.05, 3]);
+    const direct = new Model(SMALL);
+    direct.step(3);
+    direct.reconfigure({ mu: 0.05, beta: 3 }).step(1);
+    expect(s.checksum).toBe(stateChecksum(direct.qHat));
+  });
+
+  it('carries the state to a new grid, and starts afresh on a new domain (a new epoch)', async () => {
+    host = new SimulationHost();
+    await host.init(SMALL);
+    for (let i = 0; i < 2; i++) await host.stepOnce();
+    const s0 = await host.nextSnapshot({ after: 0 });
+    expect(await host.reconfigure({ nx: 64, ny: 64 })).toMatchObject({ applied: true, how: 'regrid' });
+    const s1 = await host.nextSnapshot({ after: s0.version });
+    expect([s1.nx, s1.ny, s1.steps, s1.epoch]).toEqual([64, 64, 2, s0.epoch]);
+    expect(s1.values.length).toBe(64 * 64);
+    expect(await host.reconfigure({ Lx: 4 })).toMatchObject({ applied: true, how: 'fresh' });
+    const s2 = await host.nextSnapshot({ after: s1.version });
+    expect([s2.steps, s2.Lx, s2.epoch]).toEqual([0, 4, s0.epoch + 1]);
+  });
+
+  it('refuses a bad change with the field named and goes on playing unchanged', async () => {
+    host = new SimulationHost();
+    await host.init(SMALL);
+    await host.play();
+    const r = await host.reconfigure({ nu_order: 0 });
+    expect(r.applied).toBe(false);
+    if (!r.applied) expect(r.issues.map((i) => i.field)).toEqual(['nu_order']);
+    const grid = await host.reconfigure({ nx: 32, kf: 12 });
+    expect(grid.applied).toBe(false);
+    if (!grid.applied) expect(grid.issues[0].message).toMatch(/dealiased range/);
+    let s: Snapshot = await host.nextSnapshot({ after: 0 });
+    while (s.steps < 3) s = await host.nextSnapshot({ after: s.version });
+    expect(s.playing).toBe(true);
+    expect(s.params.nu_order).toBe(4);
+  });
+
+  it('checkpoints and restores: the restored run steps on with the same bits', async () => {
+    host = new SimulationHost();
+    await host.init(SMALL);
+    for (let i = 0; i < 3; i++) await host.stepOnce();
+    const cp = await host.checkpoint();
+    for (let i = 0; i < 2; i++) await host.stepOnce();
+    const ahead = await host.nextSnapshot({ after: 0 });
+    const info = await host.restore(cp);
+    expect(info.params).toEqual(cp.params);
+    const back = await host.nextSnapshot({ after: ahead.version });
+    expect([back.steps, back.epoch, back.playing]).toEqual([3, ahead.epoch + 1, false]);
+    for (let i = 0; i < 2; i++) await host.stepOnce();
+    const again = await host.nextSnapshot({ after: back.version });
+    expect(again.checksum).toBe(ahead.checksum);
   });
 });

@@ -1,0 +1,92 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launchChromium, type BrowserSession } from './support/browser';
+import { openApp, readText, screenshot, status, steps, waitForSteps, type AppPage } from './support/app';
+
+describe('Parameter controls in Chromium', () => {
+  let session: BrowserSession;
+  let app: AppPage;
+
+  beforeAll(async () => {
+    session = await launchChromium({ width: 1300, height: 1000 });
+    app = await openApp(session);
+  });
+
+  afterAll(async () => {
+    await session?.close();
+  });
+
+  it('refuses an out-of-range entry at the field with the reason, and the run goes on unchanged', async () => {
+    const { page } = app;
+    await waitForSteps(page, 20);
+    const mu = page.locator('#param-mu');
+    await mu.fill('-1');
+    await mu.press('Enter');
+    const error = page.getByTestId('error-mu');
+    await expect(error.innerText()).resolves.toMatch(/linear drag μ.*≥ 0/);
+    await expect(error.innerText()).resolves.toMatch(/the run goes on with μ = 0\.02/);
+    await expect(mu.getAttribute('aria-invalid')).resolves.toBe('true');
+    const n = await steps(page);
+    await waitForSteps(page, n + 20);
+    expect(await status(page)).toBe('playing');
+    await screenshot(page, 'invalid-input.png');
+    // Esc takes the entry back to the value in force.
+    await mu.press('Escape');
+    await expect(mu.inputValue()).resolves.toBe('0.02');
+    await expect.poll(() => error.count()).toBe(0);
+  });
+
+  it('refuses text that is not a number, and a grid too coarse for the forcing, naming the reason', async () => {
+    const { page } = app;
+    const beta = page.locator('#param-beta');
+    await beta.fill('strong');
+    await beta.press('Enter');
+    await expect(page.getByTestId('error-beta').innerText()).resolves.toMatch(/“strong” is not a number/);
+    await beta.press('Escape');
+    await page.locator('#param-nx').selectOption('32');
+    await expect(page.getByTestId('error-nx').innerText()).resolves.toMatch(/kf: forcing annulus .* dealiased range/);
+    const n = await steps(page);
+    await waitForSteps(page, n + 20);
+    await page.locator('#param-nx').selectOption('128');
+    await expect.poll(() => page.getByTestId('error-nx').count()).toBe(0);
+  });
+
+  it('changes β mid-run without a restart, and the link follows', async () => {
+    const { page } = app;
+    const before = await steps(page);
+    const beta = page.locator('#param-beta');
+    await beta.fill('30');
+    await beta.press('Enter');
+    await expect.poll(() => page.evaluate(() => location.hash)).toMatch(/beta=30/);
+    await expect(beta.inputValue()).resolves.toBe('30');
+    await expect(page.getByTestId('error-beta').count()).resolves.toBe(0);
+    // The step count goes on from where it was: the state was kept.
+    expect(await steps(page)).toBeGreaterThanOrEqual(before);
+    await expect(page.getByTestId('scenario').inputValue()).resolves.toBe('');
+    await expect(readText(page, 'scenario-description')).resolves.toMatch(/changed from a scenario/);
+  });
+
+  it('moves the run to a finer grid, carrying the state over', async () => {
+    const { page } = app;
+    const before = await steps(page);
+    await page.locator('#param-nx').selectOption('256');
+    await expect(readText(page, 'param-notice')).resolves.toMatch(/New grid 256 × 128: the run goes on/);
+    expect(await steps(page)).toBeGreaterThanOrEqual(before);
+    await waitForSteps(page, before + 10);
+    await expect(page.locator('[data-testid=field-canvas]').getAttribute('aria-label')).resolves.toMatch(/zonal velocity/);
+  });
+
+  it('starts another scenario from its picker', async () => {
+    const { page } = app;
+    await page.getByTestId('scenario').selectOption('few-jets');
+    await expect.poll(() => page.locator('#param-beta').inputValue()).toBe('18');
+    await expect(readText(page, 'scenario-description')).resolves.toMatch(/fewer, broader/);
+    await expect.poll(() => page.evaluate(() => location.hash)).toMatch(/beta=18/);
+    const n = await steps(page);
+    await waitForSteps(page, n + 10);
+    expect(await status(page)).toBe('playing');
+  });
+
+  it('ran without page errors or console warnings', () => {
+    expect(app.problems).toEqual([]);
+  });
+});

@@ -1,0 +1,43 @@
+import type { ModelParams } from '../../lib/model/params';
+import { ParamError, validateParams, type ParamIssue } from '../../lib/model/validateParams';
+
+/** The refused fields of a change, as one sentence; the edited field's own issues need no name. */
+export function describeIssues(issues: readonly ParamIssue[], edited: string): string {
+  return issues.map((i) => (i.field === edited ? i.message : `${i.field}: ${i.message}`)).join('; ');
+}
+
+/**
+ * Why `changes` would be refused on top of `params` (validateParams is the judge), or null when
+ * they are fine. Checked in the UI so that a bad entry is answered at the field at once; the worker
+ * checks again before it applies anything.
+ */
+export function refusalOf(params: ModelParams, changes: Partial<ModelParams>): ParamIssue[] | null {
+  try {
+    validateParams({ ...params, ...changes });
+    return null;
+  } catch (e) {
+    if (e instanceof ParamError) return e.issues;
+    throw e;
+  }
+}
+
+/**
+ * Read a number typed into a field: plain or exponent notation, optionally a multiple of π
+ * ("2π", "2pi", "π"), since domain sizes are mostly multiples of 2π. Nothing else.
+ */
+export function parseNumber(text: string): number | null {
+  const t = text.trim();
+  const pi = /^(.*?)\s*(π|pi)$/i.exec(t);
+  const body = pi ? pi[1] : t;
+  if (pi && body === '') return Math.PI;
+  if (!/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(body)) return null;
+  const x = Number(body) * (pi ? Math.PI : 1);
+  return Number.isFinite(x) ? x : null;
+}
+
+/** A parameter value for a field: exact multiples of π (to three decimals) as such, else the shortest exact form. */
+export function formatNumber(x: number): string {
+  const m = Math.round((x / Math.PI) * 1000) / 1000;
+  if (m !== 0 && !Number.isInteger(x) && m * Math.PI === x) return m === 1 ? 'π' : `${m}π`;
+  return String(x);
+}

@@ -1,0 +1,59 @@
+import { DEFAULT_PARAMS, type ModelParams } from '../../lib/model/params';
+import { ParamError, validateParams } from '../../lib/model/validateParams';
+
+/** Version of the link format; a link of another version is refused with a message. */
+export const LINK_VERSION = 1;
+
+/**
+ * The URL hash of a run: `v=1` and every parameter that differs from the model defaults, as
+ * `key=value` pairs (numbers in JavaScript's shortest round-trip form, so they read back to the same
+ * bits). Same parameters and seed reproduce the same run, step for step, from t = 0.
+ */
+export function encodeRunLink(params: ModelParams): string {
+  const q = new URLSearchParams({ v: String(LINK_VERSION) });
+  for (const key of Object.keys(DEFAULT_PARAMS) as (keyof ModelParams)[]) {
+    if (params[key] !== DEFAULT_PARAMS[key]) q.set(key, String(params[key]));
+  }
+  return q.toString();
+}
+
+export type LinkReading = { kind: 'none' } | { kind: 'run'; params: ModelParams } | { kind: 'bad'; message: string };
+
+/**
+ * Read a URL hash (with or without the leading '#'): no run in it, a run's parameters (validated by
+ * validateParams), or why it cannot be used, naming the bad entries.
+ */
+export function decodeRunLink(hash: string): LinkReading {
+  const text = hash.startsWith('#') ? hash.slice(1) : hash;
+  if (text.trim() === '') return { kind: 'none' };
+  const q = new URLSearchParams(text);
+  const version = q.get('v');
+  if (version !== String(LINK_VERSION)) {
+    return { kind: 'bad', message: version === null ? 'the link has no version (v=…)' : `link version ${version} is not one this Stria reads (${LINK_VERSION})` };
+  }
+  const input: Record<string, unknown> = {};
+  const problems: string[] = [];
+  for (const [key, raw] of q) {
+    if (key === 'v') continue;
+    if (!(key in DEFAULT_PARAMS)) {
+      problems.push(`“${key}” is not a parameter`);
+      continue;
+    }
+    const kind = typeof DEFAULT_PARAMS[key as keyof ModelParams];
+    if (kind === 'number') {
+      const x = raw.trim() === '' ? NaN : Number(raw);
+      if (Number.isNaN(x)) problems.push(`${key} = “${raw}” is not a number`);
+      else input[key] = x;
+    } else if (kind === 'boolean') {
+      if (raw !== 'true' && raw !== 'false') problems.push(`${key} = “${raw}” must be true or false`);
+      else input[key] = raw === 'true';
+    } else input[key] = raw;
+  }
+  if (problems.length) return { kind: 'bad', message: problems.join('; ') };
+  try {
+    return { kind: 'run', params: validateParams(input) };
+  } catch (e) {
+    if (e instanceof ParamError) return { kind: 'bad', message: e.message };
+    throw e;
+  }
+}
