@@ -1,0 +1,97 @@
+import { writeFileSync } from 'node:fs';
+import { extname } from 'node:path';
+import type { RunSummary } from '../../lib/analysis/summary';
+import { Model } from '../../lib/model/model';
+import { BlowUpError } from '../../lib/model/stepper';
+import { analysePlan, type PlanAnalysis } from '../../lib/plan/analysePlan';
+import type { MatchedRun } from '../../lib/plan/matchedRun';
+import { PlanInputError } from '../../lib/plan/planInput';
+import { PLAN_PRESETS } from '../../lib/plan/planPresets';
+import { planReportHtml, planReportMarkdown } from '../../lib/plan/planReport';
+import { MonitoredRun } from '../../lib/sweep/monitoredRun';
+import { resolveRunPlan } from '../../lib/sweep/runPlan';
+import { UsageError, type OptionSpec, type ParsedArgs } from '../args';
+import { EXIT_FAILED, EXIT_INTERRUPTED, EXIT_OK, type Command, type CommandIO } from '../command';
+import { planInputFrom } from '../planInputArgs';
+import { planJson, planText } from '../planOutput';
+import { Breather } from '../breather';
+import { ProgressBar } from '../progressBar';
+
+const options: OptionSpec[] = [
+  { name: 'preset', kind: 'text', value: 'ID', help: `start from a plan preset: ${PLAN_PRESETS.map((p) => p.id).join(', ')}` },
+  { name: 'set', kind: 'list', value: 'PATH=VALUE', help: 'set a field of the plan input (repeatable), e.g. drive.eps=0.02,\ngrid.nx=512, rotation.latitudeDeg=30; setting a kind clears its part' },
+  { name: 'json', kind: 'flag', help: 'print the predictions, checks, cost and matched run as JSON' },
+  { name: 'matched', kind: 'flag', help: 'also run the matched cheap run and print its measured summary\nbeside its predictions' },
+  { name: 'target-seconds', kind: 'number', value: 'S', help: 'wall-time target of the matched run (default 600)' },
+  { name: 'report', kind: 'text', value: 'FILE', help: 'write the printable plan report: FILE.md (Markdown) or FILE.html' },
+];
+
+export const planCommand: Command = {
+  name: 'plan',
+  summary: 'what a planned run will give: predictions, checks, cost, and a matched cheap run',
+  usage: 'stria plan [PLANFILE | --preset ID] [--set PATH=VALUE]... [--json] [--matched] [--report FILE]',
+  description: `
+Reads a plan (a plan file saved by the app, a preset, or fields given with --set), and prints what
+it predicts (U, Rhines and transitional wavenumbers, zonostrophy index and regime, jet spacing and
+count, spin-up time, time step, steps), the checks with their fixes, the cost with Stria's model,
+and the matched cheap run that keeps the plan's ratios on a grid that runs here. Units and
+formulas: docs/plan.md. With --matched, the matched run is run (from rest, for its planned length,
+averaging its second half) and its measured summary is printed beside its predictions.`,
+  examples: `
+  stria plan --preset jupiter --set grid.nx=1024 --set grid.ny=512 --report jupiter-plan.html
+  stria plan my-plan.json --matched --target-seconds 60 --json`,
+  options,
+  run,
+};
+
+async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
+  const o = args.options;
+  if (args.positionals.length > 1) throw new UsageError(`expected at most one PLANFILE, got ${args.positionals.length}`);
+  const report = o.report as string | undefined;
+  if (report !== undefined && !['.md', '.html'].includes(extname(report).toLowerCase())) throw new UsageError(`--report ${report}: the file name must end in .md or .html`);
+  const target = o['target-seconds'] as number | undefined;
+  if (target !== undefined && !(target > 0)) throw new UsageError(`--target-seconds must be > 0, got ${target}`);
+  const { input, setPaths } = planInputFrom(args.positionals[0], o.preset as string | undefined, (o.set as string[] | undefined) ?? []);
+  let analysis: PlanAnalysis;
+  try {
+    analysis = analysePlan(input, target === undefined ? {} : { targetWallSeconds: target });
+  } catch (e) {
+    if (!(e instanceof PlanInputError)) throw e;
+    throw new UsageError(`plan refused: ${e.issues.map((i) => `${i.field}: ${i.message}${setPaths.includes(i.field) ? ` (from --set ${i.field})` : ''}`).join('; ')}`);
+  }
+  if (report) writeFileSync(report, extname(report).toLowerCase() === '.html' ? planReportHtml(analysis) : planReportMarkdown(analysis));
+  let measured: RunSummary | null = null;
+  let status = EXIT_OK;
+  if (o.matched) {
+    if (!analysis.matched) throw new Error(`no matched run can be made for this plan: ${analysis.matchedError}`);
+    const result = await runMatched(analysis.matched, io);
+    measured = result.summary;
+    status = result.status;
+  }
+  io.out.write(o.json ? `${JSON.stringify(planJson(analysis, measured), null, 2)}\n` : planText(analysis, measured));
+  if (report) io.err.write(`stria plan: report written to ${report}\n`);
+  return status;
+}
+
+/** The matched run from rest for its planned length, averaged over its second half. */
+async function runMatched(m: MatchedRun, io: CommandIO): Promise<{ summary: RunSummary; status: number }> {
+  const model = new Model(m.params);
+  const length = m.plan.runLength;
+  const run = new MonitoredRun(model, resolveRunPlan(model.params, { until: length, average: length / 2, sampleEvery: Math.max(model.params.dt, Math.min(10 * model.params.dt, length / 200)) }));
+  const bar = 'isTTY' in io.err && io.err.isTTY ? new ProgressBar(io.err, 'matched run') : null;
+  try {
+    const breather = new Breather();
+    while (!run.advance(25)) {
+      bar?.update(run.progress(), `t = ${model.time.toPrecision(4)} of ${length.toPrecision(4)}`);
+      await breather.breathe();
+      if (io.interrupted()) return { summary: run.summary(), status: EXIT_INTERRUPTED };
+    }
+  } catch (e) {
+    if (!(e instanceof BlowUpError)) throw e;
+    io.err.write(`stria plan: the matched run stopped: ${e.message}\n`);
+    return { summary: run.summary(), status: EXIT_FAILED };
+  } finally {
+    bar?.done();
+  }
+  return { summary: run.summary(), status: EXIT_OK };
+}

@@ -1,0 +1,146 @@
+import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { basename, dirname, extname, join } from 'node:path';
+import { parseShard, selectShard, type Shard } from '../../lib/sweep/shard';
+import type { SweepRecord } from '../../lib/sweep/sweepRecord';
+import { joinRecords } from '../../lib/sweep/sweepRecord';
+import { describePoint, expandSweep, type SweepJob } from '../../lib/sweep/sweepRuns';
+import { parseSweepSpec, SweepSpecError, type SweepSpec } from '../../lib/sweep/sweepSpec';
+import { UsageError, type OptionSpec, type ParsedArgs } from '../args';
+import { EXIT_INTERRUPTED, EXIT_OK, type Command, type CommandIO } from '../command';
+import { appendRecord, openRunsLog, readRunsLog } from '../sweep/runsLog';
+import { defaultJobs, runInPool } from '../sweep/workerPool';
+import { fitsText, writeResults } from '../sweep/writeResults';
+
+const options: OptionSpec[] = [
+  { name: 'out', kind: 'text', value: 'DIR', help: 'results directory (default: SPEC without .json, plus "-results")' },
+  { name: 'jobs', kind: 'count', value: 'N', help: `runs at a time, one worker thread each (default: cores − 1, at least 1; here ${defaultJobs()})` },
+  { name: 'shard', kind: 'text', value: 'i/n', help: 'run only shard i of n (i from 0): the runs whose index is i modulo n' },
+  { name: 'list', kind: 'flag', help: 'list the runs (id, index, shard, values, seed, finished or not) and exit' },
+  { name: 'quiet', kind: 'flag', help: 'no line per finished run on standard error' },
+];
+
+export const sweepCommand: Command = {
+  name: 'sweep',
+  summary: 'many runs from a JSON spec, in parallel, resumable and splittable: table and scaling fits',
+  usage: 'stria sweep SPEC [--out DIR] [--jobs N] [--shard i/n] [--list] [--quiet]',
+  description: `
+Runs every combination of the swept values (one or two parameters) times the replicas (seeds
+base seed, base seed + 1, ...), each for the spec's length, and appends one JSON line per finished
+run to DIR/runs.jsonl: its id, swept values, seed, parameters, run plan, status, summary and wall
+time. A run's id is a digest of its parameters (seed included) and its run plan, so rerunning the
+same command after an interruption skips the finished runs and does the rest.
+
+When the runs are done (those of the shard, with --shard) it writes DIR/table.csv and
+DIR/table.json (one row per run) and DIR/fits.json: jet_spacing against the Rhines length 2pi/k_rhines
+and u_rms against (eps/mu)^1/2, as power laws fitted in log-log with bootstrap percentile
+intervals. Shards written to separate directories are joined by stria merge.
+
+The spec format is in docs/cli.md; its fields are checked before anything runs, and a refused
+field is named.`,
+  examples: `
+  # sweep.json: beta over three values, two seeds each, 32 x 32, until t = 150
+  {
+    "base": { "nx": 32, "ny": 32, "kf": 8, "dkf": 1.5, "mu": 0.05, "eps": 0.05,
+              "nu": 1e-8, "nu_order": 4, "dt": 0.05, "cfl": 0.8 },
+    "vary": [ { "param": "beta", "logRange": { "from": 5, "to": 20, "count": 3 } } ],
+    "replicas": 2,
+    "length": { "until": 150 },
+    "average": 75
+  }
+
+  stria sweep sweep.json --out beta-sweep --jobs 2
+  stria sweep sweep.json --out beta-sweep-0 --shard 0/4     # one of four cluster jobs`,
+  options,
+  run,
+};
+
+/** Read and check a spec file: SweepSpecError and unreadable files become usage errors. */
+export function readSpec(path: string): { spec: SweepSpec; text: string } {
+  let text: string;
+  try {
+    text = readFileSync(path, 'utf8');
+  } catch (e) {
+    throw new UsageError(`cannot read the spec ${path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
+  }
+  let json: unknown;
+  try {
+    json = JSON.parse(text);
+  } catch (e) {
+    throw new UsageError(`${path} is not JSON (${(e as Error).message})`);
+  }
+  try {
+    return { spec: parseSweepSpec(json), text };
+  } catch (e) {
+    if (e instanceof SweepSpecError) throw new UsageError(`${path}: ${e.field}: ${e.reason}`);
+    throw e;
+  }
+}
+
+async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
+  const o = args.options;
+  if (args.positionals.length !== 1) throw new UsageError(args.positionals.length ? `expected one SPEC, got ${args.positionals.length}` : 'give the sweep spec: stria sweep SPEC');
+  const specPath = args.positionals[0];
+  const { spec, text } = readSpec(specPath);
+  let jobs: SweepJob[];
+  try {
+    jobs = expandSweep(spec);
+  } catch (e) {
+    if (e instanceof SweepSpecError) throw new UsageError(`${specPath}: ${e.field}: ${e.reason}`);
+    throw e;
+  }
+  let shard: Shard | null = null;
+  if (o.shard !== undefined) {
+    try {
+      shard = parseShard(o.shard as string);
+    } catch (e) {
+      throw new UsageError(`--shard ${(e as Error).message}`);
+    }
+  }
+  const mine = selectShard(jobs, shard);
+  const dir = (o.out as string | undefined) ?? join(dirname(specPath), `${basename(specPath, extname(specPath))}-results`);
+  const log = join(dir, 'runs.jsonl');
+  const journal = readRunsLog(log).records;
+  // Finished runs of this sweep, from the journal (deduplicated, conflicts refused).
+  const finished = new Map(joinRecords([{ name: log, records: journal }]).map((r) => [r.id, r]));
+  if (o.list) {
+    io.out.write(listText(jobs, shard, finished));
+    return EXIT_OK;
+  }
+  const todo = mine.filter((j) => !finished.has(j.id));
+  mkdirSync(dir, { recursive: true });
+  writeFileSync(join(dir, 'spec.json'), text);
+  const dropped = openRunsLog(log);
+  if (dropped) io.err.write(`stria sweep: dropped an unfinished last line (${dropped} bytes) of ${log}\n`);
+  const jobsN = Math.min((o.jobs as number | undefined) ?? defaultJobs(), Math.max(1, todo.length));
+  io.err.write(`stria sweep: ${mine.length} runs${shard ? ` in shard ${shard.index}/${shard.count}` : ''}, ${mine.length - todo.length} already finished, ${todo.length} to run on ${jobsN} worker${jobsN === 1 ? '' : 's'}\n`);
+  let done = mine.length - todo.length;
+  const { interrupted } = await runInPool(todo, {
+    size: jobsN,
+    interrupted: io.interrupted,
+    onRecord: (r) => {
+      appendRecord(log, r);
+      finished.set(r.id, r);
+      done++;
+      if (!o.quiet) io.err.write(`[${done}/${mine.length}] ${r.id} ${describePoint(r.point)}, seed ${r.seed}: ${r.status === 'done' ? (r.stopped === 'not-steady' ? 'done, not steady by its cap' : 'done') : `blew up (${r.error})`} in ${r.wall_seconds.toFixed(1)} s\n`);
+    },
+  });
+  const records = mine.map((j) => finished.get(j.id)).filter((r): r is SweepRecord => r !== undefined);
+  const fits = writeResults(dir, records, spec.fits);
+  io.out.write(`${records.length} of ${mine.length} runs in ${dir}: runs.jsonl, table.csv, table.json, fits.json\n${fitsText(fits)}`);
+  if (interrupted) {
+    io.err.write(`stria sweep: interrupted; run the same command again to finish the remaining ${mine.length - records.length} runs\n`);
+    return EXIT_INTERRUPTED;
+  }
+  const blown = records.filter((r) => r.status !== 'done').length;
+  // A blow-up is a result of the sweep (its parameters are unstable), not a failure of the command.
+  if (blown) io.err.write(`stria sweep: ${blown} run${blown === 1 ? '' : 's'} blew up (status "blew-up" in the table, left out of the fits)\n`);
+  return EXIT_OK;
+}
+
+function listText(jobs: readonly SweepJob[], shard: Shard | null, finished: ReadonlyMap<string, SweepRecord>): string {
+  const n = shard?.count ?? 1;
+  const lines = jobs
+    .filter((j) => !shard || j.index % n === shard.index)
+    .map((j) => `${j.id}  ${String(j.index).padStart(4)}  shard ${j.index % n}/${n}  ${describePoint(j.point)}, seed ${j.seed}  ${finished.has(j.id) ? 'finished' : 'to run'}`);
+  return `${lines.join('\n')}\n`;
+}

@@ -1,0 +1,106 @@
+import { readFileSync } from 'node:fs';
+import type { Checkpoint } from '../lib/model/checkpoint';
+import { DEFAULT_PARAMS, type ModelParams } from '../lib/model/params';
+import { ParamError, validateParams } from '../lib/model/validateParams';
+import { decodeRunFile, RUN_FILE_FORMAT, RunFileError } from '../lib/io/runFile';
+import { DEMO_SCENARIOS, scenarioById } from '../lib/plan/demoScenarios';
+import { parseNumber, UsageError } from './args';
+
+/**
+ * Where a run starts: parameters, and the saved state when the file given was a run file. Layers,
+ * each over the one before: the model defaults, `--preset`, the file's parameters, then `--set`.
+ */
+export interface RunStart {
+  params: ModelParams;
+  checkpoint: Checkpoint | null;
+  /** The `--set` changes alone (a saved run applies them with Model.reconfigure). */
+  changes: Partial<ModelParams>;
+}
+
+export interface RunStartRequest {
+  file?: string;
+  preset?: string;
+  sets?: readonly string[];
+}
+
+export function resolveRunStart(req: RunStartRequest): RunStart {
+  const changes = parseSets(req.sets ?? []);
+  let preset: Partial<ModelParams> = {};
+  if (req.preset !== undefined) {
+    const s = scenarioById(req.preset);
+    if (!s) throw new UsageError(`--preset ${req.preset}: no such preset (known: ${DEMO_SCENARIOS.map((d) => d.id).join(', ')})`);
+    preset = s.params;
+  }
+  const file = req.file === undefined ? null : readParamFile(req.file);
+  if (file?.checkpoint) {
+    if (req.preset !== undefined) throw new UsageError(`--preset cannot be used with a saved run (${req.file}): the run file holds its parameters`);
+    const cp = file.checkpoint;
+    return { params: checked({ ...cp.params, ...changes }, changes), checkpoint: cp, changes };
+  }
+  return { params: checked({ ...preset, ...(file?.params ?? {}), ...changes }, changes), checkpoint: null, changes };
+}
+
+/** Validate, saying which `--set` a refused field came from. */
+function checked(input: Record<string, unknown>, changes: Record<string, unknown>): ModelParams {
+  try {
+    return validateParams(input);
+  } catch (e) {
+    if (!(e instanceof ParamError)) throw e;
+    throw new UsageError(
+      e.issues.map((i) => `parameter ${i.field} = ${JSON.stringify(i.value)}: ${i.message}${i.field in changes ? ` (from --set ${i.field})` : ''}`).join('; '),
+    );
+  }
+}
+
+/** A file of parameters: a JSON object of parameters, or a Stria run file (parameters and state). */
+function readParamFile(path: string): { params: Record<string, unknown>; checkpoint: Checkpoint | null } {
+  let text: string;
+  try {
+    text = readFileSync(path, 'utf8');
+  } catch (e) {
+    throw new UsageError(`cannot read ${path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
+  }
+  let json: unknown;
+  try {
+    json = JSON.parse(text);
+  } catch (e) {
+    throw new UsageError(`${path} is not JSON (${(e as Error).message})`);
+  }
+  if (typeof json !== 'object' || json === null || Array.isArray(json)) throw new UsageError(`${path}: expected a JSON object of parameters or a run file`);
+  if ((json as Record<string, unknown>).format === RUN_FILE_FORMAT) {
+    try {
+      const cp = decodeRunFile(text);
+      return { params: cp.params as unknown as Record<string, unknown>, checkpoint: cp };
+    } catch (e) {
+      if (e instanceof RunFileError) throw new UsageError(`${path}: ${e.field}: ${e.reason}`);
+      throw e;
+    }
+  }
+  return { params: json as Record<string, unknown>, checkpoint: null };
+}
+
+/**
+ * `--set key=value` words as parameter changes, each value read as the parameter's type in
+ * DEFAULT_PARAMS: numbers (decimal, or a multiple of pi such as 2pi), true/false, or text. A key
+ * set twice takes the later value, so a script can append overrides to a fixed list.
+ */
+export function parseSets(words: readonly string[]): Partial<ModelParams> {
+  const out: Record<string, unknown> = {};
+  for (const word of words) {
+    const eq = word.indexOf('=');
+    if (eq <= 0) throw new UsageError(`--set ${word}: expected key=value, e.g. --set beta=20`);
+    const key = word.slice(0, eq);
+    const text = word.slice(eq + 1);
+    if (!(key in DEFAULT_PARAMS)) throw new UsageError(`--set ${word}: "${key}" is not a parameter (known: ${Object.keys(DEFAULT_PARAMS).join(', ')})`);
+    const kind = typeof DEFAULT_PARAMS[key as keyof ModelParams];
+    if (kind === 'number') {
+      const x = parseNumber(text);
+      if (!Number.isFinite(x)) throw new UsageError(`--set ${word}: ${key} needs a number, got "${text}"`);
+      out[key] = x;
+    } else if (kind === 'boolean') {
+      if (text !== 'true' && text !== 'false') throw new UsageError(`--set ${word}: ${key} needs true or false, got "${text}"`);
+      out[key] = text === 'true';
+    } else out[key] = text;
+  }
+  return out as Partial<ModelParams>;
+}

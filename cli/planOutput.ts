@@ -1,0 +1,82 @@
+import type { RunSummary } from '../lib/analysis/summary';
+import type { PlanAnalysis } from '../lib/plan/analysePlan';
+import { duration, fmt, withUnit } from '../lib/plan/format';
+import type { PlanPredictions } from '../lib/plan/predictions';
+import { regimeLabel } from '../lib/plan/predictions';
+
+/**
+ * What `stria plan` prints. The headline numbers use the run summary's keys, so a prediction and the
+ * matched run's measurement sit under the same name: regime, jet_count (Ly over the Rhines-scale
+ * spacing), u_rms, k_rhines, k_beta, zonostrophy_index, jet_spacing. Values are in the plan's units
+ * (SI for a physical plan); the matched run is in its own model units.
+ */
+export function headline(p: PlanPredictions) {
+  return {
+    regime: p.regime.text,
+    jet_count: p.jetsRhines.value,
+    u_rms: p.U.value,
+    k_rhines: p.kR.value,
+    k_beta: p.kBeta.value,
+    zonostrophy_index: p.R_beta.value,
+    jet_spacing: p.jetSpacingRhines.value,
+  };
+}
+
+export const HEADLINE_KEYS = ['regime', 'jet_count', 'u_rms', 'k_rhines', 'k_beta', 'zonostrophy_index', 'jet_spacing'] as const;
+
+export function planJson(a: PlanAnalysis, measured: RunSummary | null): unknown {
+  const p = a.predictions;
+  return {
+    title: a.plan.input.title ?? null,
+    units: a.plan.units,
+    ...headline(p),
+    jet_count_staircase: p.jetsStaircase.value,
+    jet_spacing_staircase: p.jetSpacingStaircase.value,
+    spin_up_time: p.spinUpTime.value,
+    steady_time: p.steadyTime.value,
+    dt: p.dtCFL.value,
+    steps_planned: p.stepsPlanned.value,
+    predictions: p,
+    checks: a.checks.map((c) => ({ id: c.id, severity: c.severity, title: c.title, message: c.message, fix: c.fix })),
+    cost: { steps: a.cost.steps, seconds_per_step: a.cost.secondsPerStep, wall_seconds: a.cost.wallSeconds, memory_bytes: a.cost.memory.totalBytes },
+    matched: a.matched
+      ? {
+          params: a.matched.params,
+          run_length: a.matched.plan.runLength,
+          steps: a.matched.cost.steps,
+          wall_seconds: a.matched.cost.wallSeconds,
+          within_target: a.matched.withinTarget,
+          predicted: headline(a.matched.predictions),
+          measured,
+        }
+      : null,
+    matched_error: a.matchedError,
+  };
+}
+
+export function planText(a: PlanAnalysis, measured: RunSummary | null): string {
+  const p = a.predictions;
+  const u = a.plan.units;
+  const lines = [`Stria plan: ${a.plan.input.title ?? 'untitled'} (${u === 'physical' ? 'SI units' : 'model units'})`, `Regime: ${regimeLabel(p)}`, '', 'Predictions:'];
+  const rows = Object.values(p).map((q) => [`${q.label} (${q.symbol})`, q.text ? `${q.text}, R_β = ${fmt(q.value)}` : withUnit(q.value, q.quantity, u)]);
+  const w = Math.max(...rows.map((r) => r[0].length));
+  lines.push(...rows.map(([k, x]) => `  ${k.padEnd(w)}  ${x}`), '', 'Checks:');
+  for (const c of a.checks) lines.push(`  [${c.severity}] ${c.title}: ${c.message}${c.fix ? `\n          fix: ${c.fix}` : ''}`);
+  lines.push('', `Cost with Stria's model: ${a.cost.steps} steps, ${duration(a.cost.wallSeconds)} here`);
+  const m = a.matched;
+  if (!m) lines.push(`Matched cheap run: none (${a.matchedError})`);
+  else {
+    lines.push(`Matched cheap run: ${m.params.nx} × ${m.params.ny}, ${m.cost.steps} steps, about ${duration(m.cost.wallSeconds)} (model units; ratio that gave: ${m.gives})`);
+    if (measured) {
+      const pred = headline(m.predictions) as Record<string, unknown>;
+      const meas = measured as unknown as Record<string, unknown>;
+      lines.push('', `  ${'quantity'.padEnd(18)}  ${'predicted'.padEnd(14)}  measured`);
+      for (const k of HEADLINE_KEYS) lines.push(`  ${k.padEnd(18)}  ${show(pred[k]).padEnd(14)}  ${show(meas[k])}`);
+    }
+  }
+  return `${lines.join('\n')}\n`;
+}
+
+function show(x: unknown): string {
+  return typeof x === 'number' ? fmt(x) : x === null || x === undefined ? '—' : String(x);
+}

@@ -1,0 +1,116 @@
+import * as v from 'valibot';
+import type { RunSummary } from '../analysis/summary';
+import type { ModelParams } from '../model/params';
+import type { StopReason } from './monitoredRun';
+import { canonicalJson } from './runId';
+import type { RunPlan } from './runPlan';
+import type { SweepPoint } from './sweepRuns';
+
+/**
+ * One finished sweep run: one line of `runs.jsonl` (JSON Lines, one object per line, appended as
+ * runs finish, so the file is the sweep's journal and its resume point). `status` is "done", or
+ * "blew-up" when the model stopped on a non-finite state or a CFL number past its limit (the run is
+ * deterministic, so it would blow up again: it counts as finished). `summary` is the run summary
+ * (lib/analysis/summary.ts) at the end, or at the last good state of a blown-up run.
+ */
+export const RECORD_FORMAT = 'stria-sweep-run';
+export const RECORD_VERSION = 1;
+
+export interface SweepRecord {
+  format: typeof RECORD_FORMAT;
+  version: typeof RECORD_VERSION;
+  id: string;
+  index: number;
+  point: SweepPoint;
+  replica: number;
+  seed: number;
+  params: ModelParams;
+  plan: RunPlan;
+  status: 'done' | 'blew-up';
+  /** Why a finished run stopped (null for a blown-up run). */
+  stopped: StopReason | null;
+  error: string | null;
+  summary: RunSummary;
+  /** Wall time of the run (s) and when it finished: the only fields that differ between reruns. */
+  wall_seconds: number;
+  finished_at: string;
+}
+
+const RecordSchema = v.looseObject({
+  format: v.literal(RECORD_FORMAT, `must be "${RECORD_FORMAT}"`),
+  version: v.literal(RECORD_VERSION, `must be ${RECORD_VERSION}`),
+  id: v.pipe(v.string('must be a text'), v.regex(/^r[0-9a-f]{16}$/, 'must be a run id such as r0123456789abcdef')),
+  index: v.pipe(v.number('must be a number'), v.integer('must be an integer'), v.minValue(0, 'must be ≥ 0')),
+  point: v.record(v.string(), v.union([v.number(), v.boolean(), v.string()]), 'must be an object of swept values'),
+  replica: v.pipe(v.number('must be a number'), v.integer('must be an integer')),
+  seed: v.pipe(v.number('must be a number'), v.integer('must be an integer')),
+  params: v.record(v.string(), v.unknown(), 'must be an object of parameters'),
+  plan: v.looseObject({ stop: v.looseObject({ kind: v.picklist(['steps', 'until', 'steady']) }), average: v.number(), sampleEvery: v.number() }, 'must be a run plan'),
+  status: v.picklist(['done', 'blew-up'], 'must be "done" or "blew-up"'),
+  stopped: v.nullable(v.picklist(['steps', 'until', 'steady', 'not-steady'], 'must be a stop reason')),
+  error: v.nullable(v.string('must be a text')),
+  summary: v.looseObject({ time: v.number(), steps: v.number() }, 'must be a run summary'),
+  wall_seconds: v.number('must be a number'),
+  finished_at: v.string('must be a text'),
+});
+
+/** Parse one line; throws RangeError naming the field when it is not a sweep record. */
+export function parseSweepRecord(line: string): SweepRecord {
+  let json: unknown;
+  try {
+    json = JSON.parse(line);
+  } catch (e) {
+    throw new RangeError(`not JSON (${e instanceof Error ? e.message : String(e)})`);
+  }
+  const parsed = v.safeParse(RecordSchema, json);
+  if (!parsed.success) {
+    const issue = parsed.issues[0];
+    throw new RangeError(`${issue.path?.map((p) => String(p.key)).join('.') || '(record)'}: ${issue.message}`);
+  }
+  return json as SweepRecord;
+}
+
+/** The record as one line of JSON (without the newline). */
+export function formatSweepRecord(r: SweepRecord): string {
+  return JSON.stringify(r);
+}
+
+/** Everything of a record that the run's computation decides; equal for every rerun of the run. */
+export function resultKey(r: SweepRecord): string {
+  return canonicalJson({ id: r.id, params: r.params, plan: r.plan, seed: r.seed, status: r.status, stopped: r.stopped, error: r.error, summary: r.summary });
+}
+
+/**
+ * Records joined by id, first seen kept. Throws RangeError naming the id and both sources when two
+ * records of one id disagree on anything the computation decides (a conflict is a bug or a changed
+ * Stria, never something to pick a winner in silently).
+ */
+export function joinRecords(sources: readonly { name: string; records: readonly SweepRecord[] }[]): SweepRecord[] {
+  const byId = new Map<string, { record: SweepRecord; from: string; key: string }>();
+  for (const s of sources) {
+    for (const r of s.records) {
+      const key = resultKey(r);
+      const seen = byId.get(r.id);
+      if (!seen) byId.set(r.id, { record: r, from: s.name, key });
+      else if (seen.key !== key) throw new RangeError(`run ${r.id} differs between ${seen.from} and ${s.name}: ${firstDifference(seen.record, r)}`);
+    }
+  }
+  return sortRecords([...byId.values()].map((e) => e.record));
+}
+
+/** Sweep order: by index, then id. */
+export function sortRecords(records: SweepRecord[]): SweepRecord[] {
+  return records.sort((a, b) => a.index - b.index || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
+}
+
+function firstDifference(a: SweepRecord, b: SweepRecord): string {
+  for (const k of ['params', 'plan', 'seed', 'status', 'stopped', 'error'] as const) {
+    if (canonicalJson(a[k]) !== canonicalJson(b[k])) return `${k} differs`;
+  }
+  for (const k of Object.keys({ ...a.summary, ...b.summary })) {
+    const x = (a.summary as unknown as Record<string, unknown>)[k];
+    const y = (b.summary as unknown as Record<string, unknown>)[k];
+    if (canonicalJson(x) !== canonicalJson(y)) return `summary.${k} is ${String(x)} in one and ${String(y)} in the other`;
+  }
+  return 'the records differ';
+}

@@ -1,0 +1,53 @@
+import { balanceVelocity, rhinesLength } from '../analysis/scales';
+import { SUMMARY_KEYS, type RunSummary } from '../analysis/summary';
+import type { CsvColumn } from '../io/csv';
+import type { SweepRecord } from './sweepRecord';
+
+/**
+ * The results table of a sweep: one row per run in sweep order, with the swept values, the seed, the
+ * run summary (stable keys first, then the rest) and the two scales the fits are against:
+ *   rhines_length     2π/k_R with the measured k_R = (β/2U)^½ (the summary's k_rhines)
+ *   balance_velocity  (ε/μ)^½ from the parameters, the drag-balance rms velocity
+ * Missing numbers are null in JSON and empty fields in CSV (RFC 4180; docs/file-formats.md).
+ */
+export type TableValue = number | string | boolean | null;
+export type TableRow = Record<string, TableValue>;
+
+const OTHER_SUMMARY_KEYS = ['ls_loss', 'regime', 'jet_spacing_std', 'window_start', 'window_end', 'window_samples'] as const satisfies readonly (keyof RunSummary)[];
+
+/** Column names in order, for records whose swept parameters are `pointKeys`. */
+export function tableColumns(pointKeys: readonly string[]): string[] {
+  return ['id', 'index', ...pointKeys, 'replica', 'seed', 'status', 'stopped', ...SUMMARY_KEYS, ...OTHER_SUMMARY_KEYS, 'rhines_length', 'balance_velocity', 'wall_seconds'];
+}
+
+/** The swept parameter names of a set of records, in first-seen order. */
+export function pointKeysOf(records: readonly SweepRecord[]): string[] {
+  const keys: string[] = [];
+  for (const r of records) for (const k of Object.keys(r.point)) if (!keys.includes(k)) keys.push(k);
+  return keys;
+}
+
+export function tableRows(records: readonly SweepRecord[]): TableRow[] {
+  const keys = pointKeysOf(records);
+  return records.map((r) => {
+    const s = r.summary as unknown as Record<string, TableValue>;
+    const row: TableRow = { id: r.id, index: r.index };
+    for (const k of keys) row[k] = r.point[k] ?? null;
+    Object.assign(row, { replica: r.replica, seed: r.seed, status: r.status, stopped: r.stopped });
+    for (const k of [...SUMMARY_KEYS, ...OTHER_SUMMARY_KEYS]) row[k] = s[k] ?? null;
+    const kR = r.summary.k_rhines;
+    row.rhines_length = kR !== null && kR > 0 ? rhinesLength(r.params.beta, r.summary.u_rms!, 'kR') : null;
+    row.balance_velocity = r.params.mu > 0 ? balanceVelocity(r.params.eps, r.params.mu) : null;
+    row.wall_seconds = r.wall_seconds;
+    return row;
+  });
+}
+
+/** Columns for lib/io/csv.ts: numbers stay numbers (null → NaN → empty field), the rest text. */
+export function tableCsvColumns(rows: readonly TableRow[], columns: readonly string[]): CsvColumn[] {
+  return columns.map((name) => {
+    const values = rows.map((r) => r[name] ?? null);
+    const numeric = values.every((x) => x === null || typeof x === 'number');
+    return numeric ? { name, values: Float64Array.from(values, (x) => (x === null ? NaN : (x as number))) } : { name, values: values.map((x) => (x === null ? '' : String(x))) };
+  });
+}

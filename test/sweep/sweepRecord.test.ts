@@ -1,0 +1,45 @@
+import { describe, expect, it } from 'vitest';
+import { runSweepJob } from '../../lib/sweep/runSweepJob';
+import { formatSweepRecord, joinRecords, parseSweepRecord, type SweepRecord } from '../../lib/sweep/sweepRecord';
+import { expandSweep } from '../../lib/sweep/sweepRuns';
+import { parseSweepSpec } from '../../lib/sweep/sweepSpec';
+import { sweepFits } from '../../lib/sweep/sweepFits';
+import { tableRows } from '../../lib/sweep/sweepTable';
+
+const clock = { seconds: () => 0, iso: () => '2025-01-01T00:00:00Z' };
+const spec = parseSweepSpec({
+  base: { nx: 32, ny: 32, kf: 8, dkf: 1.5, mu: 0.5, eps: 0.5, nu: 1e-8, dt: 0.05 },
+  vary: [{ param: 'beta', values: [5, 10] }],
+  length: { steps: 40 },
+  average: 1,
+});
+const records = expandSweep(spec).map((j) => runSweepJob(j, clock));
+
+describe('sweep records', () => {
+  it('round-trip through one line of JSON, bit for bit', () => {
+    const line = formatSweepRecord(records[0]);
+    expect(line).not.toContain('\n');
+    expect(parseSweepRecord(line)).toEqual(records[0]);
+    expect(() => parseSweepRecord('{"format":"stria-sweep-run","version":1,"id":"x"}')).toThrow(/^id:/);
+    expect(() => parseSweepRecord('{"format":')).toThrow(/not JSON/);
+  });
+
+  it('join by id, keep one of each, and refuse a disagreement naming the run', () => {
+    const rerun: SweepRecord = { ...records[1], wall_seconds: 9, finished_at: '2025-02-01T00:00:00Z' };
+    const joined = joinRecords([
+      { name: 'a', records: [records[1]] },
+      { name: 'b', records: [rerun, records[0]] },
+    ]);
+    expect(joined.map((r) => r.id)).toEqual(records.map((r) => r.id));
+    const changed: SweepRecord = { ...records[1], summary: { ...records[1].summary, energy: records[1].summary.energy! * (1 + 2 ** -52) } };
+    expect(() => joinRecords([{ name: 'a', records: [records[1]] }, { name: 'b', records: [changed] }])).toThrow(new RegExp(`${records[1].id} differs between a and b: summary.energy`));
+  });
+
+  it('give table rows with the fit scales, and fits that say why they cannot be made', () => {
+    const rows = tableRows(records);
+    expect(rows[0]).toMatchObject({ id: records[0].id, beta: 5, seed: 1, status: 'done', balance_velocity: 1 });
+    expect(rows[0].rhines_length).toBeCloseTo((2 * Math.PI) / records[0].summary.k_rhines!, 12);
+    const fits = sweepFits(rows, { resamples: 10 });
+    expect(fits.u_rms_vs_balance_velocity.error).toMatch(/2 usable points/);
+  });
+});
