@@ -127,108 +127,93 @@ export class RealTransform2D {
 
   /** Grid fields a, b (row-major, grid.ts) from half-plane spectra aHat, bHat. */
   inversePair(aHat: Float64Array, bHat: Float64Array, a: Float64Array, b: Float64Array): void {
-    const { nx, ny, nkx } = this.grid;
-    const cols = 2 * (this.top + 1);
+    this.packSpectra(aHat, bHat);
+    this.inverseBlockToWork();
+    this.unpackWork(a, b);
+  }
+
+  /** Half-plane spectra aHat, bHat of grid fields a, b (row-major), divided by nx·ny. */
+  forwardPair(a: Float64Array, b: Float64Array, aHat: Float64Array, bHat: Float64Array): void {
+    this.packWork(a, b);
+    this.unpackBlock(this.forwardWorkToBlock(), aHat, bHat);
+  }
+
+  /** Grid field from one spectrum (the partner slot carries zeros). */
+  inverse(aHat: Float64Array, a: Float64Array): void {
+    this.packSpectra(aHat, null);
+    this.inverseBlockToWork();
+    this.unpackWork(a, null);
+  }
+
+  /** Spectrum of one grid field. */
+  forward(a: Float64Array, aHat: Float64Array): void {
+    this.packWork(a, null);
+    this.unpackBlock(this.forwardWorkToBlock(), aHat, null);
+  }
+
+  /**
+   * Normalise a forward block into half-plane spectra (bHat may be null to drop the partner): kept
+   * rows and columns get their values, everything else zero, Hermitian columns exact.
+   */
+  unpackBlock(R: Float64Array, aHat: Float64Array, bHat: Float64Array | null): void {
+    const nkx = this.grid.nkx;
+    const n = 2 * (this.top + 1); // doubles per field in a block row
+    const scale = 1 / this.grid.size;
+    aHat.fill(0);
+    bHat?.fill(0);
+    for (const jy of this.rows) {
+      const src = 2 * jy * n;
+      const dst = 2 * jy * nkx;
+      for (let t = 0; t < n; t++) aHat[dst + t] = R[src + t] * scale;
+      if (bHat) for (let t = 0; t < n; t++) bHat[dst + t] = R[src + n + t] * scale;
+    }
+    if (this.pruned) {
+      aHat[0] = aHat[1] = 0;
+      if (bHat) bHat[0] = bHat[1] = 0;
+    }
+    this.symmetrise(aHat);
+    if (bHat) this.symmetrise(bHat);
+  }
+
+  /** Copy the rows that carry data of two spectra (or one and zeros) into the block. */
+  private packSpectra(aHat: Float64Array, bHat: Float64Array | null): void {
+    const nkx = this.grid.nkx;
     const n = 2 * (this.top + 1);
     const block = this.block;
     for (const jy of this.rows) {
       const src = 2 * jy * nkx;
-      const dst = 2 * jy * cols;
+      const dst = 2 * jy * n; // a block row holds n doubles of a, then n of b
       for (let t = 0; t < n; t++) {
         block[dst + t] = aHat[src + t];
-        block[dst + n + t] = bHat[src + t];
+        block[dst + n + t] = bHat ? bHat[src + t] : 0;
       }
     }
-    this.inverseBlockToWork();
+  }
+
+  /** Row-major grid fields a + i·b (b null: zero) into the x-major complex work grid. */
+  private packWork(a: Float64Array, b: Float64Array | null): void {
+    const { nx, ny } = this.grid;
+    const W = this.work;
+    for (let x = 0; x < nx; x++) {
+      const base = 2 * x * ny;
+      for (let y = 0; y < ny; y++) {
+        W[base + 2 * y] = a[y * nx + x];
+        W[base + 2 * y + 1] = b ? b[y * nx + x] : 0;
+      }
+    }
+  }
+
+  /** The x-major complex work grid back to row-major real fields (b null: drop the imaginary part). */
+  private unpackWork(a: Float64Array, b: Float64Array | null): void {
+    const { nx, ny } = this.grid;
     const W = this.work;
     for (let x = 0; x < nx; x++) {
       const base = 2 * x * ny;
       for (let y = 0; y < ny; y++) {
         a[y * nx + x] = W[base + 2 * y];
-        b[y * nx + x] = W[base + 2 * y + 1];
+        if (b) b[y * nx + x] = W[base + 2 * y + 1];
       }
     }
-  }
-
-  /** Half-plane spectra aHat, bHat of grid fields a, b (row-major), divided by nx·ny. */
-  forwardPair(a: Float64Array, b: Float64Array, aHat: Float64Array, bHat: Float64Array): void {
-    const { nx, ny } = this.grid;
-    const W = this.work;
-    for (let x = 0; x < nx; x++) {
-      const base = 2 * x * ny;
-      for (let y = 0; y < ny; y++) {
-        W[base + 2 * y] = a[y * nx + x];
-        W[base + 2 * y + 1] = b[y * nx + x];
-      }
-    }
-    this.unpackBlock(this.forwardWorkToBlock(), aHat, bHat);
-  }
-
-  /** Normalise a forward block into two half-plane spectra, zero elsewhere, Hermitian columns exact. */
-  unpackBlock(R: Float64Array, aHat: Float64Array, bHat: Float64Array): void {
-    const nkx = this.grid.nkx;
-    const cols = 2 * (this.top + 1);
-    const n = 2 * (this.top + 1);
-    const scale = 1 / this.grid.size;
-    aHat.fill(0);
-    bHat.fill(0);
-    for (const jy of this.rows) {
-      const src = 2 * jy * cols;
-      const dst = 2 * jy * nkx;
-      for (let t = 0; t < n; t++) {
-        aHat[dst + t] = R[src + t] * scale;
-        bHat[dst + t] = R[src + n + t] * scale;
-      }
-    }
-    if (this.pruned) aHat[0] = aHat[1] = bHat[0] = bHat[1] = 0;
-    this.symmetrise(aHat);
-    this.symmetrise(bHat);
-  }
-
-  /** Grid field from one spectrum (the partner is zero). */
-  inverse(aHat: Float64Array, a: Float64Array): void {
-    const { nx, ny, nkx } = this.grid;
-    const cols = 2 * (this.top + 1);
-    const n = 2 * (this.top + 1);
-    const block = this.block;
-    for (const jy of this.rows) {
-      const src = 2 * jy * nkx;
-      const dst = 2 * jy * cols;
-      for (let t = 0; t < n; t++) {
-        block[dst + t] = aHat[src + t];
-        block[dst + n + t] = 0;
-      }
-    }
-    this.inverseBlockToWork();
-    const W = this.work;
-    for (let x = 0; x < nx; x++) {
-      const base = 2 * x * ny;
-      for (let y = 0; y < ny; y++) a[y * nx + x] = W[base + 2 * y];
-    }
-  }
-
-  /** Spectrum of one grid field. */
-  forward(a: Float64Array, aHat: Float64Array): void {
-    const { nx, ny } = this.grid;
-    const W = this.work;
-    for (let x = 0; x < nx; x++) {
-      const base = 2 * x * ny;
-      for (let y = 0; y < ny; y++) {
-        W[base + 2 * y] = a[y * nx + x];
-        W[base + 2 * y + 1] = 0;
-      }
-    }
-    const R = this.forwardWorkToBlock();
-    const nkx = this.grid.nkx;
-    const cols = 2 * (this.top + 1);
-    const n = 2 * (this.top + 1);
-    const scale = 1 / this.grid.size;
-    aHat.fill(0);
-    for (const jy of this.rows) {
-      for (let t = 0; t < n; t++) aHat[2 * jy * nkx + t] = R[2 * jy * cols + t] * scale;
-    }
-    if (this.pruned) aHat[0] = aHat[1] = 0;
-    this.symmetrise(aHat);
   }
 
   /**
