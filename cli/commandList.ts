@@ -1,3 +1,4 @@
+import { analyzeCmd } from './analyzeCommand';
 import type { Command } from './command';
 import { mergeCommand } from './commands/merge';
 import { planCommand } from './commands/plan';
@@ -5,4 +6,4 @@ import { runCommand } from './commands/run';
 import { sweepCommand } from './commands/sweep';
 
 /** Every `stria` command, in the order `stria --help` lists them. A new command is one more entry. */
-export const COMMANDS: readonly Command[] = [runCommand, sweepCommand, mergeCommand, planCommand];
+export const COMMANDS: readonly Command[] = [runCommand, sweepCommand, mergeCommand, planCommand, analyzeCmd];

@@ -1,0 +1,161 @@
+import { Dataset, File, Group, type DataObjects } from 'jsfive';
+import type { AllocationMeter } from '../analysis/allocationMeter';
+import type { ByteSource } from './byteSource';
+import type { AttributeValue, DatasetDimension, DatasetReader, DatasetVariable, ReadOptions, ReaderOptions } from './datasetReader';
+import { isNumericType } from './datasetReader';
+import { readChunkIndex } from './hdf5ChunkIndex';
+import { denseAttributes } from './hdf5DenseAttributes';
+import { elementReader, elementType, parseDataspace, parseLayout, superblockEnd, superblockSizes } from './hdf5Format';
+import { checkFilters, describe, readSlab, type SlabPlan } from './hdf5Slab';
+import { cleanAttributes, quietly } from './hdf5Attributes';
+import { netcdf4Structure, type Entry } from './hdf5Netcdf4';
+
+/**
+ * netCDF-4 files (HDF5 underneath) behind the DatasetReader interface. jsfive parses the superblock,
+ * groups, links, datatypes and header attributes; Stria adds what jsfive 0.4.2 lacks: dense attribute
+ * storage (hdf5DenseAttributes.ts), the netCDF-4 dimensions (HDF5 dimension scales named by each
+ * variable's DIMENSION_LIST), unlimited dimensions (dataspace maximum sizes) and reading one record
+ * through the chunk index instead of jsfive's whole-dataset read (hdf5Slab.ts).
+ *
+ * Memory: HDF5 metadata may lie anywhere in a file and jsfive reads from one ArrayBuffer, so the whole
+ * file is in memory (`ByteSource.whole`); reading a record adds the record's float64 values and, per
+ * compressed chunk, its stored bytes and decoded bytes, dropped after use. Only the root group is
+ * read (netCDF-4 subgroups are listed in `notes`).
+ */
+export function openHdf5(source: ByteSource, options: ReaderOptions = {}): DatasetReader {
+  const buffer = source.whole();
+  const view = new DataView(buffer);
+  const { end } = superblockEnd(view);
+  if (end > buffer.byteLength) throw new RangeError(`truncated HDF5 file: its superblock says the file is ${end} bytes long, but it has ${buffer.byteLength}`);
+  const sizes = superblockSizes(view);
+  if (sizes.offsets !== 8 || sizes.lengths !== 8) throw new RangeError(`HDF5 files with ${sizes.offsets}-byte offsets are not supported (jsfive reads 8-byte offsets only)`);
+  return new Hdf5Dataset(view, options.meter);
+}
+
+class Hdf5Dataset implements DatasetReader {
+  readonly format = 'netcdf4' as const;
+  readonly dimensions: DatasetDimension[] = [];
+  readonly variables: DatasetVariable[] = [];
+  readonly attributes: Record<string, AttributeValue>;
+  readonly notes: string[] = [];
+  private readonly byName = new Map<string, DatasetVariable>();
+  private readonly objects = new Map<string, DataObjects>();
+  private readonly plans = new Map<string, SlabPlan>();
+
+  constructor(
+    private readonly view: DataView,
+    private readonly meter?: AllocationMeter,
+  ) {
+    const warnings: string[] = [];
+    const { file, entries, globals } = quietly(warnings, () => {
+      let file: File;
+      try {
+        file = new File(view.buffer as ArrayBuffer);
+      } catch (e) {
+        throw new RangeError(`cannot read this HDF5 file: ${describe(e)}`);
+      }
+      const entries: Entry[] = [];
+      for (const key of file.keys) {
+        let obj: Group | Dataset | null;
+        try {
+          obj = file.get(key);
+        } catch (e) {
+          throw new RangeError(`cannot read "${key}" of this HDF5 file: ${describe(e)}`);
+        }
+        if (obj instanceof Dataset) {
+          const d = obj._dataobjects;
+          const space = d.find_msg_type(0x0001)[0];
+          const { dims, unlimited } = parseDataspace(view, space.get('offset_to_message') as number);
+          entries.push({ name: key, obj: d, attrs: { ...safeAttributes(d, key), ...denseAttributes(d, `"${key}"`) }, dims, unlimited });
+        } else if (obj instanceof Group) {
+          this.notes.push(`the group "${key}" was not read: only the root group of a netCDF-4 file is`);
+        }
+      }
+      const globals = { ...safeAttributes(file._dataobjects, 'the file'), ...denseAttributes(file._dataobjects, 'the file') };
+      // jsfive lists links in storage order (by name hash or, for dense groups, a string sort of
+      // creation indices); the netCDF library creates variables in varid order and HDF5 places each
+      // new object header after the last, so header addresses give the file's variable order.
+      entries.sort((a, b) => a.obj.offset - b.obj.offset);
+      return { file, entries, globals };
+    });
+    this.attributes = cleanAttributes(globals);
+    for (const w of warnings) if (!/REFERENCE_LIST/.test(w)) this.notes.push(`jsfive: ${w}`);
+    const { dimensions, variables, notes } = netcdf4Structure(file._links, entries);
+    this.dimensions.push(...dimensions);
+    this.notes.push(...notes);
+    for (const { variable, obj } of variables) {
+      this.variables.push(variable);
+      this.byName.set(variable.name, variable);
+      this.objects.set(variable.name, obj);
+    }
+  }
+
+  variable(name: string): DatasetVariable {
+    const v = this.byName.get(name);
+    if (!v) throw new RangeError(`the file has no variable "${name}" (it has ${this.variables.map((x) => `"${x.name}"`).join(', ') || 'none'})`);
+    return v;
+  }
+
+  has(name: string): boolean {
+    return this.byName.has(name);
+  }
+
+  recordCount(name: string): number {
+    const v = this.variable(name);
+    return v.shape.length ? v.shape[0] : 1;
+  }
+
+  recordLength(name: string): number {
+    return this.variable(name).shape.slice(1).reduce((a, b) => a * b, 1);
+  }
+
+  readRecord(name: string, index: number, options: ReadOptions = {}): Float64Array {
+    const plan = this.plan(name);
+    const count = this.recordCount(name);
+    if (!(Number.isInteger(index) && index >= 0 && index < count)) throw new RangeError(`record ${index} of "${name}" does not exist (it has ${count})`);
+    const n = this.recordLength(name);
+    const out = options.out ?? new Float64Array(n);
+    if (out.length !== n) throw new RangeError(`readRecord("${name}"): out has ${out.length} values, a record ${n}`);
+    const bytes = (k: number) => k * plan.elementSize;
+    readSlab(this.view, plan, index, out, this.meter, (done, total) => options.onProgress?.({ variable: name, record: index, done: bytes(done), total: bytes(total) }));
+    return out;
+  }
+
+  readAll(name: string, options: ReadOptions = {}): Float64Array {
+    const v = this.variable(name);
+    const total = v.shape.reduce((a, b) => a * b, 1);
+    const out = options.out ?? new Float64Array(total);
+    if (out.length !== total) throw new RangeError(`readAll("${name}"): out has ${out.length} values, the variable ${total}`);
+    const per = this.recordLength(name);
+    for (let r = 0; r < this.recordCount(name) && total > 0; r++) this.readRecord(name, r, { out: out.subarray(r * per, (r + 1) * per), onProgress: options.onProgress });
+    return out;
+  }
+
+  /** Layout, chunk index, filters and element decoder of a variable, built on first read. */
+  private plan(name: string): SlabPlan {
+    const cached = this.plans.get(name);
+    if (cached) return cached;
+    const v = this.variable(name);
+    if (!isNumericType(v.type)) throw new RangeError(`"${name}" holds ${v.type === 'char' || v.type === 'string' ? 'text' : 'values of a type Stria does not read'}, not numbers`);
+    const obj = this.objects.get(name) as DataObjects;
+    const { size, littleEndian } = elementType(obj.dtype);
+    const layoutMsg = obj.find_msg_type(0x0008)[0];
+    if (!layoutMsg) throw new RangeError(`corrupt HDF5 file: "${name}" has no data layout message`);
+    const layout = parseLayout(this.view, layoutMsg.get('offset_to_message') as number, v.shape.length, name);
+    const filters = (quietly([], () => obj.filter_pipeline) ?? []).map((f) => ({ id: Number(f.get('filter_id')), clientData: f.get('client_data') }));
+    checkFilters(name, filters);
+    const chunks = layout.kind === 'chunked' ? readChunkIndex(this.view, layout.btree, v.shape.length, name) : [];
+    this.meter?.external(chunks.length * 64, 'chunk index');
+    const plan: SlabPlan = { variable: name, shape: v.shape.slice(), layout, chunks, filters, elementSize: size, read: elementReader(v.type, littleEndian) };
+    this.plans.set(name, plan);
+    return plan;
+  }
+}
+
+function safeAttributes(obj: DataObjects, owner: string): Record<string, unknown> {
+  try {
+    return obj.get_attributes();
+  } catch (e) {
+    throw new RangeError(`cannot read the attributes of ${owner}: ${describe(e)}`);
+  }
+}
