@@ -58,6 +58,11 @@ export class BatchFFT {
     if (out !== data) data.set(out);
   }
 
+  /**
+   * One radix-4 stage. With u = b − d the two odd outputs are t1 ± i·u; which of them is X1 and which
+   * X3 depends on the sign (j = sign·i), so the sign only swaps their destinations and twiddles
+   * outside the inner loop instead of costing multiplications inside it.
+   */
   private radix4(src: Float64Array, dst: Float64Array, len: number, s: number, sign: number): void {
     const q = len >> 2;
     const run = 2 * s * this.cols; // doubles per contiguous run
@@ -69,9 +74,10 @@ export class BatchFFT {
       const i2 = i1 + q * run;
       const i3 = i2 + q * run;
       const o0 = 4 * p * run;
-      const o1 = o0 + run;
-      const o2 = o1 + run;
-      const o3 = o2 + run;
+      const o2 = o0 + 2 * run;
+      // t1 + i·u goes to X1 for sign = +1, to X3 for sign = −1; t1 − i·u the other way round.
+      const oA = sign > 0 ? o0 + run : o0 + 3 * run;
+      const oB = sign > 0 ? o0 + 3 * run : o0 + run;
       if (p === 0) {
         for (let t = 0; t < run; t += 2) {
           const ar = src[i0 + t], ai = src[i0 + t + 1];
@@ -81,23 +87,24 @@ export class BatchFFT {
           const t0r = ar + cr, t0i = ai + ci;
           const t1r = ar - cr, t1i = ai - ci;
           const t2r = br + dr, t2i = bi + di;
-          // j·(b − d) with j = e^{sign·iπ/2} = sign·i
-          const t3r = -sign * (bi - di), t3i = sign * (br - dr);
+          const ur = br - dr, ui = bi - di;
           dst[o0 + t] = t0r + t2r;
           dst[o0 + t + 1] = t0i + t2i;
-          dst[o1 + t] = t1r + t3r;
-          dst[o1 + t + 1] = t1i + t3i;
           dst[o2 + t] = t0r - t2r;
           dst[o2 + t + 1] = t0i - t2i;
-          dst[o3 + t] = t1r - t3r;
-          dst[o3 + t + 1] = t1i - t3i;
+          dst[oA + t] = t1r - ui;
+          dst[oA + t + 1] = t1i + ur;
+          dst[oB + t] = t1r + ui;
+          dst[oB + t + 1] = t1i - ur;
         }
         continue;
       }
       const m1 = p * s;
-      const w1r = cosT[m1], w1i = sign * sinT[m1];
+      const m3 = 3 * m1;
       const w2r = cosT[2 * m1], w2i = sign * sinT[2 * m1];
-      const w3r = cosT[3 * m1], w3i = sign * sinT[3 * m1];
+      // Twiddles of the A and B outputs: w^1 and w^3, swapped with them for sign = −1.
+      const wAr = cosT[sign > 0 ? m1 : m3], wAi = sign * sinT[sign > 0 ? m1 : m3];
+      const wBr = cosT[sign > 0 ? m3 : m1], wBi = sign * sinT[sign > 0 ? m3 : m1];
       for (let t = 0; t < run; t += 2) {
         const ar = src[i0 + t], ai = src[i0 + t + 1];
         const br = src[i1 + t], bi = src[i1 + t + 1];
@@ -106,18 +113,18 @@ export class BatchFFT {
         const t0r = ar + cr, t0i = ai + ci;
         const t1r = ar - cr, t1i = ai - ci;
         const t2r = br + dr, t2i = bi + di;
-        const t3r = -sign * (bi - di), t3i = sign * (br - dr);
+        const ur = br - dr, ui = bi - di;
         dst[o0 + t] = t0r + t2r;
         dst[o0 + t + 1] = t0i + t2i;
-        const x1r = t1r + t3r, x1i = t1i + t3i;
-        dst[o1 + t] = x1r * w1r - x1i * w1i;
-        dst[o1 + t + 1] = x1r * w1i + x1i * w1r;
         const x2r = t0r - t2r, x2i = t0i - t2i;
         dst[o2 + t] = x2r * w2r - x2i * w2i;
         dst[o2 + t + 1] = x2r * w2i + x2i * w2r;
-        const x3r = t1r - t3r, x3i = t1i - t3i;
-        dst[o3 + t] = x3r * w3r - x3i * w3i;
-        dst[o3 + t + 1] = x3r * w3i + x3i * w3r;
+        const xar = t1r - ui, xai = t1i + ur;
+        dst[oA + t] = xar * wAr - xai * wAi;
+        dst[oA + t + 1] = xar * wAi + xai * wAr;
+        const xbr = t1r + ui, xbi = t1i - ur;
+        dst[oB + t] = xbr * wBr - xbi * wBi;
+        dst[oB + t + 1] = xbr * wBi + xbi * wBr;
       }
     }
   }

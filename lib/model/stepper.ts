@@ -66,6 +66,7 @@ export class Stepper {
     this.dt = p.dt;
     const ns = 2 * grid.spectralSize;
     this.qHat = new Float64Array(ns);
+    // Stage buffers: only kept modes are ever written, so the rest stay zero (evaluateKept relies on it).
     this.a = new Float64Array(ns);
     this.b = new Float64Array(ns);
     this.c = new Float64Array(ns);
@@ -75,7 +76,7 @@ export class Stepper {
 
   /** N(q) = −J(ψ, q) + F_steady into out. */
   private tendency(q: Float64Array, out: Float64Array): void {
-    this.nl.evaluate(q, out);
+    this.nl.evaluateKept(q, out);
     if (this.forcing.kind === 'steady') {
       const f = this.forcing.steady;
       for (let i = 0; i < out.length; i++) out[i] += f[i];
@@ -101,7 +102,7 @@ export class Stepper {
     const { nkx, Kx, keptRows, dx, dy } = this.grid;
     const lin = this.lin;
     const r = this.report;
-    this.nl.evaluate(q, a);
+    this.nl.evaluateKept(q, a);
     const speed = this.nl.maxU / dx + this.nl.maxV / dy;
     // Budgets at the start of the step (fused with adding the steady forcing to a).
     this.startBudget(q, a);
