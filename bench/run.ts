@@ -6,10 +6,13 @@
  *   --sizes a,b,c      other sizes
  *   --no-reference     skip the reference run
  *   --scaling          sizes 64..1024 and the fitted exponent of the cost against N² log N
+ *   --time-to-jets     the default scenario at 256² from rest until jets show: wall and model time,
+ *                      and the scheme's error at that step against half and quarter steps
  */
 import { referenceUnavailable, runReference, type ReferenceTiming } from './reference';
 import { timeStep, type StepTiming } from './stepBench';
 import { fitScaling } from './scaling';
+import { MIN_JETS, MIN_STAIRCASE, timeToJets } from './timeToJets';
 
 const args = process.argv.slice(2);
 const has = (flag: string) => args.includes(flag);
@@ -24,6 +27,19 @@ const sizes = (value('--sizes') ?? (scaling ? '64,128,256,512,1024' : '128,256,5
 function emit(obj: Record<string, unknown>, line: string): void {
   if (json) console.log(JSON.stringify(obj));
   else console.log(line);
+}
+
+if (has('--time-to-jets')) {
+  const n = Number(value('--n') ?? 256);
+  if (!json) console.log(`Time to jets: default scenario at ${n}², from rest, until ≥ ${MIN_JETS} jets and staircase index ≥ ${MIN_STAIRCASE}`);
+  const r = timeToJets(n, json ? undefined : console.log);
+  const s = r.summary;
+  emit(
+    { kind: 'time_to_jets', ...r, summary: undefined, jet_count: s.jet_count, staircase_index: s.staircase_index, zonostrophy_index: s.zonostrophy_index },
+    `  ${r.wall_seconds.toFixed(1)} s wall, model time ${r.model_time.toFixed(1)}, ${r.steps} steps: ${s.jet_count} jets, staircase index ${s.staircase_index?.toFixed(3)}, R_β ${s.zonostrophy_index?.toFixed(2)}\n` +
+      `  scheme error over ${r.accuracy.span.toFixed(2)} T at dt = ${r.dt.toPrecision(3)}: ${r.accuracy.error_dt.toExponential(2)} relative (dt/2: ${r.accuracy.error_half.toExponential(2)}, observed order ${r.accuracy.observed_order.toFixed(2)})`,
+  );
+  process.exit(0);
 }
 
 const timings: StepTiming[] = [];

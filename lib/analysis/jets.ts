@@ -70,15 +70,15 @@ export class JetFinder {
     this.amp = new Float64Array(ny / 2 + 1);
   }
 
-  /** Jets of the (time-mean, or instantaneous) profile ubar, periodic in y. */
-  find(ubar: Float64Array): JetReport {
+  /** Jets of the (time-mean, or instantaneous) profile ubar, periodic in y; `overrides` tighten the criterion for this call. */
+  find(ubar: Float64Array, overrides: PeakOptions = {}): JetReport {
     const { ny, Ly } = this;
     if (ubar.length !== ny) throw new RangeError(`JetFinder: profile has ${ubar.length} points, expected ${ny}`);
     const dy = Ly / ny;
     const at = (j: number) => ubar[((j % ny) + ny) % ny];
     let mean = 0;
     for (let j = 0; j < ny; j++) mean += ubar[j] / ny;
-    const peaks = findPeriodicPeaks(ubar, Ly, { floor: mean, ...this.options });
+    const peaks = findPeriodicPeaks(ubar, Ly, { floor: mean, ...this.options, ...overrides });
     const n = peaks.length;
 
     const jets: Jet[] = peaks.map((p, i) => {

@@ -8,6 +8,9 @@ import { StaircaseFitter, type StaircaseFit } from './staircase';
 import { ProfileTimeMean, type TimeWindow, type WindowReport } from './timeMean';
 import { createZonalMeans, ZonalMeanPlan, type ZonalMeans } from './zonalMean';
 
+/** Least jet prominence (peak over the deeper flank minimum of ū) as a fraction of U_rms. */
+export const JET_PROMINENCE_OF_URMS = 0.25;
+
 /** The zonal-mean profiles a run keeps time means of. */
 export const MEAN_PROFILES = ['ubar', 'qbar', 'qtot', 'upvp', 'convUpvp', 'vpqp', 'eke', 'dqdy'] as const;
 export type MeanProfile = (typeof MEAN_PROFILES)[number];
@@ -83,8 +86,13 @@ export class RunMonitor {
     return this.means.mean(this.mean);
   }
 
-  /** Jets and staircase of the time-mean profiles (call `meanProfiles` first). */
-  structure(): { jets: JetReport; staircase: StaircaseFit | null } {
-    return { jets: this.jetFinder.find(this.mean.ubar), staircase: this.staircase ? this.staircase.fit(this.mean.qtot) : null };
+  /**
+   * Jets and staircase of the time-mean profiles (call `meanProfiles` first). Given the run's rms
+   * velocity, a jet must also stand out by JET_PROMINENCE_OF_URMS·U_rms: before jets form, the time
+   * mean of an eddy field still has wiggles of a fifth of its own small range, and they are not jets.
+   */
+  structure(uRms = 0): { jets: JetReport; staircase: StaircaseFit | null } {
+    const jets = this.jetFinder.find(this.mean.ubar, { absoluteProminence: JET_PROMINENCE_OF_URMS * uRms });
+    return { jets, staircase: this.staircase ? this.staircase.fit(this.mean.qtot) : null };
   }
 }

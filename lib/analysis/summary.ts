@@ -12,7 +12,8 @@ import type { RunMonitor } from './runMonitor';
  *   injection (Vallis & Maltrud 1993), zonostrophy_index = k_beta/k_rhines and its regime
  *   (Sukoriansky et al. 2007; Galperin et al. 2010).
  * - jet_count, jet_spacing (mean distance between eastward jets, Ly/count), jet_spacing_std: from the
- *   time-mean ū(y) over the window (`jets.ts`); staircase_index from the time-mean total PV
+ *   time-mean ū(y) over the window (`jets.ts`, each jet standing out by at least a quarter of
+ *   u_rms, `RunMonitor.structure`); staircase_index from the time-mean total PV
  *   (`staircase.ts`, docs/staircase.md).
  * Undefined values (β = 0, no jets, no samples yet) are null, so the object is valid JSON.
  */
@@ -83,7 +84,7 @@ export function summarize(monitor: RunMonitor, time: number, steps: number): Run
   const kR = p.beta > 0 && U > 0 ? rhinesWavenumber(p.beta, U) : NaN;
   const kB = p.beta > 0 && eps > 0 ? transitionalWavenumber(p.beta, eps) : NaN;
   const R = kB / kR;
-  const structure = win && win.count > 0 ? monitor.structure() : null;
+  const structure = win && win.count > 0 ? monitor.structure(Number.isFinite(U) ? U : 0) : null;
   const jets = structure?.jets;
   return {
     time,
