@@ -48,7 +48,7 @@ export class LinearOperator {
         this.kept[q] = 1;
         this.invK2[q] = 1 / K2;
         this.dragRate[q] = (p.mu * k2) / K2;
-        this.hyperRate[q] = p.nu * Math.pow(k2, p.nu_order);
+        this.hyperRate[q] = p.nu * integerPower(k2, p.nu_order);
         this.lsRate[q] = p.mu_ls > 0 && Math.sqrt(k2) <= p.k_ls ? p.mu_ls : 0;
         this.waveRate[q] = (p.beta * grid.kx[ix]) / K2;
       }
@@ -86,4 +86,15 @@ export class LinearOperator {
       this.fullStep[2 * q + 1] = f * Math.sin(im * dt);
     }
   }
+}
+
+/**
+ * x^p for a small integer p ≥ 0 by repeated multiplication: correctly rounded products give the same
+ * bits on every JavaScript engine, which Math.pow does not promise (runs must match bit for bit in
+ * the browser and in Node).
+ */
+export function integerPower(x: number, p: number): number {
+  let r = 1;
+  for (let i = 0; i < p; i++) r *= x;
+  return r;
 }
