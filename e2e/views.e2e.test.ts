@@ -17,7 +17,7 @@ describe('Budget and Scale ladder views in Chromium', () => {
 
   it('lists only the views that work', async () => {
     const tabs = await app.page.getByRole('tab').allInnerTexts();
-    expect(tabs).toEqual(['Field', 'Budget', 'Scale ladder']);
+    expect(tabs).toEqual(['Field', 'Zonal', 'Hovmöller', 'Spectra', 'Flux', 'Budget', 'Scale ladder', 'Plan', 'Sweep', 'Compare']);
   });
 
   it('draws the budget charts, and they grow as the run goes on', async () => {

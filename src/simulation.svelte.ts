@@ -2,8 +2,12 @@ import { transfer, wrap, type Remote } from 'comlink';
 import type { Checkpoint } from '../lib/model/checkpoint';
 import type { FieldName } from '../lib/model/fields';
 import type { ModelParams } from '../lib/model/params';
-import type { ReconfigureResult, SimulationApi, Snapshot, SnapshotRequest } from '../workers/simulationApi';
+import type { RunSummary } from '../lib/analysis/summary';
+import type { DiagnosticNeeds, MonitorStatus, SamplingOptions } from '../workers/diagnosticsApi';
+import type { ExportedFile } from '../workers/runExports';
+import type { ExportKind, ReconfigureResult, SimulationApi, Snapshot, SnapshotRequest } from '../workers/simulationApi';
 import { BudgetHistory } from './budgetHistory';
+import { DiagnosticsState } from './diagnostics.svelte';
 import { RateMeter } from './rateMeter';
 
 /**
@@ -22,6 +26,7 @@ export class SimulationClient {
   stepsPerSecond = $state(0);
   error = $state<string | null>(null);
   readonly budget = new BudgetHistory();
+  readonly diag = new DiagnosticsState();
 
   private readonly worker: Worker;
   private readonly api: Remote<SimulationApi>;
@@ -39,9 +44,9 @@ export class SimulationClient {
   }
 
   /** Start a new run from `params` (validated by the caller) and, when asked, play it. */
-  async start(params: Partial<ModelParams>, autoplay = true): Promise<void> {
+  async start(params: Partial<ModelParams>, autoplay = true, sampling?: SamplingOptions): Promise<void> {
     await this.guard(async () => {
-      await this.api.init(params);
+      await this.api.init(params, sampling);
       if (autoplay) await this.api.play();
     });
     this.ensurePulling();
@@ -67,6 +72,22 @@ export class SimulationClient {
   runUntil = (time: number): Promise<void> => this.guard(() => this.api.runUntil(time));
   togglePlay = (): Promise<void> => (this.snapshot?.playing ? this.pause() : this.play());
   setField = (name: FieldName): Promise<void> => this.guard(() => this.api.setField(name));
+
+  /** Tell the worker what the shown view needs (it computes nothing else). */
+  setNeeds = (needs: DiagnosticNeeds): Promise<void> => this.guard(() => this.api.setDiagnostics(needs));
+
+  /** Change sampling or averaging; rejects with the reason (RangeError) when refused. */
+  setSampling(options: SamplingOptions): Promise<MonitorStatus> {
+    return this.api.setSampling(options);
+  }
+
+  summary(): Promise<RunSummary> {
+    return this.api.summary();
+  }
+
+  exportFile(kind: ExportKind): Promise<ExportedFile> {
+    return this.api.exportFile(kind);
+  }
 
   reconfigure(changes: Partial<ModelParams>): Promise<ReconfigureResult> {
     return this.api.reconfigure(changes);
@@ -107,6 +128,7 @@ export class SimulationClient {
     }
     if (this.closed) return;
     if (this.budget.ingest(snap.epoch, snap.budget)) this.budgetVersion++;
+    this.diag.ingest(snap.diagnostics);
     this.stepsPerSecond = snap.playing ? this.meter.sample(snap.steps, performance.now()) : 0;
     // The replaced snapshot has been drawn; its buffers go back with the next request.
     this.spareField = this.snapshot?.values ?? null;

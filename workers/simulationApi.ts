@@ -1,9 +1,14 @@
+import type { RunSummary } from '../lib/analysis/summary';
+import type { SweepRecord } from '../lib/sweep/sweepRecord';
+import type { SweepJob } from '../lib/sweep/sweepRuns';
 import type { StepReport } from '../lib/model/budget';
 import type { Checkpoint } from '../lib/model/checkpoint';
 import type { FieldName } from '../lib/model/fields';
 import type { ModelParams } from '../lib/model/params';
 import type { ParamIssue } from '../lib/model/validateParams';
 import type { BudgetRows } from './budgetRows';
+import type { DiagnosticNeeds, DiagnosticsPayload, MonitorStatus, SamplingOptions } from './diagnosticsApi';
+import type { ExportedFile } from './runExports';
 
 /**
  * The verbs of the simulation worker. The UI imports these types only; the worker owns the model.
@@ -15,11 +20,16 @@ import type { BudgetRows } from './budgetRows';
  *    already is, else after the next step or slice of steps), so many steps coalesce into one reply;
  *  - each snapshot carries the selected field (`setField`) and the budget rows of every step taken
  *    since the previous snapshot (see budgetRows.ts), both transferred; the UI hands buffers it no
- *    longer needs back with a later request, so steady play allocates nothing on either side.
+ *    longer needs back with a later request, so steady play allocates nothing on either side;
+ *  - each snapshot carries the diagnostics status and the payloads the shown views asked for with
+ *    `setDiagnostics`, when they changed, at most a few times per second (diagnosticsApi.ts).
  */
 export interface SimulationApi {
-  /** Build a new model (parameters completed with the defaults and validated; throws ParamError). Leaves it paused. */
-  init(params: Partial<ModelParams>): Promise<InitInfo>;
+  /**
+   * Build a new model (parameters completed with the defaults and validated; throws ParamError),
+   * sampled as `sampling` says (what it leaves out at the defaults, whatever was set before). Leaves it paused.
+   */
+  init(params: Partial<ModelParams>, sampling?: SamplingOptions): Promise<InitInfo>;
   /** Step continuously, in slices that leave room for messages, until `pause` or a blow-up. */
   play(): Promise<void>;
   /** Stop stepping (also cancels a `runUntil`). */
@@ -35,15 +45,31 @@ export interface SimulationApi {
   reconfigure(changes: Partial<ModelParams>): Promise<ReconfigureResult>;
   /** Which field the snapshots carry (u by default); answers a waiting request with it at once. */
   setField(name: FieldName): Promise<void>;
+  /** Which diagnostics the shown views need (computed only then); answers a waiting request at once. */
+  setDiagnostics(needs: DiagnosticNeeds): Promise<void>;
+  /** Change the sample interval (restarts the diagnostics), the averaging window or the spectral average; throws RangeError. */
+  setSampling(options: SamplingOptions): Promise<MonitorStatus>;
+  /** The run summary (lib/analysis/summary.ts) over the monitor's window, now. */
+  summary(): Promise<RunSummary>;
+  /** A file of the run: the current state as NetCDF, or the zonal-mean samples as NetCDF or CSV; transferred. */
+  exportFile(kind: ExportKind): Promise<ExportedFile>;
   /** Everything needed to resume bit for bit; its spectrum is a copy, transferred. */
   checkpoint(): Promise<Checkpoint>;
   /** Replace the run by one resumed from a checkpoint (throws on a bad one). Leaves it paused. */
   restore(cp: Checkpoint): Promise<InitInfo>;
   /** The next snapshot whose `version` exceeds `request.after` (see the protocol above). */
   nextSnapshot(request: SnapshotRequest): Promise<Snapshot>;
+  /**
+   * Run one sweep job from rest to its end with the command line's per-run code (runSweepJob) and
+   * return its record. It has nothing to do with the live model: the sweep pool uses simulation
+   * workers so that the model's code ships once. Blocks this worker until the run ends.
+   */
+  runSweepJob(job: SweepJob): Promise<SweepRecord>;
   /** Stop stepping, drop the model and answer nothing more; call before terminating the worker. */
   dispose(): Promise<void>;
 }
+
+export type ExportKind = 'snapshot' | 'zonal-netcdf' | 'zonal-csv';
 
 /** What `init` or `restore` settled on. */
 export interface InitInfo {
@@ -96,4 +122,6 @@ export interface Snapshot {
   until: number | null;
   /** Why the run stopped (a blow-up), or null while it can go on. */
   stopped: string | null;
+  /** The monitor's status and the payloads due (diagnosticsApi.ts). */
+  diagnostics: DiagnosticsPayload;
 }

@@ -5,9 +5,16 @@ import type { FieldName } from '../lib/model/fields';
 import { Model } from '../lib/model/model';
 import type { ModelParams } from '../lib/model/params';
 import { ParamError, validateParams } from '../lib/model/validateParams';
+import type { RunSummary } from '../lib/analysis/summary';
+import { runSweepJob } from '../lib/sweep/runSweepJob';
+import type { SweepRecord } from '../lib/sweep/sweepRecord';
+import type { SweepJob } from '../lib/sweep/sweepRuns';
 import { BudgetRowBuffer } from './budgetRows';
+import type { DiagnosticNeeds, MonitorStatus, SamplingOptions } from './diagnosticsApi';
+import { DiagnosticsPublisher } from './diagnosticsPublisher';
+import { snapshotExport, zonalCsvExport, zonalNetcdfExport, type ExportedFile } from './runExports';
 import { macrotask } from './macrotask';
-import type { InitInfo, ReconfigureResult, SimulationApi, Snapshot, SnapshotRequest } from './simulationApi';
+import type { ExportKind, InitInfo, ReconfigureResult, SimulationApi, Snapshot, SnapshotRequest } from './simulationApi';
 import { stateChecksum } from './stateChecksum';
 
 /** Stepping time per slice before the host yields to its message queue (ms): short enough that
@@ -38,11 +45,14 @@ export class SimulationHost implements SimulationApi {
   private spareField: Float64Array | null = null;
   private spareBudget: Float64Array | null = null;
   private readonly rows = new BudgetRowBuffer();
+  private readonly diagnostics = new DiagnosticsPublisher();
   /** The next slice of play, queued behind whatever messages are waiting. */
   private readonly nextSlice = macrotask(() => this.slice());
 
-  async init(params: Partial<ModelParams>): Promise<InitInfo> {
-    return this.begin(new Model({ ...params }));
+  async init(params: Partial<ModelParams>, sampling?: SamplingOptions): Promise<InitInfo> {
+    const model = new Model({ ...params });
+    this.diagnostics.resetOptions(sampling ?? {});
+    return this.begin(model);
   }
 
   async restore(cp: Checkpoint): Promise<InitInfo> {
@@ -97,6 +107,8 @@ export class SimulationHost implements SimulationApi {
     const how = next === model ? 'inPlace' : next.params.Lx !== old.Lx || next.params.Ly !== old.Ly ? 'fresh' : 'regrid';
     if (how === 'fresh') this.newEpoch();
     this.model = next;
+    // Time means across a change of parameters would mix two runs: the diagnostics start again.
+    this.diagnostics.restart(next);
     // New parameters may well cure a blow-up (a smaller dt, more hyperviscosity): let it try again.
     this.stopped = null;
     this.changed();
@@ -107,6 +119,29 @@ export class SimulationHost implements SimulationApi {
     if (name === this.field) return;
     this.field = name;
     this.changed();
+  }
+
+  async setDiagnostics(needs: DiagnosticNeeds): Promise<void> {
+    this.diagnostics.setNeeds(needs, this.model);
+    if (this.model) this.changed();
+  }
+
+  async setSampling(options: SamplingOptions): Promise<MonitorStatus> {
+    this.diagnostics.setSampling(options, this.model);
+    if (this.model) this.changed();
+    return this.diagnostics.status();
+  }
+
+  async summary(): Promise<RunSummary> {
+    const model = this.requireModel();
+    return this.diagnostics.current.summary(model);
+  }
+
+  async exportFile(kind: ExportKind): Promise<ExportedFile> {
+    const model = this.requireModel();
+    const d = this.diagnostics.current;
+    const file = kind === 'snapshot' ? snapshotExport(model, d) : kind === 'zonal-netcdf' ? zonalNetcdfExport(model, d) : zonalCsvExport(model, d);
+    return transfer(file, [file.bytes.buffer]);
   }
 
   async checkpoint(): Promise<Checkpoint> {
@@ -124,6 +159,10 @@ export class SimulationHost implements SimulationApi {
     });
   }
 
+  async runSweepJob(job: SweepJob): Promise<SweepRecord> {
+    return runSweepJob(job, { seconds: () => performance.now() / 1000, iso: () => new Date().toISOString() });
+  }
+
   async dispose(): Promise<void> {
     this.playing = false;
     this.model = null;
@@ -139,6 +178,7 @@ export class SimulationHost implements SimulationApi {
     this.until = null;
     this.stopped = null;
     this.newEpoch();
+    this.diagnostics.restart(model);
     this.changed();
     return { params: { ...model.params }, forcedModes: model.forcedModes };
   }
@@ -151,6 +191,7 @@ export class SimulationHost implements SimulationApi {
   private stepAndRecord(model: Model): void {
     model.step(1);
     this.rows.push(model.report);
+    this.diagnostics.afterStep(model);
   }
 
   /** One slice of continuous play: step until the slice time is used (or the target time is reached), then publish and yield. */
@@ -204,6 +245,7 @@ export class SimulationHost implements SimulationApi {
     model.field(this.field, values);
     const budget = this.rows.take(this.spareBudget);
     this.spareBudget = null;
+    const diag = this.diagnostics.payload(performance.now(), this.playing);
     const snap: Snapshot = {
       version: this.version,
       epoch: this.epoch,
@@ -222,8 +264,9 @@ export class SimulationHost implements SimulationApi {
       playing: this.playing,
       until: this.until,
       stopped: this.stopped,
+      diagnostics: diag.payload,
     };
-    return transfer(snap, [values.buffer, budget.data.buffer]);
+    return transfer(snap, [values.buffer, budget.data.buffer, ...diag.buffers]);
   }
 
   private requireModel(): Model {

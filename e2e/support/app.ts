@@ -89,3 +89,27 @@ export function canvasSample(page: Page, selector: string): Promise<{ hash: numb
     return { hash, red, blue, width: canvas.width, height: canvas.height };
   }, selector);
 }
+
+/** Pixels of a canvas that are clearly drawn on (any channel below 200): a chart with lines, not an empty frame. */
+export function inkPixels(page: Page, selector: string): Promise<number> {
+  return page.evaluate((sel) => {
+    const canvas = document.querySelector<HTMLCanvasElement>(sel);
+    const ctx = canvas?.getContext('2d');
+    if (!canvas || !ctx) throw new Error(`no canvas ${sel}`);
+    const data = ctx.getImageData(0, 0, canvas.width, canvas.height).data;
+    let n = 0;
+    for (let i = 0; i < data.length; i += 4) if (data[i + 3] > 0 && (data[i] < 200 || data[i + 1] < 200 || data[i + 2] < 200)) n++;
+    return n;
+  }, selector);
+}
+
+/** Open a view by its tab. */
+export async function openView(page: Page, id: string): Promise<void> {
+  await page.getByTestId(`tab-${id}`).click();
+  await page.getByTestId(`view-${id}`).waitFor();
+}
+
+/** Wait until the model time has gone past `t`. */
+export async function waitForTime(page: Page, t: number, timeout = 60_000): Promise<void> {
+  await page.waitForFunction((t0) => Number(document.querySelector('[data-testid=model-time]')?.textContent) > t0, t, { timeout });
+}

@@ -1,0 +1,93 @@
+import { readFile } from 'node:fs/promises';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { analysePlan } from '../lib/plan/analysePlan';
+import { parsePlanFile } from '../lib/plan/planFile';
+import { planPreset } from '../lib/plan/planPresets';
+import { launchChromium, type BrowserSession } from './support/browser';
+import { openApp, openView, screenshot, type AppPage } from './support/app';
+
+describe('Plan view in Chromium', () => {
+  let session: BrowserSession;
+  let app: AppPage;
+
+  beforeAll(async () => {
+    session = await launchChromium({ width: 1400, height: 1000 });
+    app = await openApp(session);
+    await openView(app.page, 'plan');
+  });
+
+  afterAll(async () => {
+    await session?.close();
+  });
+
+  it('shows for a preset exactly the predictions of lib/plan, each with its formula and source', async () => {
+    const { page } = app;
+    await page.getByTestId('plan-preset').selectOption('earthOcean');
+    const expected = analysePlan(planPreset('earthOcean').input).predictions;
+    const rows = page.locator('[data-testid^=prediction-]');
+    const shown = await rows.evaluateAll((els) => els.map((e) => [e.getAttribute('data-testid')!.slice('prediction-'.length), Number(e.getAttribute('data-value'))] as const));
+    expect(shown.length).toBeGreaterThan(15);
+    // Chromium's and Node's engines may differ in the last bit of Math.pow: a few units of round-off apart at most.
+    for (const [id, value] of shown) {
+      const want = expected[id as keyof typeof expected].value;
+      expect(Math.abs(value - want), id).toBeLessThanOrEqual(8 * Number.EPSILON * Math.abs(want));
+    }
+    // Hovering a prediction shows its formula and source.
+    const kR = page.getByTestId('prediction-kR').getByRole('button');
+    await kR.hover();
+    await expect(page.getByTestId('prediction-kR').getByRole('tooltip').innerText()).resolves.toContain(expected.kR.formula);
+    // The preset says which constants are real and which are made up.
+    await expect(page.getByText(/made up/).first().isVisible()).resolves.toBe(true);
+    await screenshot(page, 'plan.png');
+  });
+
+  it('refuses a bad entry at its field, and the machine speed changes the cost', async () => {
+    const { page } = app;
+    const wall = Number(await page.getByTestId('plan-cost').getAttribute('data-wall'));
+    await page.getByTestId('plan-speed').fill('2');
+    await page.getByTestId('plan-speed').press('Enter');
+    await expect.poll(async () => Number(await page.getByTestId('plan-cost').getAttribute('data-wall'))).toBeCloseTo(wall / 2, 6);
+    await page.getByTestId('plan-domain-Lx').fill('-3');
+    await page.getByTestId('plan-domain-Lx').press('Enter');
+    await expect(page.getByTestId('plan-domain-Lx-error').innerText()).resolves.toMatch(/domain length Lx: a finite number > 0/);
+    await expect(page.getByTestId('plan-refused').innerText()).resolves.toMatch(/domain\.Lx/);
+    await page.getByTestId('plan-domain-Lx').fill('4e6');
+    await page.getByTestId('plan-domain-Lx').press('Enter');
+    await page.getByTestId('plan-predictions').waitFor();
+  });
+
+  it('saves the plan as a plan file and the printable report', async () => {
+    const { page } = app;
+    const [json] = await Promise.all([page.waitForEvent('download'), page.getByTestId('plan-save-json').click()]);
+    const plan = parsePlanFile(await readFile(await json.path(), 'utf8'));
+    expect(plan.input.domain.Lx).toBe(4e6);
+    const [html] = await Promise.all([page.waitForEvent('download'), page.getByTestId('plan-report-html').click()]);
+    const text = await readFile(await html.path(), 'utf8');
+    expect(text).toMatch(/^<!doctype html>/i);
+    expect(text).toContain('Matched cheap run');
+  });
+
+  it('runs the matched run here and puts its measured summary beside the predictions', async () => {
+    const { page } = app;
+    await page.getByTestId('plan-preset').selectOption('earthOcean');
+    // A small wall-time target keeps the matched run to a 128 × 128 grid.
+    await page.getByTestId('plan-target').fill('20');
+    await page.getByTestId('plan-target').press('Enter');
+    const matched = analysePlan(planPreset('earthOcean').input, { targetWallSeconds: 20 }).matched!;
+    await page.getByTestId('run-matched').click();
+    await expect.poll(() => page.getByTestId('matched-trial').getAttribute('data-phase')).toBe('running');
+    expect(Number(await page.locator('#param-nx').inputValue())).toBe(matched.params.nx);
+    await page.getByTestId('matched-comparison').waitFor({ timeout: 150_000 });
+    const jets = await page.getByTestId('measured-jet_count').getAttribute('data-measured');
+    expect(Number(jets)).toBeGreaterThanOrEqual(0);
+    const u = Number(await page.getByTestId('measured-u_rms').getAttribute('data-measured'));
+    // The matched run is in units where the planned U is 1.
+    expect(u).toBeGreaterThan(0.2);
+    expect(u).toBeLessThan(2);
+    await screenshot(page, 'plan-matched.png');
+  }, 200_000);
+
+  it('ran without page errors or console warnings', () => {
+    expect(app.problems).toEqual([]);
+  });
+});

@@ -1,0 +1,27 @@
+import type { RunSummary } from '../../lib/analysis/summary';
+import type { PlanInput } from '../../lib/plan/planInput';
+import { PLAN_PRESETS, type PlanPreset } from '../../lib/plan/planPresets';
+import type { PlanPredictions } from '../../lib/plan/predictions';
+import type { TrialPhase, TrialTrack } from './matchedTrial';
+
+/** The matched run started here: what it was, what it predicted, and (once it ended) what it measured. */
+export interface MatchedTrial extends TrialTrack {
+  predictions: PlanPredictions;
+  phase: TrialPhase;
+  measured: RunSummary | null;
+}
+
+/**
+ * The planner's state, kept while the Plan view is closed (a matched run goes on in the worker
+ * meanwhile): the input as entered, possibly invalid, the preset it came from, the machine-speed
+ * factor, the matched run's wall-time target, and the matched run tried here.
+ */
+class PlanSession {
+  input = $state<PlanInput>(structuredClone(PLAN_PRESETS[0].input));
+  preset = $state<PlanPreset['id'] | null>(PLAN_PRESETS[0].id);
+  speed = $state(1);
+  targetSeconds = $state(120);
+  trial = $state.raw<MatchedTrial | null>(null);
+}
+
+export const planSession = new PlanSession();

@@ -1,0 +1,68 @@
+import type { StriaRunInfo } from '../lib/io/cfGlobalAttributes';
+import { encodeSnapshotFile, encodeZonalMeanFile, snapshotFrame } from '../lib/io/cfStriaWriter';
+import { encodeCsv, type CsvColumn } from '../lib/io/csv';
+import type { Model } from '../lib/model/model';
+import pkg from '../package.json';
+import type { RunDiagnostics } from './runDiagnostics';
+import { ZONAL_PROFILES } from './zonalFrameStore';
+
+/** The files a run exports: bytes, a suggested name, and what they hold in words. */
+export interface ExportedFile {
+  name: string;
+  mime: string;
+  bytes: Uint8Array;
+  /** e.g. "1 record of 5 fields on 128 × 128". */
+  description: string;
+}
+
+function runInfo(model: Model, action: string): StriaRunInfo {
+  return { params: { ...model.params }, striaVersion: pkg.version, createdAt: new Date().toISOString(), command: `Stria app: ${action}` };
+}
+
+const stamp = (t: number) => `t${t.toFixed(2)}`;
+
+/** The current state as a one-record snapshot file (CF NetCDF, docs/file-formats.md). */
+export function snapshotExport(model: Model, diag: RunDiagnostics): ExportedFile {
+  const fields = diag.monitor.snap.gridFields(model.qHat);
+  const bytes = encodeSnapshotFile(runInfo(model, 'export the current state'), [snapshotFrame(model.time, model.steps, fields)]);
+  const { nx, ny } = model.params;
+  return { name: `stria-snapshot-${stamp(model.time)}.nc`, mime: 'application/x-netcdf', bytes, description: `1 record of q, ζ, ψ, u, v on ${nx} × ${ny} at t = ${model.time.toFixed(3)}` };
+}
+
+/** The zonal-mean samples gathered since the diagnostics (re)started, as a CF NetCDF time series. */
+export function zonalNetcdfExport(model: Model, diag: RunDiagnostics): ExportedFile {
+  const frames = diag.frames.frameList();
+  if (frames.length === 0) throw new RangeError('no zonal-mean samples yet: let the run go on for a sample interval first');
+  const bytes = encodeZonalMeanFile(runInfo(model, 'export the zonal-mean time series'), frames);
+  return { name: `stria-zonal-${stamp(model.time)}.nc`, mime: 'application/x-netcdf', bytes, description: describe(diag, frames.length) };
+}
+
+/**
+ * The same samples as CSV in long form, one row per (time, y), so it loads as a table as it is:
+ * time, step, y, ubar, qbar (the total PV q̄ + βy, as in the NetCDF file), upvp, vpqp, eke.
+ */
+export function zonalCsvExport(model: Model, diag: RunDiagnostics): ExportedFile {
+  const frames = diag.frames.frameList();
+  if (frames.length === 0) throw new RangeError('no zonal-mean samples yet: let the run go on for a sample interval first');
+  const { ny, Ly } = model.params;
+  const rows = frames.length * ny;
+  const col = () => new Float64Array(rows);
+  const cols: Record<string, Float64Array> = { time: col(), step: col(), y: col() };
+  for (const name of ZONAL_PROFILES) cols[name] = col();
+  frames.forEach((f, r) => {
+    for (let j = 0; j < ny; j++) {
+      const i = r * ny + j;
+      cols.time[i] = f.time;
+      cols.step[i] = f.steps;
+      cols.y[i] = (j * Ly) / ny;
+      for (const name of ZONAL_PROFILES) cols[name][i] = f.fields[name][j];
+    }
+  });
+  const columns: CsvColumn[] = Object.entries(cols).map(([name, values]) => ({ name, values }));
+  return { name: `stria-zonal-${stamp(model.time)}.csv`, mime: 'text/csv', bytes: encodeCsv(columns), description: describe(diag, frames.length) };
+}
+
+function describe(diag: RunDiagnostics, n: number): string {
+  const every = diag.sampling.sampleEvery * diag.frames.samplesPerFrame;
+  return `${n} records of ū, q̄ + βy, u′v′, v′q′, EKE on ${diag.params.ny} points in y, every ${Number(every.toPrecision(4))} T`;
+}
