@@ -90,7 +90,7 @@ export function regimeOf(R: number): Regime {
 export const REGIME_LABELS: Readonly<Record<Regime, string>> = Object.freeze({
   'friction-dominated': 'friction-dominated (R_β < 1.5): weak or no jets',
   transitional: 'zonostrophic, transitional (1.5 ≤ R_β < 2.5): jets with strong eddies',
-  zonostrophic: 'fully developed zonostrophic (R_β ≥ 2.5): steady, sharp jets and a PV staircase',
+  zonostrophic: 'fully developed zonostrophic (R_β ≥ 2.5): persistent jets; the PV staircase sharpens as R_β grows',
 });
 
 /**
