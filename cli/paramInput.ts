@@ -91,7 +91,8 @@ export function parseSets(words: readonly string[]): Partial<ModelParams> {
     if (eq <= 0) throw new UsageError(`--set ${word}: expected key=value, e.g. --set beta=20`);
     const key = word.slice(0, eq);
     const text = word.slice(eq + 1);
-    if (!(key in DEFAULT_PARAMS)) throw new UsageError(`--set ${word}: "${key}" is not a parameter (known: ${Object.keys(DEFAULT_PARAMS).join(', ')})`);
+    // Own keys only: `in` would let "__proto__" or "toString" through (the first then silently vanishes).
+    if (!Object.hasOwn(DEFAULT_PARAMS, key)) throw new UsageError(`--set ${word}: "${key}" is not a parameter (known: ${Object.keys(DEFAULT_PARAMS).join(', ')})`);
     const kind = typeof DEFAULT_PARAMS[key as keyof ModelParams];
     if (kind === 'number') {
       const x = parseNumber(text);

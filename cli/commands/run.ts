@@ -1,17 +1,31 @@
+import { resolve } from 'node:path';
 import { writeFileSync } from 'node:fs';
 import { encodeRunFile } from '../../lib/io/runFile';
 import { Model } from '../../lib/model/model';
-import { BlowUpError } from '../../lib/model/stepper';
-import { MonitoredRun } from '../../lib/sweep/monitoredRun';
+import type { ModelParams } from '../../lib/model/params';
+import { blowUpReport, DEFAULT_MAX_RETRIES, describeBlowUp, type BlowUpPolicy, type RetryRecord } from '../../lib/sweep/blowUpRetry';
+import { StateShapeError } from '../../lib/sweep/dataState';
+import { MonitoredRun, type RunOrigin } from '../../lib/sweep/monitoredRun';
+import { runId } from '../../lib/sweep/runId';
+import { checkMemoryBudget, estimateRunMemory, MemoryBudgetError } from '../../lib/sweep/runMemory';
 import { describeStopRule, resolveRunPlan, RunPlanError, type RunLengthRequest, type RunPlan } from '../../lib/sweep/runPlan';
+import type { RunProgress } from '../../lib/sweep/runProgress';
 import { UsageError, type OptionSpec, type ParsedArgs } from '../args';
+import { DEFAULT_MEMORY_BUDGET, parseByteSize } from '../byteSize';
+import { CheckpointStore, readCheckpoint } from '../checkpointStore';
 import { EXIT_FAILED, EXIT_INTERRUPTED, EXIT_OK, type Command, type CommandIO } from '../command';
 import { resolveRunStart } from '../paramInput';
-import { Breather } from '../breather';
 import { ProgressBar } from '../progressBar';
-import { RunOutputs } from '../runOutputs';
-import { summaryText } from '../summaryText';
+import { checkSameRun } from '../resumeCheck';
+import { RunDriver } from '../runDriver';
+import { RunOutputs, type OutputCounts } from '../runOutputs';
+import { runReport } from '../runReport';
 import { striaVersion } from '../version';
+
+/** Steps between checkpoints when --checkpoint-every is not given. */
+export const DEFAULT_CHECKPOINT_EVERY = 1000;
+/** What the command line itself takes (Node and the TypeScript loader: about 100 MiB measured). */
+export const CLI_RUNTIME_BYTES = 128 * 2 ** 20;
 
 const options: OptionSpec[] = [
   { name: 'preset', kind: 'text', value: 'ID', help: 'start from a demo scenario: jets, few-jets, many-jets, deformation, isotropic' },
@@ -28,7 +42,13 @@ const options: OptionSpec[] = [
   { name: 'every', kind: 'count', value: 'K', help: 'a snapshot every K steps (with --snapshots)' },
   { name: 'zonal', kind: 'text', value: 'FILE', help: 'write the zonal-mean time series (one record per sample) to a NetCDF file' },
   { name: 'save', kind: 'text', value: 'FILE', help: 'save the final state as a run file, to resume with stria run FILE' },
-  { name: 'json', kind: 'flag', help: 'print the run summary as JSON (the summary object, stable keys)' },
+  { name: 'checkpoint', kind: 'text', value: 'FILE', help: 'keep a checkpoint of the run in FILE (replaced atomically), every\n--checkpoint-every steps, at the end and on Ctrl-C' },
+  { name: 'checkpoint-every', kind: 'count', value: 'K', help: `steps between checkpoints, at multiples of K of the step count\n(default ${DEFAULT_CHECKPOINT_EVERY}; also the in-memory checkpoints of --on-blowup retry)` },
+  { name: 'resume', kind: 'text', value: 'FILE', help: 'continue the run that wrote the checkpoint FILE, bit for bit: give the\nsame command as it, plus --resume FILE' },
+  { name: 'on-blowup', kind: 'text', value: 'stop|retry', help: 'on a blow-up, stop with its report (default), or go back to the last\ncheckpoint with half the time step (and half the CFL target)' },
+  { name: 'max-retries', kind: 'number', value: 'N', help: `most retries in the run with --on-blowup retry (default ${DEFAULT_MAX_RETRIES})` },
+  { name: 'memory-budget', kind: 'text', value: 'SIZE', help: 'refuse a run whose memory estimate exceeds SIZE, e.g. 512MiB, 4GiB\n(default 2GiB)' },
+  { name: 'json', kind: 'flag', help: 'print the run summary as JSON (the summary object, stable keys,\nthen retries and blow_up)' },
 ];
 
 /** Option name of each RunPlan field, for error messages. */
@@ -63,7 +83,14 @@ become steady. The default --average, 1/mu, is then the last two windows.
 
 NetCDF files grow one record at a time and are readable while the run goes on. A progress bar
 shows on standard error when it is a terminal. Ctrl-C stops at the next step boundary, closes the
-files, saves (--save) and prints the summary of what was run.`,
+files, saves (--save) and prints the summary of what was run.
+
+Long runs: --checkpoint FILE keeps the state and the measurement so far, replaced atomically (a
+kill at any moment leaves the previous checkpoint whole); after a crash or a kill, the same command
+plus --resume FILE continues bit for bit, the NetCDF files included. A blow-up (non-finite state or
+CFL number past its limit) stops with its report (exit 1), or with --on-blowup retry goes back to
+the last checkpoint with half the time step, at most --max-retries times. A grid whose memory
+estimate exceeds --memory-budget is refused before anything is allocated.`,
   examples: `
   # the demo jets on a 64 x 64 grid until t = 200, zonal means every 0.5, summary as JSON
   stria run --preset jets --set nx=64 --set ny=64 --set kf=16 --until 200 \\
@@ -71,7 +98,11 @@ files, saves (--save) and prints the summary of what was run.`,
 
   # run until steady, snapshots every 500 steps, then continue the saved run to t = 800
   stria run --preset jets --until-steady --snapshots jets.nc --every 500 --save jets-run.json
-  stria run jets-run.json --until 800`,
+  stria run jets-run.json --until 800
+
+  # an hour-long run that survives being killed: checkpoint every 2000 steps, then resume
+  stria run --preset jets --until 5000 --zonal z.nc --checkpoint ck.json --checkpoint-every 2000
+  stria run --preset jets --until 5000 --zonal z.nc --checkpoint ck.json --checkpoint-every 2000 --resume ck.json`,
   options,
   run,
 };
@@ -80,44 +111,68 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   const o = args.options;
   if (args.positionals.length > 1) throw new UsageError(`expected at most one FILE, got ${args.positionals.map((p) => `"${p}"`).join(', ')}`);
   if ((o.snapshots === undefined) !== (o.every === undefined)) throw new UsageError(o.snapshots === undefined ? '--every needs --snapshots FILE' : '--snapshots needs --every K (steps between snapshots)');
+  const policy = blowUpPolicy(o);
+  const budget = memoryBudget(o);
+  const checkpointEvery = (o['checkpoint-every'] as number | undefined) ?? DEFAULT_CHECKPOINT_EVERY;
   const start = resolveRunStart({ file: args.positionals[0], preset: o.preset as string | undefined, sets: o.set as string[] | undefined });
-  let model = start.checkpoint ? Model.restore(start.checkpoint) : new Model(start.params);
-  if (start.checkpoint && Object.keys(start.changes).length) model = model.reconfigure(start.changes);
-  const plan = runPlanOf(model, o);
-  const outputs = new RunOutputs(model, { snapshots: o.snapshots as string | undefined, every: o.every as number | undefined, zonal: o.zonal as string | undefined }, {
-    params: model.params,
-    striaVersion: striaVersion(),
-    createdAt: new Date().toISOString(),
-    command: ['stria', ...io.argv].join(' '),
-  });
-  const monitored = new MonitoredRun(model, plan, outputs.hooks());
+  const resumed = o.resume === undefined ? null : readCheckpoint(o.resume as string);
+  // The run as the command asks for it: its parameters, where it starts, and its plan.
+  const origin: RunOrigin = resumed ? resumed.progress.origin : { time: start.checkpoint?.time ?? 0, steps: start.checkpoint?.steps ?? 0 };
+  const plan = runPlanOf(start.params, o, origin.time);
+  if (resumed) checkSameRun(o.resume as string, start.params, plan, resumed.progress);
+  const params = resumed ? resumed.checkpoint.params : start.params;
+  checkMemory(params, budget, { snapshots: o.snapshots !== undefined, zonal: o.zonal !== undefined, retry: policy.kind === 'retry', checkpointFile: o.checkpoint !== undefined });
+
+  let model: Model;
+  if (resumed) model = Model.restore(resumed.checkpoint);
+  else if (start.checkpoint) model = Object.keys(start.changes).length ? Model.restore(start.checkpoint).reconfigure(start.changes) : Model.restore(start.checkpoint);
+  else model = new Model(start.params);
+  const createdAt = resumed?.progress.outputs.created_at ?? new Date().toISOString();
+  const command = resumed?.progress.outputs.command ?? ['stria', ...io.argv].join(' ');
+  const request = { snapshots: o.snapshots as string | undefined, every: o.every as number | undefined, zonal: o.zonal as string | undefined };
+  const outputs = new RunOutputs(start.params, request, { params: start.params, striaVersion: striaVersion(), createdAt, command }, resumed ? keptRecords(resumed.progress, request, io) : {});
+  const monitored = new MonitoredRun(model, plan, outputs.hooks(), origin);
+  if (resumed) restoreMeasurement(monitored, resumed.progress, io);
+  const retries: RetryRecord[] = resumed ? resumed.progress.retries : [];
+  const store = o.checkpoint === undefined ? null : new CheckpointStore(o.checkpoint as string, { id: runId(start.params, plan), params: start.params, plan, origin, createdAt, command });
+  if (resumed) io.err.write(`stria run: resumed from ${o.resume} at t = ${model.time.toPrecision(6)}, step ${model.steps}${retries.length ? ` (after ${retries.length} retr${retries.length === 1 ? 'y' : 'ies'})` : ''}\n`);
+
   const bar = 'isTTY' in io.err && io.err.isTTY ? new ProgressBar(io.err, 'stria run') : null;
-  let failure: BlowUpError | null = null;
+  const driver = new RunDriver(monitored, outputs, {
+    policy,
+    checkpointEvery,
+    store,
+    interrupted: io.interrupted,
+    log: (line) => {
+      bar?.done();
+      io.err.write(`stria run: ${line}\n`);
+    },
+    onProgress: (r) => bar?.update(r.progress(), `t = ${r.model.time.toPrecision(4)}, step ${r.model.steps}`),
+  }, retries);
+  let outcome;
   try {
-    const breather = new Breather();
-    while (!monitored.advance(25)) {
-      bar?.update(monitored.progress(), `t = ${model.time.toPrecision(4)}, step ${model.steps}`);
-      await breather.breathe();
-      if (io.interrupted()) break;
-    }
-  } catch (e) {
-    if (!(e instanceof BlowUpError)) throw e;
-    failure = e;
+    outcome = await driver.drive();
   } finally {
     bar?.done();
     outputs.close();
   }
+  model = monitored.model;
   if (o.save) writeFileSync(o.save as string, encodeRunFile(model.checkpoint()));
-  const summary = monitored.summary();
-  io.out.write(o.json ? `${JSON.stringify(summary)}\n` : summaryText(summary));
-  const written = [outputs.describe(), o.save ? `state saved to ${o.save}` : ''].filter(Boolean).join('; ');
+  const blowUp = outcome.kind === 'blew-up' ? blowUpReport(outcome.error) : null;
+  io.out.write(runReport(monitored.summary(), driver.retries, blowUp, o.json === true));
+  const written = [outputs.describe(), o.save ? `state saved to ${o.save}` : '', store?.written ? `checkpoint in ${store.path} at step ${model.steps}` : ''].filter(Boolean).join('; ');
   if (written) io.err.write(`stria run: ${written}\n`);
-  if (failure) {
-    io.err.write(`stria run: error: ${failure.message}; the summary is of the last good state\n`);
+  if (driver.retries.length && outcome.kind !== 'blew-up') io.err.write(`stria run: recovered after ${driver.retries.length} retr${driver.retries.length === 1 ? 'y' : 'ies'}; dt is now ${model.params.dt.toPrecision(4)}\n`);
+  if (outcome.kind === 'blew-up') {
+    io.err.write(`stria run: error: ${describeBlowUp(blowUp!)}; the summary is of the last good state${store?.written ? `, and ${store.path} holds the last checkpoint before it` : ''}\n`);
     return EXIT_FAILED;
   }
-  if (monitored.stopped === null) {
-    io.err.write(`stria run: interrupted at t = ${model.time}, step ${model.steps}\n`);
+  if (outcome.kind === 'checkpoint-failed') {
+    io.err.write(`stria run: error: ${outcome.error.message}; stopped at t = ${model.time}, step ${model.steps}\n`);
+    return EXIT_FAILED;
+  }
+  if (outcome.kind === 'interrupted') {
+    io.err.write(`stria run: interrupted at t = ${model.time}, step ${model.steps}${store ? `; resume with the same command plus --resume ${store.path}` : ''}\n`);
     return EXIT_INTERRUPTED;
   }
   if (monitored.stopped === 'not-steady') {
@@ -128,7 +183,60 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   return EXIT_OK;
 }
 
-function runPlanOf(model: Model, o: ParsedArgs['options']): RunPlan {
+function blowUpPolicy(o: ParsedArgs['options']): BlowUpPolicy {
+  const mode = (o['on-blowup'] as string | undefined) ?? 'stop';
+  if (mode !== 'stop' && mode !== 'retry') throw new UsageError(`--on-blowup ${mode}: must be stop or retry`);
+  const max = o['max-retries'] as number | undefined;
+  if (max !== undefined && !(Number.isInteger(max) && max >= 0)) throw new UsageError(`--max-retries needs a whole number ≥ 0, got ${max}`);
+  if (max !== undefined && mode !== 'retry') throw new UsageError('--max-retries applies only with --on-blowup retry');
+  return mode === 'stop' ? { kind: 'stop' } : { kind: 'retry', maxRetries: max ?? DEFAULT_MAX_RETRIES };
+}
+
+function memoryBudget(o: ParsedArgs['options']): number {
+  const text = o['memory-budget'] as string | undefined;
+  if (text === undefined) return DEFAULT_MEMORY_BUDGET;
+  const bytes = parseByteSize(text);
+  if (!Number.isFinite(bytes)) throw new UsageError(`--memory-budget ${text}: needs a size such as 512MiB, 4GiB or 2000000000 (bytes)`);
+  return bytes;
+}
+
+function checkMemory(p: ModelParams, budget: number, req: Parameters<typeof estimateRunMemory>[1]): void {
+  try {
+    checkMemoryBudget(estimateRunMemory(p, { ...req, runtimeBytes: CLI_RUNTIME_BYTES }), budget, `nx = ${p.nx}, ny = ${p.ny}: this run`);
+  } catch (e) {
+    if (e instanceof MemoryBudgetError) throw new UsageError(`${e.message}; give a smaller grid, fewer outputs or a larger --memory-budget`);
+    throw e;
+  }
+}
+
+/** Records to keep in each file a resumed run continues: those its checkpoint counted, same file only. */
+function keptRecords(progress: RunProgress, req: { snapshots?: string; every?: number; zonal?: string }, io: CommandIO): Partial<OutputCounts> {
+  const keep: Partial<OutputCounts> = {};
+  const saved = progress.outputs;
+  if (req.snapshots !== undefined && saved.snapshots && resolve(saved.snapshots.path) === resolve(req.snapshots)) {
+    if (saved.snapshots.every !== req.every) throw new UsageError(`--every ${req.every}: the checkpoint's run wrote a snapshot every ${saved.snapshots.every} steps to ${req.snapshots}`);
+    keep.snapshots = saved.snapshots.records;
+  } else if (req.snapshots !== undefined) io.err.write(`stria run: ${req.snapshots} is new to this run: it starts at the resume point\n`);
+  if (req.zonal !== undefined && saved.zonal && resolve(saved.zonal.path) === resolve(req.zonal)) keep.zonal = saved.zonal.records;
+  else if (req.zonal !== undefined) io.err.write(`stria run: ${req.zonal} is new to this run: it starts at the resume point\n`);
+  return keep;
+}
+
+/** The measurement saved with the checkpoint; one that does not fit is dropped, with a warning. */
+function restoreMeasurement(run: MonitoredRun, progress: RunProgress, io: CommandIO): void {
+  if (!progress.measurement) {
+    io.err.write('stria run: the checkpoint holds no measurement: the summary covers the run from the resume point\n');
+    return;
+  }
+  try {
+    run.restoreState(progress.measurement);
+  } catch (e) {
+    if (!(e instanceof StateShapeError)) throw e;
+    io.err.write(`stria run: the checkpoint's measurement does not fit this Stria (${e.message}): the summary covers the run from the resume point\n`);
+  }
+}
+
+function runPlanOf(params: ModelParams, o: ParsedArgs['options'], start: number): RunPlan {
   const req: RunLengthRequest = {
     steps: o.steps as number | undefined,
     until: o.until as number | undefined,
@@ -140,7 +248,7 @@ function runPlanOf(model: Model, o: ParsedArgs['options']): RunPlan {
     sampleEvery: o['sample-every'] as number | undefined,
   };
   try {
-    return resolveRunPlan(model.params, req, model.time);
+    return resolveRunPlan(params, req, start);
   } catch (e) {
     if (!(e instanceof RunPlanError)) throw e;
     const option = OPTION_OF[e.field] ?? e.field;

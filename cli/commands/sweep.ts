@@ -5,7 +5,10 @@ import type { SweepRecord } from '../../lib/sweep/sweepRecord';
 import { joinRecords } from '../../lib/sweep/sweepRecord';
 import { describePoint, expandSweep, type SweepJob } from '../../lib/sweep/sweepRuns';
 import { parseSweepSpec, SweepSpecError, type SweepSpec } from '../../lib/sweep/sweepSpec';
+import { estimateRunMemory, formatBytes } from '../../lib/sweep/runMemory';
 import { UsageError, type OptionSpec, type ParsedArgs } from '../args';
+import { DEFAULT_MEMORY_BUDGET, parseByteSize } from '../byteSize';
+import { CLI_RUNTIME_BYTES } from './run';
 import { EXIT_INTERRUPTED, EXIT_OK, type Command, type CommandIO } from '../command';
 import { appendRecord, openRunsLog, readRunsLog } from '../sweep/runsLog';
 import { defaultJobs, runInPool } from '../sweep/workerPool';
@@ -17,12 +20,16 @@ const options: OptionSpec[] = [
   { name: 'shard', kind: 'text', value: 'i/n', help: 'run only shard i of n (i from 0): the runs whose index is i modulo n' },
   { name: 'list', kind: 'flag', help: 'list the runs (id, index, shard, values, seed, finished or not) and exit' },
   { name: 'quiet', kind: 'flag', help: 'no line per finished run on standard error' },
+  { name: 'memory-budget', kind: 'text', value: 'SIZE', help: 'refuse a sweep whose runs at a time (--jobs) would need more than SIZE,\ne.g. 8GiB (default 2GiB)' },
 ];
+
+/** What each worker thread takes besides its run (its own JavaScript heap and loader: about 40 MiB measured). */
+export const WORKER_RUNTIME_BYTES = 48 * 2 ** 20;
 
 export const sweepCommand: Command = {
   name: 'sweep',
   summary: 'many runs from a JSON spec, in parallel, resumable and splittable: table and scaling fits',
-  usage: 'stria sweep SPEC [--out DIR] [--jobs N] [--shard i/n] [--list] [--quiet]',
+  usage: 'stria sweep SPEC [--out DIR] [--jobs N] [--shard i/n] [--list] [--quiet] [--memory-budget SIZE]',
   description: `
 Runs every combination of the swept values (one or two parameters) times the replicas (seeds
 base seed, base seed + 1, ...), each for the spec's length, and appends one JSON line per finished
@@ -107,11 +114,13 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
     return EXIT_OK;
   }
   const todo = mine.filter((j) => !finished.has(j.id));
+  const jobsN = Math.min((o.jobs as number | undefined) ?? defaultJobs(), Math.max(1, todo.length));
+  // Before anything is written: a sweep that cannot fit leaves no trace.
+  checkSweepMemory(todo, jobsN, memoryBudgetOf(o['memory-budget'] as string | undefined));
   mkdirSync(dir, { recursive: true });
   writeFileSync(join(dir, 'spec.json'), text);
   const dropped = openRunsLog(log);
   if (dropped) io.err.write(`stria sweep: dropped an unfinished last line (${dropped} bytes) of ${log}\n`);
-  const jobsN = Math.min((o.jobs as number | undefined) ?? defaultJobs(), Math.max(1, todo.length));
   io.err.write(`stria sweep: ${mine.length} runs${shard ? ` in shard ${shard.index}/${shard.count}` : ''}, ${mine.length - todo.length} already finished, ${todo.length} to run on ${jobsN} worker${jobsN === 1 ? '' : 's'}\n`);
   let done = mine.length - todo.length;
   const { interrupted } = await runInPool(todo, {
@@ -135,6 +144,31 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   // A blow-up is a result of the sweep (its parameters are unstable), not a failure of the command.
   if (blown) io.err.write(`stria sweep: ${blown} run${blown === 1 ? '' : 's'} blew up (status "blew-up" in the table, left out of the fits)\n`);
   return EXIT_OK;
+}
+
+function memoryBudgetOf(text: string | undefined): number {
+  if (text === undefined) return DEFAULT_MEMORY_BUDGET;
+  const bytes = parseByteSize(text);
+  if (!Number.isFinite(bytes)) throw new UsageError(`--memory-budget ${text}: needs a size such as 512MiB, 8GiB or 2000000000 (bytes)`);
+  return bytes;
+}
+
+/**
+ * The `jobs` largest runs at once, each in its worker, must fit the budget: refused before any
+ * worker starts, with the estimate and the number of workers that would fit.
+ */
+function checkSweepMemory(todo: readonly SweepJob[], jobs: number, budget: number): void {
+  if (todo.length === 0) return;
+  const perRun = todo.map((j) => estimateRunMemory(j.params).totalBytes + WORKER_RUNTIME_BYTES).sort((a, b) => b - a);
+  const need = CLI_RUNTIME_BYTES + perRun.slice(0, jobs).reduce((s, x) => s + x, 0);
+  if (need <= budget) return;
+  let fit = 0;
+  for (let sum = CLI_RUNTIME_BYTES; fit < jobs && sum + perRun[fit] <= budget; fit++) sum += perRun[fit];
+  const largest = todo.reduce((a, j) => (j.params.nx * j.params.ny > a.params.nx * a.params.ny ? j : a));
+  throw new UsageError(
+    `${jobs} runs at a time need about ${formatBytes(need)} (the largest, ${largest.params.nx} × ${largest.params.ny}, about ${formatBytes(perRun[0])} with its worker), more than the memory budget of ${formatBytes(budget)}: ` +
+      (fit > 0 ? `give --jobs ${fit} or a larger --memory-budget` : 'even one run does not fit: give a larger --memory-budget or smaller grids'),
+  );
 }
 
 function listText(jobs: readonly SweepJob[], shard: Shard | null, finished: ReadonlyMap<string, SweepRecord>): string {

@@ -43,9 +43,15 @@ const RunFileSchema = v.object({
   state: v.object(
     {
       time: v.pipe(finite('model time'), v.minValue(0, 'model time must be ≥ 0')),
-      steps: v.pipe(v.number('must be a number'), v.integer('must be an integer'), v.minValue(0, 'must be ≥ 0')),
+      // Beyond 2^53 adding a step no longer changes the count, and a run counting steps never ends.
+      steps: v.pipe(v.number('must be a number'), v.integer('must be an integer'), v.minValue(0, 'must be ≥ 0'), v.maxValue(Number.MAX_SAFE_INTEGER, `must be ≤ ${Number.MAX_SAFE_INTEGER}`)),
       dt: v.pipe(finite('time step'), v.gtValue(0, 'time step must be > 0')),
-      rng: v.pipe(v.array(int32, 'must be an array of four 32-bit integers'), v.length(4, 'must hold exactly four 32-bit integers')),
+      rng: v.pipe(
+        v.array(int32, 'must be an array of four 32-bit integers'),
+        v.length(4, 'must hold exactly four 32-bit integers'),
+        // xoroshiro128+ never reaches the all-zero state and, put there, draws zeros for ever: no forcing.
+        v.check((r) => r.some((x) => x !== 0), 'must not be all zero (the random stream would draw only zeros)'),
+      ),
       qHat: v.object(
         {
           encoding: v.literal(QHAT_ENCODING, `must be "${QHAT_ENCODING}"`),
@@ -101,6 +107,10 @@ export function decodeRunFile(text: string): Checkpoint {
   } catch (e) {
     if (e instanceof ParamError) throw new RunFileError(`params.${e.issues[0].field}`, e.issues[0].message);
     throw e;
+  }
+  // A clock at which one more step changes nothing (t + dt = t) would never reach a later time.
+  if (!(state.time + Math.min(state.dt, params.dt) > state.time)) {
+    throw new RunFileError('state.time', `t = ${state.time} is too large for the time step ${Math.min(state.dt, params.dt)} to advance it`);
   }
   const grid = new Grid(params);
   const expected = 2 * grid.spectralSize;

@@ -2,6 +2,7 @@ import { RunMonitor } from '../analysis/runMonitor';
 import { summarize, type RunSummary } from '../analysis/summary';
 import type { ZonalMeans } from '../analysis/zonalMean';
 import type { Model } from '../model/model';
+import { captureState, restoreState, type CapturedState } from './dataState';
 import type { RunPlan } from './runPlan';
 import { SteadyCriterion } from './steadyCriterion';
 
@@ -15,6 +16,29 @@ export interface RunHooks {
   onSample?(time: number, steps: number, zonal: ZonalMeans): void;
 }
 
+/** Where a run began: a resumed run keeps the sample times, steady windows and step count of the original. */
+export interface RunOrigin {
+  time: number;
+  steps: number;
+}
+
+/**
+ * Everything a MonitoredRun has measured, as plain data (dataState.ts): the sample clock, the steady
+ * criterion and the monitor's accumulators. `restoreState` of it continues the measurement exactly.
+ */
+export interface MonitoredRunState {
+  run: CapturedState;
+  steady: CapturedState | null;
+  monitor: { self: CapturedState; budget: CapturedState; hovmoller: CapturedState; means: CapturedState };
+}
+
+/** Stored bins of the summary's time means (RunMonitor's window cap): bounded memory for any run length. */
+export const TIME_MEAN_CAP = 256;
+
+// Fields that are configuration or plan objects rebuilt identically by the constructor, not state.
+const RUN_CONFIG = ['current', 'plan', 'monitor', 'steady', 'hooks', 'startTime', 'startSteps'];
+const MONITOR_CONFIG = ['params', 'snap', 'zonal', 'budget', 'hovmoller', 'means', 'window', 'jetFinder', 'staircase', 'latest', 'mean', 'fields'];
+
 /**
  * A model driven to the end of its RunPlan with a RunMonitor watching: every step's budget goes to
  * the monitor, the zonal means are sampled every `sampleEvery` time units from the start (at the
@@ -22,28 +46,38 @@ export interface RunHooks {
  * samples are equally spaced to within one step), and the summary averages the last `average` time
  * units. `advance` takes a bounded number of steps, so a caller can show progress or stop between
  * calls. Throws the model's BlowUpError, leaving the last good state and a summary of it.
+ *
+ * The start (`origin`) may lie before the model's present: a run resumed from a checkpoint passes the
+ * original start and then `restoreState`, and goes on sampling, counting steps and testing for the
+ * steady state exactly as the uninterrupted run would have. `rollBack` swaps in a model restored from
+ * an earlier checkpoint together with the measurement taken there (a blow-up retry).
  */
 export class MonitoredRun {
-  readonly model: Model;
   readonly plan: RunPlan;
   readonly monitor: RunMonitor;
   readonly startTime: number;
   readonly startSteps: number;
   readonly steady: SteadyCriterion | null;
+  private current: Model;
   private readonly hooks: RunHooks;
   private nextSample: number;
   private samplesTaken = 0;
   private reason: StopReason | null = null;
 
-  constructor(model: Model, plan: RunPlan, hooks: RunHooks = {}) {
-    this.model = model;
+  constructor(model: Model, plan: RunPlan, hooks: RunHooks = {}, origin: RunOrigin = { time: model.time, steps: model.steps }) {
+    this.current = model;
     this.plan = plan;
     this.hooks = hooks;
-    this.startTime = model.time;
-    this.startSteps = model.steps;
-    this.monitor = new RunMonitor(model.params, { window: { kind: 'last', span: plan.average, cap: 256 } });
-    this.steady = plan.stop.kind === 'steady' ? new SteadyCriterion(model.time, plan.stop.window, plan.stop.tolerance) : null;
-    this.nextSample = model.time + plan.sampleEvery;
+    this.startTime = origin.time;
+    this.startSteps = origin.steps;
+    this.monitor = new RunMonitor(model.params, { window: { kind: 'last', span: plan.average, cap: TIME_MEAN_CAP } });
+    this.steady = plan.stop.kind === 'steady' ? new SteadyCriterion(origin.time, plan.stop.window, plan.stop.tolerance) : null;
+    this.nextSample = origin.time + plan.sampleEvery;
+  }
+
+  /** The model being run (a new object after `rollBack`). */
+  get model(): Model {
+    return this.current;
   }
 
   /** The reason the run stopped, or null while it goes on. */
@@ -53,9 +87,12 @@ export class MonitoredRun {
 
   /** Take at most `maxSteps` steps; returns true when the run is over. */
   advance(maxSteps = Infinity): boolean {
-    const m = this.model;
     for (let i = 0; i < maxSteps && this.reason === null; i++) {
+      const m = this.current;
+      const before = m.time;
       const report = m.step();
+      // A clock that no longer moves (dt below the resolution of t) would never reach its stop time.
+      if (!(m.time > before)) throw new RangeError(`the model clock no longer advances: t = ${before}, dt = ${report.dt} is below its resolution`);
       this.monitor.step(report);
       this.hooks.onStep?.(m);
       if (m.time >= this.nextSample) {
@@ -70,18 +107,24 @@ export class MonitoredRun {
   }
 
   private checkStop(stepStart: number, dt: number, energy: number): StopReason | null {
+    if (this.plan.stop.kind === 'steady' && this.steady!.add(stepStart, dt, energy)) return 'steady';
+    return this.stopNow();
+  }
+
+  /** The stop rule tested at the present state, without recording a step. */
+  private stopNow(): StopReason | null {
     const s = this.plan.stop;
-    const m = this.model;
+    const m = this.current;
     if (s.kind === 'steps') return m.steps - this.startSteps >= s.steps ? 'steps' : null;
     if (s.kind === 'until') return m.time >= s.time ? 'until' : null;
-    if (this.steady!.add(stepStart, dt, energy)) return 'steady';
+    if (this.steady!.steadyAt !== null) return 'steady';
     return m.time >= s.maxTime ? 'not-steady' : null;
   }
 
   /** Fraction of the run done, in [0, 1] (for a steady run, of the way to its cap). */
   progress(): number {
     const s = this.plan.stop;
-    const m = this.model;
+    const m = this.current;
     if (this.reason !== null) return 1;
     const f = s.kind === 'steps' ? (m.steps - this.startSteps) / s.steps : (m.time - this.startTime) / ((s.kind === 'until' ? s.time : s.maxTime) - this.startTime);
     return Math.min(1, Math.max(0, f));
@@ -89,6 +132,60 @@ export class MonitoredRun {
 
   /** The run summary so far (lib/analysis/summary.ts, stable keys). */
   summary(): RunSummary {
-    return summarize(this.monitor, this.model.time, this.model.steps);
+    return summarize(this.monitor, this.current.time, this.current.steps);
+  }
+
+  /** A copy of the measurement so far (to pair with `model.checkpoint()`). */
+  saveState(): MonitoredRunState {
+    const mon = this.monitor;
+    return {
+      run: captureState(this, RUN_CONFIG, 'run'),
+      steady: this.steady ? captureState(this.steady, [], 'steady') : null,
+      monitor: {
+        self: captureState(mon, MONITOR_CONFIG, 'monitor'),
+        budget: captureState(mon.budget, [], 'monitor.budget'),
+        hovmoller: captureState(mon.hovmoller, [], 'monitor.hovmoller'),
+        means: captureState(mon.means, [], 'monitor.means'),
+      },
+    };
+  }
+
+  /**
+   * Continue from a saved measurement (of a run with this plan and grid). Throws StateShapeError and
+   * changes nothing when the state does not fit. The stop rule is tested at once, so a run resumed
+   * from its final checkpoint takes no further step.
+   */
+  restoreState(s: MonitoredRunState): void {
+    if ((s.steady === null) !== (this.steady === null)) throw new RangeError(`restoreState: the state is of a run ${s.steady ? 'with' : 'without'} a steady criterion`);
+    const mon = this.monitor;
+    // Every part is checked by a dry run on a throwaway copy first, so a misfit changes nothing.
+    const probe = this.saveState();
+    restoreState(probe.run, s.run, [], 'run');
+    if (s.steady && probe.steady) restoreState(probe.steady, s.steady, [], 'steady');
+    restoreState(probe.monitor.self, s.monitor.self, [], 'monitor');
+    restoreState(probe.monitor.budget, s.monitor.budget, [], 'monitor.budget');
+    restoreState(probe.monitor.hovmoller, s.monitor.hovmoller, [], 'monitor.hovmoller');
+    restoreState(probe.monitor.means, s.monitor.means, [], 'monitor.means');
+    restoreState(this, s.run, RUN_CONFIG, 'run');
+    if (s.steady) restoreState(this.steady!, s.steady, [], 'steady');
+    restoreState(mon, s.monitor.self, MONITOR_CONFIG, 'monitor');
+    restoreState(mon.budget, s.monitor.budget, [], 'monitor.budget');
+    restoreState(mon.hovmoller, s.monitor.hovmoller, [], 'monitor.hovmoller');
+    restoreState(mon.means, s.monitor.means, [], 'monitor.means');
+    this.reason = this.reason ?? this.stopNow();
+  }
+
+  /** Go back to a checkpoint: `model` restored from it, `state` the measurement saved with it. */
+  rollBack(model: Model, state: MonitoredRunState): void {
+    const p = this.current.params;
+    if (model.params.nx !== p.nx || model.params.ny !== p.ny || model.params.Lx !== p.Lx || model.params.Ly !== p.Ly) throw new RangeError('rollBack: the model is of another grid');
+    const previous = this.current;
+    this.current = model;
+    try {
+      this.restoreState(state);
+    } catch (e) {
+      this.current = previous;
+      throw e;
+    }
   }
 }

@@ -1,5 +1,5 @@
 import * as v from 'valibot';
-import type { RunSummary } from '../analysis/summary';
+import { SUMMARY_KEYS, type RunSummary } from '../analysis/summary';
 import type { ModelParams } from '../model/params';
 import type { StopReason } from './monitoredRun';
 import { canonicalJson } from './runId';
@@ -36,6 +36,9 @@ export interface SweepRecord {
   finished_at: string;
 }
 
+/** The summary's keys that hold a number or null (lib/analysis/summary.ts). */
+const SUMMARY_NUMBERS = [...SUMMARY_KEYS, 'ls_loss', 'jet_spacing_std', 'window_start', 'window_end'] as const;
+
 const RecordSchema = v.looseObject({
   format: v.literal(RECORD_FORMAT, `must be "${RECORD_FORMAT}"`),
   version: v.literal(RECORD_VERSION, `must be ${RECORD_VERSION}`),
@@ -49,7 +52,17 @@ const RecordSchema = v.looseObject({
   status: v.picklist(['done', 'blew-up'], 'must be "done" or "blew-up"'),
   stopped: v.nullable(v.picklist(['steps', 'until', 'steady', 'not-steady'], 'must be a stop reason')),
   error: v.nullable(v.string('must be a text')),
-  summary: v.looseObject({ time: v.number(), steps: v.number() }, 'must be a run summary'),
+  // Every key of a run summary, as summarize() writes them: a journal line lacking one is damaged.
+  summary: v.looseObject(
+    {
+      ...Object.fromEntries(SUMMARY_NUMBERS.map((k) => [k, v.nullable(v.number('must be a number or null'))])),
+      time: v.number('must be a number'),
+      steps: v.number('must be a number'),
+      window_samples: v.number('must be a number'),
+      regime: v.nullable(v.string('must be a text or null')),
+    },
+    'must be a run summary',
+  ),
   wall_seconds: v.number('must be a number'),
   finished_at: v.string('must be a text'),
 });
@@ -110,7 +123,8 @@ function firstDifference(a: SweepRecord, b: SweepRecord): string {
   for (const k of Object.keys({ ...a.summary, ...b.summary })) {
     const x = (a.summary as unknown as Record<string, unknown>)[k];
     const y = (b.summary as unknown as Record<string, unknown>)[k];
-    if (canonicalJson(x) !== canonicalJson(y)) return `summary.${k} is ${String(x)} in one and ${String(y)} in the other`;
+    const show = (z: unknown) => (z === undefined ? 'missing' : String(z));
+    if (x === undefined || y === undefined ? x !== y : canonicalJson(x) !== canonicalJson(y)) return `summary.${k} is ${show(x)} in one and ${show(y)} in the other`;
   }
   return 'the records differ';
 }

@@ -22,6 +22,13 @@ import { DEMO_SCENARIOS } from '../plan/demoScenarios';
  */
 export const SWEEP_FORMAT = 'stria-sweep';
 export const SWEEP_VERSION = 1;
+/**
+ * Most runs a spec may make, and most bootstrap resamples of its fits. Both are far beyond any sweep
+ * a machine or a cluster allocation finishes; they are there so that a typo (a count of 1e9) is
+ * refused at once instead of expanding for hours or exhausting the memory.
+ */
+export const MAX_SWEEP_RUNS = 100_000;
+export const MAX_RESAMPLES = 1_000_000;
 
 /** A refused spec: `field` is the dotted path of the offending entry (e.g. "vary.0.logRange.count"). */
 export class SweepSpecError extends Error {
@@ -73,7 +80,7 @@ export const SweepSpecSchema = v.strictObject(
     sampleEvery: v.optional(positive('sampleEvery')),
     fits: v.optional(
       v.strictObject({
-        resamples: v.optional(count('resamples', 0)),
+        resamples: v.optional(v.pipe(count('resamples', 0), v.maxValue(MAX_RESAMPLES, `resamples: must be ≤ ${MAX_RESAMPLES}`))),
         seed: v.optional(v.pipe(count('seed', 0), v.maxValue(0xffffffff, 'seed: must be ≤ 4294967295'))),
         level: v.optional(v.pipe(v.number('level: a number'), v.gtValue(0, 'level: must be > 0'), v.ltValue(1, 'level: must be < 1'))),
       }),
@@ -98,7 +105,8 @@ export function parseSweepSpec(json: unknown): SweepSpec {
   const spec = parsed.output;
   const seen = new Set<string>();
   spec.vary.forEach((axis, i) => {
-    if (!(axis.param in DEFAULT_PARAMS)) throw new SweepSpecError(`vary.${i}.param`, `"${axis.param}" is not a parameter (known: ${Object.keys(DEFAULT_PARAMS).join(', ')})`);
+    // Own keys only: "toString" or "__proto__" are found on every object but are not parameters.
+    if (!Object.hasOwn(DEFAULT_PARAMS, axis.param)) throw new SweepSpecError(`vary.${i}.param`, `"${axis.param}" is not a parameter (known: ${Object.keys(DEFAULT_PARAMS).join(', ')})`);
     if (axis.param === 'seed') throw new SweepSpecError(`vary.${i}.param`, 'seeds are not swept: give "replicas" for runs with different seeds');
     if (seen.has(axis.param)) throw new SweepSpecError(`vary.${i}.param`, `"${axis.param}" is swept twice`);
     seen.add(axis.param);
@@ -109,6 +117,11 @@ export function parseSweepSpec(json: unknown): SweepSpec {
   });
   const given = (['steps', 'until', 'untilSteady'] as const).filter((k) => spec.length[k] !== undefined);
   if (given.length !== 1) throw new SweepSpecError('length', given.length ? `give one run length, not ${given.join(' and ')}` : 'give a run length: steps, until or untilSteady');
+  // Counted before anything is expanded, so the check itself costs nothing.
+  const points = spec.vary.reduce((n, a) => n * (a.values ? a.values.length : a.logRange!.count), 1);
+  if (points * spec.replicas > MAX_SWEEP_RUNS) {
+    throw new SweepSpecError(spec.replicas > 1 ? 'replicas' : 'vary', `the spec makes ${points * spec.replicas} runs (${points} points × ${spec.replicas} replicas), more than ${MAX_SWEEP_RUNS}: split it into several sweeps`);
+  }
   return spec;
 }
 

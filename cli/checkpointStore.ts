@@ -1,0 +1,60 @@
+import { readFileSync } from 'node:fs';
+import type { Checkpoint } from '../lib/model/checkpoint';
+import type { RetryRecord } from '../lib/sweep/blowUpRetry';
+import type { MonitoredRun } from '../lib/sweep/monitoredRun';
+import { CheckpointFileError, decodeCheckpointFile, encodeCheckpointFile, type RunProgress } from '../lib/sweep/runProgress';
+import { UsageError } from './args';
+import { removeStaleTemporaries, writeFileAtomic } from './atomicFile';
+import { NODE_BASE64 } from './nodeBase64';
+import type { RunOutputs } from './runOutputs';
+
+/**
+ * The checkpoint file of one `stria run` (lib/sweep/runProgress.ts), replaced atomically each time
+ * (atomicFile.ts). The order of writing is what makes a resume exact: first the NetCDF files are
+ * flushed to the disk, then the checkpoint that counts their records is written, so a checkpoint
+ * never promises records the disk does not hold.
+ */
+export type ProgressBase = Omit<RunProgress, 'retries' | 'measurement' | 'outputs'> & { createdAt: string; command: string };
+
+export class CheckpointStore {
+  readonly path: string;
+  private readonly base: ProgressBase;
+  /** Checkpoints written by this process. */
+  written = 0;
+
+  constructor(path: string, base: ProgressBase) {
+    this.path = path;
+    this.base = base;
+    removeStaleTemporaries(path);
+  }
+
+  /** Write the run's present state and measurement; throws (the old file stays) when it cannot. */
+  write(run: MonitoredRun, outputs: RunOutputs, retries: readonly RetryRecord[]): void {
+    outputs.sync();
+    const { createdAt, command, ...rest } = this.base;
+    const progress: RunProgress = { ...rest, retries: [...retries], outputs: { created_at: createdAt, command, ...outputs.progress() }, measurement: run.saveState() };
+    const text = encodeCheckpointFile(run.model.checkpoint(), progress, NODE_BASE64);
+    try {
+      writeFileAtomic(this.path, text);
+    } catch (e) {
+      throw new Error(`cannot write the checkpoint ${this.path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}; the previous checkpoint is kept`);
+    }
+    this.written++;
+  }
+}
+
+/** Read a checkpoint file for `--resume`; every problem is a UsageError naming the file and field. */
+export function readCheckpoint(path: string): { checkpoint: Checkpoint; progress: RunProgress } {
+  let text: string;
+  try {
+    text = readFileSync(path, 'utf8');
+  } catch (e) {
+    throw new UsageError(`--resume ${path}: cannot read it: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
+  }
+  try {
+    return decodeCheckpointFile(text, NODE_BASE64);
+  } catch (e) {
+    if (e instanceof CheckpointFileError) throw new UsageError(`--resume ${path}: ${e.field}: ${e.reason}`);
+    throw e;
+  }
+}

@@ -1,0 +1,83 @@
+import { describe, expect, it } from 'vitest';
+import { parseSets } from '../../cli/paramInput';
+import { decodeRunFile, encodeRunFile, RunFileError } from '../../lib/io/runFile';
+import { Model } from '../../lib/model/model';
+import { MonitoredRun } from '../../lib/sweep/monitoredRun';
+import { runSweepJob } from '../../lib/sweep/runSweepJob';
+import { formatSweepRecord, joinRecords, parseSweepRecord } from '../../lib/sweep/sweepRecord';
+import { expandSweep } from '../../lib/sweep/sweepRuns';
+import { MAX_SWEEP_RUNS, parseSweepSpec, SweepSpecError } from '../../lib/sweep/sweepSpec';
+
+/** The boundary faults the property tests (./boundaries/) found, each pinned by its smallest case. */
+const small = { nx: 32, ny: 32, kf: 8, dkf: 1.5, dt: 0.01, init_energy: 1 };
+
+function runFileWith(state: Record<string, unknown>): string {
+  const m = new Model(small);
+  m.step(2);
+  const j = JSON.parse(encodeRunFile(m.checkpoint()));
+  Object.assign(j.state, state);
+  return JSON.stringify(j);
+}
+
+const refusal = (f: () => unknown) => {
+  try {
+    f();
+  } catch (e) {
+    return e;
+  }
+  return null;
+};
+
+describe('boundary faults found by the property tests, fixed', () => {
+  it('run files: an all-zero random state, a clock too far on to advance, a step count past 2^53', () => {
+    const zero = refusal(() => decodeRunFile(runFileWith({ rng: [0, 0, 0, 0] })));
+    expect(zero).toBeInstanceOf(RunFileError);
+    expect((zero as RunFileError).field).toBe('state.rng');
+    const far = refusal(() => decodeRunFile(runFileWith({ time: 1e17 })));
+    expect((far as RunFileError).field).toBe('state.time');
+    expect((far as RunFileError).reason).toMatch(/too large for the time step 0\.01 to advance it/);
+    expect((refusal(() => decodeRunFile(runFileWith({ steps: 2 ** 53 }))) as RunFileError).field).toBe('state.steps');
+    expect(decodeRunFile(runFileWith({ time: 1e10, steps: 2 ** 40 })).steps).toBe(2 ** 40);
+  });
+
+  it('a measured run refuses a clock that no longer advances, rather than run for ever', () => {
+    // A state far on in time for its step (a checkpoint made in code; run files now refuse it).
+    const m = new Model(small);
+    const stuck = Model.restore({ ...m.checkpoint(), time: 1e17 });
+    const run = new MonitoredRun(stuck, { stop: { kind: 'until', time: 2e17 }, average: 1, sampleEvery: 1 });
+    expect(() => run.advance()).toThrow(/the model clock no longer advances: t = 100000000000000000, dt = 0\.01/);
+  });
+
+  it('sweep specs: a count that would expand for hours is refused at once, and inherited names are not parameters', () => {
+    const base = { nx: 32, ny: 32, kf: 8, dkf: 1.5 };
+    const t0 = Date.now();
+    const huge = refusal(() => parseSweepSpec({ base, vary: [{ param: 'beta', values: [5, 20] }], replicas: 2 ** 31, length: { until: 30 } }));
+    expect(huge).toBeInstanceOf(SweepSpecError);
+    expect((huge as SweepSpecError).field).toBe('replicas');
+    expect((huge as SweepSpecError).reason).toMatch(new RegExp(`more than ${MAX_SWEEP_RUNS}`));
+    expect((refusal(() => parseSweepSpec({ base, vary: [{ param: 'beta', logRange: { from: 1, to: 10, count: 1e9 } }], length: { steps: 3 } })) as SweepSpecError).field).toBe('vary');
+    expect((refusal(() => parseSweepSpec({ base, vary: [{ param: 'beta', values: [1] }], length: { steps: 3 }, fits: { resamples: 2 ** 31 } })) as SweepSpecError).field).toBe('fits.resamples');
+    expect(Date.now() - t0).toBeLessThan(1000);
+    for (const param of ['toString', '__proto__', 'constructor']) {
+      const e = refusal(() => expandSweep(parseSweepSpec({ base, vary: [{ param, logRange: { from: 1, to: 10, count: 3 } }], length: { steps: 3 } }))) as SweepSpecError;
+      expect(e.field).toBe('vary.0.param');
+      expect(e.reason).toMatch(/is not a parameter/);
+    }
+  });
+
+  it('sweep journals: a line whose summary lacks a key is refused, not joined into a crash', () => {
+    const spec = parseSweepSpec({ base: { nx: 32, ny: 32, kf: 8, dkf: 1.5, mu: 0.5, eps: 0.5, nu: 1e-8, dt: 0.05 }, vary: [{ param: 'beta', values: [5] }], length: { steps: 5 }, average: 0.25, sampleEvery: 0.05 });
+    const record = runSweepJob(expandSweep(spec)[0], { seconds: () => 0, iso: () => '2026-01-01T00:00:00Z' });
+    const { energy: _, ...summary } = record.summary;
+    expect(() => parseSweepRecord(JSON.stringify({ ...record, summary }))).toThrow(/^summary\.energy: /);
+    // And two records that differ by a missing key would be named, not crash the comparison.
+    const other = { ...record, summary: summary as typeof record.summary };
+    expect(() => joinRecords([{ name: 'a', records: [record] }, { name: 'b', records: [other] }])).toThrow(/summary\.energy is [-\d.e]+ in one and missing in the other/);
+    expect(parseSweepRecord(formatSweepRecord(record))).toEqual(record);
+  });
+
+  it('--set: "__proto__" and other inherited names are refused, not dropped', () => {
+    for (const key of ['__proto__', 'toString', 'hasOwnProperty']) expect(() => parseSets([`${key}=1`])).toThrow(new RegExp(`"${key.replace(/_/g, '_')}" is not a parameter`));
+    expect(parseSets(['beta=2pi', 'forcing=steady'])).toEqual({ beta: 2 * Math.PI, forcing: 'steady' });
+  });
+});
