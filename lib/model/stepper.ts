@@ -14,6 +14,9 @@ import type { RandomStream } from './randomStream';
  */
 export const CFL_LIMIT = 1.5;
 
+/** The smallest adaptive step, as a fraction of the largest (2^−40). */
+export const MIN_STEP_FRACTION = 2 ** -40;
+
 /** The run stopped: a non-finite state or a CFL number above the limit. */
 export class BlowUpError extends Error {
   readonly report: { time: number; steps: number; dt: number; cfl: number; maxU: number; maxV: number; reason: string };
@@ -91,7 +94,9 @@ export class Stepper {
   private chooseStep(speed: number): number {
     if (this.cfl <= 0) return this.dtMax;
     const target = speed > 0 ? this.cfl / speed : Infinity;
-    const j = target >= this.dtMax ? 0 : Math.ceil(8 * Math.log2(this.dtMax / target));
+    if (!(target > 0)) return NaN; // non-finite speed: step() refuses it
+    // Rungs below MIN_STEP_FRACTION are refused by step(); no need to count further.
+    const j = target >= this.dtMax ? 0 : Math.min(8 * 41, Math.ceil(8 * Math.log2(this.dtMax / target)));
     const rung = this.dtMax * ladderFactor(j);
     return rung < this.dt || rung > this.dt * 1.18 ? rung : this.dt;
   }
@@ -107,15 +112,19 @@ export class Stepper {
     // Budgets at the start of the step (fused with adding the steady forcing to a).
     this.startBudget(q, a);
     const dt = this.chooseStep(speed);
-    this.dt = dt;
-    lin.setStep(dt);
     r.dt = dt;
     r.cfl = dt * speed;
     r.maxU = this.nl.maxU;
     r.maxV = this.nl.maxV;
     r.time = this.time;
     r.steps = this.steps;
-    if (!(r.cfl <= CFL_LIMIT)) throw new BlowUpError(Number.isFinite(r.cfl) ? `CFL number above ${CFL_LIMIT}` : 'non-finite velocity', r);
+    // Refuse before anything changes: the state, the step in use and the propagators stay as they were.
+    if (!Number.isFinite(speed)) throw new BlowUpError('non-finite velocity', r);
+    // An adaptive step 2^40 below its maximum means speeds beyond any flow the grid can carry.
+    if (!(dt >= this.dtMax * MIN_STEP_FRACTION) || this.time + dt === this.time) throw new BlowUpError('time step collapsed: too small to advance the clock', r);
+    if (!(r.cfl <= CFL_LIMIT)) throw new BlowUpError(`CFL number above ${CFL_LIMIT}`, r);
+    this.dt = dt;
+    lin.setStep(dt);
     const e1 = lin.halfStep;
     const e2 = lin.fullStep;
     const h = 0.5 * dt;

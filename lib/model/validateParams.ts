@@ -126,6 +126,9 @@ export function validateParams(input: unknown, base: Readonly<ModelParams> = DEF
       issues.push({ field: 'dkf', value: p.dkf, message: `the annulus |k − k_f| ≤ δk holds no grid wavenumber: widen δk or move k_f` });
     }
   }
+  if (p.cfl > 0 && p.cfl < 0.01) {
+    issues.push({ field: 'cfl', value: p.cfl, message: 'a CFL target must be 0 (fixed dt) or from 0.01 to 1.2' });
+  }
   if (p.forcing === 'steady' && !(p.mu > 0)) {
     issues.push({ field: 'mu', value: p.mu, message: 'steady forcing needs linear drag μ > 0 (its strength is the energy it would inject against drag)' });
   }

@@ -33,3 +33,27 @@ describe('blow-up guard', () => {
     expect(() => m.step()).toThrow(/non-finite/);
   });
 });
+
+describe('step collapse guard', () => {
+  it('refuses a step too small to advance the clock, keeping the step in use', () => {
+    // A state so fast that the CFL target asks for a step 2^40 below the largest one.
+    const m = new Model({ ...QUIET, nx: 32, ny: 32, dt: 0.01, cfl: 0.5 });
+    m.setState(randomKeptState(m, 1, 1e14));
+    expect(() => m.step()).toThrow(/time step collapsed/);
+    expect(m.dt).toBe(0.01);
+    expect(m.steps).toBe(0);
+  });
+
+  it('after a non-finite velocity the model steps again once the state is good', () => {
+    const m = new Model({ ...QUIET, nx: 32, ny: 32, dt: 0.01, cfl: 0.5 });
+    const good = randomKeptState(m, 1, 1);
+    const bad = good.slice();
+    bad[2 * (3 * m.grid.nkx + 2)] = NaN;
+    m.setState(bad);
+    expect(() => m.step()).toThrow(/non-finite/);
+    m.setState(good);
+    const r = m.step();
+    expect(Number.isFinite(r.dt) && r.dt > 0).toBe(true);
+    expect(m.steps).toBe(1);
+  });
+});

@@ -45,7 +45,8 @@ describe('boundary faults found by the property tests, fixed', () => {
     const m = new Model(small);
     const stuck = Model.restore({ ...m.checkpoint(), time: 1e17 });
     const run = new MonitoredRun(stuck, { stop: { kind: 'until', time: 2e17 }, average: 1, sampleEvery: 1 });
-    expect(() => run.advance()).toThrow(/the model clock no longer advances: t = 100000000000000000, dt = 0\.01/);
+    // The model itself refuses the step now; the run's own guard stays behind it.
+    expect(() => run.advance()).toThrow(/advance the clock|the model clock no longer advances/);
   });
 
   it('sweep specs: a count that would expand for hours is refused at once, and inherited names are not parameters', () => {
