@@ -19,7 +19,7 @@ import { THRESHOLDS } from './thresholds';
  *   grid            points nx, ny (powers of two), or the largest acceptable spacing dx, dy [L]
  *   hyperviscosity  order p and damping time τ at the grid scale [T]: ν = 1/(τ k_max^{2p})
  *   runLength       the planned run length [T]
- *   cfl             CFL number for the time step (default the model's 0.5)
+ *   cfl             CFL number for the time step (default the model's, DEFAULT_PARAMS.cfl)
  *   rhines          the Rhines convention used for the jet spacing (default k_R = (β/2U)^½)
  */
 export type UnitSystem = 'physical' | 'model';

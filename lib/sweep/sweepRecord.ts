@@ -80,7 +80,20 @@ export function parseSweepRecord(line: string): SweepRecord {
     const issue = parsed.issues[0];
     throw new RangeError(`${issue.path?.map((p) => String(p.key)).join('.') || '(record)'}: ${issue.message}`);
   }
+  const bad = nonFinitePath(json, '');
+  if (bad !== null) throw new RangeError(`${bad || '(record)'}: must be a finite number (JSON such as 1e999 reads as Infinity)`);
   return json as SweepRecord;
+}
+
+/** Path of the first number in a JSON value that is not finite, or null. */
+function nonFinitePath(x: unknown, path: string): string | null {
+  if (typeof x === 'number') return Number.isFinite(x) ? null : path;
+  if (x === null || typeof x !== 'object') return null;
+  for (const [k, val] of Object.entries(x)) {
+    const found = nonFinitePath(val, path ? `${path}.${k}` : k);
+    if (found !== null) return found;
+  }
+  return null;
 }
 
 /** The record as one line of JSON (without the newline). */

@@ -31,7 +31,7 @@ describe('striaGlobalAttributes', () => {
     expect(JSON.parse(a.stria_params.value as string)).toEqual(run.params);
     expect(a.stria_seed).toEqual({ name: 'stria_seed', type: 'double', value: 4294967295 });
     expect(a.stria_beta).toEqual({ name: 'stria_beta', type: 'double', value: DEFAULT_PARAMS.beta });
-    expect(a.stria_force_zonal).toEqual({ name: 'stria_force_zonal', type: 'int', value: 1 });
+    expect(a.stria_force_zonal).toEqual({ name: 'stria_force_zonal', type: 'int', value: 0 });
     expect(a.stria_forcing).toEqual({ name: 'stria_forcing', type: 'char', value: 'stochastic' });
     for (const key of Object.keys(DEFAULT_PARAMS)) expect(a[`stria_${key}`], key).toBeDefined();
 

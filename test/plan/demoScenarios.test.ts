@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { rhinesWavenumber, steadyZonostrophyIndex, transitionalWavenumber, balanceVelocity } from '../../lib/analysis/scales';
 import { keptRadius, validateParams } from '../../lib/model/validateParams';
+import { DEFAULT_PARAMS } from '../../lib/model/params';
 import { DEFAULT_SCENARIO_ID, DEMO_SCENARIOS, scenarioById } from '../../lib/plan/demoScenarios';
 
 const params = (id: string) => validateParams(scenarioById(id)?.params ?? {});
@@ -42,5 +43,12 @@ describe('demo scenarios', () => {
     // k_f ≫ k_β: the forcing lies well inside the isotropic range.
     expect(many.kf / transitionalWavenumber(many.beta, many.eps)).toBeGreaterThan(1.5);
     expect(params('deformation').kd).toBeGreaterThan(0);
+  });
+});
+
+describe('the default parameters', () => {
+  it('are the default scenario, so "the default" means one thing everywhere', () => {
+    const s = scenarioById(DEFAULT_SCENARIO_ID)!;
+    expect(validateParams(s.params)).toEqual(DEFAULT_PARAMS);
   });
 });

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { PLAN_SIZE_MAX, PlanInputError, pointsForSpacing, validatePlanInput } from '../../lib/plan/planInput';
+import { DEFAULT_PARAMS } from '../../lib/model/params';
 import { goodModelPlan } from './quoted';
 
 function refusal(input: unknown): PlanInputError {
@@ -28,7 +29,7 @@ const physical = {
 describe('plan input validation', () => {
   it('accepts a physical and a model-unit plan and fills the defaults', () => {
     const p = validatePlanInput(physical);
-    expect(p.cfl).toBe(0.5);
+    expect(p.cfl).toBe(DEFAULT_PARAMS.cfl); // the model's own default
     expect(p.rhines).toBe('kR');
     expect(validatePlanInput(goodModelPlan({ cfl: 0.3, rhines: 'twoPiSqrtUbeta' })).rhines).toBe('twoPiSqrtUbeta');
   });

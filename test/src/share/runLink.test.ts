@@ -15,9 +15,9 @@ describe('run links', () => {
 
   it('write only what differs from the model defaults, with the version first', () => {
     expect(encodeRunLink({ ...DEFAULT_PARAMS })).toBe('v=1');
-    const p = { ...DEFAULT_PARAMS, beta: 12.5, force_zonal: false, nu: 3e-26, Lx: 4 * Math.PI };
+    const p = { ...DEFAULT_PARAMS, beta: 12.5, force_zonal: true, nu: 1e-15, mu: 0.05 };
     const link = encodeRunLink(p);
-    expect(link).toBe(`v=1&Lx=${4 * Math.PI}&beta=12.5&nu=3e-26&force_zonal=false`);
+    expect(link).toBe('v=1&beta=12.5&mu=0.05&nu=1e-15&force_zonal=true');
     expect(decodeRunLink(link)).toEqual({ kind: 'run', params: p });
   });
 
