@@ -1,5 +1,8 @@
 import * as v from 'valibot';
 import { RHINES_DEFINITIONS, type RhinesConvention } from '../analysis/scales';
+import { derivePlan } from './derivePlan';
+import { PLAN_SIZE_MAX, PLAN_SIZE_MIN, pointsForSpacing } from './gridPoints';
+import { predictPlan, type PredictionId } from './predictions';
 import { THRESHOLDS } from './thresholds';
 
 /**
@@ -48,9 +51,7 @@ export interface PlanInput {
   rhines?: RhinesConvention;
 }
 
-/** Smallest and largest grid sizes a plan may name (powers of two). */
-export const PLAN_SIZE_MIN = 32;
-export const PLAN_SIZE_MAX = 65_536;
+export { PLAN_SIZE_MAX, PLAN_SIZE_MIN, pointsForSpacing } from './gridPoints';
 
 function positive(what: string) {
   const range = `${what}: a finite number > 0`;
@@ -196,19 +197,58 @@ export function validatePlanInput(input: unknown): ValidPlanInput {
     }
   }
   if (issues.length) throw new PlanInputError(issues);
-  return { ...p, cfl: p.cfl ?? THRESHOLDS.defaultCfl, rhines: p.rhines ?? 'kR' };
+  const valid: ValidPlanInput = { ...p, cfl: p.cfl ?? THRESHOLDS.defaultCfl, rhines: p.rhines ?? 'kR' };
+  const overflow = nonFinitePredictions(valid);
+  if (overflow.length) throw new PlanInputError(overflow);
+  return valid;
 }
 
 /**
- * Points across a length L for a largest acceptable spacing d: the smallest power of two n ≥ 32
- * with L/n ≤ d (the spacing given is an upper bound; the plan reports the spacing it gets).
+ * The input fields each prediction is worked out from (dotted prefixes: every number under one
+ * counts). Each field alone may be a fine double, yet products and powers of a few of them leave
+ * the doubles (a drag time of 5e-324 makes μ infinite, β = 5e-324 with a long drag time makes R_β
+ * 0·∞), and a plan with a NaN or infinite prediction tells nothing.
  */
-export function pointsForSpacing(L: number, d: number): number {
-  const need = L / d;
-  let n = PLAN_SIZE_MIN;
-  // Allow for the round-off of L/d when d divides L exactly.
-  while (n < need * (1 - 1e-12)) n *= 2;
-  return n;
+const SOURCES: Record<PredictionId, readonly string[]> = (() => {
+  const speed = ['drive', 'dragTime'];
+  const rhines = ['rotation', ...speed];
+  const step = ['cfl', 'grid', 'domain', ...speed];
+  return {
+    U: speed, kR: rhines, rhines_kR: rhines, rhines_sqrtUbeta: rhines, rhines_piOverKR: rhines, rhines_twoPiSqrtUbeta: rhines,
+    kBeta: rhines, kFric: speed, eta: ['drive', 'dragTime', 'forcing.wavelength'], kNu: ['drive', 'dragTime', 'forcing.wavelength', 'hyperviscosity', 'grid', 'domain'],
+    R_beta: rhines, regime: rhines, jetSpacingRhines: rhines, jetSpacingStaircase: rhines, jetsRhines: [...rhines, 'domain.Ly'], jetsStaircase: [...rhines, 'domain.Ly'],
+    spinUpTime: ['dragTime'], steadyTime: ['dragTime'], turnoverForcing: ['drive', 'dragTime', 'forcing.wavelength'], peakSpeed: speed,
+    dtCFL: step, stepsToSteady: step, stepsPlanned: [...step, 'runLength'],
+  };
+})();
+
+/**
+ * One issue per input field blamed for a non-finite prediction: among the numbers a prediction comes
+ * from, the one farthest from 1 in order of magnitude (the subnormal or the huge one, as a rule).
+ */
+function nonFinitePredictions(p: ValidPlanInput): PlanIssue[] {
+  const predictions = predictPlan(derivePlan(p));
+  const blamed = new Map<string, string[]>();
+  for (const [id, pr] of Object.entries(predictions) as [PredictionId, (typeof predictions)[PredictionId]][]) {
+    if (Number.isFinite(pr.value)) continue;
+    const leaves = numberLeaves(p).filter(([path]) => SOURCES[id].some((s) => path === s || path.startsWith(`${s}.`)));
+    const worst = leaves.reduce((a, b) => (Math.abs(Math.log10(Math.abs(b[1]))) > Math.abs(Math.log10(Math.abs(a[1]))) ? b : a), leaves[0] ?? ['(plan)', NaN]);
+    const list = blamed.get(worst[0]) ?? [];
+    list.push(`${pr.symbol} = ${pr.value}`);
+    blamed.set(worst[0], list);
+  }
+  return [...blamed].map(([field, what]) => ({
+    field,
+    value: field === '(plan)' ? null : numberLeaves(p).find(([path]) => path === field)?.[1],
+    message: `out of range: with the other inputs it gives the non-finite prediction${what.length === 1 ? '' : 's'} ${what.join(', ')} (too small or too large for double precision)`,
+  }));
+}
+
+/** Every number in the input, with its dotted path (hyperviscosity.order and the grid's points included). */
+function numberLeaves(x: unknown, prefix = ''): [string, number][] {
+  if (typeof x === 'number') return [[prefix, x]];
+  if (typeof x !== 'object' || x === null) return [];
+  return Object.entries(x).flatMap(([k, v]) => numberLeaves(v, prefix ? `${prefix}.${k}` : k));
 }
 
 function show(value: unknown): string {

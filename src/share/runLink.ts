@@ -17,6 +17,13 @@ export function encodeRunLink(params: ModelParams): string {
   return q.toString();
 }
 
+/**
+ * A number as `encodeRunLink` writes it (JavaScript's decimal form, e.g. 0.02, 3e-26, 1e+21, -5).
+ * `Number()` alone would also read "0x20", "0b101", "Infinity" or "1_0"-free oddities as numbers;
+ * a link that says nx=0x20 was not written by Stria, so it is refused rather than guessed at.
+ */
+const DECIMAL = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
+
 export type LinkReading = { kind: 'none' } | { kind: 'run'; params: ModelParams } | { kind: 'bad'; message: string };
 
 /**
@@ -35,15 +42,17 @@ export function decodeRunLink(hash: string): LinkReading {
   const problems: string[] = [];
   for (const [key, raw] of q) {
     if (key === 'v') continue;
-    if (!(key in DEFAULT_PARAMS)) {
+    // Own keys only: `in` also finds what every object inherits ("__proto__", "toString"), and an
+    // assignment of "__proto__" would then be dropped without a word.
+    if (!Object.hasOwn(DEFAULT_PARAMS, key)) {
       problems.push(`“${key}” is not a parameter`);
       continue;
     }
     const kind = typeof DEFAULT_PARAMS[key as keyof ModelParams];
     if (kind === 'number') {
-      const x = raw.trim() === '' ? NaN : Number(raw);
-      if (Number.isNaN(x)) problems.push(`${key} = “${raw}” is not a number`);
-      else input[key] = x;
+      const text = raw.trim();
+      if (!DECIMAL.test(text)) problems.push(`${key} = “${raw}” is not a number in decimal notation`);
+      else input[key] = Number(text);
     } else if (kind === 'boolean') {
       if (raw !== 'true' && raw !== 'false') problems.push(`${key} = “${raw}” must be true or false`);
       else input[key] = raw === 'true';

@@ -70,6 +70,27 @@ describe('plan input validation', () => {
     expect(() => validatePlanInput(goodModelPlan({ rotation: { kind: 'beta', beta: 50, f: 2 }, deformation: { kind: 'layer', H: 1, gPrime: 1 } }))).not.toThrow();
   });
 
+  // Every field a fine double, but predictions that leave the doubles: refused at the field that
+  // makes them so, never passed on as NaN or ∞ (found by test/reliability/boundaries/planInput.ts).
+  it.each([
+    ['a subnormal drag time', { dragTime: 5e-324 }, 'dragTime', /^dragTime = 5e-324: out of range: .*non-finite predictions k_R = Infinity, k_fric = Infinity/],
+    ['a subnormal β', { rotation: { kind: 'beta', beta: 5e-324 } }, 'rotation.beta', /rotation\.beta = 5e-324: .*L_R = Infinity/],
+    ['a subnormal β with a huge drag time (R_β = 0·∞)', { rotation: { kind: 'beta', beta: 5e-324 }, dragTime: 2.6e117 }, 'rotation.beta', /R_β = NaN/],
+    ['a huge injection rate', { drive: { kind: 'injection', eps: 1e300 } }, 'drive.eps', /drive\.eps = 1e\+300: .*R_β = Infinity/],
+    ['a subnormal target velocity', { drive: { kind: 'velocity', U: 1e-300 } }, 'drive.U', /k_β = Infinity/],
+    ['a tiny forcing wavelength', { forcing: { wavelength: 1e-300, halfWidth: 0.05 } }, 'forcing.wavelength', /η = Infinity/],
+  ])('refuses %s, whose predictions would not be finite', (_, change, field, message) => {
+    const e = refusal(goodModelPlan(change));
+    expect(e.issues.map((i) => i.field)).toEqual([field]);
+    expect(e.message).toMatch(message);
+  });
+
+  it('keeps accepting extreme values whose predictions stay finite', () => {
+    expect(() => validatePlanInput(goodModelPlan({ runLength: 1e300 }))).not.toThrow();
+    expect(() => validatePlanInput(goodModelPlan({ dragTime: 1e-6 }))).not.toThrow();
+    expect(() => validatePlanInput(physical)).not.toThrow();
+  });
+
   it('refuses what is not an object', () => {
     expect(refusal(null).issues[0].field).toBe('(plan)');
     expect(refusal([1, 2]).issues.length).toBeGreaterThan(0);

@@ -7,6 +7,9 @@ import { runSweepJob } from '../../lib/sweep/runSweepJob';
 import { formatSweepRecord, joinRecords, parseSweepRecord } from '../../lib/sweep/sweepRecord';
 import { expandSweep } from '../../lib/sweep/sweepRuns';
 import { MAX_SWEEP_RUNS, parseSweepSpec, SweepSpecError } from '../../lib/sweep/sweepSpec';
+import { PlanInputError, validatePlanInput } from '../../lib/plan/planInput';
+import { decodeRunLink } from '../../src/share/runLink';
+import { PLAN_SEEDS } from './support/planChecks';
 
 /** The boundary faults the property tests (./boundaries/) found, each pinned by its smallest case. */
 const small = { nx: 32, ny: 32, kf: 8, dkf: 1.5, dt: 0.01, init_energy: 1 };
@@ -80,5 +83,19 @@ describe('boundary faults found by the property tests, fixed', () => {
   it('--set: "__proto__" and other inherited names are refused, not dropped', () => {
     for (const key of ['__proto__', 'toString', 'hasOwnProperty']) expect(() => parseSets([`${key}=1`])).toThrow(new RegExp(`"${key.replace(/_/g, '_')}" is not a parameter`));
     expect(parseSets(['beta=2pi', 'forcing=steady'])).toEqual({ beta: 2 * Math.PI, forcing: 'steady' });
+  });
+
+  it('shared links: a "__proto__" entry and a hexadecimal number are refused, naming the key', () => {
+    expect(decodeRunLink('v=1&__proto__=1')).toEqual({ kind: 'bad', message: '“__proto__” is not a parameter' });
+    expect(decodeRunLink('v=1&nx=0x20')).toEqual({ kind: 'bad', message: 'nx = “0x20” is not a number in decimal notation' });
+  });
+
+  it('plan inputs: a subnormal drag time or β is refused, not analysed into NaN predictions', () => {
+    const model = PLAN_SEEDS.at(-1) as Record<string, unknown>;
+    for (const [change, field] of [[{ dragTime: 2.5e-323 }, 'dragTime'], [{ rotation: { kind: 'beta', beta: 5e-324 }, dragTime: 2.6e117 }, 'rotation.beta']] as const) {
+      const e = refusal(() => validatePlanInput({ ...model, ...change }));
+      expect(e).toBeInstanceOf(PlanInputError);
+      expect((e as PlanInputError).issues.map((i) => i.field)).toEqual([field]);
+    }
   });
 });

@@ -1,5 +1,6 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { Model } from '../../lib/model/model';
+import { DEFAULT_PARAMS } from '../../lib/model/params';
 import { BUDGET_ROW_WIDTH } from '../../workers/budgetRows';
 import type { Snapshot } from '../../workers/simulationApi';
 import { SimulationHost } from '../../workers/simulationHost';
@@ -224,7 +225,7 @@ describe('SimulationHost', () => {
     let s: Snapshot = await host.nextSnapshot({ after: 0 });
     while (s.steps < 3) s = await host.nextSnapshot({ after: s.version });
     expect(s.playing).toBe(true);
-    expect(s.params.nu_order).toBe(4);
+    expect(s.params.nu_order).toBe(DEFAULT_PARAMS.nu_order);
   });
 
   it('checkpoints and restores: the restored run steps on with the same bits', async () => {

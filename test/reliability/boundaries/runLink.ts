@@ -52,10 +52,11 @@ export const boundary: Boundary<string> = {
     const q = new URLSearchParams(hash.startsWith('#') ? hash.slice(1) : hash);
     for (const [k, raw] of q) {
       if (k === 'v') continue;
-      // A known gap of src/share/runLink.ts (docs/reliability.md): "__proto__" passes its key test
-      // (`in` finds it on every object) and the assignment is dropped, so the entry is ignored.
-      if (k === '__proto__') return 'accepted, known gap: __proto__ entry ignored';
       if (!Object.hasOwn(DEFAULT_PARAMS, k)) throw new PropertyFailure(`accepted a link with the entry ${k}, which is not a parameter`);
+      // Numbers are read in the decimal form the encoder writes; "0x20" and the like are refused.
+      if (typeof DEFAULT_PARAMS[k as keyof ModelParams] === 'number' && !/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(raw.trim())) {
+        throw new PropertyFailure(`accepted ${k}=${raw}, which is not a decimal number`);
+      }
       const got = (p as unknown as Record<string, unknown>)[k];
       const last = q.getAll(k).at(-1)!;
       const want = typeof DEFAULT_PARAMS[k as keyof ModelParams] === 'number' ? Number(last) : typeof DEFAULT_PARAMS[k as keyof ModelParams] === 'boolean' ? last === 'true' : last;

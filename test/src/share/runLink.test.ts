@@ -42,4 +42,23 @@ describe('run links', () => {
     expect(bad('v=1&nx=100')).toMatch(/nx = 100: must be a power of two/);
     expect(bad('v=1&forcing=gusty')).toMatch(/forcing = "gusty"/);
   });
+
+  it('refuse inherited names such as __proto__, naming the key, instead of dropping the entry', () => {
+    for (const key of ['__proto__', 'toString', 'constructor', 'hasOwnProperty']) {
+      const r = decodeRunLink(`v=1&${key}=1&beta=3`);
+      expect(r, key).toEqual({ kind: 'bad', message: `“${key}” is not a parameter` });
+    }
+  });
+
+  it('read numbers in decimal notation only: hexadecimal, binary and named numbers are refused, naming the key', () => {
+    for (const raw of ['0x20', '0X20', '0b100000', '0o40', 'Infinity', '-Infinity', 'NaN', '1_0', '32px', '2π']) {
+      const r = decodeRunLink(`v=1&nx=${encodeURIComponent(raw)}`);
+      expect(r, raw).toEqual({ kind: 'bad', message: `nx = “${raw}” is not a number in decimal notation` });
+    }
+    // What the encoder writes, and hand-written decimal forms, still read.
+    for (const [raw, x] of [['256', 256], ['+256', 256], ['256.', 256], ['2.56e2', 256], ['2.56E+2', 256]] as const) {
+      expect(decodeRunLink(`v=1&nx=${encodeURIComponent(raw)}`), raw).toEqual({ kind: 'run', params: validateParams({ nx: x }) });
+    }
+    expect(decodeRunLink(`v=1&nu=${encodeURIComponent('1e-15')}&mu=.05`)).toEqual({ kind: 'run', params: validateParams({ nu: 1e-15, mu: 0.05 }) });
+  });
 });
