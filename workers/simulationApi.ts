@@ -1,4 +1,5 @@
 import type { RunSummary } from '../lib/analysis/summary';
+import type { BlowUpReport } from '../lib/sweep/blowUpRetry';
 import type { SweepRecord } from '../lib/sweep/sweepRecord';
 import type { SweepJob } from '../lib/sweep/sweepRuns';
 import type { StepReport } from '../lib/model/budget';
@@ -57,6 +58,15 @@ export interface SimulationApi {
   checkpoint(): Promise<Checkpoint>;
   /** Replace the run by one resumed from a checkpoint (throws on a bad one). Leaves it paused. */
   restore(cp: Checkpoint): Promise<InitInfo>;
+  /**
+   * After a blow-up (`Snapshot.blowUp`): go back to the last in-memory checkpoint (kept every
+   * RESCUE_EVERY steps, rescuePoint.ts) with dt, and with an adaptive step the CFL target, halved
+   * (lib/sweep/blowUpRetry.ts `retryCheckpoint`, the command line's rule), and play. A new epoch.
+   * Throws when the run has not blown up or the halved parameters are refused.
+   */
+  restartHalved(): Promise<InitInfo>;
+  /** Answers at once (between slices of play): the UI's watchdog asks it to learn the worker is alive. */
+  ping(): Promise<void>;
   /** The next snapshot whose `version` exceeds `request.after` (see the protocol above). */
   nextSnapshot(request: SnapshotRequest): Promise<Snapshot>;
   /**
@@ -84,6 +94,15 @@ export interface InitInfo {
  * a new run from t = 0).
  */
 export type ReconfigureResult = { applied: true; how: 'inPlace' | 'regrid' | 'fresh'; params: ModelParams } | { applied: false; issues: ParamIssue[] };
+
+/** A blow-up, and the offer to go back to the last checkpoint with the step halved. */
+export interface BlowUpStop {
+  report: BlowUpReport;
+  /** The checkpoint a restart goes back to, and dt and the CFL target before and after halving; null when none is kept. */
+  restart: { time: number; steps: number; dt: { from: number; to: number }; cfl: { from: number; to: number } } | null;
+  /** Why the halved parameters are refused (validateParams), or null when the restart can go ahead. */
+  refused: string | null;
+}
 
 export interface SnapshotRequest {
   after: number;
@@ -122,6 +141,8 @@ export interface Snapshot {
   until: number | null;
   /** Why the run stopped (a blow-up), or null while it can go on. */
   stopped: string | null;
+  /** When it stopped on a blow-up: the report and where a restart with dt halved would begin. */
+  blowUp: BlowUpStop | null;
   /** The monitor's status and the payloads due (diagnosticsApi.ts). */
   diagnostics: DiagnosticsPayload;
 }

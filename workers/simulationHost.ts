@@ -4,8 +4,10 @@ import type { Checkpoint } from '../lib/model/checkpoint';
 import type { FieldName } from '../lib/model/fields';
 import { Model } from '../lib/model/model';
 import type { ModelParams } from '../lib/model/params';
+import { BlowUpError } from '../lib/model/stepper';
 import { ParamError, validateParams } from '../lib/model/validateParams';
 import type { RunSummary } from '../lib/analysis/summary';
+import { blowUpReport, retryCheckpoint, retryRecord } from '../lib/sweep/blowUpRetry';
 import { runSweepJob } from '../lib/sweep/runSweepJob';
 import type { SweepRecord } from '../lib/sweep/sweepRecord';
 import type { SweepJob } from '../lib/sweep/sweepRuns';
@@ -14,7 +16,8 @@ import type { DiagnosticNeeds, MonitorStatus, SamplingOptions } from './diagnost
 import { DiagnosticsPublisher } from './diagnosticsPublisher';
 import { snapshotExport, zonalCsvExport, zonalNetcdfExport, type ExportedFile } from './runExports';
 import { macrotask } from './macrotask';
-import type { ExportKind, InitInfo, ReconfigureResult, SimulationApi, Snapshot, SnapshotRequest } from './simulationApi';
+import { RescuePoint } from './rescuePoint';
+import type { BlowUpStop, ExportKind, InitInfo, ReconfigureResult, SimulationApi, Snapshot, SnapshotRequest } from './simulationApi';
 import { stateChecksum } from './stateChecksum';
 
 /** Stepping time per slice before the host yields to its message queue (ms): short enough that
@@ -36,6 +39,11 @@ export class SimulationHost implements SimulationApi {
   private playing = false;
   private until: number | null = null;
   private stopped: string | null = null;
+  private blowUp: BlowUpStop | null = null;
+  /** The checkpoint `restartHalved` resumes: the rescue point with the step halved, made at the blow-up. */
+  private retry: Checkpoint | null = null;
+  /** The last good state, every RESCUE_EVERY steps and at every new run or change of parameters. */
+  private readonly rescue = new RescuePoint();
   private version = 0;
   private epoch = 0;
   /** The opening field is u: eastward jets show directly as bands of u > 0. */
@@ -58,6 +66,18 @@ export class SimulationHost implements SimulationApi {
   async restore(cp: Checkpoint): Promise<InitInfo> {
     return this.begin(Model.restore(cp));
   }
+
+  async restartHalved(): Promise<InitInfo> {
+    this.requireModel();
+    const cp = this.retry;
+    if (!this.blowUp || !cp) throw new RangeError('restartHalved: the run has not blown up, or no checkpoint is kept');
+    if (this.blowUp.refused) throw new RangeError(`restartHalved: ${this.blowUp.refused}`);
+    const info = this.begin(Model.restore(cp));
+    await this.play();
+    return info;
+  }
+
+  async ping(): Promise<void> {}
 
   async play(): Promise<void> {
     this.requireModel();
@@ -107,10 +127,11 @@ export class SimulationHost implements SimulationApi {
     const how = next === model ? 'inPlace' : next.params.Lx !== old.Lx || next.params.Ly !== old.Ly ? 'fresh' : 'regrid';
     if (how === 'fresh') this.newEpoch();
     this.model = next;
+    this.rescue.take(next);
     // Time means across a change of parameters would mix two runs: the diagnostics start again.
     this.diagnostics.restart(next);
     // New parameters may well cure a blow-up (a smaller dt, more hyperviscosity): let it try again.
-    this.stopped = null;
+    this.clearStop();
     this.changed();
     return { applied: true, how, params: { ...next.params } };
   }
@@ -166,6 +187,8 @@ export class SimulationHost implements SimulationApi {
   async dispose(): Promise<void> {
     this.playing = false;
     this.model = null;
+    this.rescue.clear();
+    this.clearStop();
     this.nextSlice.close();
     const p = this.pending;
     this.pending = null;
@@ -176,7 +199,8 @@ export class SimulationHost implements SimulationApi {
     this.model = model;
     this.playing = false;
     this.until = null;
-    this.stopped = null;
+    this.clearStop();
+    this.rescue.take(model);
     this.newEpoch();
     this.diagnostics.restart(model);
     this.changed();
@@ -190,6 +214,7 @@ export class SimulationHost implements SimulationApi {
 
   private stepAndRecord(model: Model): void {
     model.step(1);
+    this.rescue.afterStep(model);
     this.rows.push(model.report);
     this.diagnostics.afterStep(model);
   }
@@ -220,7 +245,31 @@ export class SimulationHost implements SimulationApi {
       this.playing = false;
       this.until = null;
       this.stopped = e instanceof Error ? e.message : String(e);
+      if (e instanceof BlowUpError) this.offerRestart(e);
     }
+  }
+
+  /** Prepare the way back from a blow-up: the rescue point with the step halved, and whether its parameters pass. */
+  private offerRestart(e: BlowUpError): void {
+    const kept = this.rescue.checkpoint();
+    this.retry = kept ? retryCheckpoint(kept) : null;
+    let refused: string | null = null;
+    if (this.retry) {
+      try {
+        validateParams(this.retry.params);
+      } catch (err) {
+        if (!(err instanceof ParamError)) throw err;
+        refused = `with the step halved, ${err.message}`;
+      }
+    }
+    const r = kept ? retryRecord(1, e, kept) : null;
+    this.blowUp = { report: blowUpReport(e), restart: r ? { time: r.restarted_at.time, steps: r.restarted_at.steps, dt: r.dt, cfl: r.cfl } : null, refused };
+  }
+
+  private clearStop(): void {
+    this.stopped = null;
+    this.blowUp = null;
+    this.retry = null;
   }
 
   /** The state changed: bump the version and answer a waiting request. */
@@ -264,6 +313,7 @@ export class SimulationHost implements SimulationApi {
       playing: this.playing,
       until: this.until,
       stopped: this.stopped,
+      blowUp: this.blowUp,
       diagnostics: diag.payload,
     };
     return transfer(snap, [values.buffer, budget.data.buffer, ...diag.buffers]);

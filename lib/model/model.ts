@@ -6,7 +6,7 @@ import { Grid } from './grid';
 import { LinearOperator } from './linearOperator';
 import { NonlinearTerm } from './nonlinearTerm';
 import type { ModelParams } from './params';
-import { RandomStream } from './randomStream';
+import { RandomStream, type RandomState } from './randomStream';
 import { RealTransform2D } from './realTransform2D';
 import { regridSpectrum } from './regrid';
 import { Stepper } from './stepper';
@@ -85,6 +85,10 @@ export class Model {
   /** The PV anomaly spectrum, the model's state (half-plane layout). Read it; do not write it. */
   get qHat(): Float64Array {
     return this.stepper.qHat;
+  }
+  /** The random stream's state now (four numbers): with qHat, time, steps and dt, a checkpoint without copying the spectrum. */
+  randomState(): RandomState {
+    return this.rng.getState();
   }
   /** Number of independent forced modes on the annulus. */
   get forcedModes(): number {

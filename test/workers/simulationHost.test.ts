@@ -1,7 +1,9 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { Model } from '../../lib/model/model';
 import { DEFAULT_PARAMS } from '../../lib/model/params';
+import { retryCheckpoint } from '../../lib/sweep/blowUpRetry';
 import { BUDGET_ROW_WIDTH } from '../../workers/budgetRows';
+import { RESCUE_EVERY } from '../../workers/rescuePoint';
 import type { Snapshot } from '../../workers/simulationApi';
 import { SimulationHost } from '../../workers/simulationHost';
 import { stateChecksum } from '../../workers/stateChecksum';
@@ -117,6 +119,65 @@ describe('SimulationHost', () => {
     await host.play();
     const s2 = await host.nextSnapshot({ after: 0 });
     expect(s2.playing).toBe(false);
+  });
+
+  it('offers a restart from the last kept checkpoint with dt halved, and restarts there with the same bits as the command line rule', async () => {
+    host = new SimulationHost();
+    // A fixed step that holds while the flow is weak and fails once it has spun up (probed: step 2664).
+    const params = { ...SMALL, cfl: 0, dt: 0.05 };
+    await host.init(params);
+    await host.play();
+    let s = await host.nextSnapshot({ after: 0 });
+    while (s.stopped === null) s = await host.nextSnapshot({ after: s.version });
+    // The same run stepped directly blows up at the same step; the kept state is the last multiple of RESCUE_EVERY before it.
+    const direct = new Model(params);
+    let kept = direct.checkpoint();
+    let blewAt = -1;
+    try {
+      for (;;) {
+        direct.step(1);
+        if (direct.steps % RESCUE_EVERY === 0) kept = direct.checkpoint();
+      }
+    } catch {
+      blewAt = direct.steps;
+    }
+    expect(blewAt).toBeGreaterThan(RESCUE_EVERY);
+    expect(s.blowUp?.report).toMatchObject({ steps: blewAt, reason: expect.stringMatching(/CFL/) });
+    expect(s.blowUp?.restart).toEqual({ time: kept.time, steps: kept.steps, dt: { from: 0.05, to: 0.025 }, cfl: { from: 0, to: 0 } });
+    expect(s.blowUp?.refused).toBeNull();
+    expect(s.steps).toBe(blewAt);
+
+    await host.restartHalved();
+    let r = await host.nextSnapshot({ after: s.version });
+    expect([r.stopped, r.blowUp, r.params.dt, r.playing, r.epoch]).toEqual([null, null, 0.025, true, s.epoch + 1]);
+    while (r.steps < kept.steps + 10) r = await host.nextSnapshot({ after: r.version });
+    await host.pause();
+    r = await host.nextSnapshot({ after: 0 });
+    const resumed = Model.restore(retryCheckpoint(kept));
+    resumed.step(r.steps - kept.steps);
+    expect(r.steps).toBeGreaterThan(kept.steps);
+    expect(r.checksum).toBe(stateChecksum(resumed.qHat));
+  });
+
+  it('halves an adaptive CFL target too, and refuses a restart whose halved target is out of range', async () => {
+    host = new SimulationHost();
+    const info = await host.init({ ...SMALL, cfl: 0.015 });
+    // A clock so far on that one step no longer moves it: a blow-up on the first step.
+    const cp = await host.checkpoint();
+    await host.restore({ ...cp, time: 1e300 });
+    await host.stepOnce();
+    const s = await host.nextSnapshot({ after: 0 });
+    expect(s.blowUp?.report.reason).toMatch(/collapsed/);
+    expect(s.blowUp?.restart).toMatchObject({ steps: 0, dt: { from: info.params.dt, to: info.params.dt / 2 }, cfl: { from: 0.015, to: 0.0075 } });
+    expect(s.blowUp?.refused).toMatch(/cfl/);
+    await expect(host.restartHalved()).rejects.toThrow(/cfl/);
+  });
+
+  it('refuses a restart when the run has not blown up', async () => {
+    host = new SimulationHost();
+    await host.init(SMALL);
+    await host.stepOnce();
+    await expect(host.restartHalved()).rejects.toThrow(/not blown up/);
   });
 
   it('refuses bad parameters with the field named, and verbs before init', async () => {
