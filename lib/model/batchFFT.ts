@@ -1,3 +1,5 @@
+import { cisTurnsPortable } from './portableTrig';
+
 /**
  * Complex FFTs of length n along the slow axis of a packed block: row r, batch column c at
  * 2·(r·cols + c) (re) and +1 (im). Every column is transformed independently, unnormalised:
@@ -21,9 +23,12 @@ export class BatchFFT {
     this.cols = cols;
     this.cosT = new Float64Array(n);
     this.sinT = new Float64Array(n);
+    // Twiddles cos, sin of 2π·m/n from the exact fraction m/n (portableTrig.ts: the same bits on every engine).
+    const cs = new Float64Array(2);
     for (let m = 0; m < n; m++) {
-      this.cosT[m] = Math.cos((2 * Math.PI * m) / n);
-      this.sinT[m] = Math.sin((2 * Math.PI * m) / n);
+      cisTurnsPortable(m / n, cs);
+      this.cosT[m] = cs[0];
+      this.sinT[m] = cs[1];
     }
     this.work = new Float64Array(2 * n * cols);
   }

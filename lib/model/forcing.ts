@@ -62,15 +62,16 @@ export class Forcing {
     if (p.forcing === 'steady' && this.modes.length > 0) {
       const amp = Math.sqrt((p.eps * p.mu) / (2 * sumInvk2));
       const phases = new RandomStream((p.seed ^ 0x5f3759df) >>> 0);
+      const cs = new Float64Array(2);
       for (let i = 0; i < this.modes.length; i++) {
-        const phi = 2 * Math.PI * phases.uniform();
+        phases.phase(cs);
         const q = this.modes[i];
-        this.steady[2 * q] = amp * Math.cos(phi);
-        this.steady[2 * q + 1] = amp * Math.sin(phi);
+        this.steady[2 * q] = amp * cs[0];
+        this.steady[2 * q + 1] = amp * cs[1];
         const mq = this.mirrors[i];
         if (mq >= 0) {
-          this.steady[2 * mq] = amp * Math.cos(phi);
-          this.steady[2 * mq + 1] = -amp * Math.sin(phi);
+          this.steady[2 * mq] = amp * cs[0];
+          this.steady[2 * mq + 1] = -amp * cs[1];
         }
       }
     }

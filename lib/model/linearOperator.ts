@@ -1,5 +1,10 @@
 import type { Grid } from './grid';
 import type { ModelParams } from './params';
+import { expPortable } from './portableMath';
+import { cisPortable } from './portableTrig';
+
+/** cos and sin of a phase, shared scratch (module level, so no model holds it). */
+const phase = new Float64Array(2);
 
 /**
  * The linear part of the PV equation, diagonal in Fourier space: dq̂/dt = L q̂ + …, with
@@ -8,7 +13,9 @@ import type { ModelParams } from './params';
  * modes (2/3 rule) and the mean carry L = 0 and a zero propagator, so a step keeps them at zero.
  *
  * `setStep(dt)` fills the propagators exp(L dt/2) and exp(L dt) used by the integrating-factor step;
- * it allocates nothing and is the only costly call (one complex exponential per kept mode).
+ * it allocates nothing and is the only costly call (one complex exponential per kept mode, made with
+ * portableMath.ts and portableTrig.ts so that the propagators have the same bits on every engine;
+ * e^{L dt} is its square).
  */
 export class LinearOperator {
   readonly grid: Grid;
@@ -78,12 +85,15 @@ export class LinearOperator {
       }
       const re = -this.rate(q);
       const im = this.waveRate[q];
-      const h = Math.exp(re * dt * 0.5);
-      this.halfStep[2 * q] = h * Math.cos(im * dt * 0.5);
-      this.halfStep[2 * q + 1] = h * Math.sin(im * dt * 0.5);
-      const f = Math.exp(re * dt);
-      this.fullStep[2 * q] = f * Math.cos(im * dt);
-      this.fullStep[2 * q + 1] = f * Math.sin(im * dt);
+      // e^{L dt/2}, and e^{L dt} as its square (one complex product instead of a second exponential).
+      const h = expPortable(re * dt * 0.5);
+      cisPortable(im * dt * 0.5, phase);
+      const hr = h * phase[0];
+      const hi = h * phase[1];
+      this.halfStep[2 * q] = hr;
+      this.halfStep[2 * q + 1] = hi;
+      this.fullStep[2 * q] = hr * hr - hi * hi;
+      this.fullStep[2 * q + 1] = 2 * hr * hi;
     }
   }
 }

@@ -52,11 +52,12 @@ export class Model {
     const q = this.stepper.qHat;
     const f = this.forcing.modes.length ? this.forcing : new Forcing(this.grid, { ...p, forcing: 'stochastic' }, this.lin);
     let e = 0;
+    const cs = new Float64Array(2);
     for (let i = 0; i < f.modes.length; i++) {
       const m = f.modes[i];
-      const phi = 2 * Math.PI * init.uniform();
-      q[2 * m] = Math.cos(phi);
-      q[2 * m + 1] = Math.sin(phi);
+      init.phase(cs);
+      q[2 * m] = cs[0];
+      q[2 * m + 1] = cs[1];
       e += this.lin.invK2[m];
       const mm = f.mirrors[i];
       if (mm >= 0) {

@@ -1,5 +1,7 @@
 import { xoroshiro128plus, xoroshiro128plusFromState } from 'pure-rand/generator/xoroshiro128plus';
 import { uniformFloat64 } from 'pure-rand/distribution/uniformFloat64';
+import { logPortable } from './portableMath';
+import { cisTurnsPortable } from './portableTrig';
 
 /** The generator's full state: four 32-bit integers (xoroshiro128+ from pure-rand). */
 export type RandomState = readonly [number, number, number, number];
@@ -41,14 +43,19 @@ export class RandomStream {
 
   /**
    * A complex Gaussian with E|z|² = variance, written to out[0] (re) and out[1] (im); re and im are
-   * independent normals of variance `variance`/2.
+   * independent normals of variance `variance`/2. The logarithm and the phase come from
+   * portableMath.ts and portableTrig.ts, so the draws have the same bits on every engine.
    */
   complexGaussian(variance: number, out: Float64Array): void {
     const u1 = 1 - this.uniform(); // (0, 1]: log is finite
     const u2 = this.uniform();
-    const r = Math.sqrt(-variance * Math.log(u1));
-    out[0] = r * Math.cos(2 * Math.PI * u2);
-    out[1] = r * Math.sin(2 * Math.PI * u2);
+    const r = Math.sqrt(-variance * logPortable(u1));
+    cisTurnsPortable(u2, out, r);
+  }
+
+  /** A uniformly random unit phase: out[0] = cos 2πu, out[1] = sin 2πu with u uniform in [0, 1). */
+  phase(out: Float64Array): void {
+    cisTurnsPortable(this.uniform(), out);
   }
 
   getState(): RandomState {

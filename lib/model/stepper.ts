@@ -96,7 +96,7 @@ export class Stepper {
     const target = speed > 0 ? this.cfl / speed : Infinity;
     if (!(target > 0)) return NaN; // non-finite speed: step() refuses it
     // Rungs below MIN_STEP_FRACTION are refused by step(); no need to count further.
-    const j = target >= this.dtMax ? 0 : Math.min(8 * 41, Math.ceil(8 * Math.log2(this.dtMax / target)));
+    const j = target >= this.dtMax ? 0 : Math.min(8 * 41, firstRungBelow(this.dtMax, target));
     const rung = this.dtMax * ladderFactor(j);
     return rung < this.dt || rung > this.dt * 1.18 ? rung : this.dt;
   }
@@ -268,6 +268,23 @@ export class Stepper {
 
 /** 2^(−r/8), r = 0..7, as literals: the same bits on every engine (unlike Math.pow). */
 const EIGHTH_POWERS = [1, 0.9170040432046712, 0.8408964152537145, 0.7711054127039704, 0.7071067811865476, 0.6484197773255048, 0.5946035575013605, 0.5452538663326288];
+
+/**
+ * The least j ≥ 0 with dtMax·2^(−j/8) ≤ target (for target < dtMax), found by halving (exact) and
+ * comparing with the tabulated eighth powers: the same j on every engine, which ⌈8 log₂(dtMax/target)⌉
+ * is not (Math.log2 differs between engines in the last bit). Stops at 8·41 + 7.
+ */
+function firstRungBelow(dtMax: number, target: number): number {
+  let octave = 0;
+  let top = dtMax;
+  while (top * 0.5 > target && octave < 41) {
+    top *= 0.5;
+    octave++;
+  }
+  let r = 0;
+  while (r < 8 && top * EIGHTH_POWERS[r] > target) r++;
+  return 8 * octave + r;
+}
 
 /** 2^(−j/8) for an integer j ≥ 0: a power of two (exact) times a tabulated eighth power. */
 function ladderFactor(j: number): number {

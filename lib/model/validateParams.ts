@@ -148,7 +148,11 @@ function annulusHoldsModes(p: ModelParams): boolean {
   for (let i = 0; i <= Kx; i++) {
     for (let j = i === 0 ? 1 : -Ky; j <= Ky; j++) {
       if (i === 0 && !p.force_zonal) break;
-      const k = Math.hypot(i * dkx, j * dky);
+      // As the forcing computes it (grid.ts k², forcing.ts): the same modes, and the same answer on
+      // every engine (Math.hypot is implementation-approximated; √ of a sum of products is exact IEEE).
+      const kx = dkx * i;
+      const ky = dky * j;
+      const k = Math.sqrt(kx * kx + ky * ky);
       if (Math.abs(k - p.kf) <= p.dkf) return true;
     }
   }
