@@ -1,12 +1,14 @@
 import { svelte } from '@sveltejs/vite-plugin-svelte';
 import { defineConfig } from 'vite';
+import { contentPolicyPlugin } from './scripts/contentPolicy.ts';
 
 // The app: index.html at the repo root, built to dist/. Relative base so dist/ can be served from
 // any path (a project page, a file share, the e2e server). Workers are ES module workers
 // (`new Worker(new URL(...), { type: 'module' })`), so they may import the model like any module.
+// The built index.html carries a strict Content Security Policy (scripts/contentPolicy.ts; build only).
 export default defineConfig({
   base: './',
-  plugins: [svelte()],
+  plugins: [svelte(), contentPolicyPlugin()],
   worker: { format: 'es' },
   build: { outDir: 'dist', emptyOutDir: true, target: 'es2022', sourcemap: true },
 });

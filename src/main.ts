@@ -1,3 +1,5 @@
+// The page's own rules first, so the components' styles come after them as they did in index.html.
+import './app.css';
 import { mount } from 'svelte';
 import App from './App.svelte';
 

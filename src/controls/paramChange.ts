@@ -1,5 +1,6 @@
 import type { ModelParams } from '../../lib/model/params';
 import { ParamError, validateParams, type ParamIssue } from '../../lib/model/validateParams';
+import { appMemoryBudget, memoryRefusal, type MemoryBudget } from '../appMemory';
 
 /** The refused fields of a change, as one sentence; the edited field's own issues need no name. */
 export function describeIssues(issues: readonly ParamIssue[], edited: string): string {
@@ -19,6 +20,21 @@ export function refusalOf(params: ModelParams, changes: Partial<ModelParams>): P
     if (e instanceof ParamError) return e.issues;
     throw e;
   }
+}
+
+/** Changes that build a new model (a new grid or domain) while the current one is still held. */
+const NEW_MODEL_KEYS = ['nx', 'ny', 'Lx', 'Ly'] as const;
+
+/**
+ * Why a change that builds a new model would exceed the app's memory budget (src/appMemory.ts),
+ * as an issue of the edited field, or null. Only grid and domain changes build a new model; the
+ * current run is held until the new one stands, so it is counted too.
+ */
+export function memoryRefusalOf(params: ModelParams, changes: Partial<ModelParams>, budget: MemoryBudget = appMemoryBudget()): ParamIssue[] | null {
+  const field = NEW_MODEL_KEYS.find((k) => k in changes && changes[k] !== params[k]);
+  if (!field) return null;
+  const why = memoryRefusal({ ...params, ...changes }, params, budget);
+  return why ? [{ field, value: changes[field] ?? null, message: why }] : null;
 }
 
 /**

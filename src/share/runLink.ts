@@ -1,5 +1,6 @@
 import { DEFAULT_PARAMS, type ModelParams } from '../../lib/model/params';
 import { ParamError, validateParams } from '../../lib/model/validateParams';
+import { appMemoryBudget, memoryRefusal, type MemoryBudget } from '../appMemory';
 
 /** Version of the link format; a link of another version is refused with a message. */
 export const LINK_VERSION = 1;
@@ -28,9 +29,10 @@ export type LinkReading = { kind: 'none' } | { kind: 'run'; params: ModelParams 
 
 /**
  * Read a URL hash (with or without the leading '#'): no run in it, a run's parameters (validated by
- * validateParams), or why it cannot be used, naming the bad entries.
+ * validateParams, and within the app's memory budget, src/appMemory.ts), or why it cannot be used,
+ * naming the bad entries.
  */
-export function decodeRunLink(hash: string): LinkReading {
+export function decodeRunLink(hash: string, budget: MemoryBudget = appMemoryBudget()): LinkReading {
   const text = hash.startsWith('#') ? hash.slice(1) : hash;
   if (text.trim() === '') return { kind: 'none' };
   const q = new URLSearchParams(text);
@@ -59,10 +61,13 @@ export function decodeRunLink(hash: string): LinkReading {
     } else input[key] = raw;
   }
   if (problems.length) return { kind: 'bad', message: problems.join('; ') };
+  let params: ModelParams;
   try {
-    return { kind: 'run', params: validateParams(input) };
+    params = validateParams(input);
   } catch (e) {
     if (e instanceof ParamError) return { kind: 'bad', message: e.message };
     throw e;
   }
+  const tooLarge = memoryRefusal(params, null, budget);
+  return tooLarge ? { kind: 'bad', message: tooLarge } : { kind: 'run', params };
 }

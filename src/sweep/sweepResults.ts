@@ -2,9 +2,6 @@ import { parseCsv } from '../../lib/io/csv';
 import { parseSweepRecord, type SweepRecord } from '../../lib/sweep/sweepRecord';
 import { tableRows, type TableRow, type TableValue } from '../../lib/sweep/sweepTable';
 
-/** Largest results file the page reads (a sweep of tens of thousands of runs). */
-export const MAX_RESULTS_BYTES = 20_000_000;
-
 /**
  * A command-line sweep's results as table rows (sweepTable.ts): `runs.jsonl` (one record per line;
  * a partial last line of an interrupted sweep is dropped, as the command line does), `table.json`

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_PARAMS } from '../../../lib/model/params';
-import { describeIssues, formatNumber, parseNumber, refusalOf } from '../../../src/controls/paramChange';
+import { appMemoryBudget, estimateAppMemory, roughBytes } from '../../../src/appMemory';
+import { describeIssues, formatNumber, memoryRefusalOf, parseNumber, refusalOf } from '../../../src/controls/paramChange';
 
 describe('parameter entry', () => {
   it('reads plain and exponent numbers, and multiples of π', () => {
@@ -36,5 +37,21 @@ describe('parameter entry', () => {
     expect(grid?.map((i) => i.field)).toEqual(['kf']);
     expect(describeIssues(grid ?? [], 'nx')).toMatch(/^kf: forcing annulus/);
     expect(describeIssues(mu ?? [], 'mu')).toMatch(/^out of range \(linear drag μ/);
+  });
+
+  it('refuses a new grid over the memory budget at the edited field, counting the run it replaces', () => {
+    const two = appMemoryBudget(2); // 512 MiB: a device of 2 GiB
+    const at = { ...DEFAULT_PARAMS, nx: 1024, ny: 512 };
+    const issues = memoryRefusalOf(at, { ny: 1024 }, two);
+    const need = estimateAppMemory({ ...at, ny: 1024 }, at).totalBytes;
+    expect(issues).toEqual([{ field: 'ny', value: 1024, message: `1024 × 1024 needs ≈ ${roughBytes(need)} with the 1024 × 512 run it replaces; the app's budget is 512 MiB (a quarter of this device's 2 GiB)` }]);
+    expect(describeIssues(issues ?? [], 'ny')).toMatch(/^1024 × 1024 needs ≈ \d+ MiB with the 1024 × 512 run/);
+    // Smaller grids, changes that keep the model, and the same value pass; the cap takes 1024² too.
+    expect(memoryRefusalOf(at, { ny: 256 }, two)).toBeNull();
+    expect(memoryRefusalOf({ ...at, ny: 1024 }, { beta: 3 }, two)).toBeNull();
+    expect(memoryRefusalOf({ ...at, ny: 1024 }, { ny: 1024 }, two)).toBeNull();
+    expect(memoryRefusalOf(at, { ny: 1024 }, appMemoryBudget(8))).toBeNull();
+    // A new domain builds a new model as well.
+    expect(memoryRefusalOf({ ...at, ny: 1024 }, { Lx: 3 }, two)?.map((i) => i.field)).toEqual(['Lx']);
   });
 });

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { DEFAULT_PARAMS } from '../../../lib/model/params';
 import { validateParams } from '../../../lib/model/validateParams';
 import { DEMO_SCENARIOS } from '../../../lib/plan/demoScenarios';
+import { appMemoryBudget, estimateAppMemory, roughBytes } from '../../../src/appMemory';
 import { decodeRunLink, encodeRunLink } from '../../../src/share/runLink';
 
 describe('run links', () => {
@@ -60,5 +61,14 @@ describe('run links', () => {
       expect(decodeRunLink(`v=1&nx=${encodeURIComponent(raw)}`), raw).toEqual({ kind: 'run', params: validateParams({ nx: x }) });
     }
     expect(decodeRunLink(`v=1&nu=${encodeURIComponent('1e-15')}&mu=.05`)).toEqual({ kind: 'run', params: validateParams({ nu: 1e-15, mu: 0.05 }) });
+  });
+
+  it('refuse a run over the app memory budget with the estimate, and take it where it fits', () => {
+    const hash = 'v=1&nx=1024&ny=1024';
+    const need = roughBytes(estimateAppMemory(validateParams({ nx: 1024, ny: 1024 })).totalBytes);
+    expect(decodeRunLink(hash, appMemoryBudget(2))).toEqual({ kind: 'bad', message: `1024 × 1024 needs ≈ ${need}; the app's budget is 512 MiB (a quarter of this device's 2 GiB)` });
+    expect(decodeRunLink(hash, appMemoryBudget(4))).toEqual({ kind: 'run', params: validateParams({ nx: 1024, ny: 1024 }) });
+    // Without a device memory (Node here) the budget is the cap, 1 GiB.
+    expect(decodeRunLink(hash).kind).toBe('run');
   });
 });
