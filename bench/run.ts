@@ -8,11 +8,13 @@
  *   --scaling          sizes 64..1024 and the fitted exponent of the cost against N² log N
  *   --time-to-jets     the default scenario at 256² from rest until jets show: wall and model time,
  *                      and the scheme's error at that step against half and quarter steps
+ *   --draw             the Field figure's draw time at 512² (or --n N) in Debian's Chromium
  */
 import { referenceUnavailable, runReference, type ReferenceTiming } from './reference';
 import { timeStep, type StepTiming } from './stepBench';
 import { fitScaling } from './scaling';
 import { MIN_JETS, MIN_STAIRCASE, timeToJets } from './timeToJets';
+import { timeFieldDraw } from './drawBench';
 
 const args = process.argv.slice(2);
 const has = (flag: string) => args.includes(flag);
@@ -38,6 +40,15 @@ if (has('--time-to-jets')) {
     { kind: 'time_to_jets', ...r, summary: undefined, jet_count: s.jet_count, staircase_index: s.staircase_index, zonostrophy_index: s.zonostrophy_index },
     `  ${r.wall_seconds.toFixed(1)} s wall, model time ${r.model_time.toFixed(1)}, ${r.steps} steps: ${s.jet_count} jets, staircase index ${s.staircase_index?.toFixed(3)}, R_β ${s.zonostrophy_index?.toFixed(2)}\n` +
       `  scheme error over ${r.accuracy.span.toFixed(2)} T at dt = ${r.dt.toPrecision(3)}: ${r.accuracy.error_dt.toExponential(2)} relative (dt/2: ${r.accuracy.error_half.toExponential(2)}, observed order ${r.accuracy.observed_order.toFixed(2)})`,
+  );
+  process.exit(0);
+}
+
+if (has('--draw')) {
+  const d = await timeFieldDraw(Number(value('--n') ?? 512));
+  emit(
+    { kind: 'draw', ...d },
+    `Field figure draw time in Chromium at ${d.n}² (${d.frames} frames): median ${d.median_ms.toFixed(2)} ms, 95th percentile ${d.p95_ms.toFixed(2)} ms, max ${d.max_ms.toFixed(2)} ms`,
   );
   process.exit(0);
 }
