@@ -72,7 +72,9 @@ describe('cost', () => {
 
   it('ships a measured reference figure and refuses a broken one by field', () => {
     expect(MEASURED_STEP.n).toBe(256);
-    expect(MEASURED_STEP.ms_per_step).toBe(16);
+    // The shipped figure is the one in the file (refreshed from `npm run bench`), read unchanged.
+    expect(MEASURED_STEP.ms_per_step).toBe((measured as { ms_per_step: number }).ms_per_step);
+    expect(MEASURED_STEP.ms_per_step).toBeGreaterThan(0);
     expect((measured as { kind: string }).kind).toBe('measured');
     expect(MEASURED_STEP.measured_on).toMatch(/^\d{4}-\d{2}-\d{2}$/);
     expect(() => parseMeasuredStep({ ...measured, ms_per_step: -3 })).toThrow(/ms_per_step/);
