@@ -66,6 +66,39 @@ export interface DatasetReader {
   readAll(name: string, options?: ReadOptions): Float64Array;
 }
 
+/**
+ * The lookups every reader shares, from its list of variables: by name (with the message naming what
+ * the file has), and record count and length from the shape. Readers add their variables in file order.
+ */
+export abstract class NamedVariables {
+  readonly variables: DatasetVariable[] = [];
+  private readonly byName = new Map<string, DatasetVariable>();
+
+  protected addVariable(v: DatasetVariable): void {
+    this.variables.push(v);
+    this.byName.set(v.name, v);
+  }
+
+  variable(name: string): DatasetVariable {
+    const v = this.byName.get(name);
+    if (!v) throw new RangeError(`the file has no variable "${name}" (it has ${this.variables.map((x) => `"${x.name}"`).join(', ') || 'none'})`);
+    return v;
+  }
+
+  has(name: string): boolean {
+    return this.byName.has(name);
+  }
+
+  recordCount(name: string): number {
+    const v = this.variable(name);
+    return v.shape.length ? v.shape[0] : 1;
+  }
+
+  recordLength(name: string): number {
+    return this.variable(name).shape.slice(1).reduce((a, b) => a * b, 1);
+  }
+}
+
 /** What a reader may allocate through (for the memory bound; see allocationMeter.ts). */
 export interface ReaderOptions {
   meter?: AllocationMeter;

@@ -2,7 +2,7 @@ import { Dataset, File, Group, type DataObjects } from 'jsfive';
 import type { AllocationMeter } from '../analysis/allocationMeter';
 import type { ByteSource } from './byteSource';
 import type { AttributeValue, DatasetDimension, DatasetReader, DatasetVariable, ReadOptions, ReaderOptions } from './datasetReader';
-import { isNumericType } from './datasetReader';
+import { isNumericType, NamedVariables } from './datasetReader';
 import { readChunkIndex } from './hdf5ChunkIndex';
 import { denseAttributes } from './hdf5DenseAttributes';
 import { elementReader, elementType, parseDataspace, parseLayout, superblockEnd, superblockSizes } from './hdf5Format';
@@ -32,13 +32,11 @@ export function openHdf5(source: ByteSource, options: ReaderOptions = {}): Datas
   return new Hdf5Dataset(view, options.meter);
 }
 
-class Hdf5Dataset implements DatasetReader {
+class Hdf5Dataset extends NamedVariables implements DatasetReader {
   readonly format = 'netcdf4' as const;
   readonly dimensions: DatasetDimension[] = [];
-  readonly variables: DatasetVariable[] = [];
   readonly attributes: Record<string, AttributeValue>;
   readonly notes: string[] = [];
-  private readonly byName = new Map<string, DatasetVariable>();
   private readonly objects = new Map<string, DataObjects>();
   private readonly plans = new Map<string, SlabPlan>();
 
@@ -46,6 +44,7 @@ class Hdf5Dataset implements DatasetReader {
     private readonly view: DataView,
     private readonly meter?: AllocationMeter,
   ) {
+    super();
     const warnings: string[] = [];
     const { file, entries, globals } = quietly(warnings, () => {
       let file: File;
@@ -84,29 +83,9 @@ class Hdf5Dataset implements DatasetReader {
     this.dimensions.push(...dimensions);
     this.notes.push(...notes);
     for (const { variable, obj } of variables) {
-      this.variables.push(variable);
-      this.byName.set(variable.name, variable);
+      this.addVariable(variable);
       this.objects.set(variable.name, obj);
     }
-  }
-
-  variable(name: string): DatasetVariable {
-    const v = this.byName.get(name);
-    if (!v) throw new RangeError(`the file has no variable "${name}" (it has ${this.variables.map((x) => `"${x.name}"`).join(', ') || 'none'})`);
-    return v;
-  }
-
-  has(name: string): boolean {
-    return this.byName.has(name);
-  }
-
-  recordCount(name: string): number {
-    const v = this.variable(name);
-    return v.shape.length ? v.shape[0] : 1;
-  }
-
-  recordLength(name: string): number {
-    return this.variable(name).shape.slice(1).reduce((a, b) => a * b, 1);
   }
 
   readRecord(name: string, index: number, options: ReadOptions = {}): Float64Array {

@@ -1,6 +1,7 @@
 import type { AllocationMeter } from '../analysis/allocationMeter';
 import type { ByteSource } from './byteSource';
 import type { DatasetReader, DatasetType, DatasetVariable, ReadOptions, ReaderOptions } from './datasetReader';
+import { NamedVariables } from './datasetReader';
 import { readNetcdf, type NetcdfFile } from './netcdfRead';
 import { NC_STREAMING, NC_TYPE_SIZE, type NcType } from './netcdf3Types';
 
@@ -39,25 +40,23 @@ function parseHeader(source: ByteSource): NetcdfFile {
   }
 }
 
-class Netcdf3Dataset implements DatasetReader {
+class Netcdf3Dataset extends NamedVariables implements DatasetReader {
   readonly format;
   readonly dimensions;
-  readonly variables: DatasetVariable[];
   readonly attributes;
   readonly notes: string[] = [];
   private scratch: Uint8Array;
-  private readonly byName = new Map<string, DatasetVariable>();
 
   constructor(
     private readonly source: ByteSource,
     private readonly nc: NetcdfFile,
     private readonly meter?: AllocationMeter,
   ) {
+    super();
     this.format = nc.format === 'cdf1' ? ('netcdf3-classic' as const) : ('netcdf3-64bit-offset' as const);
     this.dimensions = nc.dimensions.map((d) => ({ ...d }));
     this.attributes = nc.attributes;
-    this.variables = nc.variables.map((v) => ({ name: v.name, type: TYPES[v.type], dimensions: v.dimensions.slice(), shape: v.shape.slice(), attributes: v.attributes }));
-    for (const v of this.variables) this.byName.set(v.name, v);
+    for (const v of nc.variables) this.addVariable({ name: v.name, type: TYPES[v.type], dimensions: v.dimensions.slice(), shape: v.shape.slice(), attributes: v.attributes });
     this.scratch = new Uint8Array(0);
     // A truncated file is refused here, naming the first slab that does not fit.
     for (const v of nc.variables) {
@@ -69,25 +68,6 @@ class Netcdf3Dataset implements DatasetReader {
         throw new RangeError(`truncated NetCDF file: ${which} ends at byte ${offset + byteLength} but the file has ${source.byteLength} bytes`);
       }
     }
-  }
-
-  variable(name: string): DatasetVariable {
-    const v = this.byName.get(name);
-    if (!v) throw new RangeError(`the file has no variable "${name}" (it has ${this.variables.map((x) => `"${x.name}"`).join(', ') || 'none'})`);
-    return v;
-  }
-
-  has(name: string): boolean {
-    return this.byName.has(name);
-  }
-
-  recordCount(name: string): number {
-    const v = this.variable(name);
-    return v.shape.length ? v.shape[0] : 1;
-  }
-
-  recordLength(name: string): number {
-    return this.variable(name).shape.slice(1).reduce((a, b) => a * b, 1);
   }
 
   readRecord(name: string, index: number, options: ReadOptions = {}): Float64Array {

@@ -1,10 +1,8 @@
 import * as v from 'valibot';
 import { SUMMARY_KEYS, type RunSummary } from '../analysis/summary';
-import type { ModelParams } from '../model/params';
 import type { StopReason } from './monitoredRun';
 import { canonicalJson } from './runId';
-import type { RunPlan } from './runPlan';
-import type { SweepPoint } from './sweepRuns';
+import type { SweepJob } from './sweepRuns';
 
 /**
  * One finished sweep run: one line of `runs.jsonl` (JSON Lines, one object per line, appended as
@@ -16,16 +14,10 @@ import type { SweepPoint } from './sweepRuns';
 export const RECORD_FORMAT = 'stria-sweep-run';
 export const RECORD_VERSION = 1;
 
-export interface SweepRecord {
+/** The job that ran (id, position, point, replica, seed, parameters, plan) and what came of it. */
+export interface SweepRecord extends SweepJob {
   format: typeof RECORD_FORMAT;
   version: typeof RECORD_VERSION;
-  id: string;
-  index: number;
-  point: SweepPoint;
-  replica: number;
-  seed: number;
-  params: ModelParams;
-  plan: RunPlan;
   status: 'done' | 'blew-up';
   /** Why a finished run stopped (null for a blown-up run). */
   stopped: StopReason | null;
