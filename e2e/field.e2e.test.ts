@@ -133,8 +133,13 @@ describe('Field view in Chromium', () => {
 
   it('records the field as a WebM video', async () => {
     const { page } = app;
+    const canvas = page.getByTestId('field-canvas');
+    const framesBefore = Number(await canvas.getAttribute('data-frames'));
     await page.getByTestId('record').click();
     await waitForSteps(page, (await steps(page)) + 100);
+    // Steps alone do not make a video: wait until the canvas has been repainted (a captured frame
+    // each time) for a while, which a loaded machine can take longer to do than 100 steps.
+    await page.waitForFunction((n) => Number(document.querySelector('[data-testid="field-canvas"]')?.getAttribute('data-frames')) >= n, framesBefore + 40, { timeout: 60_000 });
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('record').click()]);
     expect(download.suggestedFilename()).toMatch(/\.webm$/);
     const bytes = await readFile(await download.path());
