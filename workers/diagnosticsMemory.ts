@@ -40,8 +40,9 @@ export function viewDiagnosticsBytes(p: Pick<ModelParams, 'nx' | 'ny' | 'Lx' | '
   const spectraOut = D * 7 * shells + D * blockSides + D * block;
   const ring = (n: number) => D * (n * average + average);
   const spectraMeans = 3 * ring(shells) + 2 * D * block;
-  // Flux: the nonlinear term's spectrum, eight shell arrays, two running means, the conversion series.
-  const flux = D * 2 * S + D * 8 * shells + 2 * ring(shells) + 2 * D * CONVERSION_SAMPLES;
+  // Flux: the nonlinear term (its spectrum and its pair of largest speeds), eight shell arrays, two
+  // running means, the conversion series.
+  const flux = D * (2 * S + 2) + D * 8 * shells + 2 * ring(shells) + 2 * D * CONVERSION_SAMPLES;
   const budgetRows = D * BUDGET_ROWS_MAX * BUDGET_ROW_WIDTH;
   return viewMean + frames + spectraPlan + spectraOut + spectraMeans + flux + budgetRows;
 }

@@ -5,17 +5,21 @@ import { cisTurnsPortable } from './portableTrig';
  * 2·(r·cols + c) (re) and +1 (im). Every column is transformed independently, unnormalised:
  *   X[k] = Σ_r x[r] e^{sign·2πi·r·k/n},  sign = −1 forward, +1 backward.
  *
- * Algorithm: Stockham autosort (no bit reversal), radix 4 with one radix-2 stage when log2 n is
- * odd. In each stage the butterflies combine whole runs of s·cols contiguous complex values that
- * share their twiddles, so the inner loop is long, contiguous and branch-free; groups whose
- * twiddles are all 1 skip the multiplications.
+ * Algorithm: Stockham autosort (no bit reversal), radix 4, with one radix-2 stage first when log2 n
+ * is odd, so the last stage is always the twiddle-free radix-4 one (len = 4). In each stage the
+ * butterflies combine whole runs of s·cols contiguous complex values that share their twiddles, so
+ * the inner loop is long, contiguous and branch-free; groups whose twiddles are all 1 skip the
+ * multiplications. The last stage reads and writes the same positions, so callers that need a pass
+ * over the result anyway (a transpose, pointwise products) can run `transformButLast` and do that
+ * stage themselves inside their own pass (fusedStages.ts), saving a sweep over the whole block.
  */
 export class BatchFFT {
   readonly n: number;
   readonly cols: number;
+  /** The ping-pong partner of the data in `transform`, unless the caller passes its own. */
+  readonly work: Float64Array;
   private readonly cosT: Float64Array;
   private readonly sinT: Float64Array;
-  private readonly work: Float64Array;
 
   constructor(n: number, cols: number) {
     if (!Number.isInteger(n) || n < 1 || (n & (n - 1)) !== 0) throw new RangeError(`BatchFFT: n = ${n} is not a power of two`);
@@ -33,26 +37,45 @@ export class BatchFFT {
     this.work = new Float64Array(2 * n * cols);
   }
 
+  /** Doubles per output block of the last stage (rows j·n/4 .. (j+1)·n/4 − 1): 2·(n/4)·cols. */
+  get lastRun(): number {
+    return 2 * (this.n >> 2) * this.cols;
+  }
+
   /**
-   * Transform `data` (length 2·n·cols). The result is left in `data` or in the plan's own work
-   * buffer; the array holding it is returned and stays valid until the next call.
+   * Transform `data` (length 2·n·cols), ping-ponging with `scratch` (which must not be `data`).
+   * The result is left in `data` or in `scratch`; the array holding it is returned.
    */
-  transform(data: Float64Array, sign: -1 | 1): Float64Array {
+  transform(data: Float64Array, sign: -1 | 1, scratch: Float64Array = this.work): Float64Array {
+    const out = this.transformButLast(data, sign, scratch);
+    if (this.n >= 4) lastStageInPlace(out, this.lastRun, sign);
+    return out;
+  }
+
+  /**
+   * Every stage but the last radix-4 one (for n ≥ 4; for n < 4 the whole transform). The caller
+   * finishes with `lastStageInPlace` or a fused equivalent on the returned array.
+   */
+  transformButLast(data: Float64Array, sign: -1 | 1, scratch: Float64Array = this.work): Float64Array {
+    if (scratch === data) throw new RangeError('BatchFFT: scratch must differ from the data');
     let src = data;
-    let dst = this.work;
+    let dst = scratch;
     let len = this.n;
     let s = 1;
-    while (len >= 4) {
+    if ((31 - Math.clz32(len)) % 2 === 1) {
+      this.radix2(src, dst, len, sign);
+      src = dst;
+      dst = src === data ? scratch : data;
+      len >>= 1;
+      s <<= 1;
+    }
+    while (len > 4) {
       this.radix4(src, dst, len, s, sign);
       const t = src;
       src = dst;
       dst = t;
       len >>= 2;
       s <<= 2;
-    }
-    if (len === 2) {
-      this.radix2(src, dst, s);
-      src = dst;
     }
     return src;
   }
@@ -134,14 +157,63 @@ export class BatchFFT {
     }
   }
 
-  /** The last stage when log2 n is odd: len = 2, all twiddles 1. */
-  private radix2(src: Float64Array, dst: Float64Array, s: number): void {
-    const run = 2 * s * this.cols;
-    for (let t = 0; t < run; t++) {
-      const a = src[t];
-      const b = src[run + t];
-      dst[t] = a + b;
-      dst[run + t] = a - b;
+  /**
+   * The first stage when log2 n is odd: radix 2 over the whole length (s = 1), X0 = a + b,
+   * X1 = (a − b)·w^p with w = e^{sign·2πi/n}.
+   */
+  private radix2(src: Float64Array, dst: Float64Array, len: number, sign: number): void {
+    const q = len >> 1;
+    const run = 2 * this.cols;
+    const cosT = this.cosT;
+    const sinT = this.sinT;
+    for (let p = 0; p < q; p++) {
+      const i0 = p * run;
+      const i1 = i0 + q * run;
+      const o0 = 2 * p * run;
+      const o1 = o0 + run;
+      const wr = cosT[p];
+      const wi = sign * sinT[p];
+      for (let t = 0; t < run; t += 2) {
+        const ar = src[i0 + t], ai = src[i0 + t + 1];
+        const br = src[i1 + t], bi = src[i1 + t + 1];
+        dst[o0 + t] = ar + br;
+        dst[o0 + t + 1] = ai + bi;
+        const xr = ar - br, xi = ai - bi;
+        dst[o1 + t] = xr * wr - xi * wi;
+        dst[o1 + t + 1] = xr * wi + xi * wr;
+      }
     }
+  }
+}
+
+/**
+ * The last radix-4 stage (len = 4, twiddle-free) in place on `data`: the four inputs of a butterfly
+ * sit at t, t + run, t + 2·run, t + 3·run and its outputs X0, X1, X2, X3 go back to the same four
+ * places (run = BatchFFT.lastRun). fusedStages.ts repeats this butterfly inside its passes.
+ */
+export function lastStageInPlace(data: Float64Array, run: number, sign: number): void {
+  const i1 = run;
+  const i2 = 2 * run;
+  const i3 = 3 * run;
+  // t1 + i·u is X1 for sign = +1 and X3 for sign = −1 (see radix4).
+  const oA = sign > 0 ? i1 : i3;
+  const oB = sign > 0 ? i3 : i1;
+  for (let t = 0; t < run; t += 2) {
+    const ar = data[t], ai = data[t + 1];
+    const br = data[i1 + t], bi = data[i1 + t + 1];
+    const cr = data[i2 + t], ci = data[i2 + t + 1];
+    const dr = data[i3 + t], di = data[i3 + t + 1];
+    const t0r = ar + cr, t0i = ai + ci;
+    const t1r = ar - cr, t1i = ai - ci;
+    const t2r = br + dr, t2i = bi + di;
+    const ur = br - dr, ui = bi - di;
+    data[t] = t0r + t2r;
+    data[t + 1] = t0i + t2i;
+    data[i2 + t] = t0r - t2r;
+    data[i2 + t + 1] = t0i - t2i;
+    data[oA + t] = t1r - ui;
+    data[oA + t + 1] = t1i + ur;
+    data[oB + t] = t1r + ui;
+    data[oB + t + 1] = t1i - ur;
   }
 }

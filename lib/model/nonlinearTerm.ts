@@ -1,3 +1,4 @@
+import { lastStageProducts, lastStageToTendency } from './fusedStages';
 import type { Grid } from './grid';
 import type { LinearOperator } from './linearOperator';
 import type { RealTransform2D } from './realTransform2D';
@@ -22,6 +23,7 @@ export class NonlinearTerm {
   /** Largest |u| and |v| on the grid in the last evaluation. */
   maxU = 0;
   maxV = 0;
+  private readonly speeds = new Float64Array(2);
 
   constructor(grid: Grid, lin: LinearOperator, xf: RealTransform2D) {
     if (!xf.pruned) throw new RangeError('NonlinearTerm needs the pruned transform');
@@ -64,38 +66,14 @@ export class NonlinearTerm {
         block[dst + bOff + 2 * ix + 1] = kx[ix] * pr;
       }
     }
-    xf.inverseBlockToWork();
-    // Products in place on the work grid, (u, v) → (uv, v² − u²), and the largest speeds.
-    const W = xf.work;
-    let mu = 0;
-    let mv = 0;
-    for (let i = 0; i < 2 * size; i += 2) {
-      const u = W[i];
-      const v = W[i + 1];
-      W[i] = u * v;
-      W[i + 1] = v * v - u * u;
-      // Math.max/abs compile to branch-free instructions; a compare-and-branch here costs ~6% of a step.
-      mu = Math.max(mu, Math.abs(u));
-      mv = Math.max(mv, Math.abs(v));
-    }
-    this.maxU = mu;
-    this.maxV = mv;
-    const R = xf.forwardWorkToBlock();
-    const scale = 1 / size;
-    for (let r = 0; r < keptRows.length; r++) {
-      const jy = keptRows[r];
-      const kyv = ky[jy];
-      const src = 2 * jy * cols;
-      const dst = jy * nkx;
-      for (let ix = 0; ix <= Kx; ix++) {
-        const kxv = kx[ix];
-        const a = (kxv * kxv - kyv * kyv) * scale;
-        const b = kxv * kyv * scale;
-        const t = 2 * (dst + ix);
-        out[t] = a * R[src + 2 * ix] + b * R[src + bOff + 2 * ix];
-        out[t + 1] = a * R[src + 2 * ix + 1] + b * R[src + bOff + 2 * ix + 1];
-      }
-    }
+    // The x transform's last stage forms the products (u, v) → (uv, v² − u²) and the largest speeds.
+    const W = xf.inverseBlockToWorkButLast();
+    lastStageProducts(W, xf.xLastRun, this.speeds);
+    this.maxU = this.speeds[0];
+    this.maxV = this.speeds[1];
+    // The y transform's last stage forms −Ĵ = (kx² − ky²)·(uv)^ + kx·ky·(v² − u²)^ on the kept modes.
+    const yFFT = xf.yTransform;
+    lastStageToTendency(yFFT.transformButLast(xf.forwardToBlockButY(W), -1), out, this.grid, 1 / size);
     out[0] = out[1] = 0;
     // Exact Hermitian symmetry of the kx = 0 column (round-off differs between ±ky otherwise).
     for (let jy = 1; jy <= this.grid.Ky; jy++) {

@@ -1,4 +1,5 @@
-import { BatchFFT } from './batchFFT';
+import { BatchFFT, lastStageInPlace } from './batchFFT';
+import { lastStageToBlock, lastStageToWorkGrid } from './fusedStages';
 import type { Grid } from './grid';
 
 /**
@@ -53,83 +54,68 @@ export class RealTransform2D {
 
   /**
    * Inverse of the block: on entry `block` holds the two half-plane spectra on the rows that carry
-   * data (other rows are cleared here; the mean is dropped when pruned). On return `work` holds
-   * a + i·b on the x-major grid. The block is overwritten.
+   * data (other rows are cleared here; the mean is dropped when pruned). On return the array given
+   * back (`work` or the x transform's scratch) holds a + i·b on the x-major grid. The block is
+   * overwritten.
    */
-  inverseBlockToWork(): void {
+  inverseBlockToWork(): Float64Array {
+    const out = this.inverseBlockToWorkButLast();
+    lastStageInPlace(out, this.xFFT.lastRun, 1);
+    return out;
+  }
+
+  /**
+   * As `inverseBlockToWork`, but the x transform's last stage is left to the caller (`lastStageInPlace`
+   * or a fused equivalent with `xLastRun`) on the returned array.
+   */
+  inverseBlockToWorkButLast(): Float64Array {
     const { nx, ny } = this.grid;
     const top = this.top;
     const cols = 2 * (top + 1);
     const block = this.block;
     for (let y = 0; y < ny; y++) if (!this.rowIsData[y]) block.fill(0, 2 * y * cols, 2 * (y + 1) * cols);
     if (this.pruned) block[0] = block[1] = block[cols] = block[cols + 1] = 0;
-    const R = this.yFFT.transform(block, 1);
-    // Expand to the full kx line, Z = A + iB with Z(−kx) = conj(A) + i·conj(B), transposed x-major.
-    const W = this.work;
-    const bOff = top + 1;
-    const nyq = nx / 2;
-    const TILE = 16;
-    for (let y0 = 0; y0 < ny; y0 += TILE) {
-      const y1 = Math.min(ny, y0 + TILE);
-      for (let kx = 0; kx <= top; kx++) {
-        const up = 2 * kx * ny;
-        const down = 2 * (nx - kx) * ny;
-        for (let y = y0; y < y1; y++) {
-          const s = 2 * (y * cols + kx);
-          const sb = 2 * (y * cols + bOff + kx);
-          const ar = R[s], ai = R[s + 1], br = R[sb], bi = R[sb + 1];
-          W[up + 2 * y] = ar - bi;
-          W[up + 2 * y + 1] = ai + br;
-          if (kx > 0 && kx < nyq) {
-            W[down + 2 * y] = ar + bi;
-            W[down + 2 * y + 1] = br - ai;
-          }
-        }
-      }
-    }
-    if (top + 1 <= nx - top - 1) W.fill(0, 2 * (top + 1) * ny, 2 * (nx - top) * ny);
-    const out = this.xFFT.transform(W, 1);
-    if (out !== W) W.set(out);
+    // The y transform's last stage writes Z = A + iB, and Z(−kx), straight onto the x-major grid.
+    lastStageToWorkGrid(this.yFFT.transformButLast(block, 1), this.work, nx, ny, top);
+    return this.xFFT.transformButLast(this.work, 1, this.xFFT.work);
+  }
+
+  /** Doubles per output block of the x transform's last stage (see BatchFFT.lastRun). */
+  get xLastRun(): number {
+    return this.xFFT.lastRun;
   }
 
   /**
-   * Forward of the work grid: on entry `work` holds a + i·b (x-major); on return `block` holds the
-   * unnormalised half-line spectra of a and b, y-transformed (row y = ky index, columns as above).
-   * The work grid is overwritten. Returns the array holding the block (this.block or scratch).
+   * Forward of a work grid: on entry `grid` (`work`, or the array `inverseBlockToWork` returned)
+   * holds a + i·b (x-major); on return the block holds the unnormalised half-line spectra of a and b,
+   * y-transformed (row y = ky index, columns as above), in the array returned (this.block or the y
+   * transform's scratch). Both work grids are overwritten.
    */
-  forwardWorkToBlock(): Float64Array {
+  forwardWorkToBlock(grid: Float64Array = this.work): Float64Array {
+    return this.yFFT.transform(this.forwardToBlockButY(grid), -1);
+  }
+
+  /**
+   * As `forwardWorkToBlock` without the y transform: the block as it enters it (this.block), for a
+   * caller that runs the y transform itself and fuses its last stage.
+   */
+  forwardToBlockButY(grid: Float64Array = this.work): Float64Array {
     const { nx, ny } = this.grid;
-    const top = this.top;
-    const cols = 2 * (top + 1);
-    const bOff = top + 1;
-    const Y = this.xFFT.transform(this.work, -1);
-    const block = this.block;
-    const TILE = 16;
-    for (let y0 = 0; y0 < ny; y0 += TILE) {
-      const y1 = Math.min(ny, y0 + TILE);
-      for (let k = 0; k <= top; k++) {
-        const up = 2 * k * ny;
-        const down = 2 * (k === 0 ? 0 : nx - k) * ny;
-        for (let y = y0; y < y1; y++) {
-          const yr = Y[up + 2 * y], yi = Y[up + 2 * y + 1];
-          const zr = Y[down + 2 * y], zi = Y[down + 2 * y + 1];
-          const d = 2 * (y * cols + k);
-          const db = 2 * (y * cols + bOff + k);
-          block[d] = 0.5 * (yr + zr);
-          block[d + 1] = 0.5 * (yi - zi);
-          block[db] = 0.5 * (yi + zi);
-          block[db + 1] = -0.5 * (yr - zr);
-        }
-      }
-    }
-    return this.yFFT.transform(block, -1);
+    const scratch = grid === this.work ? this.xFFT.work : this.work;
+    // The x transform's last stage writes the half-line spectra of a and b straight into the block.
+    lastStageToBlock(this.xFFT.transformButLast(grid, -1, scratch), this.block, nx, ny, this.top);
+    return this.block;
+  }
+
+  /** The y transform, for callers of `forwardToBlockButY`. */
+  get yTransform(): BatchFFT {
+    return this.yFFT;
   }
 
   /** Grid fields a, b (row-major, grid.ts) from half-plane spectra aHat, bHat. */
   inversePair(aHat: Float64Array, bHat: Float64Array, a: Float64Array, b: Float64Array): void {
     this.packSpectra(aHat, bHat);
-    this.inverseBlockToWork();
-    this.unpackWork(a, b);
+    this.unpackWork(this.inverseBlockToWork(), a, b);
   }
 
   /** Half-plane spectra aHat, bHat of grid fields a, b (row-major), divided by nx·ny. */
@@ -141,8 +127,7 @@ export class RealTransform2D {
   /** Grid field from one spectrum (the partner slot carries zeros). */
   inverse(aHat: Float64Array, a: Float64Array): void {
     this.packSpectra(aHat, null);
-    this.inverseBlockToWork();
-    this.unpackWork(a, null);
+    this.unpackWork(this.inverseBlockToWork(), a, null);
   }
 
   /** Spectrum of one grid field. */
@@ -203,10 +188,9 @@ export class RealTransform2D {
     }
   }
 
-  /** The x-major complex work grid back to row-major real fields (b null: drop the imaginary part). */
-  private unpackWork(a: Float64Array, b: Float64Array | null): void {
+  /** An x-major complex work grid back to row-major real fields (b null: drop the imaginary part). */
+  private unpackWork(W: Float64Array, a: Float64Array, b: Float64Array | null): void {
     const { nx, ny } = this.grid;
-    const W = this.work;
     for (let x = 0; x < nx; x++) {
       const base = 2 * x * ny;
       for (let y = 0; y < ny; y++) {

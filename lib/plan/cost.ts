@@ -17,6 +17,7 @@ import measured from './measuredStep.json';
  *                   row mask (Uint8)                                           ny bytes
  *     y FFT         twiddles, scratch                                          2·ny + 2·ny·C
  *     x FFT         twiddles, scratch                                          2·nx + 2·nx·ny
+ *   NonlinearTerm   the largest speeds |u|, |v|                                2
  *   Forcing         steady pattern, annulus lists (Int32 × 2), a draw pair     2S + 2M int32 + 2
  *   Model           a spectrum buffer for fields                               2S
  *   Stepper         the kick pair                                              2
@@ -71,6 +72,7 @@ export function modelMemory(nx: number, ny: number, forcedModes: number): Memory
     ['RealTransform2D', 'row mask', ny, 1],
     ['BatchFFT (y)', 'twiddles and scratch', 2 * ny + 2 * ny * C, 8],
     ['BatchFFT (x)', 'twiddles and scratch', 2 * nx + 2 * nx * ny, 8],
+    ['NonlinearTerm', 'largest speeds |u|, |v|', 2, 8],
     ['Forcing', 'steady pattern and draw pair', 2 * S + 2, 8],
     ['Forcing', 'annulus modes and mirrors', 2 * forcedModes, 4],
     ['Model', 'field spectrum buffer', 2 * S, 8],

@@ -45,7 +45,9 @@ describe('analysis of a user\'s records', () => {
     expect(a.jets!.count).toBe(4);
     expect(a.jets!.jets.map((j) => j.y)).toEqual(jets.jets.map((j) => j.y));
     const st = new StaircaseFitter(ny, Ly, beta).fit(mean('qtot'));
-    expect(a.staircase!.edges).toEqual(st.edges);
+    // The two routes form q̄ with different round-off (1e-13 above), so the edges agree to round-off.
+    expect(a.staircase!.edges.length).toBe(st.edges.length);
+    expect(maxAbsDiff(Float64Array.from(a.staircase!.edges), Float64Array.from(st.edges))).toBeLessThan(1e-12);
     expect(Math.abs(a.staircase!.index - st.index)).toBeLessThan(1e-14);
     let s2 = 0;
     for (const f of recs) for (let k = 0; k < nx * ny; k++) s2 += f.u[k] ** 2 + f.v[k] ** 2;

@@ -1,6 +1,6 @@
 import FFT from 'fft.js';
 import { describe, expect, it } from 'vitest';
-import { BatchFFT } from '../../lib/model/batchFFT';
+import { BatchFFT, lastStageInPlace } from '../../lib/model/batchFFT';
 import { naiveDFT1 } from '../support/naiveDFT';
 import { maxAbs, maxAbsDiff, randomArray } from '../support/random';
 
@@ -62,13 +62,28 @@ describe('BatchFFT contract', () => {
     expect(maxAbsDiff(work, data)).toBeLessThan(1e-14);
   });
 
-  it('returns the array holding the result, the input itself when the stage count is even', () => {
-    const even = new BatchFFT(16, 2); // two radix-4 stages
-    const a = randomArray(64, 1);
-    expect(even.transform(a, -1)).toBe(a);
-    const odd = new BatchFFT(32, 2); // two radix-4 stages and one radix-2
-    const b = randomArray(128, 2);
-    expect(odd.transform(b, -1)).not.toBe(b);
+  it('leaves the result in the data or the scratch passed, and returns the one holding it', () => {
+    for (const n of [16, 32]) {
+      const plan = new BatchFFT(n, 2);
+      const a = randomArray(4 * n, n);
+      const scratch = new Float64Array(4 * n);
+      const ref = plan.transform(a.slice(), -1).slice();
+      const out = plan.transform(a, -1, scratch);
+      expect(out === a || out === scratch).toBe(true);
+      expect(maxAbsDiff(out, ref)).toBe(0);
+      expect(() => plan.transform(a, -1, a)).toThrow(/scratch/);
+    }
+  });
+
+  it('transformButLast then lastStageInPlace is the whole transform, bit for bit', () => {
+    for (const n of [4, 8, 64, 128]) {
+      const plan = new BatchFFT(n, 3);
+      const a = randomArray(6 * n, 3 * n);
+      const whole = plan.transform(a.slice(), 1).slice();
+      const mid = plan.transformButLast(a, 1);
+      lastStageInPlace(mid, plan.lastRun, 1);
+      expect(maxAbsDiff(mid, whole)).toBe(0);
+    }
   });
 
   it('refuses a length that is not a power of two', () => {
