@@ -18,8 +18,9 @@ export class BatchFFT {
   readonly cols: number;
   /** The ping-pong partner of the data in `transform`, unless the caller passes its own. */
   readonly work: Float64Array;
-  private readonly cosT: Float64Array;
-  private readonly sinT: Float64Array;
+  /** cos and sin of 2π·m/n, m = 0..n−1 (read by fused first stages; never written after construction). */
+  readonly cosT: Float64Array;
+  readonly sinT: Float64Array;
 
   constructor(n: number, cols: number) {
     if (!Number.isInteger(n) || n < 1 || (n & (n - 1)) !== 0) throw new RangeError(`BatchFFT: n = ${n} is not a power of two`);
@@ -57,23 +58,49 @@ export class BatchFFT {
    * finishes with `lastStageInPlace` or a fused equivalent on the returned array.
    */
   transformButLast(data: Float64Array, sign: -1 | 1, scratch: Float64Array = this.work): Float64Array {
+    return this.stagesButLast(data, sign, scratch, false);
+  }
+
+  /**
+   * The stages between the first and the last, for a caller that did the first stage itself (radix
+   * `firstRadix` over the whole length, twiddles `cosT`, `sinT`) inside a pass of its own, into
+   * `data`. Needs n ≥ 8, so that the first stage is not also the last.
+   */
+  transformButFirstAndLast(data: Float64Array, sign: -1 | 1, scratch: Float64Array = this.work): Float64Array {
+    if (this.n < 8) throw new RangeError('BatchFFT: below n = 8 the first stage is also the last');
+    return this.stagesButLast(data, sign, scratch, true);
+  }
+
+  /** Radix of the first stage: 2 when log2 n is odd, else 4. */
+  get firstRadix(): 2 | 4 {
+    return (31 - Math.clz32(this.n)) % 2 === 1 ? 2 : 4;
+  }
+
+  private stagesButLast(data: Float64Array, sign: -1 | 1, scratch: Float64Array, skipFirst: boolean): Float64Array {
     if (scratch === data) throw new RangeError('BatchFFT: scratch must differ from the data');
     let src = data;
     let dst = scratch;
     let len = this.n;
     let s = 1;
-    if ((31 - Math.clz32(len)) % 2 === 1) {
-      this.radix2(src, dst, len, sign);
-      src = dst;
-      dst = src === data ? scratch : data;
+    let skip = skipFirst;
+    if (this.firstRadix === 2 && len > 1) {
+      if (!skip) {
+        this.radix2(src, dst, len, sign);
+        src = dst;
+        dst = src === data ? scratch : data;
+      }
+      skip = false;
       len >>= 1;
       s <<= 1;
     }
     while (len > 4) {
-      this.radix4(src, dst, len, s, sign);
-      const t = src;
-      src = dst;
-      dst = t;
+      if (!skip) {
+        this.radix4(src, dst, len, s, sign);
+        const t = src;
+        src = dst;
+        dst = t;
+      }
+      skip = false;
       len >>= 2;
       s <<= 2;
     }

@@ -264,3 +264,160 @@ function tend(out: Float64Array, at: number, kxv: number, kyv: number, scale: nu
   out[at] = a * pr + b * qr;
   out[at + 1] = a * pi + b * qi;
 }
+
+/**
+ * The velocities of the nonlinear term formed inside the first stage of the backward y transform:
+ * ψ̂ = −q̂/K², û = −i·ky·ψ̂ (columns 0..Kx of the block), v̂ = i·kx·ψ̂ (columns Kx+1..2Kx+1), read
+ * from q̂ on the kept rows (zero elsewhere, and at the mean) and combined at once by the stage's
+ * butterflies, radix 4 over rows p + j·ny/4 or, when log2 ny is odd, radix 2 over p and p + ny/2,
+ * with the twiddles of BatchFFT (cos, sin of 2π·m/ny), backward sign. Every entry of `dst` (block
+ * layout) is written. Same operations as packing the block and running the stage.
+ */
+export function velocitiesFirstStageY(
+  qHat: Float64Array,
+  invK2: Float64Array,
+  grid: { ny: number; nkx: number; Kx: number; Ky: number; kx: Float64Array; ky: Float64Array },
+  firstRadix: 2 | 4,
+  cosT: Float64Array,
+  sinT: Float64Array,
+  dst: Float64Array,
+): void {
+  const { ny, nkx, Kx, Ky, kx, ky } = grid;
+  const cols = 2 * (Kx + 1);
+  const row = 2 * cols; // doubles per block row
+  const bOff = 2 * (Kx + 1);
+  const radix = firstRadix;
+  const q = ny / radix; // rows between the inputs of a butterfly
+  for (let p = 0; p < q; p++) {
+    // Input rows y_j = p + j·q (j < radix), whether each is kept, and its ky.
+    const y0 = p, y1 = p + q, y2 = p + 2 * q, y3 = p + 3 * q;
+    const keep0 = y0 <= Ky || y0 >= ny - Ky;
+    const keep1 = y1 <= Ky || y1 >= ny - Ky;
+    const keep2 = radix === 4 && (y2 <= Ky || y2 >= ny - Ky);
+    const keep3 = radix === 4 && (y3 <= Ky || y3 >= ny - Ky);
+    const ky0 = ky[y0], ky1 = ky[y1], ky2 = radix === 4 ? ky[y2] : 0, ky3 = radix === 4 ? ky[y3] : 0;
+    const m0 = y0 * nkx, m1 = y1 * nkx, m2 = y2 * nkx, m3 = y3 * nkx;
+    // Twiddles, backward sign: radix 4 X1, X2, X3 by w^p, w^2p, w^3p (none at p = 0, as BatchFFT);
+    // radix 2 X1 by w^p (always multiplied, as BatchFFT).
+    const c1 = cosT[p], s1 = sinT[p];
+    const c2 = radix === 4 ? cosT[2 * p] : 1, s2 = radix === 4 ? sinT[2 * p] : 0;
+    const c3 = radix === 4 ? cosT[3 * p] : 1, s3 = radix === 4 ? sinT[3 * p] : 0;
+    const twiddled = radix === 2 || p > 0;
+    const o0 = radix * p * row; // output rows radix·p + j
+    for (let ix = 0; ix <= Kx; ix++) {
+      const kxv = kx[ix];
+      // û_j, v̂_j of input row j (zero when the row is not kept or at the mean).
+      let a0r = 0, a0i = 0, b0r = 0, b0i = 0;
+      if (keep0 && (ix > 0 || y0 > 0)) {
+        const m = m0 + ix;
+        const pr = -qHat[2 * m] * invK2[m];
+        const pi = -qHat[2 * m + 1] * invK2[m];
+        a0r = ky0 * pi;
+        a0i = -ky0 * pr;
+        b0r = -kxv * pi;
+        b0i = kxv * pr;
+      }
+      let a1r = 0, a1i = 0, b1r = 0, b1i = 0;
+      if (keep1) {
+        const m = m1 + ix;
+        const pr = -qHat[2 * m] * invK2[m];
+        const pi = -qHat[2 * m + 1] * invK2[m];
+        a1r = ky1 * pi;
+        a1i = -ky1 * pr;
+        b1r = -kxv * pi;
+        b1i = kxv * pr;
+      }
+      const t = o0 + 2 * ix;
+      if (radix === 2) {
+        // X0 = a + b, X1 = (a − b)·w^p into rows 2p, 2p + 1.
+        dst[t] = a0r + a1r;
+        dst[t + 1] = a0i + a1i;
+        dst[t + bOff] = b0r + b1r;
+        dst[t + bOff + 1] = b0i + b1i;
+        const xr = a0r - a1r, xi = a0i - a1i;
+        dst[t + row] = xr * c1 - xi * s1;
+        dst[t + row + 1] = xr * s1 + xi * c1;
+        const zr = b0r - b1r, zi = b0i - b1i;
+        dst[t + row + bOff] = zr * c1 - zi * s1;
+        dst[t + row + bOff + 1] = zr * s1 + zi * c1;
+        continue;
+      }
+      let a2r = 0, a2i = 0, b2r = 0, b2i = 0;
+      if (keep2) {
+        const m = m2 + ix;
+        const pr = -qHat[2 * m] * invK2[m];
+        const pi = -qHat[2 * m + 1] * invK2[m];
+        a2r = ky2 * pi;
+        a2i = -ky2 * pr;
+        b2r = -kxv * pi;
+        b2i = kxv * pr;
+      }
+      let a3r = 0, a3i = 0, b3r = 0, b3i = 0;
+      if (keep3) {
+        const m = m3 + ix;
+        const pr = -qHat[2 * m] * invK2[m];
+        const pi = -qHat[2 * m + 1] * invK2[m];
+        a3r = ky3 * pi;
+        a3i = -ky3 * pr;
+        b3r = -kxv * pi;
+        b3i = kxv * pr;
+      }
+      // Radix 4 over rows (0, 1, 2, 3) as (a, b, c, d), backward: X1 = t1 + i·u, X3 = t1 − i·u.
+      {
+        const o = t;
+        const t0r = a0r + a2r, t0i = a0i + a2i;
+        const t1r = a0r - a2r, t1i = a0i - a2i;
+        const t2r = a1r + a3r, t2i = a1i + a3i;
+        const ur = a1r - a3r, ui = a1i - a3i;
+        dst[o] = t0r + t2r;
+        dst[o + 1] = t0i + t2i;
+        const x2r = t0r - t2r, x2i = t0i - t2i;
+        const x1r = t1r - ui, x1i = t1i + ur;
+        const x3r = t1r + ui, x3i = t1i - ur;
+        if (twiddled) {
+          dst[o + row] = x1r * c1 - x1i * s1;
+          dst[o + row + 1] = x1r * s1 + x1i * c1;
+          dst[o + 2 * row] = x2r * c2 - x2i * s2;
+          dst[o + 2 * row + 1] = x2r * s2 + x2i * c2;
+          dst[o + 3 * row] = x3r * c3 - x3i * s3;
+          dst[o + 3 * row + 1] = x3r * s3 + x3i * c3;
+        } else {
+          dst[o + row] = x1r;
+          dst[o + row + 1] = x1i;
+          dst[o + 2 * row] = x2r;
+          dst[o + 2 * row + 1] = x2i;
+          dst[o + 3 * row] = x3r;
+          dst[o + 3 * row + 1] = x3i;
+        }
+      }
+      {
+        const o = t + bOff;
+        const t0r = b0r + b2r, t0i = b0i + b2i;
+        const t1r = b0r - b2r, t1i = b0i - b2i;
+        const t2r = b1r + b3r, t2i = b1i + b3i;
+        const ur = b1r - b3r, ui = b1i - b3i;
+        dst[o] = t0r + t2r;
+        dst[o + 1] = t0i + t2i;
+        const x2r = t0r - t2r, x2i = t0i - t2i;
+        const x1r = t1r - ui, x1i = t1i + ur;
+        const x3r = t1r + ui, x3i = t1i - ur;
+        if (twiddled) {
+          dst[o + row] = x1r * c1 - x1i * s1;
+          dst[o + row + 1] = x1r * s1 + x1i * c1;
+          dst[o + 2 * row] = x2r * c2 - x2i * s2;
+          dst[o + 2 * row + 1] = x2r * s2 + x2i * c2;
+          dst[o + 3 * row] = x3r * c3 - x3i * s3;
+          dst[o + 3 * row + 1] = x3r * s3 + x3i * c3;
+        } else {
+          dst[o + row] = x1r;
+          dst[o + row + 1] = x1i;
+          dst[o + 2 * row] = x2r;
+          dst[o + 2 * row + 1] = x2i;
+          dst[o + 3 * row] = x3r;
+          dst[o + 3 * row + 1] = x3i;
+        }
+      }
+    }
+  }
+}
+

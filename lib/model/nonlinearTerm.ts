@@ -1,4 +1,4 @@
-import { lastStageProducts, lastStageToTendency } from './fusedStages';
+import { lastStageProducts, lastStageToTendency, velocitiesFirstStageY } from './fusedStages';
 import type { Grid } from './grid';
 import type { LinearOperator } from './linearOperator';
 import type { RealTransform2D } from './realTransform2D';
@@ -27,6 +27,7 @@ export class NonlinearTerm {
 
   constructor(grid: Grid, lin: LinearOperator, xf: RealTransform2D) {
     if (!xf.pruned) throw new RangeError('NonlinearTerm needs the pruned transform');
+    if (grid.nx < 8 || grid.ny < 8) throw new RangeError('NonlinearTerm needs at least 8 × 8 points');
     this.grid = grid;
     this.lin = lin;
     this.xf = xf;
@@ -44,35 +45,17 @@ export class NonlinearTerm {
    * pass over the whole spectrum per stage.
    */
   evaluateKept(qHat: Float64Array, out: Float64Array): void {
-    const { nkx, ny, Kx, kx, ky, keptRows, size } = this.grid;
-    const invK2 = this.lin.invK2;
+    const { nkx, ny, size } = this.grid;
     const xf = this.xf;
-    const cols = 2 * (Kx + 1);
-    const bOff = 2 * (Kx + 1);
-    // Velocities into the block: ψ̂ = −q̂/K², û = −i ky ψ̂ (columns of a), v̂ = i kx ψ̂ (of b).
-    const block = xf.block;
-    for (let r = 0; r < keptRows.length; r++) {
-      const jy = keptRows[r];
-      const kyv = ky[jy];
-      const src = jy * nkx;
-      const dst = 2 * jy * cols;
-      for (let ix = 0; ix <= Kx; ix++) {
-        const m = src + ix;
-        const pr = -qHat[2 * m] * invK2[m];
-        const pi = -qHat[2 * m + 1] * invK2[m];
-        block[dst + 2 * ix] = kyv * pi;
-        block[dst + 2 * ix + 1] = -kyv * pr;
-        block[dst + bOff + 2 * ix] = -kx[ix] * pi;
-        block[dst + bOff + 2 * ix + 1] = kx[ix] * pr;
-      }
-    }
+    // The velocities ψ̂ = −q̂/K², û = −i ky ψ̂, v̂ = i kx ψ̂ go straight into the y transform's first stage.
+    const yFFT = xf.yTransform;
+    velocitiesFirstStageY(qHat, this.lin.invK2, this.grid, yFFT.firstRadix, yFFT.cosT, yFFT.sinT, xf.block);
     // The x transform's last stage forms the products (u, v) → (uv, v² − u²) and the largest speeds.
-    const W = xf.inverseBlockToWorkButLast();
+    const W = xf.inverseFirstStageDoneButLast();
     lastStageProducts(W, xf.xLastRun, this.speeds);
     this.maxU = this.speeds[0];
     this.maxV = this.speeds[1];
     // The y transform's last stage forms −Ĵ = (kx² − ky²)·(uv)^ + kx·ky·(v² − u²)^ on the kept modes.
-    const yFFT = xf.yTransform;
     lastStageToTendency(yFFT.transformButLast(xf.forwardToBlockButY(W), -1), out, this.grid, 1 / size);
     out[0] = out[1] = 0;
     // Exact Hermitian symmetry of the kx = 0 column (round-off differs between ±ky otherwise).

@@ -69,14 +69,27 @@ export class RealTransform2D {
    * or a fused equivalent with `xLastRun`) on the returned array.
    */
   inverseBlockToWorkButLast(): Float64Array {
-    const { nx, ny } = this.grid;
+    const ny = this.grid.ny;
     const top = this.top;
     const cols = 2 * (top + 1);
     const block = this.block;
     for (let y = 0; y < ny; y++) if (!this.rowIsData[y]) block.fill(0, 2 * y * cols, 2 * (y + 1) * cols);
     if (this.pruned) block[0] = block[1] = block[cols] = block[cols + 1] = 0;
+    return this.finishInverseButLast(this.yFFT.transformButLast(block, 1));
+  }
+
+  /**
+   * As `inverseBlockToWorkButLast` for a caller that has written the y transform's first stage into
+   * the block itself (every entry; see fusedStages.ts, velocitiesFirstStageY).
+   */
+  inverseFirstStageDoneButLast(): Float64Array {
+    return this.finishInverseButLast(this.yFFT.transformButFirstAndLast(this.block, 1));
+  }
+
+  private finishInverseButLast(ySpectra: Float64Array): Float64Array {
+    const { nx, ny } = this.grid;
     // The y transform's last stage writes Z = A + iB, and Z(−kx), straight onto the x-major grid.
-    lastStageToWorkGrid(this.yFFT.transformButLast(block, 1), this.work, nx, ny, top);
+    lastStageToWorkGrid(ySpectra, this.work, nx, ny, this.top);
     return this.xFFT.transformButLast(this.work, 1, this.xFFT.work);
   }
 

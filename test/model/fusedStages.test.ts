@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { lastStageInPlace } from '../../lib/model/batchFFT';
-import { lastStageProducts, lastStageToBlock, lastStageToTendency, lastStageToWorkGrid } from '../../lib/model/fusedStages';
+import { BatchFFT, lastStageInPlace } from '../../lib/model/batchFFT';
+import { lastStageProducts, lastStageToBlock, lastStageToTendency, lastStageToWorkGrid, velocitiesFirstStageY } from '../../lib/model/fusedStages';
 import { Grid } from '../../lib/model/grid';
 import { randomArray } from '../support/random';
 
@@ -108,4 +108,36 @@ describe('fused last stages equal the last stage followed by the pass, bit for b
     }
     expect(Array.from(out)).toEqual(Array.from(ref));
   });
+
+  for (const [nx, ny] of [[32, 32], [16, 64], [32, 128], [8, 8]]) {
+    it(`velocities into the first backward y stage at ${nx}×${ny}: the block as packed, then the whole y transform`, () => {
+      const grid = new Grid({ nx, ny, Lx: 2 * Math.PI, Ly: 3 });
+      const { nkx, Kx, kx, ky } = grid;
+      const cols = 2 * (Kx + 1);
+      const qHat = randomArray(2 * grid.spectralSize, nx + 3 * ny); // every entry, kept or not
+      const invK2 = randomArray(grid.spectralSize, 11);
+      // Unfused: û = −i ky ψ̂, v̂ = i kx ψ̂ with ψ̂ = −q̂/K² packed on the kept rows, zero elsewhere and at the mean.
+      const block = new Float64Array(2 * ny * cols);
+      for (const jy of grid.keptRows) {
+        for (let ix = 0; ix <= Kx; ix++) {
+          if (jy === 0 && ix === 0) continue;
+          const m = jy * nkx + ix;
+          const pr = -qHat[2 * m] * invK2[m];
+          const pi = -qHat[2 * m + 1] * invK2[m];
+          const d = 2 * (jy * cols + ix);
+          block[d] = ky[jy] * pi;
+          block[d + 1] = -ky[jy] * pr;
+          block[d + cols] = -kx[ix] * pi;
+          block[d + cols + 1] = kx[ix] * pr;
+        }
+      }
+      const fft = new BatchFFT(ny, cols);
+      const ref = fft.transform(block, 1).slice();
+      const fused = new Float64Array(2 * ny * cols).fill(5); // stale values must all be overwritten
+      velocitiesFirstStageY(qHat, invK2, grid, fft.firstRadix, fft.cosT, fft.sinT, fused);
+      const out = fft.transformButFirstAndLast(fused, 1, new Float64Array(2 * ny * cols));
+      lastStageInPlace(out, fft.lastRun, 1);
+      expect(Array.from(out)).toEqual(Array.from(ref));
+    });
+  }
 });
