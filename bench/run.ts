@@ -5,6 +5,8 @@
  *   --json             one JSON object per line instead of a table
  *   --sizes a,b,c      other sizes
  *   --no-reference     skip the reference run
+ *   --rounds R         alternate Stria and the reference R times (default 3, 1 with --scaling), quote the median
+ *                      of the paired ratios: a shared machine drifts between the two measurements
  *   --scaling          sizes 64..1024 and the fitted exponent of the cost against N² log N
  *   --time-to-jets     the default scenario at 256² from rest until jets show: wall and model time,
  *                      and the scheme's error at that step against half and quarter steps
@@ -13,6 +15,7 @@
 import { referenceUnavailable, runReference, type ReferenceTiming } from './reference';
 import { timeStep, type StepTiming } from './stepBench';
 import { fitScaling } from './scaling';
+import { median } from './timing';
 import { MIN_JETS, MIN_STAIRCASE, timeToJets } from './timeToJets';
 import { timeFieldDraw } from './drawBench';
 
@@ -53,12 +56,43 @@ if (has('--draw')) {
   process.exit(0);
 }
 
-const timings: StepTiming[] = [];
-if (!json) console.log(`Stria step benchmark (scheme ifrk4, Node ${process.version}); median of timed batches`);
-for (const n of sizes) {
-  const t = timeStep(n);
-  timings.push(t);
-  emit({ ...t }, `  n = ${String(n).padStart(4)}   ${t.ms_per_step.toFixed(3).padStart(9)} ms/step`);
+const why = has('--no-reference') ? 'not asked for' : referenceUnavailable();
+const rounds = why ? 1 : Math.max(1, Number(value('--rounds') ?? (scaling ? 1 : 3)));
+const ratiosBySize = new Map<number, number[]>();
+let timings: StepTiming[] = [];
+for (let round = 1; round <= rounds; round++) {
+  if (!json) console.log(`Stria step benchmark (scheme ifrk4, Node ${process.version}); median of timed batches${rounds > 1 ? `, round ${round} of ${rounds}` : ''}`);
+  timings = [];
+  for (const n of sizes) {
+    const t = timeStep(n);
+    timings.push(t);
+    emit({ ...t, round }, `  n = ${String(n).padStart(4)}   ${t.ms_per_step.toFixed(3).padStart(9)} ms/step`);
+  }
+  if (why) {
+    if (why !== 'not asked for') emit({ kind: 'reference', skipped: why }, `  C/FFTW reference skipped: ${why}`);
+    continue;
+  }
+  // The reference runs right after Stria in every round, so each ratio pairs two close measurements.
+  const ref: ReferenceTiming[] = runReference();
+  if (!json) console.log('C/FFTW reference step (same scheme, 20 real transforms per step), right after:');
+  for (const r of ref) {
+    const ours = timings.find((t) => t.n === r.n);
+    const ratio = ours ? ours.ms_per_step / r.ms_per_step : undefined;
+    if (ratio !== undefined) ratiosBySize.set(r.n, [...(ratiosBySize.get(r.n) ?? []), ratio]);
+    emit(
+      { kind: 'reference', round, n: r.n, reference_ms_per_step: r.ms_per_step, stria_ms_per_step: ours?.ms_per_step, ratio },
+      `  n = ${String(r.n).padStart(4)}   ${r.ms_per_step.toFixed(3).padStart(9)} ms/step` + (ratio ? `   Stria/reference = ${ratio.toFixed(2)}` : ''),
+    );
+  }
+}
+if (ratiosBySize.size > 0) {
+  if (!json) console.log(`Stria/reference over ${rounds} round${rounds > 1 ? 's' : ''}: median (lowest–highest)`);
+  for (const [n, rs] of ratiosBySize) {
+    emit(
+      { kind: 'ratio', n, rounds: rs.length, median: median(rs), min: Math.min(...rs), max: Math.max(...rs) },
+      `  n = ${String(n).padStart(4)}   ${median(rs).toFixed(2)} (${Math.min(...rs).toFixed(2)}–${Math.max(...rs).toFixed(2)})`,
+    );
+  }
 }
 
 if (scaling && timings.length >= 2) {
@@ -67,22 +101,4 @@ if (scaling && timings.length >= 2) {
     { kind: 'scaling', exponent_N: fit.exponentN, exponent_N2logN: fit.exponentN2logN, sizes },
     `  cost ∝ N^${fit.exponentN.toFixed(3)}; against N² log N the exponent is ${fit.exponentN2logN.toFixed(3)} (1 means exactly N² log N)`,
   );
-}
-
-if (!has('--no-reference')) {
-  const why = referenceUnavailable();
-  if (why) {
-    emit({ kind: 'reference', skipped: why }, `  C/FFTW reference skipped: ${why}`);
-  } else {
-    const ref: ReferenceTiming[] = runReference();
-    if (!json) console.log('C/FFTW reference step (same scheme, 20 real transforms per step), same session:');
-    for (const r of ref) {
-      const ours = timings.find((t) => t.n === r.n);
-      const ratio = ours ? ours.ms_per_step / r.ms_per_step : undefined;
-      emit(
-        { kind: 'reference', n: r.n, reference_ms_per_step: r.ms_per_step, stria_ms_per_step: ours?.ms_per_step, ratio },
-        `  n = ${String(r.n).padStart(4)}   ${r.ms_per_step.toFixed(3).padStart(9)} ms/step` + (ratio ? `   Stria/reference = ${ratio.toFixed(2)}` : ''),
-      );
-    }
-  }
 }
