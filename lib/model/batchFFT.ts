@@ -134,24 +134,7 @@ export class BatchFFT {
       const oA = sign > 0 ? o0 + run : o0 + 3 * run;
       const oB = sign > 0 ? o0 + 3 * run : o0 + run;
       if (p === 0) {
-        for (let t = 0; t < run; t += 2) {
-          const ar = src[i0 + t], ai = src[i0 + t + 1];
-          const br = src[i1 + t], bi = src[i1 + t + 1];
-          const cr = src[i2 + t], ci = src[i2 + t + 1];
-          const dr = src[i3 + t], di = src[i3 + t + 1];
-          const t0r = ar + cr, t0i = ai + ci;
-          const t1r = ar - cr, t1i = ai - ci;
-          const t2r = br + dr, t2i = bi + di;
-          const ur = br - dr, ui = bi - di;
-          dst[o0 + t] = t0r + t2r;
-          dst[o0 + t + 1] = t0i + t2i;
-          dst[o2 + t] = t0r - t2r;
-          dst[o2 + t + 1] = t0i - t2i;
-          dst[oA + t] = t1r - ui;
-          dst[oA + t + 1] = t1i + ur;
-          dst[oB + t] = t1r + ui;
-          dst[oB + t + 1] = t1i - ur;
-        }
+        untwiddledRuns(src, dst, run, q * run, sign);
         continue;
       }
       const m1 = p * s;
@@ -219,28 +202,38 @@ export class BatchFFT {
  * places (run = BatchFFT.lastRun). fusedStages.ts repeats this butterfly inside its passes.
  */
 export function lastStageInPlace(data: Float64Array, run: number, sign: number): void {
-  const i1 = run;
-  const i2 = 2 * run;
-  const i3 = 3 * run;
+  untwiddledRuns(data, data, run, run, sign);
+}
+
+/**
+ * Twiddle-free radix-4 butterflies over one run of `run` doubles: inputs at t + j·stride, outputs
+ * X0, X1, X2, X3 at t + j·run (j = 0..3). With stride = run and src = dst it works in place: each
+ * butterfly reads its four places before writing them.
+ */
+function untwiddledRuns(src: Float64Array, dst: Float64Array, run: number, stride: number, sign: number): void {
+  const i1 = stride;
+  const i2 = 2 * stride;
+  const i3 = 3 * stride;
+  const o2 = 2 * run;
   // t1 + i·u is X1 for sign = +1 and X3 for sign = −1 (see radix4).
-  const oA = sign > 0 ? i1 : i3;
-  const oB = sign > 0 ? i3 : i1;
+  const oA = sign > 0 ? run : 3 * run;
+  const oB = sign > 0 ? 3 * run : run;
   for (let t = 0; t < run; t += 2) {
-    const ar = data[t], ai = data[t + 1];
-    const br = data[i1 + t], bi = data[i1 + t + 1];
-    const cr = data[i2 + t], ci = data[i2 + t + 1];
-    const dr = data[i3 + t], di = data[i3 + t + 1];
+    const ar = src[t], ai = src[t + 1];
+    const br = src[i1 + t], bi = src[i1 + t + 1];
+    const cr = src[i2 + t], ci = src[i2 + t + 1];
+    const dr = src[i3 + t], di = src[i3 + t + 1];
     const t0r = ar + cr, t0i = ai + ci;
     const t1r = ar - cr, t1i = ai - ci;
     const t2r = br + dr, t2i = bi + di;
     const ur = br - dr, ui = bi - di;
-    data[t] = t0r + t2r;
-    data[t + 1] = t0i + t2i;
-    data[i2 + t] = t0r - t2r;
-    data[i2 + t + 1] = t0i - t2i;
-    data[oA + t] = t1r - ui;
-    data[oA + t + 1] = t1i + ur;
-    data[oB + t] = t1r + ui;
-    data[oB + t + 1] = t1i - ur;
+    dst[t] = t0r + t2r;
+    dst[t + 1] = t0i + t2i;
+    dst[o2 + t] = t0r - t2r;
+    dst[o2 + t + 1] = t0i - t2i;
+    dst[oA + t] = t1r - ui;
+    dst[oA + t + 1] = t1i + ur;
+    dst[oB + t] = t1r + ui;
+    dst[oB + t + 1] = t1i - ur;
   }
 }

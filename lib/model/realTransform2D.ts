@@ -90,7 +90,7 @@ export class RealTransform2D {
     const { nx, ny } = this.grid;
     // The y transform's last stage writes Z = A + iB, and Z(−kx), straight onto the x-major grid.
     lastStageToWorkGrid(ySpectra, this.work, nx, ny, this.top);
-    return this.xFFT.transformButLast(this.work, 1, this.xFFT.work);
+    return this.xFFT.transformButLast(this.work, 1);
   }
 
   /** Doubles per output block of the x transform's last stage (see BatchFFT.lastRun). */
