@@ -1,5 +1,5 @@
-import { analyzeFile } from '../lib/io/analyzeFile';
-import { fileAnalysisText } from '../lib/io/fileAnalysisReport';
+import { analyzeFile } from '../lib/userfile/analyzeFile';
+import { fileAnalysisText } from '../lib/userfile/report';
 import { ANALYZE_OPTIONS as OPTIONS, parseMap, toOptions } from './analyzeOptions';
 import { formatOptions, parseArgs, UsageError, type ParsedArgs } from './args';
 import type { Command } from './command';
@@ -9,7 +9,7 @@ export { parseMap };
 
 /**
  * `stria analyze FILE [options]`: Stria's diagnostics on a NetCDF file it did not write (the
- * library: lib/io/analyzeFile.ts). Prints the readable report, or the result object as JSON with
+ * library: lib/userfile/analyzeFile.ts). Prints the readable report, or the result object as JSON with
  * --json. Exit codes: 0 done, 1 the file could not be analysed (the message says why), 2 a mistake
  * in the command line. Two entry points: `analyzeCommand(argv)` on its own, and `analyzeCmd` for
  * the dispatcher's command list. The analysis runs synchronously, so an interrupt takes effect

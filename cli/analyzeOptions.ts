@@ -1,12 +1,12 @@
-import type { AnalyzeFileOptions } from '../lib/io/analyzeFile';
-import { FIELD_ROLES, type FieldRole } from '../lib/io/fieldNames';
+import type { AnalyzeFileOptions } from '../lib/userfile/analyzeFile';
+import { FIELD_ROLES, type FieldRole } from '../lib/userfile/fieldNames';
 import { RHINES_DEFINITIONS, type RhinesConvention } from '../lib/analysis/scales';
 import { PLANETS, type PlanetId } from '../lib/plan/planets';
 import { parseNumber, UsageError, type OptionSpec } from './args';
 
 /**
  * The options of `stria analyze`, declared once (help, parsing and messages come from here), and
- * their translation into lib/io/analyzeFile.ts options; a mistake is a UsageError naming the option.
+ * their translation into lib/userfile/analyzeFile.ts options; a mistake is a UsageError naming the option.
  */
 export const ANALYZE_OPTIONS: readonly OptionSpec[] = [
   { name: 'map', kind: 'text', value: 'ROLE=NAME,…', help: `name the fields yourself: roles ${FIELD_ROLES.join(', ')} (e.g. u=U,v=V)` },

@@ -1,15 +1,15 @@
 import { readFileSync } from 'node:fs';
 import type { Checkpoint } from '../lib/model/checkpoint';
-import type { RetryRecord } from '../lib/sweep/blowUpRetry';
-import type { MonitoredRun } from '../lib/sweep/monitoredRun';
-import { CheckpointFileError, decodeCheckpointFile, encodeCheckpointFile, type RunProgress } from '../lib/sweep/runProgress';
+import type { RetryRecord } from '../lib/run/blowUpRetry';
+import type { MonitoredRun } from '../lib/run/monitoredRun';
+import { CheckpointFileError, decodeCheckpointFile, encodeCheckpointFile, type RunProgress } from '../lib/run/runProgress';
 import { UsageError } from './args';
 import { removeStaleTemporaries, writeFileAtomic } from './atomicFile';
 import { NODE_BASE64 } from './nodeBase64';
 import type { RunOutputs } from './runOutputs';
 
 /**
- * The checkpoint file of one `stria run` (lib/sweep/runProgress.ts), replaced atomically each time
+ * The checkpoint file of one `stria run` (lib/run/runProgress.ts), replaced atomically each time
  * (atomicFile.ts). The order of writing is what makes a resume exact: first the NetCDF files are
  * flushed to the disk, then the checkpoint that counts their records is written, so a checkpoint
  * never promises records the disk does not hold.

@@ -1,4 +1,4 @@
-import type { Base64Codec } from '../lib/sweep/stateJson';
+import type { Base64Codec } from '../lib/run/stateJson';
 
 /**
  * Node's base64, for the megabytes of a checkpoint's measurement: the portable codec of lib/io runs

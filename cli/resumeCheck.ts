@@ -1,7 +1,7 @@
 import type { ModelParams } from '../lib/model/params';
-import { canonicalJson, runId } from '../lib/sweep/runId';
-import type { RunPlan } from '../lib/sweep/runPlan';
-import type { RunProgress } from '../lib/sweep/runProgress';
+import { canonicalJson, runId } from '../lib/run/runId';
+import type { RunPlan } from '../lib/run/runPlan';
+import type { RunProgress } from '../lib/run/runProgress';
 import { UsageError } from './args';
 
 /**

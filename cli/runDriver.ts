@@ -1,8 +1,8 @@
 import type { Checkpoint } from '../lib/model/checkpoint';
 import { Model } from '../lib/model/model';
 import { BlowUpError } from '../lib/model/stepper';
-import { blowUpReport, describeBlowUp, retryCheckpoint, retryRecord, type BlowUpPolicy, type RetryRecord } from '../lib/sweep/blowUpRetry';
-import type { MonitoredRun, MonitoredRunState } from '../lib/sweep/monitoredRun';
+import { blowUpReport, describeBlowUp, retryCheckpoint, retryRecord, type BlowUpPolicy, type RetryRecord } from '../lib/run/blowUpRetry';
+import type { MonitoredRun, MonitoredRunState } from '../lib/run/monitoredRun';
 import { Breather } from './breather';
 import type { CheckpointStore } from './checkpointStore';
 import type { OutputCounts, RunOutputs } from './runOutputs';

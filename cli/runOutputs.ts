@@ -3,8 +3,8 @@ import type { StriaRunInfo } from '../lib/io/cfGlobalAttributes';
 import { SNAPSHOT_FILE, ZONAL_MEAN_FILE } from '../lib/io/cfStria';
 import { snapshotFrame, zonalMeanFrame } from '../lib/io/cfStriaWriter';
 import type { ModelParams } from '../lib/model/params';
-import type { RunHooks } from '../lib/sweep/monitoredRun';
-import type { OutputProgress } from '../lib/sweep/runProgress';
+import type { RunHooks } from '../lib/run/monitoredRun';
+import type { OutputProgress } from '../lib/run/runProgress';
 import { NcRecordFile } from './ncRecordFile';
 
 /**

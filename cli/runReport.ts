@@ -1,5 +1,5 @@
 import type { RunSummary } from '../lib/analysis/summary';
-import type { BlowUpReport, RetryRecord } from '../lib/sweep/blowUpRetry';
+import type { BlowUpReport, RetryRecord } from '../lib/run/blowUpRetry';
 import { summaryText } from './summaryText';
 
 /**

@@ -1,5 +1,5 @@
 import type { ModelParams } from '../lib/model/params';
-import { estimateRunMemory, formatBytes, type MemoryItem } from '../lib/sweep/runMemory';
+import { estimateRunMemory, formatBytes, type MemoryItem } from '../lib/run/runMemory';
 import { viewDiagnosticsBytes } from '../workers/diagnosticsMemory';
 
 const GiB = 1024 ** 3;
@@ -54,7 +54,7 @@ export interface AppMemoryEstimate {
 
 /**
  * What a run of `p` takes in the app, item by item (N = nx·ny points, S = ny(nx/2 + 1) modes):
- *   model, measurement   lib/sweep/runMemory.ts (the worker's model and RunMonitor)
+ *   model, measurement   lib/run/runMemory.ts (the worker's model and RunMonitor)
  *   views                workers/diagnosticsMemory.ts (every view shown, the longest averages)
  *   kept states          copies of q̂ (16S bytes each): the worker's rescue point (workers/
  *                        rescuePoint.ts), its copy with the step halved after a blow-up, and the

@@ -14,7 +14,7 @@ const BUDGET_ROWS_MAX = 1 << 14;
 
 /**
  * Bytes of the arrays the worker holds for the views beyond the run's own measurement (which
- * lib/sweep/runMemory.ts counts): the views' time means, the zonal-mean frames kept for export, the
+ * lib/run/runMemory.ts counts): the views' time means, the zonal-mean frames kept for export, the
  * spectra and spectral flux plans with their outputs and running means (all views shown, averaged
  * over the most samples allowed, MAX_SPECTRAL_AVERAGE), and the budget rows at their largest.
  * Counted from the constructors of runDiagnostics.ts, zonalFrameStore.ts, spectralDiagnostics.ts,

@@ -1,5 +1,5 @@
 import type { RunSummary } from '../lib/analysis/summary';
-import type { BlowUpReport } from '../lib/sweep/blowUpRetry';
+import type { BlowUpReport } from '../lib/run/blowUpRetry';
 import type { SweepRecord } from '../lib/sweep/sweepRecord';
 import type { SweepJob } from '../lib/sweep/sweepRuns';
 import type { StepReport } from '../lib/model/budget';
@@ -61,7 +61,7 @@ export interface SimulationApi {
   /**
    * After a blow-up (`Snapshot.blowUp`): go back to the last in-memory checkpoint (kept every
    * RESCUE_EVERY steps, rescuePoint.ts) with dt, and with an adaptive step the CFL target, halved
-   * (lib/sweep/blowUpRetry.ts `retryCheckpoint`, the command line's rule), and play. A new epoch.
+   * (lib/run/blowUpRetry.ts `retryCheckpoint`, the command line's rule), and play. A new epoch.
    * Throws when the run has not blown up or the halved parameters are refused.
    */
   restartHalved(): Promise<InitInfo>;

@@ -7,7 +7,7 @@ import type { ModelParams } from '../lib/model/params';
 import { BlowUpError } from '../lib/model/stepper';
 import { ParamError, validateParams } from '../lib/model/validateParams';
 import type { RunSummary } from '../lib/analysis/summary';
-import { blowUpReport, retryCheckpoint, retryRecord } from '../lib/sweep/blowUpRetry';
+import { blowUpReport, retryCheckpoint, retryRecord } from '../lib/run/blowUpRetry';
 import { runSweepJob } from '../lib/sweep/runSweepJob';
 import type { SweepRecord } from '../lib/sweep/sweepRecord';
 import type { SweepJob } from '../lib/sweep/sweepRuns';

@@ -1,6 +1,6 @@
 import { existsSync, mkdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { canonicalJson } from '../../lib/sweep/runId';
+import { canonicalJson } from '../../lib/run/runId';
 import { joinRecords } from '../../lib/sweep/sweepRecord';
 import { parseSweepSpec, SweepSpecError, type SweepSpec } from '../../lib/sweep/sweepSpec';
 import { UsageError, type OptionSpec, type ParsedArgs } from '../args';

@@ -5,7 +5,7 @@ import type { SweepRecord } from '../../lib/sweep/sweepRecord';
 import { joinRecords } from '../../lib/sweep/sweepRecord';
 import { describePoint, expandSweep, type SweepJob } from '../../lib/sweep/sweepRuns';
 import { parseSweepSpec, SweepSpecError, type SweepSpec } from '../../lib/sweep/sweepSpec';
-import { estimateRunMemory, formatBytes } from '../../lib/sweep/runMemory';
+import { estimateRunMemory, formatBytes } from '../../lib/run/runMemory';
 import { UsageError, type OptionSpec, type ParsedArgs } from '../args';
 import { DEFAULT_MEMORY_BUDGET, parseByteSize } from '../byteSize';
 import { CLI_RUNTIME_BYTES } from './run';

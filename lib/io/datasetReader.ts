@@ -1,10 +1,10 @@
-import type { AllocationMeter } from '../analysis/allocationMeter';
+import type { AllocationMeter } from './allocationMeter';
 
 /**
  * One view of a NetCDF file, whichever format holds it: NetCDF-3 (classic CDF-1, 64-bit offset
  * CDF-2) or netCDF-4 (HDF5). Dimensions, variables and attributes as the NetCDF data model names
  * them; values read one record (one index of the first dimension) at a time, decoded to float64
- * as stored: no fill value masking, no scale_factor/add_offset (lib/io/fieldValues.ts does those).
+ * as stored: no fill value masking, no scale_factor/add_offset (lib/userfile/fieldValues.ts does those).
  * Arrays are row-major, last dimension fastest, as both formats define them.
  */
 export type DatasetFormat = 'netcdf3-classic' | 'netcdf3-64bit-offset' | 'netcdf4';

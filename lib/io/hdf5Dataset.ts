@@ -1,5 +1,5 @@
 import { Dataset, File, Group, type DataObjects } from 'jsfive';
-import type { AllocationMeter } from '../analysis/allocationMeter';
+import type { AllocationMeter } from './allocationMeter';
 import type { ByteSource } from './byteSource';
 import type { AttributeValue, DatasetDimension, DatasetReader, DatasetVariable, ReadOptions, ReaderOptions } from './datasetReader';
 import { isNumericType, NamedVariables } from './datasetReader';

@@ -1,5 +1,5 @@
 import { Filters } from 'jsfive';
-import type { AllocationMeter } from '../analysis/allocationMeter';
+import type { AllocationMeter } from './allocationMeter';
 import { firstChunkAtOrAfter, type ChunkEntry } from './hdf5ChunkIndex';
 import { FILTER_NAMES, UNDEFINED_ADDRESS, type Layout } from './hdf5Format';
 

@@ -1,4 +1,4 @@
-import type { AllocationMeter } from '../analysis/allocationMeter';
+import type { AllocationMeter } from './allocationMeter';
 import type { ByteSource } from './byteSource';
 import type { DatasetReader, DatasetType, DatasetVariable, ReadOptions, ReaderOptions } from './datasetReader';
 import { NamedVariables } from './datasetReader';

@@ -68,7 +68,7 @@ const RunFileSchema = v.object({
 /**
  * The run file of a checkpoint, as JSON text. `base64` encodes the spectrum's bytes: the portable
  * encoder by default (about 0.4 s a megabyte); callers with a faster one of the same output pass it
- * (Node's in lib/sweep/runFileText.ts, the browser's in src/keep/browserBase64.ts).
+ * (Node's in lib/run/runFileText.ts, the browser's in src/keep/browserBase64.ts).
  */
 export function encodeRunFile(cp: Checkpoint, saved: Date = new Date(), base64: (bytes: Uint8Array) => string = encodeBase64): string {
   const bytes = new Uint8Array(cp.qHat.length * 8);

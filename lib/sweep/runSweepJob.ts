@@ -1,6 +1,6 @@
 import { Model } from '../model/model';
 import { BlowUpError } from '../model/stepper';
-import { MonitoredRun } from './monitoredRun';
+import { MonitoredRun } from '../run/monitoredRun';
 import { RECORD_FORMAT, RECORD_VERSION, type SweepRecord } from './sweepRecord';
 import type { SweepJob } from './sweepRuns';
 

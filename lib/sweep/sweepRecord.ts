@@ -1,7 +1,7 @@
 import * as v from 'valibot';
 import { SUMMARY_KEYS, type RunSummary } from '../analysis/summary';
-import type { StopReason } from './monitoredRun';
-import { canonicalJson } from './runId';
+import type { StopReason } from '../run/monitoredRun';
+import { canonicalJson } from '../run/runId';
 import type { SweepJob } from './sweepRuns';
 
 /**

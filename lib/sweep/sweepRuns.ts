@@ -1,8 +1,8 @@
 import type { ModelParams } from '../model/params';
 import { ParamError, validateParams } from '../model/validateParams';
 import { scenarioById } from '../plan/demoScenarios';
-import { runId } from './runId';
-import { resolveRunPlan, RunPlanError, type RunPlan } from './runPlan';
+import { runId } from '../run/runId';
+import { resolveRunPlan, RunPlanError, type RunPlan } from '../run/runPlan';
 import { axisValues, SweepSpecError, type SweepSpec } from './sweepSpec';
 
 /** The swept values of one run, by parameter name. */

@@ -1,5 +1,5 @@
 import { transfer, wrap } from 'comlink';
-import type { FileAnalysis } from '../../lib/io/analyzeFile';
+import type { FileAnalysis } from '../../lib/userfile/analyzeFile';
 import type { UserDataApi, UserFileOptions } from '../../workers/userData.worker';
 import { importRefusal } from '../share/importLimits';
 

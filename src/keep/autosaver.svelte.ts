@@ -1,5 +1,5 @@
 import type { Checkpoint } from '../../lib/model/checkpoint';
-import { runFileText } from '../../lib/sweep/runFileText';
+import { runFileText } from '../../lib/run/runFileText';
 import { stateChecksum } from '../../workers/stateChecksum';
 import type { SavedRun } from './autosave';
 import { BROWSER_BASE64 } from './browserBase64';

@@ -1,4 +1,4 @@
-import type { Base64Codec } from '../../lib/sweep/stateJson';
+import type { Base64Codec } from '../../lib/run/stateJson';
 
 /** Bytes per chunk handed to btoa: a multiple of 3, so the chunks' encodings join without padding in between. */
 const CHUNK = 3 * 8192;

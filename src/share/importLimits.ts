@@ -1,4 +1,4 @@
-import { formatBytes } from '../../lib/sweep/runMemory';
+import { formatBytes } from '../../lib/run/runMemory';
 
 /** The files the page reads from the user's disk. */
 export type ImportKind = 'runFile' | 'planFile' | 'sweepResults' | 'userData';

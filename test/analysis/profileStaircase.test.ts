@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { profileStaircase, boundedIndex } from '../../lib/analysis/profileStaircase';
 import { StaircaseFitter } from '../../lib/analysis/staircase';
-import { qtotFromUbar } from '../../lib/analysis/qtotFromUbar';
+import { qtotFromUbar } from '../../lib/userfile/qtotFromUbar';
 import { staircaseProfile } from '../support/jetFields';
 
 // Perfect staircase [published] Dritschel & McIntyre, J. Atmos. Sci. 65, 855 (2008): total PV

@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { readNetcdf } from '../../lib/io/netcdfRead';
-import { decodeCheckpointFile } from '../../lib/sweep/runProgress';
+import { decodeCheckpointFile } from '../../lib/run/runProgress';
 import { NODE_BASE64 } from '../../cli/nodeBase64';
 import { scratchDir, stria, striaHere } from './support/stria';
 

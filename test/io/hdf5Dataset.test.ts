@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { File } from 'jsfive';
-import { AllocationMeter } from '../../lib/analysis/allocationMeter';
+import { AllocationMeter } from '../../lib/io/allocationMeter';
 import { memorySource } from '../../lib/io/byteSource';
 import { openDataset } from '../../lib/io/openDataset';
 import { cdl, type CdlFile, type CdlVariable } from '../support/cdl';

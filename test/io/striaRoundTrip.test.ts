@@ -5,7 +5,7 @@ import { SpectraPlan } from '../../lib/analysis/spectra';
 import { SpectralFluxPlan } from '../../lib/analysis/spectralFlux';
 import { StaircaseFitter } from '../../lib/analysis/staircase';
 import { ZonalMeanPlan } from '../../lib/analysis/zonalMean';
-import { analyzeFile } from '../../lib/io/analyzeFile';
+import { analyzeFile } from '../../lib/userfile/analyzeFile';
 import { memorySource } from '../../lib/io/byteSource';
 import type { StriaRunInfo } from '../../lib/io/cfGlobalAttributes';
 import { SNAPSHOT_FILE } from '../../lib/io/cfStria';

@@ -4,9 +4,9 @@ import { HovmollerAccumulator } from '../../lib/analysis/hovmoller';
 import { ProfileTimeMean } from '../../lib/analysis/timeMean';
 import { emptyReport } from '../../lib/model/budget';
 import { Model } from '../../lib/model/model';
-import { MonitoredRun } from '../../lib/sweep/monitoredRun';
-import { resolveRunPlan } from '../../lib/sweep/runPlan';
-import { estimateRunMemory } from '../../lib/sweep/runMemory';
+import { MonitoredRun } from '../../lib/run/monitoredRun';
+import { resolveRunPlan } from '../../lib/run/runPlan';
+import { estimateRunMemory } from '../../lib/run/runMemory';
 import { reachableArrayBytes } from '../support/reachableBytes';
 
 /**

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { parseSets } from '../../cli/paramInput';
 import { decodeRunFile, encodeRunFile, RunFileError } from '../../lib/io/runFile';
 import { Model } from '../../lib/model/model';
-import { MonitoredRun } from '../../lib/sweep/monitoredRun';
+import { MonitoredRun } from '../../lib/run/monitoredRun';
 import { runSweepJob } from '../../lib/sweep/runSweepJob';
 import { formatSweepRecord, joinRecords, parseSweepRecord } from '../../lib/sweep/sweepRecord';
 import { expandSweep } from '../../lib/sweep/sweepRuns';

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { SIZE_MAX, SIZE_MIN } from '../../lib/model/params';
 import { validateParams } from '../../lib/model/validateParams';
 import { DEMO_SCENARIOS } from '../../lib/plan/demoScenarios';
-import { estimateRunMemory } from '../../lib/sweep/runMemory';
+import { estimateRunMemory } from '../../lib/run/runMemory';
 import { APP_BUDGET_CAP, APP_BUDGET_FLOOR, APP_RUNTIME_BYTES, appMemoryBudget, estimateAppMemory, memoryRefusal, roughBytes } from '../../src/appMemory';
 import { viewDiagnosticsBytes } from '../../workers/diagnosticsMemory';
 

@@ -1,4 +1,4 @@
-import type { UserGrid, UserRecordSource, UserRole } from '../../lib/analysis/userData';
+import type { UserGrid, UserRecordSource, UserRole } from '../../lib/userfile/userData';
 
 /** A UserRecordSource over arrays made by `make(r)` (one per role), for tests without files. */
 export function arraySource(grid: Partial<UserGrid> & Pick<UserGrid, 'nx' | 'ny' | 'dx' | 'dy'>, roles: UserRole[], count: number, make: (r: number) => Partial<Record<UserRole, ArrayLike<number>>>): UserRecordSource & { reads: number } {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { estimateRunMemory } from '../../lib/sweep/runMemory';
+import { estimateRunMemory } from '../../lib/run/runMemory';
 import { BUDGET_ROWS_MAX_BYTES, viewDiagnosticsBytes } from '../../workers/diagnosticsMemory';
 import { MAX_SPECTRAL_AVERAGE } from '../../workers/diagnosticsPublisher';
 import { SimulationHost } from '../../workers/simulationHost';

@@ -1,7 +1,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { Model } from '../../lib/model/model';
 import { DEFAULT_PARAMS } from '../../lib/model/params';
-import { retryCheckpoint } from '../../lib/sweep/blowUpRetry';
+import { retryCheckpoint } from '../../lib/run/blowUpRetry';
 import { BUDGET_ROW_WIDTH } from '../../workers/budgetRows';
 import { RESCUE_EVERY } from '../../workers/rescuePoint';
 import type { Snapshot } from '../../workers/simulationApi';

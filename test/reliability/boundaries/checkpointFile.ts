@@ -2,12 +2,12 @@ import fc from 'fast-check';
 import { NODE_BASE64 } from '../../../cli/nodeBase64';
 import { Model } from '../../../lib/model/model';
 import { BlowUpError } from '../../../lib/model/stepper';
-import { StateShapeError } from '../../../lib/sweep/dataState';
-import { MonitoredRun } from '../../../lib/sweep/monitoredRun';
-import { runId } from '../../../lib/sweep/runId';
-import { resolveRunPlan } from '../../../lib/sweep/runPlan';
-import { CheckpointFileError, decodeCheckpointFile, encodeCheckpointFile, type RunProgress } from '../../../lib/sweep/runProgress';
-import { textDigest } from '../../../lib/sweep/textDigest';
+import { StateShapeError } from '../../../lib/run/dataState';
+import { MonitoredRun } from '../../../lib/run/monitoredRun';
+import { runId } from '../../../lib/run/runId';
+import { resolveRunPlan } from '../../../lib/run/runPlan';
+import { CheckpointFileError, decodeCheckpointFile, encodeCheckpointFile, type RunProgress } from '../../../lib/run/runProgress';
+import { textDigest } from '../../../lib/run/textDigest';
 import { PropertyFailure, type Boundary } from '../support/boundary';
 import { applyEdits, editsArbitrary, textDamage } from '../support/weird';
 

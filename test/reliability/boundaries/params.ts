@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { DEFAULT_PARAMS } from '../../../lib/model/params';
 import { ParamError, validateParams } from '../../../lib/model/validateParams';
-import { estimateRunMemory } from '../../../lib/sweep/runMemory';
+import { estimateRunMemory } from '../../../lib/run/runMemory';
 import { PropertyFailure, type Boundary } from '../support/boundary';
 import { stepsCleanly, trickyKey, weirdValue } from '../support/weird';
 

@@ -2,8 +2,8 @@ import fc from 'fast-check';
 import { Model } from '../../../lib/model/model';
 import type { ModelParams } from '../../../lib/model/params';
 import { BlowUpError } from '../../../lib/model/stepper';
-import { MonitoredRun } from '../../../lib/sweep/monitoredRun';
-import type { RunPlan } from '../../../lib/sweep/runPlan';
+import { MonitoredRun } from '../../../lib/run/monitoredRun';
+import type { RunPlan } from '../../../lib/run/runPlan';
 import { PropertyFailure } from './boundary';
 
 /** Values that break naive readers: non-finite and extreme numbers, numbers as text, wrong kinds. */

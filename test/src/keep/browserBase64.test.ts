@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { encodeBase64, encodeRunFile } from '../../../lib/io/runFile';
 import { Model } from '../../../lib/model/model';
-import { runFileText } from '../../../lib/sweep/runFileText';
+import { runFileText } from '../../../lib/run/runFileText';
 import { BROWSER_BASE64 } from '../../../src/keep/browserBase64';
 
 /** Seeded bytes (a 32-bit LCG), so every value 0–255 turns up. */

@@ -1,0 +1,35 @@
+import { describe, expect, it } from 'vitest';
+import { DEFAULT_PARAMS } from '../../lib/model/params';
+import { resolveRunPlan, RunPlanError } from '../../lib/run/runPlan';
+
+const p = { ...DEFAULT_PARAMS, mu: 0.02, dt: 0.01 };
+
+function refused(req: Parameters<typeof resolveRunPlan>[1], start = 0): string {
+  try {
+    resolveRunPlan(p, req, start);
+  } catch (e) {
+    if (e instanceof RunPlanError) return e.field;
+    throw e;
+  }
+  throw new Error('accepted');
+}
+
+describe('run plans', () => {
+  it('fill the stated defaults', () => {
+    expect(resolveRunPlan(p, { steps: 100 })).toEqual({ stop: { kind: 'steps', steps: 100 }, average: 50, sampleEvery: 0.1 });
+    expect(resolveRunPlan(p, { until: 20 }, 5).average).toBe(15); // the default window fits the run
+    expect(resolveRunPlan(p, { untilSteady: true }, 10).stop).toEqual({ kind: 'steady', window: 25, tolerance: 0.05, maxTime: 510 });
+  });
+
+  it('refuse what cannot be run, naming the field', () => {
+    expect(refused({})).toBe('length');
+    expect(refused({ steps: 10, until: 5 })).toBe('length');
+    expect(refused({ steps: 0 })).toBe('steps');
+    expect(refused({ until: 5 }, 5)).toBe('until');
+    expect(refused({ until: 5, average: 6 })).toBe('average');
+    expect(refused({ steps: 5, sampleEvery: 0.001 })).toBe('sampleEvery');
+    expect(refused({ steps: 5, steadyTolerance: 0.1 })).toBe('steadyTolerance');
+    expect(refused({ untilSteady: true, maxTime: 30 })).toBe('maxTime');
+    expect(() => resolveRunPlan({ ...p, mu: 0 }, { untilSteady: true })).toThrow(/steadyWindow/);
+  });
+});
