@@ -1,9 +1,10 @@
 #!/usr/bin/env node
 // `npm test`: every check the project has, in order, stopping at the first failure.
 //   1. Chromium for the browser tests (installed from Debian when we are root)
-//   2. types: tsc on the core and on everything, then svelte-check, with no errors or warnings
-//   3. unit and property tests (vitest, test/)
-//   4. build the app, then the browser tests against it (vitest, e2e/)
+//   2. format and lint: Prettier's check, then ESLint with the layering rules (eslint.config.js)
+//   3. types: tsc on the core and on everything, then svelte-check, with no errors or warnings
+//   4. unit and property tests (vitest, test/)
+//   5. build the app, then the browser tests against it (vitest, e2e/)
 import { spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { dirname, join } from 'node:path';
@@ -13,6 +14,7 @@ const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const bin = (name) => join(root, 'node_modules', '.bin', name);
 const CHROMIUM = '/usr/bin/chromium';
 const started = Date.now();
+const STAGES = 5;
 
 /** Run a command in the repo root with inherited output; false when it fails. */
 function run(cmd, args, env = {}) {
@@ -22,10 +24,10 @@ function run(cmd, args, env = {}) {
 }
 
 function stage(n, title, body) {
-  console.log(`\n── ${n}/4 ${title} ${'─'.repeat(Math.max(0, 60 - title.length))}`);
+  console.log(`\n── ${n}/${STAGES} ${title} ${'─'.repeat(Math.max(0, 60 - title.length))}`);
   const t = Date.now();
   if (!body()) {
-    console.error(`\n✗ ${title} failed (stage ${n}/4); stopping.`);
+    console.error(`\n✗ ${title} failed (stage ${n}/${STAGES}); stopping.`);
     process.exit(1);
   }
   console.log(`✓ ${title} (${((Date.now() - t) / 1000).toFixed(1)} s)`);
@@ -46,7 +48,8 @@ function ensureChromium() {
 }
 
 stage(1, 'Chromium', ensureChromium);
-stage(2, 'typecheck', () => run('npm', ['run', '--silent', 'typecheck']));
-stage(3, 'unit tests', () => run(bin('vitest'), ['run']));
-stage(4, 'build + browser tests', () => run(bin('vite'), ['build', '--logLevel', 'warn']) && run(bin('vitest'), ['run', '--config', 'vitest.e2e.config.ts']));
+stage(2, 'format + lint', () => run(bin('prettier'), ['--check', '--log-level', 'warn', '.']) && run(bin('eslint'), ['.']));
+stage(3, 'typecheck', () => run('npm', ['run', '--silent', 'typecheck']));
+stage(4, 'unit tests', () => run(bin('vitest'), ['run']));
+stage(5, 'build + browser tests', () => run(bin('vite'), ['build', '--logLevel', 'warn']) && run(bin('vitest'), ['run', '--config', 'vitest.e2e.config.ts']));
 console.log(`\nall checks passed in ${((Date.now() - started) / 1000).toFixed(1)} s`);
