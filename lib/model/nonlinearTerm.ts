@@ -15,6 +15,7 @@ import type { RealTransform2D } from './realTransform2D';
  * The velocities are written straight into the transform's block and the products formed in place on
  * its work grid, so no stage copies a field. The result is exactly zero outside the kept modes and
  * exactly Hermitian in the kx = 0 column. Build once per grid; a call allocates nothing.
+ * The derivation and the passes in order, plain and fused: docs/fused-step.md.
  */
 export class NonlinearTerm {
   private readonly grid: Grid;
