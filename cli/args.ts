@@ -1,3 +1,5 @@
+import { parseArgs as tokenize, type ParseArgsConfig } from 'node:util';
+
 /**
  * Options of a `stria` command, declared once: the parser, the help text and the error messages all
  * come from the declaration. Long options only (`--name value` or `--name=value`), plus `-h`; `--`
@@ -31,42 +33,43 @@ export class UsageError extends Error {
 
 export const HELP_OPTION: OptionSpec = { name: 'help', kind: 'flag', help: 'show this help and exit' };
 
-/** Parse `argv` (the words after the command name) against `specs`; throws UsageError. */
+/**
+ * Parse `argv` (the words after the command name) against `specs`; throws UsageError at the first
+ * mistake in the line. Node's parseArgs splits the words into tokens; it runs with strict off because
+ * strict mode refuses a value that starts with a dash (`--lat0 -45`, `--records -20:`) and words its
+ * own messages. The checks strict mode would make are made here instead, token by token, in Stria's words.
+ */
 export function parseArgs(argv: readonly string[], specs: readonly OptionSpec[], command: string): ParsedArgs {
-  const byName = new Map(specs.map((s) => [s.name, s]));
+  const byName = new Map([...specs, HELP_OPTION].map((s) => [s.name, s]));
+  const { tokens } = tokenize({ args: [...argv], options: nodeOptions(byName), strict: false, allowPositionals: true, tokens: true });
   const options: Record<string, OptionValue | undefined> = {};
   const positionals: string[] = [];
   const see = `(see stria ${command} --help)`;
-  for (let i = 0; i < argv.length; i++) {
-    const word = argv[i];
-    if (word === '--') {
-      positionals.push(...argv.slice(i + 1));
-      break;
+  for (const token of tokens) {
+    if (token.kind === 'positional') {
+      positionals.push(token.value);
+      continue;
     }
-    if (word === '-h') {
+    if (token.kind === 'option-terminator') continue;
+    // Node reads "-xy" as -x -y; a dash word other than -h is refused whole, as written.
+    const word = argv[token.index];
+    if (!word.startsWith('--')) {
+      if (word !== '-h') throw new UsageError(`unknown option ${word}: options are long, such as --help ${see}`);
       options.help = true;
       continue;
     }
-    if (!word.startsWith('-') || word === '-') {
-      positionals.push(word);
-      continue;
-    }
-    if (!word.startsWith('--')) throw new UsageError(`unknown option ${word}: options are long, such as --help ${see}`);
-    const eq = word.indexOf('=');
-    const name = word.slice(2, eq < 0 ? undefined : eq);
-    const spec = name === 'help' ? HELP_OPTION : byName.get(name);
-    if (!spec) throw new UsageError(`unknown option --${name} ${see}`);
+    const name = token.name;
+    const spec = byName.get(name);
+    // Named as written up to any '=' (Node calls "--=x" an option named "=x"; the message says "--").
+    if (!spec) throw new UsageError(`unknown option ${word.split('=', 1)[0]} ${see}`);
     if (spec.kind === 'flag') {
-      if (eq >= 0) throw new UsageError(`option --${name} takes no value, got "${word.slice(eq + 1)}"`);
+      if (token.value !== undefined) throw new UsageError(`option --${name} takes no value, got "${token.value}"`);
       options[name] = true;
       continue;
     }
-    let text: string;
-    if (eq >= 0) text = word.slice(eq + 1);
-    else {
-      if (i + 1 >= argv.length) throw new UsageError(`option --${name} needs a value (${spec.value ?? 'a value'})`);
-      text = argv[++i];
-    }
+    // A value option takes the next word whatever it is, even "--" or "-3"; only the end of the line lacks one.
+    const text = token.value;
+    if (text === undefined) throw new UsageError(`option --${name} needs a value (${spec.value ?? 'a value'})`);
     if (spec.kind === 'list') {
       options[name] = [...((options[name] as string[] | undefined) ?? []), text];
       continue;
@@ -75,6 +78,14 @@ export function parseArgs(argv: readonly string[], specs: readonly OptionSpec[],
     options[name] = convert(spec, text);
   }
   return { options, positionals };
+}
+
+/** The declarations as Node's parseArgs wants them: flags are booleans, every other kind takes a string. */
+function nodeOptions(byName: ReadonlyMap<string, OptionSpec>): NonNullable<ParseArgsConfig['options']> {
+  const out: NonNullable<ParseArgsConfig['options']> = {};
+  for (const [name, spec] of byName) out[name] = spec.kind === 'flag' ? { type: 'boolean' } : { type: 'string', multiple: spec.kind === 'list' };
+  out.help = { type: 'boolean', short: 'h' };
+  return out;
 }
 
 function convert(spec: OptionSpec, text: string): OptionValue {
