@@ -134,7 +134,7 @@ export interface Snapshot {
   report: StepReport;
   /** Budget rows of the steps since the previous snapshot, oldest first. */
   budget: BudgetRows;
-  /** Fingerprint of the state's bits (stateChecksum.ts). */
+  /** Fingerprint of the state's bits (stateChecksum, lib/io/digest.ts). */
   checksum: string;
   playing: boolean;
   /** The model time a `runUntil` is heading for, or null. */

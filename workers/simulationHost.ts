@@ -18,7 +18,7 @@ import { snapshotExport, zonalCsvExport, zonalNetcdfExport, type ExportedFile } 
 import { macrotask } from './macrotask';
 import { RescuePoint } from './rescuePoint';
 import type { BlowUpStop, ExportKind, InitInfo, ReconfigureResult, SimulationApi, Snapshot, SnapshotRequest } from './simulationApi';
-import { stateChecksum } from './stateChecksum';
+import { stateChecksum } from '../lib/io/digest';
 
 /** Stepping time per slice before the host yields to its message queue (ms): short enough that
  * pause and snapshot requests are answered within a frame, long enough that yielding costs little. */

@@ -10,7 +10,7 @@ import type { RunPlan } from './runPlan';
 import { stateFromJson, stateToJson, PORTABLE_BASE64, type Base64Codec } from './stateJson';
 import { StateShapeError, type CapturedState } from './dataState';
 import { runFileText } from './runFileText';
-import { textDigest } from './textDigest';
+import { textDigest } from '../io/digest';
 
 /**
  * The checkpoint file of `stria run --checkpoint`: a run file (lib/io/runFile.ts: parameters and
@@ -25,7 +25,8 @@ import { textDigest } from './textDigest';
  *     "outputs": { "created_at", "command", "snapshots": { "path", "every", "records" } | null,
  *                  "zonal": { "path", "records" } | null },
  *     "measurement": the MonitoredRunState as JSON (stateJson.ts) | null,
- *     "digest": textDigest.ts of the entry's text without it, a newline, and the run file's text }
+ *     "digest": textDigest (lib/io/digest.ts) of the entry's text without it, a newline, and the
+ *               run file's text }
  *
  * Layout: line 1 is "{", line 2 is ` "progress": ` and the entry as compact JSON, then the run file
  * as encodeRunFile writes it without its opening brace. The digest makes a checkpoint damaged on the

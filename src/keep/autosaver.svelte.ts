@@ -1,6 +1,6 @@
 import type { Checkpoint } from '../../lib/model/checkpoint';
 import { runFileText } from '../../lib/run/runFileText';
-import { stateChecksum } from '../../workers/stateChecksum';
+import { stateChecksum } from '../../lib/io/digest';
 import type { SavedRun } from './autosave';
 import { BROWSER_BASE64 } from './browserBase64';
 import { saveDue, type SaveReason } from './saveDue';

@@ -7,7 +7,7 @@ import { readNetcdf } from '../../lib/io/netcdfRead';
 import { Model } from '../../lib/model/model';
 import { MonitoredRun } from '../../lib/run/monitoredRun';
 import { decodeCheckpointFile } from '../../lib/run/runProgress';
-import { stateChecksum } from '../../workers/stateChecksum';
+import { stateChecksum } from '../../lib/io/digest';
 import { seededSigned } from '../support/random';
 import { scratchDir, stria, striaAsync } from './support/stria';
 

@@ -7,7 +7,7 @@ import { MonitoredRun } from '../../../lib/run/monitoredRun';
 import { runId } from '../../../lib/run/runId';
 import { resolveRunPlan } from '../../../lib/run/runPlan';
 import { CheckpointFileError, decodeCheckpointFile, encodeCheckpointFile, type RunProgress } from '../../../lib/run/runProgress';
-import { textDigest } from '../../../lib/run/textDigest';
+import { textDigest } from '../../../lib/io/digest';
 import { PropertyFailure, type Boundary } from '../support/boundary';
 import { applyEdits, editsArbitrary, textDamage } from '../support/weird';
 
