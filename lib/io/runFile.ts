@@ -3,6 +3,7 @@ import { CHECKPOINT_FORMAT, CHECKPOINT_VERSION, type Checkpoint } from '../model
 import { Grid } from '../model/grid';
 import type { ModelParams } from '../model/params';
 import { ParamError, validateParams } from '../model/validateParams';
+import { decodeBase64, encodeBase64 } from './base64';
 
 /**
  * The Stria run file: a saved run that resumes bit for bit. Versioned JSON:
@@ -65,12 +66,8 @@ const RunFileSchema = v.object({
   ),
 });
 
-/**
- * The run file of a checkpoint, as JSON text. `base64` encodes the spectrum's bytes: the portable
- * encoder by default (about 0.4 s a megabyte); callers with a faster one of the same output pass it
- * (Node's in lib/run/runFileText.ts, the browser's in src/keep/browserBase64.ts).
- */
-export function encodeRunFile(cp: Checkpoint, saved: Date = new Date(), base64: (bytes: Uint8Array) => string = encodeBase64): string {
+/** The run file of a checkpoint, as JSON text. */
+export function encodeRunFile(cp: Checkpoint, saved: Date = new Date()): string {
   const bytes = new Uint8Array(cp.qHat.length * 8);
   const view = new DataView(bytes.buffer);
   for (let i = 0; i < cp.qHat.length; i++) view.setFloat64(8 * i, cp.qHat[i], true);
@@ -84,7 +81,7 @@ export function encodeRunFile(cp: Checkpoint, saved: Date = new Date(), base64: 
       steps: cp.steps,
       dt: cp.dt,
       rng: [...cp.rng],
-      qHat: { encoding: QHAT_ENCODING, length: cp.qHat.length, data: base64(bytes) },
+      qHat: { encoding: QHAT_ENCODING, length: cp.qHat.length, data: encodeBase64(bytes) },
     },
   };
   return JSON.stringify(file, null, 1);
@@ -155,47 +152,4 @@ function checkSpectrum(qHat: Float64Array, grid: Grid): void {
       }
     }
   }
-}
-
-const ALPHABET = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789+/';
-const LOOKUP = new Int16Array(128).fill(-1);
-for (let i = 0; i < ALPHABET.length; i++) LOOKUP[ALPHABET.charCodeAt(i)] = i;
-
-/** Standard base64 with padding (RFC 4648 §4). Kept here because lib/ may use no DOM or Node API. */
-export function encodeBase64(bytes: Uint8Array): string {
-  const parts: string[] = [];
-  let chunk = '';
-  for (let i = 0; i < bytes.length; i += 3) {
-    const n = (bytes[i] << 16) | ((bytes[i + 1] ?? 0) << 8) | (bytes[i + 2] ?? 0);
-    chunk += ALPHABET[(n >> 18) & 63] + ALPHABET[(n >> 12) & 63];
-    chunk += i + 1 < bytes.length ? ALPHABET[(n >> 6) & 63] : '=';
-    chunk += i + 2 < bytes.length ? ALPHABET[n & 63] : '=';
-    if (chunk.length >= 8192) {
-      parts.push(chunk);
-      chunk = '';
-    }
-  }
-  parts.push(chunk);
-  return parts.join('');
-}
-
-/** The bytes of a padded base64 string; `field` names it in the error when it is malformed. */
-export function decodeBase64(text: string, field = '(base64)'): Uint8Array {
-  if (text.length % 4 !== 0) throw new RunFileError(field, `base64 length ${text.length} is not a multiple of 4`);
-  const pad = text.endsWith('==') ? 2 : text.endsWith('=') ? 1 : 0;
-  const out = new Uint8Array((text.length / 4) * 3 - pad);
-  let o = 0;
-  for (let i = 0; i < text.length; i += 4) {
-    let n = 0;
-    for (let j = 0; j < 4; j++) {
-      const c = text.charCodeAt(i + j);
-      const d = c === 61 && i + j >= text.length - pad ? 0 : c < 128 ? LOOKUP[c] : -1;
-      if (d < 0) throw new RunFileError(field, `invalid base64 character at position ${i + j}`);
-      n = (n << 6) | d;
-    }
-    if (o < out.length) out[o++] = (n >> 16) & 255;
-    if (o < out.length) out[o++] = (n >> 8) & 255;
-    if (o < out.length) out[o++] = n & 255;
-  }
-  return out;
 }

@@ -1,5 +1,5 @@
 import * as v from 'valibot';
-import { decodeRunFile, RunFileError } from '../io/runFile';
+import { decodeRunFile, encodeRunFile, RunFileError } from '../io/runFile';
 import type { Checkpoint } from '../model/checkpoint';
 import type { ModelParams } from '../model/params';
 import { ParamError, validateParams } from '../model/validateParams';
@@ -7,9 +7,8 @@ import type { RetryRecord } from './blowUpRetry';
 import type { MonitoredRunState, RunOrigin } from './monitoredRun';
 import { runId } from './runId';
 import type { RunPlan } from './runPlan';
-import { stateFromJson, stateToJson, PORTABLE_BASE64, type Base64Codec } from './stateJson';
+import { stateFromJson, stateToJson } from './stateJson';
 import { StateShapeError, type CapturedState } from './dataState';
-import { runFileText } from './runFileText';
 import { textDigest } from '../io/digest';
 
 /**
@@ -117,13 +116,13 @@ const ProgressSchema = v.strictObject({
 });
 
 /** The checkpoint file's text: the run file of `cp` with the progress entry first. */
-export function encodeCheckpointFile(cp: Checkpoint, progress: RunProgress, codec: Base64Codec = PORTABLE_BASE64, saved: Date = new Date()): string {
-  const runFile = runFileText(cp, saved, codec);
+export function encodeCheckpointFile(cp: Checkpoint, progress: RunProgress, saved: Date = new Date()): string {
+  const runFile = encodeRunFile(cp, saved);
   const entry = {
     format: PROGRESS_FORMAT,
     version: PROGRESS_VERSION,
     ...progress,
-    measurement: progress.measurement ? stateToJson(progress.measurement as unknown as CapturedState, codec) : null,
+    measurement: progress.measurement ? stateToJson(progress.measurement as unknown as CapturedState) : null,
   };
   // The run file is one JSON object: put the entry first (a splice, not a second multi-megabyte encode).
   if (runFile[0] !== '{') throw new RangeError('encodeCheckpointFile: a run file is a JSON object');
@@ -137,7 +136,7 @@ export function encodeCheckpointFile(cp: Checkpoint, progress: RunProgress, code
  * field) and its progress entry, checked field by field. A run file without progress is refused
  * (it holds a state but not the run it belongs to: continue it with `stria run FILE`).
  */
-export function decodeCheckpointFile(text: string, codec: Base64Codec = PORTABLE_BASE64): { checkpoint: Checkpoint; progress: RunProgress } {
+export function decodeCheckpointFile(text: string): { checkpoint: Checkpoint; progress: RunProgress } {
   // Damage anywhere is caught here, before any part of the file is believed.
   const { entry, runFile } = sealedEntry(text);
   let checkpoint: Checkpoint;
@@ -170,7 +169,7 @@ export function decodeCheckpointFile(text: string, codec: Base64Codec = PORTABLE
   if (checkpoint.steps < p.origin.steps || checkpoint.time < p.origin.time) throw new CheckpointFileError('progress.origin', 'lies after the saved state');
   return {
     checkpoint,
-    progress: { id: p.id, params, plan, origin: p.origin, retries: p.retries as RetryRecord[], outputs: p.outputs, measurement: p.measurement === null ? null : measurementFromJson(p.measurement, codec) },
+    progress: { id: p.id, params, plan, origin: p.origin, retries: p.retries as RetryRecord[], outputs: p.outputs, measurement: p.measurement === null ? null : measurementFromJson(p.measurement) },
   };
 }
 
@@ -209,10 +208,10 @@ function sealedEntry(text: string): { entry: unknown; runFile: string } {
   }
 }
 
-function measurementFromJson(j: unknown, codec: Base64Codec): MonitoredRunState {
+function measurementFromJson(j: unknown): MonitoredRunState {
   let s: unknown;
   try {
-    s = stateFromJson(j, codec, 'progress.measurement');
+    s = stateFromJson(j, 'progress.measurement');
   } catch (e) {
     if (e instanceof StateShapeError) throw new CheckpointFileError(e.path, e.reason);
     throw e;

@@ -1,5 +1,4 @@
 import fc from 'fast-check';
-import { NODE_BASE64 } from '../../../cli/nodeBase64';
 import { Model } from '../../../lib/model/model';
 import { BlowUpError } from '../../../lib/model/stepper';
 import { StateShapeError } from '../../../lib/run/dataState';
@@ -33,7 +32,7 @@ function checkpointOf(params: Record<string, unknown>, steps: number, until: num
     outputs: { created_at: '2026-01-01T00:00:00Z', command: 'stria run', snapshots: null, zonal: { path: 'z.nc', records: 3 } },
     measurement: run.saveState(),
   };
-  return encodeCheckpointFile(model.checkpoint(), progress, NODE_BASE64, new Date('2026-01-01T00:00:00Z'));
+  return encodeCheckpointFile(model.checkpoint(), progress, new Date('2026-01-01T00:00:00Z'));
 }
 
 const FILES = [checkpointOf({ nx: 32, ny: 32, kf: 8, dkf: 1.5, dt: 0.01, init_energy: 1 }, 12, 1), checkpointOf({ nx: 32, ny: 32, kf: 6, dkf: 1, dt: 0.02, cfl: 0, mu: 0.1 }, 7, 2)];
@@ -80,7 +79,7 @@ export const boundary: Boundary<string> = {
   check(text) {
     let decoded;
     try {
-      decoded = decodeCheckpointFile(text, NODE_BASE64);
+      decoded = decodeCheckpointFile(text);
     } catch (e) {
       if (!(e instanceof CheckpointFileError)) throw new PropertyFailure(`decodeCheckpointFile threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}, not a CheckpointFileError`);
       if (!e.field || !e.message.includes(e.field)) throw new PropertyFailure(`a CheckpointFileError names no field: ${e.message}`);

@@ -1,5 +1,6 @@
 import fc from 'fast-check';
-import { decodeBase64, decodeRunFile, encodeBase64, encodeRunFile, RunFileError } from '../../../lib/io/runFile';
+import { decodeBase64, encodeBase64 } from '../../../lib/io/base64';
+import { decodeRunFile, encodeRunFile, RunFileError } from '../../../lib/io/runFile';
 import type { Checkpoint } from '../../../lib/model/checkpoint';
 import { Model } from '../../../lib/model/model';
 import { PropertyFailure, type Boundary } from '../support/boundary';
