@@ -2,7 +2,8 @@ import { readFileSync } from 'node:fs';
 import type { Checkpoint } from '../lib/model/checkpoint';
 import type { RetryRecord } from '../lib/run/blowUpRetry';
 import type { MonitoredRun } from '../lib/run/monitoredRun';
-import { CheckpointFileError, decodeCheckpointFile, encodeCheckpointFile, type RunProgress } from '../lib/run/runProgress';
+import { decodeCheckpointFile, encodeCheckpointFile, type RunProgress } from '../lib/run/runProgress';
+import { isInputError } from '../lib/inputError';
 import { UsageError } from './args';
 import { removeStaleTemporaries, writeFileAtomic } from './atomicFile';
 import type { RunOutputs } from './runOutputs';
@@ -53,7 +54,7 @@ export function readCheckpoint(path: string): { checkpoint: Checkpoint; progress
   try {
     return decodeCheckpointFile(text);
   } catch (e) {
-    if (e instanceof CheckpointFileError) throw new UsageError(`--resume ${path}: ${e.field}: ${e.reason}`);
+    if (isInputError(e, 'checkpoint file')) throw new UsageError(`--resume ${path}: ${e.field}: ${e.reason}`);
     throw e;
   }
 }

@@ -1,4 +1,4 @@
-import { RunFileError } from './runFile';
+import { InputError } from '../inputError';
 
 /**
  * Standard base64 with padding (RFC 4648 §4), the one codec of run files, checkpoints and the app.
@@ -52,11 +52,12 @@ export function encodeBase64(bytes: Uint8Array): string {
 }
 
 /**
- * The bytes of a padded base64 string; `field` names it in the error when it is malformed. "=" counts
+ * The bytes of a padded base64 string. A malformed one is refused as a run file's entry would be
+ * (an InputError of source 'run file'), `field` naming it. "=" counts
  * only as the one or two last characters; bits past the last whole byte are dropped.
  */
 export function decodeBase64(text: string, field = '(base64)'): Uint8Array {
-  if (text.length % 4 !== 0) throw new RunFileError(field, `base64 length ${text.length} is not a multiple of 4`);
+  if (text.length % 4 !== 0) throw new InputError('run file', field, `base64 length ${text.length} is not a multiple of 4`);
   const pad = text.endsWith('==') ? 2 : text.endsWith('=') ? 1 : 0;
   const out = new Uint8Array((text.length / 4) * 3 - pad);
   // Every group of four but a padded last one gives three bytes.
@@ -87,8 +88,8 @@ function value(text: string, i: number): number {
 }
 
 /** The error for the first character from `from` on that is neither in the alphabet nor padding. */
-function invalidCharacter(text: string, from: number, pad: number, field: string): RunFileError {
+function invalidCharacter(text: string, from: number, pad: number, field: string): InputError {
   let i = from;
   while (i < text.length && (value(text, i) >= 0 || i >= text.length - pad)) i++;
-  return new RunFileError(field, `invalid base64 character at position ${i}`);
+  return new InputError('run file', field, `invalid base64 character at position ${i}`);
 }

@@ -2,7 +2,8 @@ import * as v from 'valibot';
 import { CHECKPOINT_FORMAT, CHECKPOINT_VERSION, type Checkpoint } from '../model/checkpoint';
 import { Grid } from '../model/grid';
 import type { ModelParams } from '../model/params';
-import { ParamError, validateParams } from '../model/validateParams';
+import { InputError, isInputError } from '../inputError';
+import { validateParams } from '../model/validateParams';
 import { decodeBase64, encodeBase64 } from './base64';
 
 /**
@@ -21,17 +22,6 @@ import { decodeBase64, encodeBase64 } from './base64';
 export const RUN_FILE_FORMAT = 'stria-run';
 export const RUN_FILE_VERSION = 1;
 export const QHAT_ENCODING = 'float64le-base64';
-
-/** A refused run file: `field` is the path of the offending entry (e.g. "state.qHat.data", "params.nu"). */
-export class RunFileError extends Error {
-  constructor(
-    readonly field: string,
-    readonly reason: string,
-  ) {
-    super(`run file: ${field}: ${reason}`);
-    this.name = 'RunFileError';
-  }
-}
 
 const int32 = v.pipe(v.number('must be a number'), v.integer('must be an integer'), v.minValue(-0x80000000, 'must fit in a signed 32-bit integer'), v.maxValue(0x7fffffff, 'must fit in a signed 32-bit integer'));
 const finite = (what: string) => v.pipe(v.number(`${what}: must be a number`), v.finite(`${what}: must be finite`));
@@ -87,40 +77,43 @@ export function encodeRunFile(cp: Checkpoint, saved: Date = new Date()): string 
   return JSON.stringify(file, null, 1);
 }
 
-/** Read a run file back into a checkpoint, or throw RunFileError naming the first bad entry. */
+/**
+ * Read a run file back into a checkpoint, or throw an InputError of source 'run file' naming the
+ * first bad entry by its path (e.g. "state.qHat.data", "params.nu").
+ */
 export function decodeRunFile(text: string): Checkpoint {
   let json: unknown;
   try {
     json = JSON.parse(text);
   } catch (e) {
-    throw new RunFileError('(file)', `not JSON (${e instanceof Error ? e.message : String(e)})`);
+    throw new InputError('run file', '(file)', `not JSON (${e instanceof Error ? e.message : String(e)})`);
   }
   const parsed = v.safeParse(RunFileSchema, json);
   if (!parsed.success) {
     const issue = parsed.issues[0];
     const path = issue.path?.map((p) => String(p.key)).join('.') || '(file)';
-    throw new RunFileError(path, issue.message);
+    throw new InputError('run file', path, issue.message);
   }
   const { params: rawParams, state } = parsed.output;
   let params: ModelParams;
   try {
     params = validateParams(rawParams);
   } catch (e) {
-    if (e instanceof ParamError) throw new RunFileError(`params.${e.issues[0].field}`, e.issues[0].message);
+    if (isInputError(e, 'parameters')) throw new InputError('run file', `params.${e.issues[0].field}`, e.issues[0].message);
     throw e;
   }
   // A clock at which one more step changes nothing (t + dt = t) would never reach a later time.
   if (!(state.time + Math.min(state.dt, params.dt) > state.time)) {
-    throw new RunFileError('state.time', `t = ${state.time} is too large for the time step ${Math.min(state.dt, params.dt)} to advance it`);
+    throw new InputError('run file', 'state.time', `t = ${state.time} is too large for the time step ${Math.min(state.dt, params.dt)} to advance it`);
   }
   const grid = new Grid(params);
   const expected = 2 * grid.spectralSize;
   if (state.qHat.length !== expected) {
-    throw new RunFileError('state.qHat.length', `is ${state.qHat.length}, but a ${params.nx} × ${params.ny} grid needs ${expected}`);
+    throw new InputError('run file', 'state.qHat.length', `is ${state.qHat.length}, but a ${params.nx} × ${params.ny} grid needs ${expected}`);
   }
   const bytes = decodeBase64(state.qHat.data, 'state.qHat.data');
   if (bytes.length !== 8 * expected) {
-    throw new RunFileError('state.qHat.data', `holds ${bytes.length} bytes, but ${expected} doubles need ${8 * expected}`);
+    throw new InputError('run file', 'state.qHat.data', `holds ${bytes.length} bytes, but ${expected} doubles need ${8 * expected}`);
   }
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const qHat = new Float64Array(expected);
@@ -145,10 +138,10 @@ function checkSpectrum(qHat: Float64Array, grid: Grid): void {
     for (let ix = 0; ix < grid.nkx; ix++) {
       const t = 2 * (jy * grid.nkx + ix);
       if (!Number.isFinite(qHat[t]) || !Number.isFinite(qHat[t + 1])) {
-        throw new RunFileError('state.qHat.data', `mode (ix ${ix}, jy ${jy}) is not a finite number`);
+        throw new InputError('run file', 'state.qHat.data', `mode (ix ${ix}, jy ${jy}) is not a finite number`);
       }
       if (!grid.kept(ix, jy) && (qHat[t] !== 0 || qHat[t + 1] !== 0)) {
-        throw new RunFileError('state.qHat.data', `mode (ix ${ix}, jy ${jy}) lies outside the dealiased range but is not zero`);
+        throw new InputError('run file', 'state.qHat.data', `mode (ix ${ix}, jy ${jy}) lies outside the dealiased range but is not zero`);
       }
     }
   }

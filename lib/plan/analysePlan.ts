@@ -33,8 +33,8 @@ export interface PlanAnalysis {
 }
 
 /**
- * Resolve, predict, check, cost and match a plan input. Throws PlanInputError for an invalid input;
- * everything after validation is reported, not thrown.
+ * Resolve, predict, check, cost and match a plan input. Throws an InputError of source 'plan input'
+ * for an invalid input; everything after validation is reported, not thrown.
  */
 export function analysePlan(input: unknown, opts: MatchedRunOptions = {}): PlanAnalysis {
   const plan = resolvePlan(input);

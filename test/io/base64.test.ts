@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
+import { InputError } from '../../lib/inputError';
 import { decodeBase64, encodeBase64 } from '../../lib/io/base64';
-import { decodeRunFile, encodeRunFile, RunFileError } from '../../lib/io/runFile';
+import { decodeRunFile, encodeRunFile } from '../../lib/io/runFile';
 import { Model } from '../../lib/model/model';
 
 /** Seeded bytes (a 32-bit LCG), so every value 0–255 turns up. */
@@ -70,8 +71,9 @@ describe('base64', () => {
       } catch (e) {
         error = e;
       }
-      expect(error, bad).toBeInstanceOf(RunFileError);
-      expect((error as RunFileError).message, bad).toBe(`run file: state.qHat.data: ${reason}`);
+      expect(error, bad).toBeInstanceOf(InputError);
+      expect((error as InputError).source, bad).toBe('run file');
+      expect((error as InputError).message, bad).toBe(`run file: state.qHat.data: ${reason}`);
     }
     expect(() => decodeBase64('AB-D')).toThrow('run file: (base64): invalid base64 character at position 2');
   });

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
+import { InputError, isInputError } from '../../lib/inputError';
 import { decodeBase64 } from '../../lib/io/base64';
-import { decodeRunFile, encodeRunFile, RunFileError } from '../../lib/io/runFile';
+import { decodeRunFile, encodeRunFile } from '../../lib/io/runFile';
 import { Model } from '../../lib/model/model';
 
 // A small forced run, a few steps in, so the spectrum, clock, adaptive dt and random stream are all non-trivial.
@@ -16,11 +17,11 @@ function fileObject(): Record<string, any> {
   return JSON.parse(encodeRunFile(steppedModel().checkpoint()));
 }
 
-function refusal(text: string): RunFileError {
+function refusal(text: string): InputError {
   try {
     decodeRunFile(text);
   } catch (e) {
-    if (e instanceof RunFileError) return e;
+    if (isInputError(e, 'run file')) return e;
     throw e;
   }
   throw new Error('the run file was accepted');
