@@ -2,10 +2,10 @@ import { readFileSync } from 'node:fs';
 import type { Checkpoint } from '../lib/model/checkpoint';
 import type { RetryRecord } from '../lib/run/blowUpRetry';
 import type { MonitoredRun } from '../lib/run/monitoredRun';
-import { CheckpointFileError, decodeCheckpointFile, encodeCheckpointFile, type RunProgress } from '../lib/run/runProgress';
+import { decodeCheckpointFile, encodeCheckpointFile, type RunProgress } from '../lib/run/runProgress';
+import { isInputError } from '../lib/inputError';
 import { UsageError } from './args';
 import { removeStaleTemporaries, writeFileAtomic } from './atomicFile';
-import { NODE_BASE64 } from './nodeBase64';
 import type { RunOutputs } from './runOutputs';
 
 /**
@@ -33,7 +33,7 @@ export class CheckpointStore {
     outputs.sync();
     const { createdAt, command, ...rest } = this.base;
     const progress: RunProgress = { ...rest, retries: [...retries], outputs: { created_at: createdAt, command, ...outputs.progress() }, measurement: run.saveState() };
-    const text = encodeCheckpointFile(run.model.checkpoint(), progress, NODE_BASE64);
+    const text = encodeCheckpointFile(run.model.checkpoint(), progress);
     try {
       writeFileAtomic(this.path, text);
     } catch (e) {
@@ -52,9 +52,9 @@ export function readCheckpoint(path: string): { checkpoint: Checkpoint; progress
     throw new UsageError(`--resume ${path}: cannot read it: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
   }
   try {
-    return decodeCheckpointFile(text, NODE_BASE64);
+    return decodeCheckpointFile(text);
   } catch (e) {
-    if (e instanceof CheckpointFileError) throw new UsageError(`--resume ${path}: ${e.field}: ${e.reason}`);
+    if (isInputError(e, 'checkpoint file')) throw new UsageError(`--resume ${path}: ${e.field}: ${e.reason}`);
     throw e;
   }
 }

@@ -1,9 +1,10 @@
 import { readFileSync } from 'node:fs';
 import type { Checkpoint } from '../lib/model/checkpoint';
 import { DEFAULT_PARAMS, type ModelParams } from '../lib/model/params';
-import { ParamError, validateParams } from '../lib/model/validateParams';
-import { decodeRunFile, RUN_FILE_FORMAT, RunFileError } from '../lib/io/runFile';
+import { validateParams } from '../lib/model/validateParams';
+import { decodeRunFile, RUN_FILE_FORMAT } from '../lib/io/runFile';
 import { DEMO_SCENARIOS, scenarioById } from '../lib/plan/demoScenarios';
+import { isInputError } from '../lib/inputError';
 import { parseNumber, UsageError } from './args';
 
 /**
@@ -45,7 +46,7 @@ function checked(input: Record<string, unknown>, changes: Record<string, unknown
   try {
     return validateParams(input);
   } catch (e) {
-    if (!(e instanceof ParamError)) throw e;
+    if (!isInputError(e, 'parameters')) throw e;
     throw new UsageError(
       e.issues.map((i) => `parameter ${i.field} = ${JSON.stringify(i.value)}: ${i.message}${i.field in changes ? ` (from --set ${i.field})` : ''}`).join('; '),
     );
@@ -72,7 +73,7 @@ function readParamFile(path: string): { params: Record<string, unknown>; checkpo
       const cp = decodeRunFile(text);
       return { params: cp.params as unknown as Record<string, unknown>, checkpoint: cp };
     } catch (e) {
-      if (e instanceof RunFileError) throw new UsageError(`${path}: ${e.field}: ${e.reason}`);
+      if (isInputError(e, 'run file')) throw new UsageError(`${path}: ${e.field}: ${e.reason}`);
       throw e;
     }
   }

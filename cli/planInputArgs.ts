@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
-import { parsePlanFile, PlanFileError } from '../lib/plan/planFile';
+import { parsePlanFile } from '../lib/plan/planFile';
 import { PLAN_PRESETS } from '../lib/plan/planPresets';
+import { isInputError } from '../lib/inputError';
 import { parseNumber, UsageError } from './args';
 
 /**
@@ -24,7 +25,7 @@ export function planInputFrom(file: string | undefined, preset: string | undefin
     try {
       input = structuredClone(parsePlanFile(text).input) as unknown as Record<string, unknown>;
     } catch (e) {
-      if (e instanceof PlanFileError) throw new UsageError(`${file}: ${e.message}`);
+      if (isInputError(e, 'plan file')) throw new UsageError(`${file}: ${e.message}`);
       throw e;
     }
   } else if (preset !== undefined) {

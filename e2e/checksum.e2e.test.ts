@@ -4,12 +4,12 @@ import type { ModelParams } from '../lib/model/params';
 import { validateParams } from '../lib/model/validateParams';
 import { DEFAULT_SCENARIO_ID, scenarioById } from '../lib/plan/demoScenarios';
 import { encodeRunLink } from '../src/share/runLink';
-import { stateChecksum } from '../workers/stateChecksum';
+import { stateChecksum } from '../lib/io/digest';
 import { launchChromium, type BrowserSession } from './support/browser';
 import { openApp, readText, resetAndStep } from './support/app';
 
 // Same parameters, seed and step count give the same bits in Chromium and in Node: the state
-// checksum (workers/stateChecksum.ts) the page shows against the one of a Model stepped here.
+// checksum (stateChecksum, lib/io/digest.ts) the page shows against the one of a Model stepped here.
 
 const STEPS = 50;
 const base = scenarioById(DEFAULT_SCENARIO_ID)!.params;

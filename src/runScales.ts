@@ -12,7 +12,6 @@ import {
   type Regime,
   type RhinesConvention,
 } from '../lib/analysis/scales';
-import type { ScaleId } from '../lib/analysis/runScales';
 import type { StepReport } from '../lib/model/budget';
 import type { ModelParams } from '../lib/model/params';
 import { keptRadius } from '../lib/model/validateParams';
@@ -39,6 +38,9 @@ export function zonostrophyAt(p: ModelParams, U: number): Zonostrophy | null {
   const R = zonostrophyIndex(kBeta, kR);
   return { U, kBeta, kR, R, regime: regimeOf(R) };
 }
+
+/** The rungs of the scale ladder, one per length scale of a run (formulas in lib/analysis/scales.ts). */
+export type ScaleId = 'domain' | 'rhines' | 'transitional' | 'friction' | 'forcing' | 'deformation' | 'dissipation' | 'grid';
 
 /** One wavenumber of the ladder (k in rad per L; a length ℓ sits at k = 2π/ℓ). */
 export interface Rung {
@@ -82,7 +84,6 @@ function dissipationRung(p: ModelParams, eta: number, source: string): Rung[] {
  * report (the worker's; the UI holds no model). Predicted: U = (ε/μ)^½ and the injected enstrophy
  * rate η (report.enstrophy.injection, exact for the forced annulus). Measured: U_rms = (2·KE)^½ and
  * the rate at which hyperviscosity removes enstrophy (the η that actually reaches small scales).
- * lib/analysis/runScales.ts computes the measured ladder from a state, for the worker and the CLI.
  */
 export function scaleLadder(p: ModelParams, report: StepReport, convention: RhinesConvention): ScaleLadder {
   const fixed: Rung[] = [{ id: 'domain', symbol: 'k_L', k: (2 * Math.PI) / Math.max(p.Lx, p.Ly), title: 'domain, 2π/max(Lx, Ly)' }];

@@ -6,7 +6,7 @@ import type { StepReport } from '../lib/model/budget';
 import type { Checkpoint } from '../lib/model/checkpoint';
 import type { FieldName } from '../lib/model/fields';
 import type { ModelParams } from '../lib/model/params';
-import type { ParamIssue } from '../lib/model/validateParams';
+import type { InputIssue } from '../lib/inputError';
 import type { BudgetRows } from './budgetRows';
 import type { DiagnosticNeeds, DiagnosticsPayload, MonitorStatus, SamplingOptions } from './diagnosticsApi';
 import type { ExportedFile } from './runExports';
@@ -27,7 +27,7 @@ import type { ExportedFile } from './runExports';
  */
 export interface SimulationApi {
   /**
-   * Build a new model (parameters completed with the defaults and validated; throws ParamError),
+   * Build a new model (parameters completed with the defaults and validated; throws an InputError),
    * sampled as `sampling` says (what it leaves out at the defaults, whatever was set before). Leaves it paused.
    */
   init(params: Partial<ModelParams>, sampling?: SamplingOptions): Promise<InitInfo>;
@@ -93,7 +93,7 @@ export interface InitInfo {
  * state, time and random stream), `regrid` (state carried to the new grid) or `fresh` (new domain:
  * a new run from t = 0).
  */
-export type ReconfigureResult = { applied: true; how: 'inPlace' | 'regrid' | 'fresh'; params: ModelParams } | { applied: false; issues: ParamIssue[] };
+export type ReconfigureResult = { applied: true; how: 'inPlace' | 'regrid' | 'fresh'; params: ModelParams } | { applied: false; issues: InputIssue[] };
 
 /** A blow-up, and the offer to go back to the last checkpoint with the step halved. */
 export interface BlowUpStop {
@@ -134,7 +134,7 @@ export interface Snapshot {
   report: StepReport;
   /** Budget rows of the steps since the previous snapshot, oldest first. */
   budget: BudgetRows;
-  /** Fingerprint of the state's bits (stateChecksum.ts). */
+  /** Fingerprint of the state's bits (stateChecksum, lib/io/digest.ts). */
   checksum: string;
   playing: boolean;
   /** The model time a `runUntil` is heading for, or null. */

@@ -5,7 +5,7 @@ import type { FieldName } from '../lib/model/fields';
 import { Model } from '../lib/model/model';
 import type { ModelParams } from '../lib/model/params';
 import { BlowUpError } from '../lib/model/stepper';
-import { ParamError, validateParams } from '../lib/model/validateParams';
+import { validateParams } from '../lib/model/validateParams';
 import type { RunSummary } from '../lib/analysis/summary';
 import { blowUpReport, retryCheckpoint, retryRecord } from '../lib/run/blowUpRetry';
 import { runSweepJob } from '../lib/sweep/runSweepJob';
@@ -18,7 +18,8 @@ import { snapshotExport, zonalCsvExport, zonalNetcdfExport, type ExportedFile } 
 import { macrotask } from './macrotask';
 import { RescuePoint } from './rescuePoint';
 import type { BlowUpStop, ExportKind, InitInfo, ReconfigureResult, SimulationApi, Snapshot, SnapshotRequest } from './simulationApi';
-import { stateChecksum } from './stateChecksum';
+import { stateChecksum } from '../lib/io/digest';
+import { isInputError } from '../lib/inputError';
 
 /** Stepping time per slice before the host yields to its message queue (ms): short enough that
  * pause and snapshot requests are answered within a frame, long enough that yielding costs little. */
@@ -119,7 +120,7 @@ export class SimulationHost implements SimulationApi {
     try {
       validateParams({ ...model.params, ...changes });
     } catch (e) {
-      if (e instanceof ParamError) return { applied: false, issues: e.issues };
+      if (isInputError(e, 'parameters')) return { applied: false, issues: e.issues };
       throw e;
     }
     const old = model.params;
@@ -258,7 +259,7 @@ export class SimulationHost implements SimulationApi {
       try {
         validateParams(this.retry.params);
       } catch (err) {
-        if (!(err instanceof ParamError)) throw err;
+        if (!isInputError(err, 'parameters')) throw err;
         refused = `with the step halved, ${err.message}`;
       }
     }

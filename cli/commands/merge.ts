@@ -2,7 +2,8 @@ import { existsSync, mkdirSync, readFileSync, statSync, writeFileSync } from 'no
 import { join } from 'node:path';
 import { canonicalJson } from '../../lib/run/runId';
 import { joinRecords } from '../../lib/sweep/sweepRecord';
-import { parseSweepSpec, SweepSpecError, type SweepSpec } from '../../lib/sweep/sweepSpec';
+import { parseSweepSpec, type SweepSpec } from '../../lib/sweep/sweepSpec';
+import { isInputError } from '../../lib/inputError';
 import { UsageError, type OptionSpec, type ParsedArgs } from '../args';
 import { EXIT_OK, type Command, type CommandIO } from '../command';
 import { readRunsLog, writeRunsLog } from '../sweep/runsLog';
@@ -72,7 +73,7 @@ function readSpecBeside(input: string, runsFile: string): { spec: SweepSpec; jso
     const json: unknown = JSON.parse(text);
     return { spec: parseSweepSpec(json), json, text };
   } catch (e) {
-    if (e instanceof SyntaxError || e instanceof SweepSpecError) throw new UsageError(`${input}: spec.json is not a sweep spec (${e.message})`);
+    if (e instanceof SyntaxError || isInputError(e, 'sweep spec')) throw new UsageError(`${input}: spec.json is not a sweep spec (${e.message})`);
     throw e;
   }
 }

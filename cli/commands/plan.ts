@@ -5,11 +5,11 @@ import { Model } from '../../lib/model/model';
 import { BlowUpError } from '../../lib/model/stepper';
 import { analysePlan, type PlanAnalysis } from '../../lib/plan/analysePlan';
 import type { MatchedRun } from '../../lib/plan/matchedRun';
-import { PlanInputError } from '../../lib/plan/planInput';
 import { PLAN_PRESETS } from '../../lib/plan/planPresets';
 import { planReportHtml, planReportMarkdown } from '../../lib/plan/planReport';
 import { MonitoredRun } from '../../lib/run/monitoredRun';
 import { resolveRunPlan } from '../../lib/run/runPlan';
+import { isInputError } from '../../lib/inputError';
 import { UsageError, type OptionSpec, type ParsedArgs } from '../args';
 import { EXIT_FAILED, EXIT_INTERRUPTED, EXIT_OK, type Command, type CommandIO } from '../command';
 import { planInputFrom } from '../planInputArgs';
@@ -56,7 +56,7 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   try {
     analysis = analysePlan(input, target === undefined ? {} : { targetWallSeconds: target });
   } catch (e) {
-    if (!(e instanceof PlanInputError)) throw e;
+    if (!isInputError(e, 'plan input')) throw e;
     throw new UsageError(`plan refused: ${e.issues.map((i) => `${i.field}: ${i.message}${setPaths.includes(i.field) ? ` (from --set ${i.field})` : ''}`).join('; ')}`);
   }
   if (report) writeFileSync(report, extname(report).toLowerCase() === '.html' ? planReportHtml(analysis) : planReportMarkdown(analysis));

@@ -4,12 +4,12 @@ import { encodeRunFile } from '../../lib/io/runFile';
 import { Model } from '../../lib/model/model';
 import type { ModelParams } from '../../lib/model/params';
 import { blowUpReport, DEFAULT_MAX_RETRIES, describeBlowUp, type BlowUpPolicy, type RetryRecord } from '../../lib/run/blowUpRetry';
-import { StateShapeError } from '../../lib/run/dataState';
 import { MonitoredRun, type RunOrigin } from '../../lib/run/monitoredRun';
 import { runId } from '../../lib/run/runId';
 import { checkMemoryBudget, estimateRunMemory, MemoryBudgetError } from '../../lib/run/runMemory';
-import { describeStopRule, resolveRunPlan, RunPlanError, type RunLengthRequest, type RunPlan } from '../../lib/run/runPlan';
+import { describeStopRule, resolveRunPlan, type RunLengthRequest, type RunPlan } from '../../lib/run/runPlan';
 import type { RunProgress } from '../../lib/run/runProgress';
+import { isInputError } from '../../lib/inputError';
 import { UsageError, type OptionSpec, type ParsedArgs } from '../args';
 import { DEFAULT_MEMORY_BUDGET, parseByteSize } from '../byteSize';
 import { CheckpointStore, readCheckpoint } from '../checkpointStore';
@@ -231,7 +231,7 @@ function restoreMeasurement(run: MonitoredRun, progress: RunProgress, io: Comman
   try {
     run.restoreState(progress.measurement);
   } catch (e) {
-    if (!(e instanceof StateShapeError)) throw e;
+    if (!isInputError(e, 'state')) throw e;
     io.err.write(`stria run: the checkpoint's measurement does not fit this Stria (${e.message}): the summary covers the run from the resume point\n`);
   }
 }
@@ -250,7 +250,7 @@ function runPlanOf(params: ModelParams, o: ParsedArgs['options'], start: number)
   try {
     return resolveRunPlan(params, req, start);
   } catch (e) {
-    if (!(e instanceof RunPlanError)) throw e;
+    if (!isInputError(e, 'run length')) throw e;
     const option = OPTION_OF[e.field] ?? e.field;
     // Say it in the command's words: the option names, not the fields of a RunPlan.
     const message = e.message.replace(/\b(steps|until|untilSteady|steadyTolerance|steadyWindow|maxTime|average|sampleEvery)\b/g, (k) => OPTION_OF[k] ?? k);

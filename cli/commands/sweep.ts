@@ -4,8 +4,9 @@ import { parseShard, selectShard, type Shard } from '../../lib/sweep/shard';
 import type { SweepRecord } from '../../lib/sweep/sweepRecord';
 import { joinRecords } from '../../lib/sweep/sweepRecord';
 import { describePoint, expandSweep, type SweepJob } from '../../lib/sweep/sweepRuns';
-import { parseSweepSpec, SweepSpecError, type SweepSpec } from '../../lib/sweep/sweepSpec';
+import { parseSweepSpec, type SweepSpec } from '../../lib/sweep/sweepSpec';
 import { estimateRunMemory, formatBytes } from '../../lib/run/runMemory';
+import { isInputError } from '../../lib/inputError';
 import { UsageError, type OptionSpec, type ParsedArgs } from '../args';
 import { DEFAULT_MEMORY_BUDGET, parseByteSize } from '../byteSize';
 import { CLI_RUNTIME_BYTES } from './run';
@@ -61,7 +62,7 @@ field is named.`,
   run,
 };
 
-/** Read and check a spec file: SweepSpecError and unreadable files become usage errors. */
+/** Read and check a spec file: refused specs and unreadable files become usage errors. */
 export function readSpec(path: string): { spec: SweepSpec; text: string } {
   let text: string;
   try {
@@ -78,7 +79,7 @@ export function readSpec(path: string): { spec: SweepSpec; text: string } {
   try {
     return { spec: parseSweepSpec(json), text };
   } catch (e) {
-    if (e instanceof SweepSpecError) throw new UsageError(`${path}: ${e.field}: ${e.reason}`);
+    if (isInputError(e, 'sweep spec')) throw new UsageError(`${path}: ${e.field}: ${e.reason}`);
     throw e;
   }
 }
@@ -92,7 +93,7 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   try {
     jobs = expandSweep(spec);
   } catch (e) {
-    if (e instanceof SweepSpecError) throw new UsageError(`${specPath}: ${e.field}: ${e.reason}`);
+    if (isInputError(e, 'sweep spec')) throw new UsageError(`${specPath}: ${e.field}: ${e.reason}`);
     throw e;
   }
   let shard: Shard | null = null;

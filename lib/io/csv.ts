@@ -1,5 +1,3 @@
-import { utf8Decode, utf8Encode } from './utf8';
-
 /**
  * CSV of columnar data (RFC 4180): a header row of column names, then one row per index, fields
  * separated by commas, records ended by CRLF (the last one too). A field is quoted when it holds a
@@ -41,7 +39,7 @@ export function formatCsv(columns: readonly CsvColumn[]): string {
 
 /** The CSV as UTF-8 bytes, without a byte-order mark. */
 export function encodeCsv(columns: readonly CsvColumn[]): Uint8Array {
-  return utf8Encode(formatCsv(columns));
+  return new TextEncoder().encode(formatCsv(columns));
 }
 
 /** Shortest round-trip decimal form; "-0" for negative zero, "" for NaN. */
@@ -68,7 +66,8 @@ export interface CsvTable {
  * unterminated quoted field, and records whose field count differs from the header's.
  */
 export function parseCsv(input: string | Uint8Array): CsvTable {
-  let text = typeof input === 'string' ? input : utf8Decode(input);
+  // ignoreBOM keeps a mark in the text, so that the one line below drops it from strings and bytes alike.
+  let text = typeof input === 'string' ? input : new TextDecoder('utf-8', { ignoreBOM: true }).decode(input);
   if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
   const records: string[][] = [];
   let record: string[] = [];

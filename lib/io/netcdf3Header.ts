@@ -1,8 +1,8 @@
 import type { Netcdf3Layout } from './netcdf3Layout';
+import { netcdfTextBytes } from './netcdf3Names';
 import { NC_ATTRIBUTE_TAG, NC_DIMENSION_TAG, NC_TYPE_CODE, NC_VARIABLE_TAG, pad4 } from './netcdf3Types';
 import type { ValidAttribute, ValidFile } from './netcdf3Validate';
 import { writeValues } from './netcdf3Values';
-import { utf8Encode } from './utf8';
 
 /**
  * Writes the header (NetCDF classic format specification, "The Format in Detail"):
@@ -65,7 +65,7 @@ class HeaderCursor {
 
   /** nelems, then the UTF-8 name padded with zero bytes. */
   name(s: string): void {
-    const b = utf8Encode(s);
+    const b = netcdfTextBytes(s);
     this.u32(b.length);
     this.bytes(b);
   }

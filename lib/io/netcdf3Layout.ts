@@ -1,5 +1,5 @@
+import { netcdfTextBytes } from './netcdf3Names';
 import { NC_TYPE_SIZE, pad4, type NcFormat } from './netcdf3Types';
-import { utf8Length } from './utf8';
 import type { ValidAttribute, ValidFile } from './netcdf3Validate';
 
 /**
@@ -71,7 +71,7 @@ export function fileSize(layout: Netcdf3Layout, numrecs: number): number {
 
 /** A name: nelems then the UTF-8 bytes padded to four. */
 function nameSize(name: string): number {
-  return 4 + pad4(utf8Length(name));
+  return 4 + pad4(netcdfTextBytes(name).length);
 }
 
 /** A tagged list: ABSENT (two zero words) when empty, else tag, nelems and the entries. */

@@ -1,5 +1,3 @@
-import { utf8Length } from './utf8';
-
 /**
  * NetCDF name rules (NetCDF classic format specification, grammar for `name` and "Note on names"):
  * the first character is an ASCII letter or digit, '_' or a multibyte UTF-8 character; the others
@@ -15,12 +13,9 @@ export const NC_MAX_NAME = 256;
 export function netcdfNameProblem(name: string): string | null {
   if (typeof name !== 'string') return 'a name must be a string';
   if (name.length === 0) return 'a name may not be empty';
-  let bytes: number;
-  try {
-    bytes = utf8Length(name);
-  } catch (e) {
-    return `not valid Unicode (${(e as Error).message})`;
-  }
+  const lone = loneSurrogateAt(name);
+  if (lone >= 0) return `not valid Unicode (${loneSurrogateMessage(lone)})`;
+  const bytes = new TextEncoder().encode(name).length;
   if (bytes > NC_MAX_NAME) return `longer than ${NC_MAX_NAME} bytes of UTF-8 (${bytes})`;
   if (name.normalize('NFC') !== name) return 'not in Unicode NFC normal form';
   const first = name.charCodeAt(0);
@@ -34,6 +29,26 @@ export function netcdfNameProblem(name: string): string | null {
   }
   if (name.endsWith(' ')) return 'trailing spaces are not allowed';
   return null;
+}
+
+/**
+ * The UTF-8 bytes of a NetCDF name or text. The format stores text as UTF-8, which has no form for a
+ * lone surrogate: such text is refused (a RangeError) rather than written as U+FFFD, as TextEncoder
+ * would.
+ */
+export function netcdfTextBytes(text: string): Uint8Array {
+  const lone = loneSurrogateAt(text);
+  if (lone >= 0) throw new RangeError(loneSurrogateMessage(lone));
+  return new TextEncoder().encode(text);
+}
+
+/** The position of the first UTF-16 surrogate without its partner, or −1. */
+function loneSurrogateAt(text: string): number {
+  return text.search(/\p{Cs}/u);
+}
+
+function loneSurrogateMessage(position: number): string {
+  return `lone surrogate at position ${position}: not encodable as UTF-8`;
 }
 
 /** Throws a RangeError naming `what` (for example 'variable "q"') when the name is not valid. */

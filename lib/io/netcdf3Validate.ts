@@ -1,4 +1,4 @@
-import { checkNetcdfName } from './netcdf3Names';
+import { checkNetcdfName, netcdfTextBytes } from './netcdf3Names';
 import { checkValue } from './netcdf3Values';
 import {
   NC_MAX_NON_NEG,
@@ -13,7 +13,6 @@ import {
   type NcType,
   type NcVariable,
 } from './netcdf3Types';
-import { utf8Encode } from './utf8';
 
 /** An attribute checked and reduced to what the header stores: nelems values or bytes. */
 export interface ValidAttribute {
@@ -140,7 +139,7 @@ function validateVariable(v: NcVariable, dimId: Map<string, number>, dims: Valid
 function dataOf(data: NcData | undefined, type: NcType, what: string): ArrayLike<number> | undefined {
   if (data === undefined) return undefined;
   if (type === 'char') {
-    if (typeof data === 'string') return utf8Encode(data);
+    if (typeof data === 'string') return netcdfTextBytes(data);
     if (data instanceof Uint8Array) return data;
     return fail(`${what} is of type char: give its data as a string or a Uint8Array`);
   }
@@ -157,7 +156,7 @@ function validateAttributes(list: readonly NcAttribute[], what: string): ValidAt
     seen.add(a.name);
     if (a.type === 'char') {
       if (typeof a.value !== 'string') fail(`${where} is text: its value must be a string`);
-      return { name: a.name, type: 'char', values: utf8Encode(a.value as string) };
+      return { name: a.name, type: 'char', values: netcdfTextBytes(a.value as string) };
     }
     if (!TYPES.includes(a.type)) fail(`${where}: type must be one of ${TYPES.join(', ')}, got ${JSON.stringify(a.type)}`);
     const values: ArrayLike<number> = typeof a.value === 'number' ? [a.value] : a.value;

@@ -1,9 +1,9 @@
 import { writeHeader } from './netcdf3Header';
 import { fileSize, planLayout, type Netcdf3Layout } from './netcdf3Layout';
+import { netcdfTextBytes } from './netcdf3Names';
 import { NC_MAX_NON_NEG, NUMRECS_OFFSET, type NcData, type NcFile } from './netcdf3Types';
 import { validateNetcdf3, type ValidFile, type ValidVariable } from './netcdf3Validate';
 import { writeDataPadding, writeValues } from './netcdf3Values';
-import { utf8Encode } from './utf8';
 
 /**
  * NetCDF-3 writing, to the NetCDF classic format specification: CDF-2 (64-bit offsets) by default,
@@ -73,7 +73,7 @@ export class Netcdf3RecordWriter {
       const given = values[v.name];
       const what = `record ${this.count} of variable "${v.name}"`;
       if (given === undefined) throw new RangeError(`NetCDF: ${what} is missing`);
-      const data = typeof given === 'string' ? (v.type === 'char' ? utf8Encode(given) : null) : given;
+      const data = typeof given === 'string' ? (v.type === 'char' ? netcdfTextBytes(given) : null) : given;
       if (data === null) throw new RangeError(`NetCDF: ${what}: a ${v.type} variable takes numbers, not a string`);
       if (data.length !== v.slabCount) throw new RangeError(`NetCDF: ${what} needs ${v.slabCount} values, got ${data.length}`);
       writeSlab(this.recordView, offset, v, data, 0, !packed);

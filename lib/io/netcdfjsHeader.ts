@@ -1,5 +1,3 @@
-import { utf8Decode } from './utf8';
-
 /**
  * What netcdfjs 4 gives for a header, made faithful. It reads names and text one signed byte per
  * UTF-16 code unit (a byte b ≥ 0x80 becomes U+FF00 + b), so UTF-8 names and text come out garbled,
@@ -21,7 +19,7 @@ export function utf8FromNetcdfjs(s: string): string {
   if (ascii) return s;
   const b = new Uint8Array(s.length);
   for (let i = 0; i < s.length; i++) b[i] = s.charCodeAt(i) & 0xff;
-  return utf8Decode(b);
+  return new TextDecoder('utf-8', { ignoreBOM: true }).decode(b);
 }
 
 /** Text as strings, one number as a number, several as an array; byte read as signed (the spec's default). */

@@ -2,7 +2,9 @@ import * as v from 'valibot';
 import { CHECKPOINT_FORMAT, CHECKPOINT_VERSION, type Checkpoint } from '../model/checkpoint';
 import { Grid } from '../model/grid';
 import type { ModelParams } from '../model/params';
-import { ParamError, validateParams } from '../model/validateParams';
+import { InputError, isInputError } from '../inputError';
+import { validateParams } from '../model/validateParams';
+import { decodeBase64, encodeBase64 } from './base64';
 
 /**
  * The Stria run file: a saved run that resumes bit for bit. Versioned JSON:
@@ -20,17 +22,6 @@ import { ParamError, validateParams } from '../model/validateParams';
 export const RUN_FILE_FORMAT = 'stria-run';
 export const RUN_FILE_VERSION = 1;
 export const QHAT_ENCODING = 'float64le-base64';
-
-/** A refused run file: `field` is the path of the offending entry (e.g. "state.qHat.data", "params.nu"). */
-export class RunFileError extends Error {
-  constructor(
-    readonly field: string,
-    readonly reason: string,
-  ) {
-    super(`run file: ${field}: ${reason}`);
-    this.name = 'RunFileError';
-  }
-}
 
 const int32 = v.pipe(v.number('must be a number'), v.integer('must be an integer'), v.minValue(-0x80000000, 'must fit in a signed 32-bit integer'), v.maxValue(0x7fffffff, 'must fit in a signed 32-bit integer'));
 const finite = (what: string) => v.pipe(v.number(`${what}: must be a number`), v.finite(`${what}: must be finite`));
@@ -65,12 +56,8 @@ const RunFileSchema = v.object({
   ),
 });
 
-/**
- * The run file of a checkpoint, as JSON text. `base64` encodes the spectrum's bytes: the portable
- * encoder by default (about 0.4 s a megabyte); callers with a faster one of the same output pass it
- * (Node's in lib/run/runFileText.ts, the browser's in src/keep/browserBase64.ts).
- */
-export function encodeRunFile(cp: Checkpoint, saved: Date = new Date(), base64: (bytes: Uint8Array) => string = encodeBase64): string {
+/** The run file of a checkpoint, as JSON text. */
+export function encodeRunFile(cp: Checkpoint, saved: Date = new Date()): string {
   const bytes = new Uint8Array(cp.qHat.length * 8);
   const view = new DataView(bytes.buffer);
   for (let i = 0; i < cp.qHat.length; i++) view.setFloat64(8 * i, cp.qHat[i], true);
@@ -84,46 +71,49 @@ export function encodeRunFile(cp: Checkpoint, saved: Date = new Date(), base64: 
       steps: cp.steps,
       dt: cp.dt,
       rng: [...cp.rng],
-      qHat: { encoding: QHAT_ENCODING, length: cp.qHat.length, data: base64(bytes) },
+      qHat: { encoding: QHAT_ENCODING, length: cp.qHat.length, data: encodeBase64(bytes) },
     },
   };
   return JSON.stringify(file, null, 1);
 }
 
-/** Read a run file back into a checkpoint, or throw RunFileError naming the first bad entry. */
+/**
+ * Read a run file back into a checkpoint, or throw an InputError of source 'run file' naming the
+ * first bad entry by its path (e.g. "state.qHat.data", "params.nu").
+ */
 export function decodeRunFile(text: string): Checkpoint {
   let json: unknown;
   try {
     json = JSON.parse(text);
   } catch (e) {
-    throw new RunFileError('(file)', `not JSON (${e instanceof Error ? e.message : String(e)})`);
+    throw new InputError('run file', '(file)', `not JSON (${e instanceof Error ? e.message : String(e)})`);
   }
   const parsed = v.safeParse(RunFileSchema, json);
   if (!parsed.success) {
     const issue = parsed.issues[0];
     const path = issue.path?.map((p) => String(p.key)).join('.') || '(file)';
-    throw new RunFileError(path, issue.message);
+    throw new InputError('run file', path, issue.message);
   }
   const { params: rawParams, state } = parsed.output;
   let params: ModelParams;
   try {
     params = validateParams(rawParams);
   } catch (e) {
-    if (e instanceof ParamError) throw new RunFileError(`params.${e.issues[0].field}`, e.issues[0].message);
+    if (isInputError(e, 'parameters')) throw new InputError('run file', `params.${e.issues[0].field}`, e.issues[0].message);
     throw e;
   }
   // A clock at which one more step changes nothing (t + dt = t) would never reach a later time.
   if (!(state.time + Math.min(state.dt, params.dt) > state.time)) {
-    throw new RunFileError('state.time', `t = ${state.time} is too large for the time step ${Math.min(state.dt, params.dt)} to advance it`);
+    throw new InputError('run file', 'state.time', `t = ${state.time} is too large for the time step ${Math.min(state.dt, params.dt)} to advance it`);
   }
   const grid = new Grid(params);
   const expected = 2 * grid.spectralSize;
   if (state.qHat.length !== expected) {
-    throw new RunFileError('state.qHat.length', `is ${state.qHat.length}, but a ${params.nx} × ${params.ny} grid needs ${expected}`);
+    throw new InputError('run file', 'state.qHat.length', `is ${state.qHat.length}, but a ${params.nx} × ${params.ny} grid needs ${expected}`);
   }
   const bytes = decodeBase64(state.qHat.data, 'state.qHat.data');
   if (bytes.length !== 8 * expected) {
-    throw new RunFileError('state.qHat.data', `holds ${bytes.length} bytes, but ${expected} doubles need ${8 * expected}`);
+    throw new InputError('run file', 'state.qHat.data', `holds ${bytes.length} bytes, but ${expected} doubles need ${8 * expected}`);
   }
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const qHat = new Float64Array(expected);
@@ -148,54 +138,11 @@ function checkSpectrum(qHat: Float64Array, grid: Grid): void {
     for (let ix = 0; ix < grid.nkx; ix++) {
       const t = 2 * (jy * grid.nkx + ix);
       if (!Number.isFinite(qHat[t]) || !Number.isFinite(qHat[t + 1])) {
-        throw new RunFileError('state.qHat.data', `mode (ix ${ix}, jy ${jy}) is not a finite number`);
+        throw new InputError('run file', 'state.qHat.data', `mode (ix ${ix}, jy ${jy}) is not a finite number`);
       }
       if (!grid.kept(ix, jy) && (qHat[t] !== 0 || qHat[t + 1] !== 0)) {
-        throw new RunFileError('state.qHat.data', `mode (ix ${ix}, jy ${jy}) lies outside the dealiased range but is not zero`);
+        throw new InputError('run file', 'state.qHat.data', `mode (ix ${ix}, jy ${jy}) lies outside the dealiased range but is not zero`);
       }
     }
   }
-}
-
-const ALPHABET = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789+/';
-const LOOKUP = new Int16Array(128).fill(-1);
-for (let i = 0; i < ALPHABET.length; i++) LOOKUP[ALPHABET.charCodeAt(i)] = i;
-
-/** Standard base64 with padding (RFC 4648 §4). Kept here because lib/ may use no DOM or Node API. */
-export function encodeBase64(bytes: Uint8Array): string {
-  const parts: string[] = [];
-  let chunk = '';
-  for (let i = 0; i < bytes.length; i += 3) {
-    const n = (bytes[i] << 16) | ((bytes[i + 1] ?? 0) << 8) | (bytes[i + 2] ?? 0);
-    chunk += ALPHABET[(n >> 18) & 63] + ALPHABET[(n >> 12) & 63];
-    chunk += i + 1 < bytes.length ? ALPHABET[(n >> 6) & 63] : '=';
-    chunk += i + 2 < bytes.length ? ALPHABET[n & 63] : '=';
-    if (chunk.length >= 8192) {
-      parts.push(chunk);
-      chunk = '';
-    }
-  }
-  parts.push(chunk);
-  return parts.join('');
-}
-
-/** The bytes of a padded base64 string; `field` names it in the error when it is malformed. */
-export function decodeBase64(text: string, field = '(base64)'): Uint8Array {
-  if (text.length % 4 !== 0) throw new RunFileError(field, `base64 length ${text.length} is not a multiple of 4`);
-  const pad = text.endsWith('==') ? 2 : text.endsWith('=') ? 1 : 0;
-  const out = new Uint8Array((text.length / 4) * 3 - pad);
-  let o = 0;
-  for (let i = 0; i < text.length; i += 4) {
-    let n = 0;
-    for (let j = 0; j < 4; j++) {
-      const c = text.charCodeAt(i + j);
-      const d = c === 61 && i + j >= text.length - pad ? 0 : c < 128 ? LOOKUP[c] : -1;
-      if (d < 0) throw new RunFileError(field, `invalid base64 character at position ${i + j}`);
-      n = (n << 6) | d;
-    }
-    if (o < out.length) out[o++] = (n >> 16) & 255;
-    if (o < out.length) out[o++] = (n >> 8) & 255;
-    if (o < out.length) out[o++] = n & 255;
-  }
-  return out;
 }

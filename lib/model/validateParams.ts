@@ -1,32 +1,6 @@
 import * as v from 'valibot';
+import { InputError, type InputIssue } from '../inputError';
 import { DEFAULT_PARAMS, SIZE_MAX, SIZE_MIN, type ModelParams } from './params';
-
-/** One refused parameter: the field, the value given, and what is allowed. */
-export interface ParamIssue {
-  field: string;
-  value: unknown;
-  message: string;
-}
-
-/** Thrown when parameters are refused; `issues` lists every refused field. */
-export class ParamError extends Error {
-  readonly issues: ParamIssue[];
-  constructor(issues: ParamIssue[]) {
-    super(issues.map((i) => `${i.field} = ${show(i.value)}: ${i.message}`).join('; '));
-    this.name = 'ParamError';
-    this.issues = issues;
-  }
-}
-
-function show(value: unknown): string {
-  if (typeof value === 'string') return JSON.stringify(value);
-  if (typeof value === 'number' || typeof value === 'boolean' || value === null || value === undefined) return String(value);
-  try {
-    return JSON.stringify(value).slice(0, 60);
-  } catch {
-    return typeof value;
-  }
-}
 
 const isPow2 = (n: number) => Number.isInteger(n) && n > 0 && (n & (n - 1)) === 0;
 
@@ -82,16 +56,18 @@ export function keptRadius(p: Pick<ModelParams, 'nx' | 'ny' | 'Lx' | 'Ly'>): num
 
 /**
  * Complete `input` with the defaults, check every field and the rules between fields, and return
- * parameters the model can trust. Throws ParamError naming each bad field, its value and its range.
+ * parameters the model can trust. Throws an InputError of source 'parameters' naming each bad field,
+ * its value and its range.
  */
 export function validateParams(input: unknown, base: Readonly<ModelParams> = DEFAULT_PARAMS): ModelParams {
   if (typeof input !== 'object' || input === null || Array.isArray(input)) {
-    throw new ParamError([{ field: '(parameters)', value: input, message: 'must be an object of named parameters' }]);
+    throw new InputError('parameters', [{ field: '(parameters)', value: input, message: 'must be an object of named parameters' }]);
   }
   const merged = { ...base, ...(input as Record<string, unknown>) };
   const parsed = v.safeParse(ModelParamsSchema, merged);
   if (!parsed.success) {
-    throw new ParamError(
+    throw new InputError(
+      'parameters',
       parsed.issues.map((issue) => {
         const key = issue.path?.map((p) => String(p.key)).join('.') ?? '(parameters)';
         const unknownKey = issue.kind === 'schema' && issue.type === 'strict_object';
@@ -104,7 +80,7 @@ export function validateParams(input: unknown, base: Readonly<ModelParams> = DEF
     );
   }
   const p = parsed.output as ModelParams;
-  const issues: ParamIssue[] = [];
+  const issues: InputIssue[] = [];
   const kMax = keptRadius(p);
   const dkMin = Math.min((2 * Math.PI) / p.Lx, (2 * Math.PI) / p.Ly);
   if (p.forcing !== 'none') {
@@ -135,7 +111,7 @@ export function validateParams(input: unknown, base: Readonly<ModelParams> = DEF
   if (p.mu_ls > 0 && p.k_ls >= kMax) {
     issues.push({ field: 'k_ls', value: p.k_ls, message: `large-scale drag cutoff must lie below the dealiased range, < ${fmt(kMax)}` });
   }
-  if (issues.length) throw new ParamError(issues);
+  if (issues.length) throw new InputError('parameters', issues);
   return p;
 }
 

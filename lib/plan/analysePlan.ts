@@ -1,3 +1,14 @@
+/**
+ * Stria's planner: what a beta-plane turbulence run with given parameters will give, whether it is
+ * worth its cost, and a matched cheap run to try first. Pure TypeScript (no DOM, no Node APIs).
+ *
+ *   analysePlan(input)        validate → resolve → predict → check → cost → matched run, in one call
+ *   planReportMarkdown/Html   the printable report of an analysis (planReport.ts)
+ *   serializePlanFile/parsePlanFile   the versioned plan file (planFile.ts)
+ *   PLAN_PRESETS              demonstration scenarios on real planetary constants (planPresets.ts)
+ *
+ * Units, formulas and thresholds: docs/plan.md.
+ */
 import { checkPlan, type PlanCheck } from './checks';
 import { forcedModesForCost, runCost, type RunCost } from './cost';
 import { matchedRun, type MatchedRun, type MatchedRunOptions } from './matchedRun';
@@ -22,8 +33,8 @@ export interface PlanAnalysis {
 }
 
 /**
- * Resolve, predict, check, cost and match a plan input. Throws PlanInputError for an invalid input;
- * everything after validation is reported, not thrown.
+ * Resolve, predict, check, cost and match a plan input. Throws an InputError of source 'plan input'
+ * for an invalid input; everything after validation is reported, not thrown.
  */
 export function analysePlan(input: unknown, opts: MatchedRunOptions = {}): PlanAnalysis {
   const plan = resolvePlan(input);

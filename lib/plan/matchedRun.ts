@@ -1,10 +1,11 @@
 import { rhinesLength } from '../analysis/scales';
 import type { ModelParams } from '../model/params';
 import { SIZE_MAX, SIZE_MIN } from '../model/params';
-import { keptRadius, ParamError, validateParams } from '../model/validateParams';
+import { isInputError } from '../inputError';
+import { keptRadius, validateParams } from '../model/validateParams';
 import { annulusModeCount, MEASURED_STEP, runCost, type MeasuredStep, type RunCost } from './cost';
 import { fmt } from './format';
-import { PlanInputError, type PlanInput } from './planInput';
+import type { PlanInput } from './planInput';
 import { predictPlan, type PlanPredictions } from './predictions';
 import { resolvePlan, type ResolvedPlan } from './resolvePlan';
 import { THRESHOLDS as T } from './thresholds';
@@ -187,7 +188,7 @@ function buildMatched(
     mPred = predictPlan(mPlan);
     params = validateParams(planModelParams(mPlan, mPred.dtCFL.value, IDENTITY_SCALING));
   } catch (e) {
-    if (e instanceof PlanInputError || e instanceof ParamError) return e.message;
+    if (isInputError(e, 'plan input') || isInputError(e, 'parameters')) return e.message;
     throw e;
   }
   const got = planRatios(mPlan, mPred);

@@ -1,5 +1,6 @@
 import * as v from 'valibot';
-import { PlanInputError, PlanInputSchema, validatePlanInput, type PlanInput } from './planInput';
+import { InputError, isInputError } from '../inputError';
+import { PlanInputSchema, validatePlanInput, type PlanInput } from './planInput';
 
 /**
  * The plan file: a plan input as versioned JSON, to share with collaborators and to load into
@@ -27,14 +28,6 @@ export const PlanFileSchema = v.strictObject({
   input: PlanInputSchema,
 });
 
-/** Thrown when a plan file is refused; the message says why, naming the field where there is one. */
-export class PlanFileError extends Error {
-  constructor(message: string) {
-    super(message);
-    this.name = 'PlanFileError';
-  }
-}
-
 /** A plan file for a (validated) input; `savedAt` an ISO 8601 timestamp if wanted. */
 export function planFile(input: PlanInput, savedAt?: string): PlanFile {
   validatePlanInput(input);
@@ -47,8 +40,9 @@ export function serializePlanFile(input: PlanInput, savedAt?: string): string {
 }
 
 /**
- * Read a plan file from JSON text (or an already parsed value). Throws PlanFileError: not JSON, not a
- * Stria plan file, an unknown version, or an invalid input (naming the field, value and range).
+ * Read a plan file from JSON text (or an already parsed value). Throws an InputError of source 'plan
+ * file' whose message says why: not JSON, not a Stria plan file, an unknown version, or an invalid
+ * input (naming the field, value and range).
  */
 export function parsePlanFile(source: string | unknown): PlanFile {
   let data: unknown = source;
@@ -56,27 +50,30 @@ export function parsePlanFile(source: string | unknown): PlanFile {
     try {
       data = JSON.parse(source);
     } catch (e) {
-      throw new PlanFileError(`not a plan file: the text is not JSON (${e instanceof Error ? e.message : String(e)})`);
+      throw new InputError('plan file', '(file)', `not a plan file: the text is not JSON (${e instanceof Error ? e.message : String(e)})`);
     }
   }
-  if (typeof data !== 'object' || data === null || Array.isArray(data)) throw new PlanFileError('not a plan file: expected a JSON object');
+  if (typeof data !== 'object' || data === null || Array.isArray(data)) throw new InputError('plan file', '(file)', 'not a plan file: expected a JSON object');
   const rec = data as Record<string, unknown>;
-  if (rec.format !== PLAN_FILE_FORMAT) throw new PlanFileError(`not a Stria plan file: format is ${JSON.stringify(rec.format)}, expected "${PLAN_FILE_FORMAT}"`);
+  if (rec.format !== PLAN_FILE_FORMAT) throw new InputError('plan file', 'format', `not a Stria plan file: format is ${JSON.stringify(rec.format)}, expected "${PLAN_FILE_FORMAT}"`);
   if (rec.version !== PLAN_FILE_VERSION) {
-    throw new PlanFileError(
+    throw new InputError(
+      'plan file',
+      'version',
       `plan file version ${JSON.stringify(rec.version)} is not known to this Stria, which reads version ${PLAN_FILE_VERSION} only: open it with the Stria that wrote it, or re-save it there as version ${PLAN_FILE_VERSION}`,
     );
   }
   try {
     validatePlanInput(rec.input);
   } catch (e) {
-    if (e instanceof PlanInputError) throw new PlanFileError(`plan file input refused: ${e.issues.map((i) => `input.${i.field}: ${i.message}`).join('; ')}`);
+    if (isInputError(e, 'plan input')) throw new InputError('plan file', 'input', `plan file input refused: ${e.issues.map((i) => `input.${i.field}: ${i.message}`).join('; ')}`);
     throw e;
   }
   const parsed = v.safeParse(PlanFileSchema, data);
   if (!parsed.success) {
     const i = parsed.issues[0];
-    throw new PlanFileError(`plan file refused: ${i.path?.map((p) => String(p.key)).join('.') ?? '(file)'}: ${i.message}`);
+    const field = i.path?.map((p) => String(p.key)).join('.') ?? '(file)';
+    throw new InputError('plan file', field, `plan file refused: ${field}: ${i.message}`);
   }
   return parsed.output as PlanFile;
 }

@@ -1,5 +1,6 @@
 import * as v from 'valibot';
 import { RHINES_DEFINITIONS, type RhinesConvention } from '../analysis/scales';
+import { InputError, type InputIssue } from '../inputError';
 import { derivePlan } from './derivePlan';
 import { PLAN_SIZE_MAX, PLAN_SIZE_MIN, pointsForSpacing } from './gridPoints';
 import { predictPlan, type PredictionId } from './predictions';
@@ -137,34 +138,18 @@ export const PlanInputSchema = v.strictObject({
   rhines: v.optional(v.picklist(Object.keys(RHINES_DEFINITIONS) as RhinesConvention[], kindOf(Object.keys(RHINES_DEFINITIONS).map((k) => `"${k}"`).join(', ')))),
 });
 
-/** One refused input: the field (dotted path), the value given, and what is allowed. */
-export interface PlanIssue {
-  field: string;
-  value: unknown;
-  message: string;
-}
-
-/** Thrown when a plan input is refused; `issues` lists every refused field. */
-export class PlanInputError extends Error {
-  readonly issues: PlanIssue[];
-  constructor(issues: PlanIssue[]) {
-    super(issues.map((i) => `${i.field} = ${show(i.value)}: ${i.message}`).join('; '));
-    this.name = 'PlanInputError';
-    this.issues = issues;
-  }
-}
-
 /** The plan input with defaults filled (cfl, rhines), as every other planner module receives it. */
 export type ValidPlanInput = PlanInput & { cfl: number; rhines: RhinesConvention };
 
 /**
  * Check a plan input field by field and across fields; return it with defaults filled. Throws
- * PlanInputError naming each bad field, its value and the allowed range.
+ * an InputError of source 'plan input' naming each bad field, its value and the allowed range.
  */
 export function validatePlanInput(input: unknown): ValidPlanInput {
   const parsed = v.safeParse(PlanInputSchema, input);
   if (!parsed.success) {
-    throw new PlanInputError(
+    throw new InputError(
+      'plan input',
       parsed.issues.map((issue) => {
         const field = issue.path?.map((p) => String(p.key)).join('.') ?? '(plan)';
         const unknownKey = issue.type === 'strict_object' && issue.kind === 'schema' && issue.expected === 'never';
@@ -173,7 +158,7 @@ export function validatePlanInput(input: unknown): ValidPlanInput {
     );
   }
   const p = parsed.output as PlanInput;
-  const issues: PlanIssue[] = [];
+  const issues: InputIssue[] = [];
   if (p.units === 'model' && p.rotation.kind === 'planet') {
     issues.push({ field: 'rotation.kind', value: 'planet', message: 'a planet gives f and β in SI units: use units "physical", or give β in model units' });
   }
@@ -196,10 +181,10 @@ export function validatePlanInput(input: unknown): ValidPlanInput {
       }
     }
   }
-  if (issues.length) throw new PlanInputError(issues);
+  if (issues.length) throw new InputError('plan input', issues);
   const valid: ValidPlanInput = { ...p, cfl: p.cfl ?? THRESHOLDS.defaultCfl, rhines: p.rhines ?? 'kR' };
   const overflow = nonFinitePredictions(valid);
-  if (overflow.length) throw new PlanInputError(overflow);
+  if (overflow.length) throw new InputError('plan input', overflow);
   return valid;
 }
 
@@ -226,7 +211,7 @@ const SOURCES: Record<PredictionId, readonly string[]> = (() => {
  * One issue per input field blamed for a non-finite prediction: among the numbers a prediction comes
  * from, the one farthest from 1 in order of magnitude (the subnormal or the huge one, as a rule).
  */
-function nonFinitePredictions(p: ValidPlanInput): PlanIssue[] {
+function nonFinitePredictions(p: ValidPlanInput): InputIssue[] {
   const predictions = predictPlan(derivePlan(p));
   const blamed = new Map<string, string[]>();
   for (const [id, pr] of Object.entries(predictions) as [PredictionId, (typeof predictions)[PredictionId]][]) {
@@ -249,14 +234,4 @@ function numberLeaves(x: unknown, prefix = ''): [string, number][] {
   if (typeof x === 'number') return [[prefix, x]];
   if (typeof x !== 'object' || x === null) return [];
   return Object.entries(x).flatMap(([k, v]) => numberLeaves(v, prefix ? `${prefix}.${k}` : k));
-}
-
-function show(value: unknown): string {
-  if (typeof value === 'string') return JSON.stringify(value);
-  if (typeof value === 'number' || typeof value === 'boolean' || value === null || value === undefined) return String(value);
-  try {
-    return JSON.stringify(value).slice(0, 60);
-  } catch {
-    return typeof value;
-  }
 }

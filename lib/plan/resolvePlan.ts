@@ -3,7 +3,7 @@ import { validatePlanInput } from './planInput';
 
 export type { ResolvedPlan } from './derivePlan';
 
-/** Validate `input` (PlanInputError on refusal) and derive the inputs the planner works from. */
+/** Validate `input` (an InputError of source 'plan input' on refusal) and derive the inputs the planner works from. */
 export function resolvePlan(input: unknown): ResolvedPlan {
   return derivePlan(validatePlanInput(input));
 }

@@ -1,3 +1,5 @@
+import { InputError } from '../inputError';
+
 /**
  * The plain-data state of an accumulator object (the budget series, the Hovmöller record, the time
  * means, the steady criterion): its own fields that are numbers, booleans, texts, null, typed arrays,
@@ -15,17 +17,6 @@ export type TypedArray = Float64Array | Float32Array | Int32Array | Uint32Array 
 export type StateValue = number | boolean | string | null | undefined | TypedArray | StateValue[] | { [field: string]: StateValue };
 export interface CapturedState {
   [field: string]: StateValue;
-}
-
-/** A state that does not fit the object it is restored into, or an object that is not plain data. */
-export class StateShapeError extends Error {
-  constructor(
-    readonly path: string,
-    readonly reason: string,
-  ) {
-    super(`${path}: ${reason}`);
-    this.name = 'StateShapeError';
-  }
 }
 
 const TYPED: Record<string, new (n: number) => TypedArray> = {
@@ -51,7 +42,10 @@ function isPlainObject(x: unknown): x is Record<string, unknown> {
 
 const isPrimitive = (x: unknown) => x === null || x === undefined || typeof x === 'number' || typeof x === 'boolean' || typeof x === 'string';
 
-/** A deep copy of the own fields of `obj` but those in `skip`. Throws StateShapeError on non-plain data. */
+/**
+ * A deep copy of the own fields of `obj` but those in `skip`. Throws an InputError of source 'state'
+ * (its field the path of the entry) on non-plain data.
+ */
 export function captureState(obj: object, skip: readonly string[] = [], path = '(state)'): CapturedState {
   const out: CapturedState = {};
   for (const key of Object.keys(obj)) {
@@ -67,7 +61,7 @@ function copyValue(x: unknown, path: string): StateValue {
   if (Array.isArray(x)) return x.map((e, i) => copyValue(e, `${path}.${i}`));
   if (isPlainObject(x)) return captureState(x, [], path);
   const kind = typeof x === 'object' && x !== null ? (x.constructor?.name ?? 'object') : typeof x;
-  throw new StateShapeError(path, `holds a ${kind}, which is not plain data: skip it as configuration or capture it on its own`);
+  throw new InputError('state', path, `holds a ${kind}, which is not plain data: skip it as configuration or capture it on its own`);
 }
 
 /** Write a captured state back into `obj` (the same kind of object it was captured from). */
@@ -78,7 +72,7 @@ export function restoreState(obj: object, state: CapturedState, skip: readonly s
   const missing = keys.filter((k) => !Object.hasOwn(state, k));
   const extra = saved.filter((k) => !keys.includes(k));
   if (missing.length || extra.length) {
-    throw new StateShapeError(path, `the state does not fit: ${missing.length ? `it lacks ${missing.join(', ')}` : ''}${missing.length && extra.length ? '; ' : ''}${extra.length ? `it has unknown ${extra.join(', ')}` : ''}`);
+    throw new InputError('state', path, `the state does not fit: ${missing.length ? `it lacks ${missing.join(', ')}` : ''}${missing.length && extra.length ? '; ' : ''}${extra.length ? `it has unknown ${extra.join(', ')}` : ''}`);
   }
   // Check everything before writing anything, so a refused state leaves the object as it was.
   for (const key of keys) checkValue(target[key], state[key], `${path}.${key}`);
@@ -87,35 +81,35 @@ export function restoreState(obj: object, state: CapturedState, skip: readonly s
 
 function checkValue(current: unknown, saved: StateValue, path: string): void {
   if (isTypedArray(current)) {
-    if (!isTypedArray(saved) || saved.constructor !== current.constructor) throw new StateShapeError(path, `must be a ${current.constructor.name}`);
-    if (saved.length !== current.length) throw new StateShapeError(path, `holds ${saved.length} values, the object ${current.length}`);
+    if (!isTypedArray(saved) || saved.constructor !== current.constructor) throw new InputError('state', path, `must be a ${current.constructor.name}`);
+    if (saved.length !== current.length) throw new InputError('state', path, `holds ${saved.length} values, the object ${current.length}`);
     return;
   }
   if (Array.isArray(current)) {
-    if (!Array.isArray(saved)) throw new StateShapeError(path, 'must be a list');
+    if (!Array.isArray(saved)) throw new InputError('state', path, 'must be a list');
     // A list of typed arrays is storage of fixed shape; a list of plain values may change length.
     if (current.some(isTypedArray)) {
-      if (saved.length !== current.length) throw new StateShapeError(path, `holds ${saved.length} entries, the object ${current.length}`);
+      if (saved.length !== current.length) throw new InputError('state', path, `holds ${saved.length} entries, the object ${current.length}`);
       current.forEach((c, i) => checkValue(c, saved[i], `${path}.${i}`));
     } else saved.forEach((s, i) => checkPlain(s, `${path}.${i}`));
     return;
   }
   if (isPlainObject(current)) {
-    if (!isPlainObject(saved) || Array.isArray(saved)) throw new StateShapeError(path, 'must be an object');
+    if (!isPlainObject(saved) || Array.isArray(saved)) throw new InputError('state', path, 'must be an object');
     const a = Object.keys(current).sort().join(',');
     const b = Object.keys(saved).sort().join(',');
-    if (a !== b) throw new StateShapeError(path, `fields ${b} differ from the object's ${a}`);
+    if (a !== b) throw new InputError('state', path, `fields ${b} differ from the object's ${a}`);
     for (const k of Object.keys(current)) checkValue(current[k], (saved as CapturedState)[k], `${path}.${k}`);
     return;
   }
   // A scalar field may change kind between captures (a time that is null until first set).
-  if (!isPrimitive(saved)) throw new StateShapeError(path, 'must be a number, boolean, text or null');
+  if (!isPrimitive(saved)) throw new InputError('state', path, 'must be a number, boolean, text or null');
 }
 
 function checkPlain(x: StateValue, path: string): void {
   if (isPrimitive(x)) return;
   if (Array.isArray(x)) return x.forEach((e, i) => checkPlain(e, `${path}.${i}`));
-  throw new StateShapeError(path, 'must be a number, boolean, text or null');
+  throw new InputError('state', path, 'must be a number, boolean, text or null');
 }
 
 function writeValue(current: unknown, saved: StateValue): unknown {

@@ -151,8 +151,8 @@ export class MonitoredRun {
   }
 
   /**
-   * Continue from a saved measurement (of a run with this plan and grid). Throws StateShapeError and
-   * changes nothing when the state does not fit. The stop rule is tested at once, so a run resumed
+   * Continue from a saved measurement (of a run with this plan and grid). Throws an InputError
+   * of source 'state' and changes nothing when the state does not fit. The stop rule is tested at once, so a run resumed
    * from its final checkpoint takes no further step.
    */
   restoreState(s: MonitoredRunState): void {

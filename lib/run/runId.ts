@@ -1,5 +1,4 @@
 import type { ModelParams } from '../model/params';
-import { utf8Encode } from '../io/utf8';
 import type { RunPlan } from './runPlan';
 
 /**
@@ -40,7 +39,7 @@ const MASK = (1n << 64n) - 1n;
 /** FNV-1a, 64-bit, of the UTF-8 encoding of `text`, as 16 lowercase hex digits. */
 export function fnv1a64(text: string): string {
   let h = FNV_OFFSET;
-  for (const byte of utf8Encode(text)) {
+  for (const byte of new TextEncoder().encode(text)) {
     h ^= BigInt(byte);
     h = (h * FNV_PRIME) & MASK;
   }

@@ -1,16 +1,16 @@
 import * as v from 'valibot';
-import { decodeRunFile, RunFileError } from '../io/runFile';
+import { InputError, isInputError } from '../inputError';
+import { decodeRunFile, encodeRunFile } from '../io/runFile';
 import type { Checkpoint } from '../model/checkpoint';
 import type { ModelParams } from '../model/params';
-import { ParamError, validateParams } from '../model/validateParams';
+import { validateParams } from '../model/validateParams';
 import type { RetryRecord } from './blowUpRetry';
 import type { MonitoredRunState, RunOrigin } from './monitoredRun';
 import { runId } from './runId';
 import type { RunPlan } from './runPlan';
-import { stateFromJson, stateToJson, PORTABLE_BASE64, type Base64Codec } from './stateJson';
-import { StateShapeError, type CapturedState } from './dataState';
-import { runFileText } from './runFileText';
-import { textDigest } from './textDigest';
+import { stateFromJson, stateToJson } from './stateJson';
+import type { CapturedState } from './dataState';
+import { textDigest } from '../io/digest';
 
 /**
  * The checkpoint file of `stria run --checkpoint`: a run file (lib/io/runFile.ts: parameters and
@@ -25,7 +25,8 @@ import { textDigest } from './textDigest';
  *     "outputs": { "created_at", "command", "snapshots": { "path", "every", "records" } | null,
  *                  "zonal": { "path", "records" } | null },
  *     "measurement": the MonitoredRunState as JSON (stateJson.ts) | null,
- *     "digest": textDigest.ts of the entry's text without it, a newline, and the run file's text }
+ *     "digest": textDigest (lib/io/digest.ts) of the entry's text without it, a newline, and the
+ *               run file's text }
  *
  * Layout: line 1 is "{", line 2 is ` "progress": ` and the entry as compact JSON, then the run file
  * as encodeRunFile writes it without its opening brace. The digest makes a checkpoint damaged on the
@@ -52,17 +53,6 @@ export interface RunProgress {
   retries: RetryRecord[];
   outputs: OutputProgress;
   measurement: MonitoredRunState | null;
-}
-
-/** A refused checkpoint file: `field` is the path of the offending entry ("progress.origin.time"). */
-export class CheckpointFileError extends Error {
-  constructor(
-    readonly field: string,
-    readonly reason: string,
-  ) {
-    super(`checkpoint file: ${field}: ${reason}`);
-    this.name = 'CheckpointFileError';
-  }
 }
 
 const finite = v.pipe(v.number('must be a number'), v.finite('must be finite'));
@@ -116,13 +106,13 @@ const ProgressSchema = v.strictObject({
 });
 
 /** The checkpoint file's text: the run file of `cp` with the progress entry first. */
-export function encodeCheckpointFile(cp: Checkpoint, progress: RunProgress, codec: Base64Codec = PORTABLE_BASE64, saved: Date = new Date()): string {
-  const runFile = runFileText(cp, saved, codec);
+export function encodeCheckpointFile(cp: Checkpoint, progress: RunProgress, saved: Date = new Date()): string {
+  const runFile = encodeRunFile(cp, saved);
   const entry = {
     format: PROGRESS_FORMAT,
     version: PROGRESS_VERSION,
     ...progress,
-    measurement: progress.measurement ? stateToJson(progress.measurement as unknown as CapturedState, codec) : null,
+    measurement: progress.measurement ? stateToJson(progress.measurement as unknown as CapturedState) : null,
   };
   // The run file is one JSON object: put the entry first (a splice, not a second multi-megabyte encode).
   if (runFile[0] !== '{') throw new RangeError('encodeCheckpointFile: a run file is a JSON object');
@@ -132,18 +122,19 @@ export function encodeCheckpointFile(cp: Checkpoint, progress: RunProgress, code
 }
 
 /**
- * Read a checkpoint file: the run file (RunFileError becomes CheckpointFileError with the same
- * field) and its progress entry, checked field by field. A run file without progress is refused
+ * Read a checkpoint file: the run file (a refusal of the run file becomes one of the checkpoint file,
+ * with the same field) and its progress entry, checked field by field. Refusals are InputErrors of
+ * source 'checkpoint file', their field the path of the entry ("progress.origin.time"). A run file without progress is refused
  * (it holds a state but not the run it belongs to: continue it with `stria run FILE`).
  */
-export function decodeCheckpointFile(text: string, codec: Base64Codec = PORTABLE_BASE64): { checkpoint: Checkpoint; progress: RunProgress } {
+export function decodeCheckpointFile(text: string): { checkpoint: Checkpoint; progress: RunProgress } {
   // Damage anywhere is caught here, before any part of the file is believed.
   const { entry, runFile } = sealedEntry(text);
   let checkpoint: Checkpoint;
   try {
     checkpoint = decodeRunFile(runFile);
   } catch (e) {
-    if (e instanceof RunFileError) throw new CheckpointFileError(e.field, e.reason);
+    if (isInputError(e, 'run file')) throw new InputError('checkpoint file', e.field, e.reason);
     throw e;
   }
   const parsed = v.safeParse(ProgressSchema, entry);
@@ -151,25 +142,25 @@ export function decodeCheckpointFile(text: string, codec: Base64Codec = PORTABLE
     const issue = parsed.issues[0];
     const path = issue.path?.map((p) => String(p.key)).join('.');
     const unknownKey = issue.kind === 'schema' && issue.type === 'strict_object' && issue.expected === 'never';
-    throw new CheckpointFileError(path ? `progress.${path}` : 'progress', unknownKey ? 'is not a field of the run progress' : issue.message);
+    throw new InputError('checkpoint file', path ? `progress.${path}` : 'progress', unknownKey ? 'is not a field of the run progress' : issue.message);
   }
   const p = parsed.output;
   let params: ModelParams;
   try {
     params = validateParams(p.params);
   } catch (e) {
-    if (e instanceof ParamError) throw new CheckpointFileError(`progress.params.${e.issues[0].field}`, e.issues[0].message);
+    if (isInputError(e, 'parameters')) throw new InputError('checkpoint file', `progress.params.${e.issues[0].field}`, e.issues[0].message);
     throw e;
   }
   const plan = p.plan as RunPlan;
-  if (runId(params, plan) !== p.id) throw new CheckpointFileError('progress.id', 'does not match the parameters and plan beside it');
+  if (runId(params, plan) !== p.id) throw new InputError('checkpoint file', 'progress.id', 'does not match the parameters and plan beside it');
   if (checkpoint.params.nx !== params.nx || checkpoint.params.ny !== params.ny || checkpoint.params.Lx !== params.Lx || checkpoint.params.Ly !== params.Ly) {
-    throw new CheckpointFileError('params', 'the saved state is of another grid or domain than the run it says it belongs to');
+    throw new InputError('checkpoint file', 'params', 'the saved state is of another grid or domain than the run it says it belongs to');
   }
-  if (checkpoint.steps < p.origin.steps || checkpoint.time < p.origin.time) throw new CheckpointFileError('progress.origin', 'lies after the saved state');
+  if (checkpoint.steps < p.origin.steps || checkpoint.time < p.origin.time) throw new InputError('checkpoint file', 'progress.origin', 'lies after the saved state');
   return {
     checkpoint,
-    progress: { id: p.id, params, plan, origin: p.origin, retries: p.retries as RetryRecord[], outputs: p.outputs, measurement: p.measurement === null ? null : measurementFromJson(p.measurement, codec) },
+    progress: { id: p.id, params, plan, origin: p.origin, retries: p.retries as RetryRecord[], outputs: p.outputs, measurement: p.measurement === null ? null : measurementFromJson(p.measurement) },
   };
 }
 
@@ -187,38 +178,38 @@ function sealedEntry(text: string): { entry: unknown; runFile: string } {
     try {
       json = JSON.parse(text);
     } catch (e) {
-      throw new CheckpointFileError('(file)', `not JSON (${e instanceof Error ? e.message : String(e)})`);
+      throw new InputError('checkpoint file', '(file)', `not JSON (${e instanceof Error ? e.message : String(e)})`);
     }
     const isObject = typeof json === 'object' && json !== null && !Array.isArray(json);
-    if (isObject && !Object.hasOwn(json as object, 'progress')) throw new CheckpointFileError('progress', 'is missing: this is not a checkpoint (a saved run continues with stria run FILE)');
-    throw new CheckpointFileError('(file)', 'is not laid out as stria run writes checkpoints (it must begin with its progress entry): it was edited or damaged');
+    if (isObject && !Object.hasOwn(json as object, 'progress')) throw new InputError('checkpoint file', 'progress', 'is missing: this is not a checkpoint (a saved run continues with stria run FILE)');
+    throw new InputError('checkpoint file', '(file)', 'is not laid out as stria run writes checkpoints (it must begin with its progress entry): it was edited or damaged');
   }
   const end = text.indexOf('\n', PREFIX.length);
-  if (end < 0 || text[end - 1] !== ',') throw new CheckpointFileError('(file)', 'is cut short after its progress entry');
+  if (end < 0 || text[end - 1] !== ',') throw new InputError('checkpoint file', '(file)', 'is cut short after its progress entry');
   const sealed = text.slice(PREFIX.length, end - 1);
   const m = DIGEST_TAIL.exec(sealed);
-  if (!m) throw new CheckpointFileError('progress.digest', 'is missing: the progress entry must end with its digest');
+  if (!m) throw new InputError('checkpoint file', 'progress.digest', 'is missing: the progress entry must end with its digest');
   const head = `${sealed.slice(0, m.index)}}`;
   const runFile = `{${text.slice(end)}`;
-  if (textDigest(`${head}\n${runFile}`) !== m[1]) throw new CheckpointFileError('progress.digest', 'does not match the file: it was damaged or edited after it was written');
+  if (textDigest(`${head}\n${runFile}`) !== m[1]) throw new InputError('checkpoint file', 'progress.digest', 'does not match the file: it was damaged or edited after it was written');
   try {
     return { entry: JSON.parse(sealed), runFile };
   } catch (e) {
-    throw new CheckpointFileError('progress', `not JSON (${e instanceof Error ? e.message : String(e)})`);
+    throw new InputError('checkpoint file', 'progress', `not JSON (${e instanceof Error ? e.message : String(e)})`);
   }
 }
 
-function measurementFromJson(j: unknown, codec: Base64Codec): MonitoredRunState {
+function measurementFromJson(j: unknown): MonitoredRunState {
   let s: unknown;
   try {
-    s = stateFromJson(j, codec, 'progress.measurement');
+    s = stateFromJson(j, 'progress.measurement');
   } catch (e) {
-    if (e instanceof StateShapeError) throw new CheckpointFileError(e.path, e.reason);
+    if (isInputError(e, 'state')) throw new InputError('checkpoint file', e.field, e.reason);
     throw e;
   }
   const obj = (x: unknown): x is Record<string, unknown> => typeof x === 'object' && x !== null && !Array.isArray(x) && !ArrayBuffer.isView(x);
-  if (!obj(s) || !obj(s.run) || !(s.steady === null || obj(s.steady)) || !obj(s.monitor)) throw new CheckpointFileError('progress.measurement', 'must be { run, steady, monitor }');
+  if (!obj(s) || !obj(s.run) || !(s.steady === null || obj(s.steady)) || !obj(s.monitor)) throw new InputError('checkpoint file', 'progress.measurement', 'must be { run, steady, monitor }');
   const m = s.monitor;
-  for (const k of ['self', 'budget', 'hovmoller', 'means']) if (!obj(m[k])) throw new CheckpointFileError(`progress.measurement.monitor.${k}`, 'must be an object');
+  for (const k of ['self', 'budget', 'hovmoller', 'means']) if (!obj(m[k])) throw new InputError('checkpoint file', `progress.measurement.monitor.${k}`, 'must be an object');
   return s as unknown as MonitoredRunState;
 }

@@ -1,4 +1,5 @@
 import * as v from 'valibot';
+import { InputError } from '../inputError';
 import { DEFAULT_PARAMS } from '../model/params';
 import { DEMO_SCENARIOS } from '../plan/demoScenarios';
 
@@ -29,17 +30,6 @@ export const SWEEP_VERSION = 1;
  */
 export const MAX_SWEEP_RUNS = 100_000;
 export const MAX_RESAMPLES = 1_000_000;
-
-/** A refused spec: `field` is the dotted path of the offending entry (e.g. "vary.0.logRange.count"). */
-export class SweepSpecError extends Error {
-  constructor(
-    readonly field: string,
-    readonly reason: string,
-  ) {
-    super(`sweep spec: ${field}: ${reason}`);
-    this.name = 'SweepSpecError';
-  }
-}
 
 const positive = (what: string) => v.pipe(v.number(`${what}: a number`), v.finite(`${what}: must be finite`), v.gtValue(0, `${what}: must be > 0`));
 const count = (what: string, min: number) => v.pipe(v.number(`${what}: a number`), v.integer(`${what}: must be an integer`), v.minValue(min, `${what}: must be ≥ ${min}`));
@@ -93,34 +83,37 @@ export const SweepSpecSchema = v.strictObject(
 export type SweepSpec = v.InferOutput<typeof SweepSpecSchema>;
 export type SweepAxis = SweepSpec['vary'][number];
 
-/** Check a parsed JSON value as a sweep spec; throws SweepSpecError naming the first bad field. */
+/**
+ * Check a parsed JSON value as a sweep spec; throws an InputError of source 'sweep spec' naming the
+ * first bad field (its dotted path, e.g. "vary.0.logRange.count").
+ */
 export function parseSweepSpec(json: unknown): SweepSpec {
   const parsed = v.safeParse(SweepSpecSchema, json);
   if (!parsed.success) {
     const issue = parsed.issues[0];
     const path = issue.path?.map((p) => String(p.key)).join('.') || '(spec)';
     const unknownKey = issue.kind === 'schema' && issue.type === 'strict_object' && issue.expected === 'never';
-    throw new SweepSpecError(path, unknownKey ? 'is not a field of a sweep spec here' : issue.message);
+    throw new InputError('sweep spec', path, unknownKey ? 'is not a field of a sweep spec here' : issue.message);
   }
   const spec = parsed.output;
   const seen = new Set<string>();
   spec.vary.forEach((axis, i) => {
     // Own keys only: "toString" or "__proto__" are found on every object but are not parameters.
-    if (!Object.hasOwn(DEFAULT_PARAMS, axis.param)) throw new SweepSpecError(`vary.${i}.param`, `"${axis.param}" is not a parameter (known: ${Object.keys(DEFAULT_PARAMS).join(', ')})`);
-    if (axis.param === 'seed') throw new SweepSpecError(`vary.${i}.param`, 'seeds are not swept: give "replicas" for runs with different seeds');
-    if (seen.has(axis.param)) throw new SweepSpecError(`vary.${i}.param`, `"${axis.param}" is swept twice`);
+    if (!Object.hasOwn(DEFAULT_PARAMS, axis.param)) throw new InputError('sweep spec', `vary.${i}.param`, `"${axis.param}" is not a parameter (known: ${Object.keys(DEFAULT_PARAMS).join(', ')})`);
+    if (axis.param === 'seed') throw new InputError('sweep spec', `vary.${i}.param`, 'seeds are not swept: give "replicas" for runs with different seeds');
+    if (seen.has(axis.param)) throw new InputError('sweep spec', `vary.${i}.param`, `"${axis.param}" is swept twice`);
     seen.add(axis.param);
-    if ((axis.values === undefined) === (axis.logRange === undefined)) throw new SweepSpecError(`vary.${i}`, 'give exactly one of "values" and "logRange"');
+    if ((axis.values === undefined) === (axis.logRange === undefined)) throw new InputError('sweep spec', `vary.${i}`, 'give exactly one of "values" and "logRange"');
     if (axis.logRange && typeof DEFAULT_PARAMS[axis.param as keyof typeof DEFAULT_PARAMS] !== 'number') {
-      throw new SweepSpecError(`vary.${i}.logRange`, `"${axis.param}" is not a number, so it has no logarithmic range`);
+      throw new InputError('sweep spec', `vary.${i}.logRange`, `"${axis.param}" is not a number, so it has no logarithmic range`);
     }
   });
   const given = (['steps', 'until', 'untilSteady'] as const).filter((k) => spec.length[k] !== undefined);
-  if (given.length !== 1) throw new SweepSpecError('length', given.length ? `give one run length, not ${given.join(' and ')}` : 'give a run length: steps, until or untilSteady');
+  if (given.length !== 1) throw new InputError('sweep spec', 'length', given.length ? `give one run length, not ${given.join(' and ')}` : 'give a run length: steps, until or untilSteady');
   // Counted before anything is expanded, so the check itself costs nothing.
   const points = spec.vary.reduce((n, a) => n * (a.values ? a.values.length : a.logRange!.count), 1);
   if (points * spec.replicas > MAX_SWEEP_RUNS) {
-    throw new SweepSpecError(spec.replicas > 1 ? 'replicas' : 'vary', `the spec makes ${points * spec.replicas} runs (${points} points × ${spec.replicas} replicas), more than ${MAX_SWEEP_RUNS}: split it into several sweeps`);
+    throw new InputError('sweep spec', spec.replicas > 1 ? 'replicas' : 'vary', `the spec makes ${points * spec.replicas} runs (${points} points × ${spec.replicas} replicas), more than ${MAX_SWEEP_RUNS}: split it into several sweeps`);
   }
   return spec;
 }

@@ -1,5 +1,6 @@
 import type { ModelParams } from '../../lib/model/params';
-import { ParamError, validateParams } from '../../lib/model/validateParams';
+import { validateParams } from '../../lib/model/validateParams';
+import { isInputError } from '../../lib/inputError';
 import { scenarioParams } from '../openingRun';
 
 /** Parameters a comparison may change, with how they are written. */
@@ -26,7 +27,7 @@ export const DEFAULT_COMPARE: CompareSetup = { scenario: 'jets', key: 'beta', a:
 
 /**
  * The two runs of a comparison: the scenario with one parameter set to a and to b, the same seed and
- * everything else equal. Throws ParamError (naming the parameter) when a value is refused.
+ * everything else equal. Throws an InputError (naming the parameter) when a value is refused.
  */
 export function compareRuns(setup: CompareSetup): [ModelParams, ModelParams] {
   const base = scenarioParams(setup.scenario);
@@ -39,7 +40,7 @@ export function refusal(setup: CompareSetup, value: number): string | null {
     validateParams({ ...scenarioParams(setup.scenario), [setup.key]: value });
     return null;
   } catch (e) {
-    if (e instanceof ParamError) return e.issues.map((i) => i.message).join('; ');
+    if (isInputError(e, 'parameters')) return e.issues.map((i) => i.message).join('; ');
     throw e;
   }
 }

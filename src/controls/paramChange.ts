@@ -1,9 +1,10 @@
 import type { ModelParams } from '../../lib/model/params';
-import { ParamError, validateParams, type ParamIssue } from '../../lib/model/validateParams';
+import { validateParams } from '../../lib/model/validateParams';
+import { isInputError, type InputIssue } from '../../lib/inputError';
 import { appMemoryBudget, memoryRefusal, type MemoryBudget } from '../appMemory';
 
 /** The refused fields of a change, as one sentence; the edited field's own issues need no name. */
-export function describeIssues(issues: readonly ParamIssue[], edited: string): string {
+export function describeIssues(issues: readonly InputIssue[], edited: string): string {
   return issues.map((i) => (i.field === edited ? i.message : `${i.field}: ${i.message}`)).join('; ');
 }
 
@@ -12,12 +13,12 @@ export function describeIssues(issues: readonly ParamIssue[], edited: string): s
  * they are fine. Checked in the UI so that a bad entry is answered at the field at once; the worker
  * checks again before it applies anything.
  */
-export function refusalOf(params: ModelParams, changes: Partial<ModelParams>): ParamIssue[] | null {
+export function refusalOf(params: ModelParams, changes: Partial<ModelParams>): InputIssue[] | null {
   try {
     validateParams({ ...params, ...changes });
     return null;
   } catch (e) {
-    if (e instanceof ParamError) return e.issues;
+    if (isInputError(e, 'parameters')) return e.issues;
     throw e;
   }
 }
@@ -30,7 +31,7 @@ const NEW_MODEL_KEYS = ['nx', 'ny', 'Lx', 'Ly'] as const;
  * as an issue of the edited field, or null. Only grid and domain changes build a new model; the
  * current run is held until the new one stands, so it is counted too.
  */
-export function memoryRefusalOf(params: ModelParams, changes: Partial<ModelParams>, budget: MemoryBudget = appMemoryBudget()): ParamIssue[] | null {
+export function memoryRefusalOf(params: ModelParams, changes: Partial<ModelParams>, budget: MemoryBudget = appMemoryBudget()): InputIssue[] | null {
   const field = NEW_MODEL_KEYS.find((k) => k in changes && changes[k] !== params[k]);
   if (!field) return null;
   const why = memoryRefusal({ ...params, ...changes }, params, budget);

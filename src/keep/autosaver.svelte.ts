@@ -1,8 +1,7 @@
+import { stateChecksum } from '../../lib/io/digest';
+import { encodeRunFile } from '../../lib/io/runFile';
 import type { Checkpoint } from '../../lib/model/checkpoint';
-import { runFileText } from '../../lib/run/runFileText';
-import { stateChecksum } from '../../workers/stateChecksum';
 import type { SavedRun } from './autosave';
-import { BROWSER_BASE64 } from './browserBase64';
 import { saveDue, type SaveReason } from './saveDue';
 import { WorkerStoppedError } from './workerLink';
 
@@ -21,8 +20,8 @@ export interface Saveable {
  * while playing, once when it stops playing (a pause, a blow-up, the end of a run to a time), and
  * when the page is hidden or left (visibilitychange, pagehide: the last chance before a tab is
  * closed; the write may not finish then, so the timer bounds what can be lost). A state already
- * saved is not written again. Encoding uses the browser's base64, so even a 1024² state is a short
- * pause of the page.
+ * saved is not written again. Encoding a run file is fast (lib/io/base64.ts), so even a 1024² state
+ * is a short pause of the page.
  */
 export class Autosaver {
   /** The last save, or null before the first. */
@@ -84,7 +83,7 @@ export class Autosaver {
       const key = `${cp.steps}:${cp.time}:${stateChecksum(cp.qHat)}:${JSON.stringify(cp.params)}:${playing}`;
       if (key === this.savedKey) return;
       const savedAt = Date.now();
-      await this.put({ tab: this.tab, savedAt, time: cp.time, steps: cp.steps, playing, text: runFileText(cp, new Date(savedAt), BROWSER_BASE64) });
+      await this.put({ tab: this.tab, savedAt, time: cp.time, steps: cp.steps, playing, text: encodeRunFile(cp, new Date(savedAt)) });
       this.savedKey = key;
       this.last = { time: cp.time, steps: cp.steps, savedAt, reason };
       this.failed = null;

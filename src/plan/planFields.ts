@@ -10,7 +10,7 @@ export function fieldUnit(d: FieldDimension, units: UnitSystem): string {
   return (units === 'physical' ? PHYSICAL : MODEL)[d];
 }
 
-/** One numeric entry of the plan: its dotted path in PlanInput (as PlanInputError names it), label and dimension. */
+/** One numeric entry of the plan: its dotted path in PlanInput (as a refused input's issues name it), label and dimension. */
 export interface PlanFieldSpec {
   path: string;
   label: string;

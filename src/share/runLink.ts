@@ -1,5 +1,6 @@
 import { DEFAULT_PARAMS, type ModelParams } from '../../lib/model/params';
-import { ParamError, validateParams } from '../../lib/model/validateParams';
+import { validateParams } from '../../lib/model/validateParams';
+import { isInputError } from '../../lib/inputError';
 import { appMemoryBudget, memoryRefusal, type MemoryBudget } from '../appMemory';
 
 /** Version of the link format; a link of another version is refused with a message. */
@@ -65,7 +66,7 @@ export function decodeRunLink(hash: string, budget: MemoryBudget = appMemoryBudg
   try {
     params = validateParams(input);
   } catch (e) {
-    if (e instanceof ParamError) return { kind: 'bad', message: e.message };
+    if (isInputError(e, 'parameters')) return { kind: 'bad', message: e.message };
     throw e;
   }
   const tooLarge = memoryRefusal(params, null, budget);

@@ -3,7 +3,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { decodeRunFile } from '../../lib/io/runFile';
 import { readNetcdf } from '../../lib/io/netcdfRead';
-import { stateChecksum } from '../../workers/stateChecksum';
+import { stateChecksum } from '../../lib/io/digest';
 import { striaInterrupted } from './support/interruptible';
 import { scratchDir, stria, striaHere, TINY_SETS } from './support/stria';
 

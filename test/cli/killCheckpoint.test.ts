@@ -1,13 +1,12 @@
 import { existsSync, readdirSync, readFileSync, watch } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { NODE_BASE64 } from '../../cli/nodeBase64';
 import { decodeRunFile } from '../../lib/io/runFile';
 import { readNetcdf } from '../../lib/io/netcdfRead';
 import { Model } from '../../lib/model/model';
 import { MonitoredRun } from '../../lib/run/monitoredRun';
 import { decodeCheckpointFile } from '../../lib/run/runProgress';
-import { stateChecksum } from '../../workers/stateChecksum';
+import { stateChecksum } from '../../lib/io/digest';
 import { seededSigned } from '../support/random';
 import { scratchDir, stria, striaAsync } from './support/stria';
 
@@ -86,7 +85,7 @@ describe('checkpoints and NetCDF files under kill -9', () => {
       if (temporaries().includes(`.ck.json.${child.pid}.tmp`)) tally.midWrite++;
       if (!existsSync(at('ck.json'))) continue;
       tally.checkpoints++;
-      const { checkpoint, progress } = decodeCheckpointFile(readFileSync(at('ck.json'), 'utf8'), NODE_BASE64);
+      const { checkpoint, progress } = decodeCheckpointFile(readFileSync(at('ck.json'), 'utf8'));
       const run = new MonitoredRun(Model.restore(checkpoint), progress.plan, {}, progress.origin);
       run.restoreState(progress.measurement!);
       tally.maxStep = Math.max(tally.maxStep, checkpoint.steps);

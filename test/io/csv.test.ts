@@ -60,6 +60,10 @@ describe('CSV parsing', () => {
     expect(parseCsv('\ufeffa,b\n1,2\n3,4')).toEqual({ header: ['a', 'b'], rows: [['1', '2'], ['3', '4']] });
     expect(parseCsv('a,b\r\n1,')).toEqual({ header: ['a', 'b'], rows: [['1', '']] });
     expect(parseCsv(new TextEncoder().encode('ψ\r\n"x"\r\n'))).toEqual({ header: ['ψ'], rows: [['x']] });
+    // A mark before UTF-8 bytes is dropped once, as from a string; malformed bytes become U+FFFD.
+    expect(parseCsv(Uint8Array.of(0xef, 0xbb, 0xbf, 0x61, 0x0a, 0x31))).toEqual({ header: ['a'], rows: [['1']] });
+    expect(parseCsv(Uint8Array.of(0xef, 0xbb, 0xbf, 0xef, 0xbb, 0xbf, 0x61)).header).toEqual(['\ufeffa']);
+    expect(parseCsv(Uint8Array.of(0x61, 0xc3, 0x0a, 0x31))).toEqual({ header: ['a\ufffd'], rows: [['1']] });
   });
 
   it('refuses what RFC 4180 does not allow, saying where', () => {

@@ -1,7 +1,24 @@
 import { describe, expect, it } from 'vitest';
-import { rossbyGroupVelocity, rossbyPhaseSpeed } from '../../lib/analysis/rossbyWaves';
 import { Model } from '../../lib/model/model';
 import { QUIET, sampleGrid, spectrumOf } from '../support/modelFixtures';
+
+// The test's own reference: linear Rossby waves of the one-layer QG beta-plane, K² = kx² + ky² + kd²:
+//   ω = −β kx/K², c = ω/kx = −β/K², c_gx = β(kx² − ky² − kd²)/K⁴, c_gy = 2β kx ky/K⁴.
+// [published] Pedlosky, Geophysical Fluid Dynamics, 2nd ed., Springer 1987; Vallis, Atmospheric and
+// Oceanic Fluid Dynamics, 2nd ed., Cambridge 2017. Units follow the inputs (β in 1/(length·time),
+// k in 1/length → c in length/time).
+
+/** Zonal phase speed ω/kx = −β/K². */
+function rossbyPhaseSpeed(beta: number, kx: number, ky: number, kd: number): number {
+  return -beta / (kx * kx + ky * ky + kd * kd);
+}
+
+/** Group velocity [c_gx, c_gy] = [∂ω/∂kx, ∂ω/∂ky]. */
+function rossbyGroupVelocity(beta: number, kx: number, ky: number, kd: number): [number, number] {
+  const K2 = kx * kx + ky * ky + kd * kd;
+  const K4 = K2 * K2;
+  return [(beta * (kx * kx - ky * ky - kd * kd)) / K4, (2 * beta * kx * ky) / K4];
+}
 
 /** Set ψ = psi(x, y) as the model state (q̂ = −K² ψ̂). */
 function setPsi(model: Model, psi: (x: number, y: number) => number): void {

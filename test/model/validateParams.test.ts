@@ -1,16 +1,17 @@
 import { describe, expect, it } from 'vitest';
+import { InputError, isInputError } from '../../lib/inputError';
 import { Model } from '../../lib/model/model';
 import { DEFAULT_PARAMS } from '../../lib/model/params';
-import { ParamError, validateParams } from '../../lib/model/validateParams';
+import { validateParams } from '../../lib/model/validateParams';
 
-function issuesOf(input: unknown): ParamError {
+function issuesOf(input: unknown): InputError {
   try {
     validateParams(input);
   } catch (e) {
-    if (e instanceof ParamError) return e;
+    if (isInputError(e, 'parameters')) return e;
     throw e;
   }
-  throw new Error('expected a ParamError');
+  throw new Error('expected an InputError of source "parameters"');
 }
 
 // Validation at the boundary (DESIGN): each refusal names the field, the value and the allowed range.
@@ -43,7 +44,7 @@ describe('validateParams', () => {
       const err = issuesOf(input);
       expect(err.message).toMatch(message);
       expect(err.issues.length).toBeGreaterThan(0);
-      expect(() => new Model(input)).toThrow(ParamError);
+      expect(() => new Model(input)).toThrow(expect.objectContaining({ source: 'parameters' }));
     });
   }
 

@@ -1,16 +1,17 @@
 import { describe, expect, it } from 'vitest';
-import { PLAN_SIZE_MAX, PlanInputError, pointsForSpacing, validatePlanInput } from '../../lib/plan/planInput';
+import { InputError, isInputError } from '../../lib/inputError';
+import { PLAN_SIZE_MAX, pointsForSpacing, validatePlanInput } from '../../lib/plan/planInput';
 import { DEFAULT_PARAMS } from '../../lib/model/params';
 import { goodModelPlan } from './quoted';
 
-function refusal(input: unknown): PlanInputError {
+function refusal(input: unknown): InputError {
   try {
     validatePlanInput(input);
   } catch (e) {
-    if (e instanceof PlanInputError) return e;
+    if (isInputError(e, 'plan input')) return e;
     throw e;
   }
-  throw new Error('expected a PlanInputError');
+  throw new Error('expected an InputError of source "plan input"');
 }
 
 const physical = {

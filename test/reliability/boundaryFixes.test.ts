@@ -1,13 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import { parseSets } from '../../cli/paramInput';
-import { decodeRunFile, encodeRunFile, RunFileError } from '../../lib/io/runFile';
+import { InputError } from '../../lib/inputError';
+import { decodeRunFile, encodeRunFile } from '../../lib/io/runFile';
 import { Model } from '../../lib/model/model';
 import { MonitoredRun } from '../../lib/run/monitoredRun';
 import { runSweepJob } from '../../lib/sweep/runSweepJob';
 import { formatSweepRecord, joinRecords, parseSweepRecord } from '../../lib/sweep/sweepRecord';
 import { expandSweep } from '../../lib/sweep/sweepRuns';
-import { MAX_SWEEP_RUNS, parseSweepSpec, SweepSpecError } from '../../lib/sweep/sweepSpec';
-import { PlanInputError, validatePlanInput } from '../../lib/plan/planInput';
+import { MAX_SWEEP_RUNS, parseSweepSpec } from '../../lib/sweep/sweepSpec';
+import { validatePlanInput } from '../../lib/plan/planInput';
 import { decodeRunLink } from '../../src/share/runLink';
 import { PLAN_SEEDS } from './support/planChecks';
 
@@ -34,12 +35,13 @@ const refusal = (f: () => unknown) => {
 describe('boundary faults found by the property tests, fixed', () => {
   it('run files: an all-zero random state, a clock too far on to advance, a step count past 2^53', () => {
     const zero = refusal(() => decodeRunFile(runFileWith({ rng: [0, 0, 0, 0] })));
-    expect(zero).toBeInstanceOf(RunFileError);
-    expect((zero as RunFileError).field).toBe('state.rng');
+    expect(zero).toBeInstanceOf(InputError);
+    expect((zero as InputError).source).toBe('run file');
+    expect((zero as InputError).field).toBe('state.rng');
     const far = refusal(() => decodeRunFile(runFileWith({ time: 1e17 })));
-    expect((far as RunFileError).field).toBe('state.time');
-    expect((far as RunFileError).reason).toMatch(/too large for the time step 0\.01 to advance it/);
-    expect((refusal(() => decodeRunFile(runFileWith({ steps: 2 ** 53 }))) as RunFileError).field).toBe('state.steps');
+    expect((far as InputError).field).toBe('state.time');
+    expect((far as InputError).reason).toMatch(/too large for the time step 0\.01 to advance it/);
+    expect((refusal(() => decodeRunFile(runFileWith({ steps: 2 ** 53 }))) as InputError).field).toBe('state.steps');
     expect(decodeRunFile(runFileWith({ time: 1e10, steps: 2 ** 40 })).steps).toBe(2 ** 40);
   });
 
@@ -56,14 +58,15 @@ describe('boundary faults found by the property tests, fixed', () => {
     const base = { nx: 32, ny: 32, kf: 8, dkf: 1.5 };
     const t0 = Date.now();
     const huge = refusal(() => parseSweepSpec({ base, vary: [{ param: 'beta', values: [5, 20] }], replicas: 2 ** 31, length: { until: 30 } }));
-    expect(huge).toBeInstanceOf(SweepSpecError);
-    expect((huge as SweepSpecError).field).toBe('replicas');
-    expect((huge as SweepSpecError).reason).toMatch(new RegExp(`more than ${MAX_SWEEP_RUNS}`));
-    expect((refusal(() => parseSweepSpec({ base, vary: [{ param: 'beta', logRange: { from: 1, to: 10, count: 1e9 } }], length: { steps: 3 } })) as SweepSpecError).field).toBe('vary');
-    expect((refusal(() => parseSweepSpec({ base, vary: [{ param: 'beta', values: [1] }], length: { steps: 3 }, fits: { resamples: 2 ** 31 } })) as SweepSpecError).field).toBe('fits.resamples');
+    expect(huge).toBeInstanceOf(InputError);
+    expect((huge as InputError).source).toBe('sweep spec');
+    expect((huge as InputError).field).toBe('replicas');
+    expect((huge as InputError).reason).toMatch(new RegExp(`more than ${MAX_SWEEP_RUNS}`));
+    expect((refusal(() => parseSweepSpec({ base, vary: [{ param: 'beta', logRange: { from: 1, to: 10, count: 1e9 } }], length: { steps: 3 } })) as InputError).field).toBe('vary');
+    expect((refusal(() => parseSweepSpec({ base, vary: [{ param: 'beta', values: [1] }], length: { steps: 3 }, fits: { resamples: 2 ** 31 } })) as InputError).field).toBe('fits.resamples');
     expect(Date.now() - t0).toBeLessThan(1000);
     for (const param of ['toString', '__proto__', 'constructor']) {
-      const e = refusal(() => expandSweep(parseSweepSpec({ base, vary: [{ param, logRange: { from: 1, to: 10, count: 3 } }], length: { steps: 3 } }))) as SweepSpecError;
+      const e = refusal(() => expandSweep(parseSweepSpec({ base, vary: [{ param, logRange: { from: 1, to: 10, count: 3 } }], length: { steps: 3 } }))) as InputError;
       expect(e.field).toBe('vary.0.param');
       expect(e.reason).toMatch(/is not a parameter/);
     }
@@ -94,8 +97,9 @@ describe('boundary faults found by the property tests, fixed', () => {
     const model = PLAN_SEEDS.at(-1) as Record<string, unknown>;
     for (const [change, field] of [[{ dragTime: 2.5e-323 }, 'dragTime'], [{ rotation: { kind: 'beta', beta: 5e-324 }, dragTime: 2.6e117 }, 'rotation.beta']] as const) {
       const e = refusal(() => validatePlanInput({ ...model, ...change }));
-      expect(e).toBeInstanceOf(PlanInputError);
-      expect((e as PlanInputError).issues.map((i) => i.field)).toEqual([field]);
+      expect(e).toBeInstanceOf(InputError);
+      expect((e as InputError).source).toBe('plan input');
+      expect((e as InputError).issues.map((i) => i.field)).toEqual([field]);
     }
   });
 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { Model } from '../../lib/model/model';
-import { captureState, restoreState, StateShapeError } from '../../lib/run/dataState';
+import { captureState, restoreState } from '../../lib/run/dataState';
 import { MonitoredRun, type MonitoredRunState } from '../../lib/run/monitoredRun';
 import { resolveRunPlan, type RunLengthRequest } from '../../lib/run/runPlan';
 import { stateFromJson, stateToJson } from '../../lib/run/stateJson';
@@ -59,7 +59,7 @@ describe('the measurement of a run, saved and restored', () => {
     const b = new MonitoredRun(big, planOf(big));
     b.advance(5);
     const before = JSON.stringify(stateToJson(b.saveState() as never));
-    expect(() => b.restoreState(a.saveState())).toThrow(StateShapeError);
+    expect(() => b.restoreState(a.saveState())).toThrow(expect.objectContaining({ source: 'state' }));
     expect(() => b.restoreState(a.saveState())).toThrow(/monitor\.(hovmoller|means|budget)\.\w+: holds \d+ values, the object \d+/);
     expect(JSON.stringify(stateToJson(b.saveState() as never))).toBe(before);
     const steps = new MonitoredRun(new Model(params), resolveRunPlan(small.params, { steps: 10 }));
@@ -84,7 +84,7 @@ describe('the measurement of a run, saved and restored', () => {
     expect(() => restoreState(acc, { ...s, extra: 1 }, ['plan'])).toThrow(/it has unknown extra/);
     expect(Object.is(stateFromJson(stateToJson(-0)), -0)).toBe(true);
     expect(stateFromJson(stateToJson(NaN))).toBeNaN();
-    expect(() => stateFromJson({ $n: 'nope' })).toThrow(StateShapeError);
+    expect(() => stateFromJson({ $n: 'nope' })).toThrow(expect.objectContaining({ source: 'state' }));
     expect(() => stateFromJson({ $a: 'Float64Array', b64: 'AAA' })).toThrow(/"b64" must be padded standard base64/);
   });
 });

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
+import { isInputError } from '../../lib/inputError';
 import { DEFAULT_PARAMS } from '../../lib/model/params';
-import { resolveRunPlan, RunPlanError } from '../../lib/run/runPlan';
+import { resolveRunPlan } from '../../lib/run/runPlan';
 
 const p = { ...DEFAULT_PARAMS, mu: 0.02, dt: 0.01 };
 
@@ -8,7 +9,7 @@ function refused(req: Parameters<typeof resolveRunPlan>[1], start = 0): string {
   try {
     resolveRunPlan(p, req, start);
   } catch (e) {
-    if (e instanceof RunPlanError) return e.field;
+    if (isInputError(e, 'run length')) return e.field;
     throw e;
   }
   throw new Error('accepted');

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { axisValues, parseSweepSpec, SweepSpecError } from '../../lib/sweep/sweepSpec';
+import { isInputError } from '../../lib/inputError';
+import { axisValues, parseSweepSpec } from '../../lib/sweep/sweepSpec';
 import { expandSweep } from '../../lib/sweep/sweepRuns';
 
 const base = { nx: 32, ny: 32, kf: 8, dkf: 1.5, mu: 0.05, eps: 0.05, nu: 1e-8, dt: 0.05 };
@@ -10,7 +11,7 @@ function refusedField(spec: unknown): string {
   try {
     expandSweep(parseSweepSpec(spec));
   } catch (e) {
-    if (e instanceof SweepSpecError) return e.field;
+    if (isInputError(e, 'sweep spec')) return e.field;
     throw e;
   }
   throw new Error('the spec was accepted');

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { Model } from '../../lib/model/model';
 import { RESCUE_EVERY, RescuePoint } from '../../workers/rescuePoint';
-import { stateChecksum } from '../../workers/stateChecksum';
+import { stateChecksum } from '../../lib/io/digest';
 
 const SMALL = { nx: 32, ny: 32, kf: 6, dkf: 1 };
 

@@ -6,7 +6,7 @@ import { BUDGET_ROW_WIDTH } from '../../workers/budgetRows';
 import { RESCUE_EVERY } from '../../workers/rescuePoint';
 import type { Snapshot } from '../../workers/simulationApi';
 import { SimulationHost } from '../../workers/simulationHost';
-import { stateChecksum } from '../../workers/stateChecksum';
+import { stateChecksum } from '../../lib/io/digest';
 
 // A small grid with the forcing annulus inside its dealiased range, so each step takes well under 1 ms.
 const SMALL = { nx: 32, ny: 32, kf: 6, dkf: 1 };

@@ -1,22 +1,22 @@
 import fc from 'fast-check';
-import { NODE_BASE64 } from '../../../cli/nodeBase64';
+import { isInputError } from '../../../lib/inputError';
 import { Model } from '../../../lib/model/model';
 import { BlowUpError } from '../../../lib/model/stepper';
-import { StateShapeError } from '../../../lib/run/dataState';
 import { MonitoredRun } from '../../../lib/run/monitoredRun';
 import { runId } from '../../../lib/run/runId';
 import { resolveRunPlan } from '../../../lib/run/runPlan';
-import { CheckpointFileError, decodeCheckpointFile, encodeCheckpointFile, type RunProgress } from '../../../lib/run/runProgress';
-import { textDigest } from '../../../lib/run/textDigest';
+import { decodeCheckpointFile, encodeCheckpointFile, type RunProgress } from '../../../lib/run/runProgress';
+import { textDigest } from '../../../lib/io/digest';
 import { PropertyFailure, type Boundary } from '../support/boundary';
 import { applyEdits, editsArbitrary, textDamage } from '../support/weird';
 
 /**
  * decodeCheckpointFile: real checkpoints of measured runs, damaged as text (the digest must catch
  * it), edited as JSON and sealed again with a correct digest (the schema and cross-checks must catch
- * it), and random texts. A refusal is a CheckpointFileError naming a field its message shows; an
- * accepted file restores into a model, its measurement either restores or is refused as a misfit
- * (StateShapeError, which `stria run --resume` reports and goes on without), and the run steps on.
+ * it), and random texts. A refusal is an InputError of source 'checkpoint file' naming a field its
+ * message shows; an accepted file restores into a model, its measurement either restores or is
+ * refused as a misfit (an InputError of source 'state', which `stria run --resume` reports and goes
+ * on without), and the run steps on.
  * The measurement itself is only damaged, not re-sealed: its integrity is the digest's to guard.
  */
 function checkpointOf(params: Record<string, unknown>, steps: number, until: number): string {
@@ -33,7 +33,7 @@ function checkpointOf(params: Record<string, unknown>, steps: number, until: num
     outputs: { created_at: '2026-01-01T00:00:00Z', command: 'stria run', snapshots: null, zonal: { path: 'z.nc', records: 3 } },
     measurement: run.saveState(),
   };
-  return encodeCheckpointFile(model.checkpoint(), progress, NODE_BASE64, new Date('2026-01-01T00:00:00Z'));
+  return encodeCheckpointFile(model.checkpoint(), progress, new Date('2026-01-01T00:00:00Z'));
 }
 
 const FILES = [checkpointOf({ nx: 32, ny: 32, kf: 8, dkf: 1.5, dt: 0.01, init_energy: 1 }, 12, 1), checkpointOf({ nx: 32, ny: 32, kf: 6, dkf: 1, dt: 0.02, cfl: 0, mu: 0.1 }, 7, 2)];
@@ -80,10 +80,10 @@ export const boundary: Boundary<string> = {
   check(text) {
     let decoded;
     try {
-      decoded = decodeCheckpointFile(text, NODE_BASE64);
+      decoded = decodeCheckpointFile(text);
     } catch (e) {
-      if (!(e instanceof CheckpointFileError)) throw new PropertyFailure(`decodeCheckpointFile threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}, not a CheckpointFileError`);
-      if (!e.field || !e.message.includes(e.field)) throw new PropertyFailure(`a CheckpointFileError names no field: ${e.message}`);
+      if (!isInputError(e, 'checkpoint file')) throw new PropertyFailure(`decodeCheckpointFile threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}, not an InputError of source 'checkpoint file'`);
+      if (!e.field || !e.message.includes(e.field)) throw new PropertyFailure(`an InputError of source 'checkpoint file' names no field: ${e.message}`);
       return e.field === 'progress.digest' ? 'rejected by the digest' : 'rejected';
     }
     const { checkpoint, progress } = decoded;
@@ -93,7 +93,7 @@ export const boundary: Boundary<string> = {
       try {
         run.restoreState(progress.measurement);
       } catch (e) {
-        if (!(e instanceof StateShapeError)) throw new PropertyFailure(`restoreState threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}`);
+        if (!isInputError(e, 'state')) throw new PropertyFailure(`restoreState threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}`);
         answer = 'accepted, measurement refused';
       }
     }

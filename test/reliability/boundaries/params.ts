@@ -1,15 +1,17 @@
 import fc from 'fast-check';
+import { isInputError } from '../../../lib/inputError';
 import { DEFAULT_PARAMS } from '../../../lib/model/params';
-import { ParamError, validateParams } from '../../../lib/model/validateParams';
+import { validateParams } from '../../../lib/model/validateParams';
 import { estimateRunMemory } from '../../../lib/run/runMemory';
 import { PropertyFailure, type Boundary } from '../support/boundary';
 import { stepsCleanly, trickyKey, weirdValue } from '../support/weird';
 
 /**
  * validateParams: anything goes in (any JSON-like value, valid parameters with fields replaced by odd
- * values, field-by-field random records); a refusal is a ParamError whose every issue names a field
- * that its message shows; an acceptance is a full, finite parameter set on which a model builds and
- * steps cleanly. Grids are kept to at most 256² so that accepted cases stay quick.
+ * values, field-by-field random records); a refusal is an InputError of source 'parameters' whose
+ * every issue names a field that its message shows; an acceptance is a full, finite parameter set on
+ * which a model builds and steps cleanly. Grids are kept to at most 256² so that accepted cases
+ * stay quick.
  */
 const KEYS = Object.keys(DEFAULT_PARAMS);
 const SMALL = { nx: 32, ny: 32, kf: 8, dkf: 1.5, dt: 0.01 };
@@ -62,8 +64,8 @@ export const boundary: Boundary<unknown> = {
     try {
       p = validateParams(input);
     } catch (e) {
-      if (!(e instanceof ParamError)) throw new PropertyFailure(`validateParams threw ${e instanceof Error ? e.name : typeof e}, not a ParamError: ${String(e)}`);
-      if (e.issues.length === 0) throw new PropertyFailure('a ParamError with no issue');
+      if (!isInputError(e, 'parameters')) throw new PropertyFailure(`validateParams threw ${e instanceof Error ? e.name : typeof e}, not an InputError of source 'parameters': ${String(e)}`);
+      if (e.issues.length === 0) throw new PropertyFailure('an InputError of source "parameters" with no issue');
       for (const i of e.issues) {
         if (typeof i.field !== 'string') throw new PropertyFailure(`an issue names no field: ${JSON.stringify(i)}`);
         // A key that is the empty text is named by its value, shown as "".

@@ -1,5 +1,6 @@
 import fc from 'fast-check';
-import { parsePlanFile, PlanFileError, serializePlanFile } from '../../../lib/plan/planFile';
+import { isInputError } from '../../../lib/inputError';
+import { parsePlanFile, serializePlanFile } from '../../../lib/plan/planFile';
 import type { PlanInput } from '../../../lib/plan/planInput';
 import { PropertyFailure, type Boundary } from '../support/boundary';
 import { analysesCleanly, PLAN_SEEDS } from '../support/planChecks';
@@ -7,9 +8,9 @@ import { applyEdits, editsArbitrary, textDamage } from '../support/weird';
 
 /**
  * parsePlanFile: plan files of the presets and of a plan of the tests' own, edited as JSON or
- * damaged as text, as text or as parsed values, and random texts. A refusal is a PlanFileError that
- * says what is wrong (not JSON, not a plan file, the version, or the input field); an accepted file
- * is analysed like an accepted plan input.
+ * damaged as text, as text or as parsed values, and random texts. A refusal is an InputError of
+ * source 'plan file' that says what is wrong (not JSON, not a plan file, the version, or the input
+ * field); an accepted file is analysed like an accepted plan input.
  */
 const FILES = PLAN_SEEDS.map((input) => serializePlanFile(input as PlanInput, '2026-01-01T00:00:00.000Z'));
 
@@ -24,7 +25,7 @@ export const boundary: Boundary<unknown> = {
     try {
       file = parsePlanFile(input);
     } catch (e) {
-      if (!(e instanceof PlanFileError)) throw new PropertyFailure(`parsePlanFile threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}, not a PlanFileError`);
+      if (!isInputError(e, 'plan file')) throw new PropertyFailure(`parsePlanFile threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}, not an InputError of source 'plan file'`);
       if (!/plan file/i.test(e.message)) throw new PropertyFailure(`the refusal does not say what is wrong: ${e.message}`);
       if (/input refused: /.test(e.message) && !/input\.[^:]*: /.test(e.message)) throw new PropertyFailure(`an input refusal names no field: ${e.message}`);
       return 'rejected';

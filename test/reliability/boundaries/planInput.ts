@@ -5,9 +5,9 @@ import { applyEdits, editsArbitrary, weirdValue } from '../support/weird';
 
 /**
  * validatePlanInput then analysePlan: the presets and a plan of the tests' own with JSON edits,
- * plans built part by part from random kinds and values, and any value. A refusal is a
- * PlanInputError whose issues' fields its message names; an accepted plan is analysed without error
- * or NaN, and its matched run's parameters are accepted by the model.
+ * plans built part by part from random kinds and values, and any value. A refusal is an InputError
+ * of source 'plan input' whose issues' fields its message names; an accepted plan is analysed
+ * without error or NaN, and its matched run's parameters are accepted by the model.
  */
 /** The parts of a plan input: with `odd`, mostly values of the right kind and now and then an odd one. */
 function parts(odd: boolean) {

@@ -1,5 +1,7 @@
 import fc from 'fast-check';
-import { decodeBase64, decodeRunFile, encodeBase64, encodeRunFile, RunFileError } from '../../../lib/io/runFile';
+import { isInputError } from '../../../lib/inputError';
+import { decodeBase64, encodeBase64 } from '../../../lib/io/base64';
+import { decodeRunFile, encodeRunFile } from '../../../lib/io/runFile';
 import type { Checkpoint } from '../../../lib/model/checkpoint';
 import { Model } from '../../../lib/model/model';
 import { PropertyFailure, type Boundary } from '../support/boundary';
@@ -8,8 +10,9 @@ import { applyEdits, editsArbitrary, stepsCleanly, textDamage, weirdValue } from
 /**
  * decodeRunFile: real run files (a few grids and forcings, part-way through a run) damaged as text,
  * edited as JSON, with flipped bits in the spectrum or a regenerated clock and random state, and
- * random texts. A refusal is a RunFileError naming a field that its message shows; an accepted file
- * restores into a model that steps cleanly, and whose random stream still draws (white forcing on).
+ * random texts. A refusal is an InputError of source 'run file' naming a field that its message
+ * shows; an accepted file restores into a model that steps cleanly, and whose random stream still
+ * draws (white forcing on).
  */
 function saved(p: Record<string, unknown>, steps: number): string {
   const m = new Model(p);
@@ -65,8 +68,8 @@ export const boundary: Boundary<string> = {
     try {
       cp = decodeRunFile(text);
     } catch (e) {
-      if (!(e instanceof RunFileError)) throw new PropertyFailure(`decodeRunFile threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}, not a RunFileError`);
-      if (!e.field || !e.message.includes(e.field)) throw new PropertyFailure(`a RunFileError names no field: ${e.message}`);
+      if (!isInputError(e, 'run file')) throw new PropertyFailure(`decodeRunFile threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}, not an InputError of source 'run file'`);
+      if (!e.field || !e.message.includes(e.field)) throw new PropertyFailure(`an InputError of source 'run file' names no field: ${e.message}`);
       return 'rejected';
     }
     let model: Model;

@@ -1,17 +1,18 @@
 import fc from 'fast-check';
+import { isInputError } from '../../../lib/inputError';
 import { fitScaling } from '../../../lib/analysis/scalingFit';
 import { DEFAULT_PARAMS } from '../../../lib/model/params';
 import { expandSweep } from '../../../lib/sweep/sweepRuns';
-import { parseSweepSpec, SweepSpecError } from '../../../lib/sweep/sweepSpec';
+import { parseSweepSpec } from '../../../lib/sweep/sweepSpec';
 import { PropertyFailure, type Boundary } from '../support/boundary';
 import { applyEdits, editsArbitrary, stepsCleanly, trickyKey, weirdValue } from '../support/weird';
 
 /**
  * parseSweepSpec then expandSweep: specs built from random parts (swept names including inherited
  * and tricky keys, value lists, log ranges with any count, replicas, lengths, fit options), valid
- * specs with JSON edits, and any value. A refusal is a SweepSpecError naming a field its message
- * shows; an accepted spec expands within the time limit into runs whose first one steps cleanly,
- * and its fit options fit four points within the time limit too.
+ * specs with JSON edits, and any value. A refusal is an InputError of source 'sweep spec' naming a
+ * field its message shows; an accepted spec expands within the time limit into runs whose first one
+ * steps cleanly, and its fit options fit four points within the time limit too.
  */
 const base = { nx: 32, ny: 32, kf: 8, dkf: 1.5, mu: 0.05, eps: 0.05, nu: 1e-8, dt: 0.05 };
 const good = { base, vary: [{ param: 'beta', values: [5, 20] }], replicas: 2, length: { until: 30 }, average: 15 };
@@ -54,8 +55,8 @@ export const boundary: Boundary<unknown> = {
       fits = s.fits;
       jobs = expandSweep(s);
     } catch (e) {
-      if (!(e instanceof SweepSpecError)) throw new PropertyFailure(`the sweep spec threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}, not a SweepSpecError`);
-      if (!e.field || !e.message.includes(e.field)) throw new PropertyFailure(`a SweepSpecError names no field: ${e.message}`);
+      if (!isInputError(e, 'sweep spec')) throw new PropertyFailure(`the sweep spec threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}, not an InputError of source 'sweep spec'`);
+      if (!e.field || !e.message.includes(e.field)) throw new PropertyFailure(`an InputError of source 'sweep spec' names no field: ${e.message}`);
       return 'rejected';
     }
     if (jobs.length === 0) throw new PropertyFailure('an accepted spec makes no run');

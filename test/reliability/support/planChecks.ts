@@ -1,7 +1,8 @@
+import { isInputError } from '../../../lib/inputError';
 import { analysePlan } from '../../../lib/plan/analysePlan';
-import { PlanInputError, validatePlanInput } from '../../../lib/plan/planInput';
+import { validatePlanInput } from '../../../lib/plan/planInput';
 import { PLAN_PRESETS } from '../../../lib/plan/planPresets';
-import { ParamError, validateParams } from '../../../lib/model/validateParams';
+import { validateParams } from '../../../lib/model/validateParams';
 import { PropertyFailure } from './boundary';
 import { stepsCleanly } from './weird';
 
@@ -60,17 +61,17 @@ export function analysesCleanly(input: unknown): string {
   try {
     p = validateParams(a.matched.params);
   } catch (e) {
-    if (e instanceof ParamError) throw new PropertyFailure(`accepted, then the matched run's parameters are refused by the model: ${e.message}`);
+    if (isInputError(e, 'parameters')) throw new PropertyFailure(`accepted, then the matched run's parameters are refused by the model: ${e.message}`);
     throw e;
   }
   if (p.nx * p.ny > 128 * 128) return 'accepted';
   return stepsCleanly(p) === 'accepted' ? 'accepted, matched run stepped' : 'accepted, matched run blew up';
 }
 
-/** A PlanInputError is clean when it lists issues whose fields its message names. */
+/** An InputError of source 'plan input' is clean when it lists issues whose fields its message names. */
 export function cleanPlanInputError(e: unknown): string | null {
-  if (!(e instanceof PlanInputError)) return `threw ${e instanceof Error ? e.name : typeof e}, not a PlanInputError`;
-  if (e.issues.length === 0) return 'a PlanInputError with no issue';
+  if (!isInputError(e, 'plan input')) return `threw ${e instanceof Error ? e.name : typeof e}, not an InputError of source 'plan input'`;
+  if (e.issues.length === 0) return 'an InputError of source "plan input" with no issue';
   for (const i of e.issues) if (typeof i.field !== 'string' || !e.message.includes(i.field)) return `an issue's field ${JSON.stringify(i.field)} is not in the message`;
   return null;
 }

@@ -1,18 +1,19 @@
 import { describe, expect, it } from 'vitest';
-import { PlanInputError, validatePlanInput } from '../../../lib/plan/planInput';
+import { InputError } from '../../../lib/inputError';
+import { validatePlanInput } from '../../../lib/plan/planInput';
 import { planPreset } from '../../../lib/plan/planPresets';
 import { CHOICE_FIELDS, COMMON_FIELDS, freshChoice, getPath, KINDS, setPath } from '../../../src/plan/planFields';
 
 describe('plan fields', () => {
   const base = planPreset('earthAtmosphere').input;
 
-  it('name the paths that PlanInputError names, so a refusal lands at its field', () => {
+  it('name the paths that a refused plan input names, so a refusal lands at its field', () => {
     const bad = setPath(setPath(base, 'domain.Lx', -1), 'forcing.halfWidth', 2);
     try {
       validatePlanInput(bad);
       expect.unreachable();
     } catch (e) {
-      const fields = (e as PlanInputError).issues.map((i) => i.field);
+      const fields = (e as InputError).issues.map((i) => i.field);
       const known = [...COMMON_FIELDS, ...Object.values(CHOICE_FIELDS).flatMap((c) => Object.values(c).flat())].map((f) => f.path);
       expect(fields.sort()).toEqual(['domain.Lx', 'forcing.halfWidth']);
       for (const f of fields) expect(known).toContain(f);

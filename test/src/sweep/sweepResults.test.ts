@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
 import { encodeCsv } from '../../../lib/io/csv';
-import { utf8Decode } from '../../../lib/io/utf8';
 import { formatSweepRecord } from '../../../lib/sweep/sweepRecord';
 import { expandSweep } from '../../../lib/sweep/sweepRuns';
 import { parseSweepSpec } from '../../../lib/sweep/sweepSpec';
@@ -24,7 +23,7 @@ describe('parseResults', () => {
   });
 
   it('reads table.csv with numbers as numbers and empty fields as null', () => {
-    const csv = utf8Decode(encodeCsv(tableCsvColumns(rows, tableColumns(pointKeysOf(records)))));
+    const csv = new TextDecoder().decode(encodeCsv(tableCsvColumns(rows, tableColumns(pointKeysOf(records)))));
     const parsed = parseResults('table.csv', csv).rows;
     expect(parsed.map((r) => r.beta)).toEqual([5, 10]);
     expect(parsed[0].u_rms).toBe(rows[0].u_rms);
