@@ -37,7 +37,7 @@ export class CheckpointStore {
     try {
       writeFileAtomic(this.path, text);
     } catch (e) {
-      throw new Error(`cannot write the checkpoint ${this.path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}; the previous checkpoint is kept`);
+      throw new Error(`cannot write the checkpoint ${this.path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}; the previous checkpoint is kept`, { cause: e });
     }
     this.written++;
   }

@@ -39,7 +39,7 @@ export class NcRecordFile {
     try {
       fd = openSync(path, 'r+');
     } catch (e) {
-      throw new Error(`cannot continue ${path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
+      throw new Error(`cannot continue ${path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`, { cause: e });
     }
     try {
       file.writer = adoptRecords(fd, path, kind, run, keep);
@@ -117,7 +117,7 @@ function adoptRecords(fd: number, path: string, kind: StriaFileKindSpec, run: St
     try {
       again = writer.appendFrame({ time, steps, fields });
     } catch (e) {
-      throw new Error(`cannot continue ${path}: record ${r}: ${(e as Error).message}`);
+      throw new Error(`cannot continue ${path}: record ${r}: ${(e as Error).message}`, { cause: e });
     }
     for (let i = 0; i < rec.length; i++) if (again[i] !== rec[i]) throw new Error(`cannot continue ${path}: record ${r} is not what this run writes`);
   }

@@ -47,7 +47,7 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   try {
     records = joinRecords(sources);
   } catch (e) {
-    if (e instanceof RangeError) throw new Error(`conflict: ${e.message}; nothing written`);
+    if (e instanceof RangeError) throw new Error(`conflict: ${e.message}; nothing written`, { cause: e });
     throw e;
   }
   const specs = sources.filter((s) => s.spec !== null);

@@ -18,7 +18,7 @@ export function readRunsLog(path: string): { records: SweepRecord[]; partialTail
     try {
       return [parseSweepRecord(line)];
     } catch (e) {
-      throw new Error(`${path}:${i + 1}: not a sweep record: ${(e as Error).message}`);
+      throw new Error(`${path}:${i + 1}: not a sweep record: ${(e as Error).message}`, { cause: e });
     }
   });
   return { records, partialTail: tail.trim() !== '' };

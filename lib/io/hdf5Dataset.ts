@@ -1,7 +1,7 @@
 import { Dataset, File, Group, type DataObjects } from 'jsfive';
 import type { AllocationMeter } from './allocationMeter';
 import type { ByteSource } from './byteSource';
-import type { AttributeValue, DatasetDimension, DatasetReader, DatasetVariable, ReadOptions, ReaderOptions } from './datasetReader';
+import type { AttributeValue, DatasetDimension, DatasetReader, ReadOptions, ReaderOptions } from './datasetReader';
 import { isNumericType, NamedVariables } from './datasetReader';
 import { readChunkIndex } from './hdf5ChunkIndex';
 import { denseAttributes } from './hdf5DenseAttributes';
@@ -51,7 +51,7 @@ class Hdf5Dataset extends NamedVariables implements DatasetReader {
       try {
         file = new File(view.buffer as ArrayBuffer);
       } catch (e) {
-        throw new RangeError(`cannot read this HDF5 file: ${describe(e)}`);
+        throw new RangeError(`cannot read this HDF5 file: ${describe(e)}`, { cause: e });
       }
       const entries: Entry[] = [];
       for (const key of file.keys) {
@@ -59,7 +59,7 @@ class Hdf5Dataset extends NamedVariables implements DatasetReader {
         try {
           obj = file.get(key);
         } catch (e) {
-          throw new RangeError(`cannot read "${key}" of this HDF5 file: ${describe(e)}`);
+          throw new RangeError(`cannot read "${key}" of this HDF5 file: ${describe(e)}`, { cause: e });
         }
         if (obj instanceof Dataset) {
           const d = obj._dataobjects;
@@ -135,6 +135,6 @@ function safeAttributes(obj: DataObjects, owner: string): Record<string, unknown
   try {
     return obj.get_attributes();
   } catch (e) {
-    throw new RangeError(`cannot read the attributes of ${owner}: ${describe(e)}`);
+    throw new RangeError(`cannot read the attributes of ${owner}: ${describe(e)}`, { cause: e });
   }
 }

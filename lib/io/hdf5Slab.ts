@@ -81,7 +81,7 @@ function chunkBytes(view: DataView, plan: SlabPlan, entry: ChunkEntry, decodedSi
     try {
       buf = (Filters.get(f.id) as (b: ArrayBuffer, size: number, data: unknown) => ArrayBuffer)(buf, plan.elementSize, f.clientData);
     } catch (e) {
-      throw new RangeError(`corrupt HDF5 data: the ${FILTER_NAMES[f.id] ?? `id ${f.id}`} filter failed on a chunk of "${plan.variable}" (${describe(e)})`);
+      throw new RangeError(`corrupt HDF5 data: the ${FILTER_NAMES[f.id] ?? `id ${f.id}`} filter failed on a chunk of "${plan.variable}" (${describe(e)})`, { cause: e });
     }
     meter?.temporary(buf.byteLength);
   }

@@ -1,6 +1,6 @@
 import type { AllocationMeter } from './allocationMeter';
 import type { ByteSource } from './byteSource';
-import type { DatasetReader, DatasetType, DatasetVariable, ReadOptions, ReaderOptions } from './datasetReader';
+import type { DatasetReader, DatasetType, ReadOptions, ReaderOptions } from './datasetReader';
 import { NamedVariables } from './datasetReader';
 import { readNetcdf, type NetcdfFile } from './netcdfRead';
 import { NC_STREAMING, NC_TYPE_SIZE, type NcType } from './netcdf3Types';

@@ -64,8 +64,8 @@ export function readNetcdf(input: ArrayBuffer | Uint8Array, options: { headerOnl
   try {
     reader = new NetCDFReader(bytes);
   } catch (e) {
-    if (e instanceof RangeError) throw new RangeError(`truncated or corrupt NetCDF file: the header runs past the end of the ${bytes.length} bytes given`);
-    throw new RangeError(`cannot read this NetCDF file: ${(e as Error).message}`);
+    if (e instanceof RangeError) throw new RangeError(`truncated or corrupt NetCDF file: the header runs past the end of the ${bytes.length} bytes given`, { cause: e });
+    throw new RangeError(`cannot read this NetCDF file: ${(e as Error).message}`, { cause: e });
   }
   const h = reader.header;
   const recordId = h.recordDimension.id;

@@ -121,7 +121,6 @@ function buildMatched(
   const available = (kMax * Math.SQRT2 * Ly) / gamma; // = jets · (k_f/k_R) · (k_max/k_f)
   const needed = want.jetsPerDomain * want.kfOverKR * want.kmaxOverKf;
   let J = want.jetsPerDomain;
-  let a = want.kfOverKR;
   let b = want.kmaxOverKf;
   let gives: MatchedRun['gives'] = 'none';
   const notes: string[] = [];
@@ -130,7 +129,7 @@ function buildMatched(
   if (Math.abs(available / needed - 1) > KEPT_TOL) {
     const f = floors(want, gamma, plan.order);
     const limits = `${grid} holds jets·(k_f/k_R)·(k_max/k_f) = ${fmt(available)}, the plan needs ${fmt(needed)}`;
-    a = available / (J * b);
+    let a = available / (J * b);
     gives = 'kfOverKR';
     why.kfOverKR = `gives first: ${limits}; shortening the inertial range keeps the regime, the jet count and the forcing resolution`;
     if (a < f.a) {

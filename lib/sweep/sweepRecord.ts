@@ -65,7 +65,7 @@ export function parseSweepRecord(line: string): SweepRecord {
   try {
     json = JSON.parse(line);
   } catch (e) {
-    throw new RangeError(`not JSON (${e instanceof Error ? e.message : String(e)})`);
+    throw new RangeError(`not JSON (${e instanceof Error ? e.message : String(e)})`, { cause: e });
   }
   const parsed = v.safeParse(RecordSchema, json);
   if (!parsed.success) {

@@ -90,7 +90,11 @@ export function analyzeUserRecords(source: UserRecordSource, options: UserAnalys
     if (profileLayout) {
       const ub = fileBuffers.ubar as Float64Array;
       acc.ubar.add(ub);
-      for (let j = 0; j < g.ny; j++) if (Number.isFinite(ub[j])) (speed2 += ub[j] * ub[j]), speed2Count++;
+      for (let j = 0; j < g.ny; j++)
+        if (Number.isFinite(ub[j])) {
+          speed2 += ub[j] * ub[j];
+          speed2Count++;
+        }
     } else {
       const d = (deriver as FieldDeriver).derive();
       if (d.spectral) spectralRoute++;

@@ -12,7 +12,7 @@ export async function analyzeUserFile(file: File, options: UserFileOptions): Pro
   try {
     return await wrap<UserDataApi>(worker).analyze(transfer(bytes, [bytes]), options);
   } catch (e) {
-    throw new RangeError(`${file.name}: ${e instanceof Error ? e.message : String(e)}`);
+    throw new RangeError(`${file.name}: ${e instanceof Error ? e.message : String(e)}`, { cause: e });
   } finally {
     worker.terminate();
   }

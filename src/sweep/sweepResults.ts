@@ -19,7 +19,7 @@ export function parseResults(name: string, text: string): { rows: TableRow[]; re
         try {
           return parseSweepRecord(l);
         } catch (e) {
-          throw new RangeError(`${name} line ${i + 1}: ${e instanceof Error ? e.message : String(e)}`);
+          throw new RangeError(`${name} line ${i + 1}: ${e instanceof Error ? e.message : String(e)}`, { cause: e });
         }
       });
     return { rows: tableRows(records), records };

@@ -150,7 +150,7 @@ describe('option parsing', () => {
   it('draws a progress bar that fits its width', () => {
     const line = renderProgress('stria run', 0.5, 't = 10', 30, 60);
     expect(line.length).toBeLessThanOrEqual(60);
-    expect(line).toMatch(/^stria run \[#+-+\]  50% t = 10, 30 s left$/);
+    expect(line).toMatch(/^stria run \[#+-+\] {2}50% t = 10, 30 s left$/);
     const bar = /\[([#-]+)\]/.exec(line)![1];
     expect(bar.split('#').length - 1).toBe(Math.round(bar.length / 2));
   });

@@ -17,6 +17,7 @@ describe('stria run', () => {
     for (const k of SUMMARY_KEYS) expect(summary).toHaveProperty(k);
     expect(summary.time).toBeGreaterThanOrEqual(5);
     expect(summary.injection).toBeCloseTo(TINY.eps, 9); // white forcing injects ε exactly on average
+    // eslint-disable-next-line no-control-regex -- ESC is the byte a terminal escape starts with
     expect(r.stderr).not.toMatch(/\r|\x1b/); // no progress bar when stderr is not a terminal
   });
 

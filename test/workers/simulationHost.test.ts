@@ -132,7 +132,7 @@ describe('SimulationHost', () => {
     // The same run stepped directly blows up at the same step; the kept state is the last multiple of RESCUE_EVERY before it.
     const direct = new Model(params);
     let kept = direct.checkpoint();
-    let blewAt = -1;
+    let blewAt: number;
     try {
       for (;;) {
         direct.step(1);

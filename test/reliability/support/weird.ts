@@ -23,8 +23,16 @@ type Json = null | boolean | number | string | Json[] | { [k: string]: Json };
 
 /** Every path to a value inside a JSON value (objects and arrays), the root excluded. */
 export function jsonPaths(x: unknown, prefix: (string | number)[] = [], out: (string | number)[][] = []): (string | number)[][] {
-  if (Array.isArray(x)) x.forEach((e, i) => (out.push([...prefix, i]), jsonPaths(e, [...prefix, i], out)));
-  else if (typeof x === 'object' && x !== null) for (const [k, v] of Object.entries(x)) out.push([...prefix, k]), jsonPaths(v, [...prefix, k], out);
+  if (Array.isArray(x))
+    x.forEach((e, i) => {
+      out.push([...prefix, i]);
+      jsonPaths(e, [...prefix, i], out);
+    });
+  else if (typeof x === 'object' && x !== null)
+    for (const [k, v] of Object.entries(x)) {
+      out.push([...prefix, k]);
+      jsonPaths(v, [...prefix, k], out);
+    }
   return out;
 }
 
@@ -42,7 +50,7 @@ export function editsArbitrary(max = 3): fc.Arbitrary<Edit[]> {
 
 /** A copy of `doc` with the edits applied (paths chosen modulo the paths present at each edit). */
 export function applyEdits<T>(doc: T, edits: readonly Edit[]): unknown {
-  let x: unknown = structuredClone(doc);
+  const x: unknown = structuredClone(doc);
   // Inserted values are copied: constants are shared instances, and one put in twice makes a cycle.
   const fresh = (v: unknown) => structuredClone(v);
   for (const e of edits) {
