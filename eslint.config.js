@@ -16,11 +16,19 @@ import tseslint from 'typescript-eslint';
 /** A no-restricted-imports rule that forbids `patterns` at run time (type imports allowed). */
 function forbid(patterns) {
   return {
-    '@typescript-eslint/no-restricted-imports': ['error', { patterns: patterns.map((p) => ({ ...p, allowTypeImports: true })) }],
+    '@typescript-eslint/no-restricted-imports': [
+      'error',
+      { patterns: patterns.map((p) => ({ ...p, allowTypeImports: true })) },
+    ],
   };
 }
 
-const outsideLib = [{ group: ['**/src/**', '**/workers/**', '**/cli/**', '../../src/*', '../../workers/*', '../../cli/*'], message: 'lib/ is pure: it imports nothing from src/, workers/ or cli/.' }];
+const outsideLib = [
+  {
+    group: ['**/src/**', '**/workers/**', '**/cli/**', '../../src/*', '../../workers/*', '../../cli/*'],
+    message: 'lib/ is pure: it imports nothing from src/, workers/ or cli/.',
+  },
+];
 
 export default tseslint.config(
   { ignores: ['dist/**', 'node_modules/**', 'scratch/**', 'coverage/**', 'bench/out/**', 'e2e/artifacts/**'] },
@@ -37,7 +45,10 @@ export default tseslint.config(
     },
     rules: {
       'import-x/no-cycle': ['error', { ignoreExternal: true }],
-      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_', caughtErrors: 'none' }],
+      '@typescript-eslint/no-unused-vars': [
+        'error',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_', caughtErrors: 'none' },
+      ],
     },
   },
   { files: ['lib/**/*.ts'], rules: forbid(outsideLib) },
@@ -47,26 +58,45 @@ export default tseslint.config(
   { files: ['test/model/portableMath.test.ts'], rules: { 'no-loss-of-precision': 'off' } },
   {
     files: ['lib/io/**/*.ts'],
-    rules: forbid([...outsideLib, { group: ['../analysis/*', '../plan/*', '../userfile/*', '../run/*', '../sweep/*'], message: 'lib/io holds formats only: it imports neither analysis, plan, userfile, run nor sweep.' }]),
+    rules: forbid([
+      ...outsideLib,
+      {
+        group: ['../analysis/*', '../plan/*', '../userfile/*', '../run/*', '../sweep/*'],
+        message: 'lib/io holds formats only: it imports neither analysis, plan, userfile, run nor sweep.',
+      },
+    ]),
   },
   {
     files: ['lib/analysis/**/*.ts'],
     rules: forbid([
       ...outsideLib,
-      { group: ['../model/stepper', '../model/model'], message: 'lib/analysis reads model states; it does not import the stepper or the Model.' },
-      { group: ['../plan/*', '../userfile/*', '../run/*', '../sweep/*'], message: 'lib/analysis sits below plan, userfile, run and sweep.' },
+      {
+        group: ['../model/stepper', '../model/model'],
+        message: 'lib/analysis reads model states; it does not import the stepper or the Model.',
+      },
+      {
+        group: ['../plan/*', '../userfile/*', '../run/*', '../sweep/*'],
+        message: 'lib/analysis sits below plan, userfile, run and sweep.',
+      },
     ]),
   },
   {
     files: ['lib/plan/**/*.ts'],
     rules: forbid([
       ...outsideLib,
-      { regex: '^\\.\\./model/(?!params$|validateParams$|grid$)', message: "lib/plan does not import the model's arrays: only its parameters, their validation and the grid's limits." },
+      {
+        regex: '^\\.\\./model/(?!params$|validateParams$|grid$)',
+        message:
+          "lib/plan does not import the model's arrays: only its parameters, their validation and the grid's limits.",
+      },
       { group: ['../userfile/*', '../run/*', '../sweep/*'], message: 'lib/plan sits below userfile, run and sweep.' },
     ]),
   },
   {
     files: ['lib/model/**/*.ts'],
-    rules: forbid([...outsideLib, { regex: '^\\.\\./(?!inputError$)', message: 'lib/model is the bottom layer: it imports nothing else of lib.' }]),
+    rules: forbid([
+      ...outsideLib,
+      { regex: '^\\.\\./(?!inputError$)', message: 'lib/model is the bottom layer: it imports nothing else of lib.' },
+    ]),
   },
 );

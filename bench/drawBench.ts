@@ -23,17 +23,27 @@ export interface DrawTiming {
 export async function timeFieldDraw(n: number, frames = 60): Promise<DrawTiming> {
   const root = resolve(import.meta.dirname, '..');
   await build({ root, logLevel: 'warn' });
-  const server = await preview({ root, logLevel: 'warn', preview: { host: '127.0.0.1', port: 0, strictPort: true, open: false } });
+  const server = await preview({
+    root,
+    logLevel: 'warn',
+    preview: { host: '127.0.0.1', port: 0, strictPort: true, open: false },
+  });
   const session = await launchChromium({ width: 1300, height: 1000 });
   try {
     const { port } = server.httpServer.address() as AddressInfo;
     const page = await session.context.newPage();
     await page.goto(`http://127.0.0.1:${port}/?test-hooks#${encodeRunLink({ ...DEFAULT_PARAMS, nx: n, ny: n })}`);
     await page.getByTestId('model-steps').waitFor();
-    if ((await page.getByTestId('status').textContent())?.trim() !== 'playing') await page.getByTestId('play-pause').click();
+    if ((await page.getByTestId('status').textContent())?.trim() !== 'playing')
+      await page.getByTestId('play-pause').click();
     const warm = 5;
-    await page.waitForFunction((k) => (window.striaTest?.fieldDrawTimes().length ?? 0) >= k, warm + frames, { timeout: 600_000, polling: 500 });
-    const times = (await page.evaluate(() => window.striaTest?.fieldDrawTimes() ?? [])).slice(warm).sort((a, b) => a - b);
+    await page.waitForFunction((k) => (window.striaTest?.fieldDrawTimes().length ?? 0) >= k, warm + frames, {
+      timeout: 600_000,
+      polling: 500,
+    });
+    const times = (await page.evaluate(() => window.striaTest?.fieldDrawTimes() ?? []))
+      .slice(warm)
+      .sort((a, b) => a - b);
     const at = (q: number) => times[Math.min(times.length - 1, Math.floor(q * times.length))];
     return { n, frames: times.length, median_ms: at(0.5), p95_ms: at(0.95), max_ms: times[times.length - 1] };
   } finally {

@@ -36,11 +36,21 @@ function emit(obj: Record<string, unknown>, line: string): void {
 
 if (has('--time-to-jets')) {
   const n = Number(value('--n') ?? 256);
-  if (!json) console.log(`Time to jets: default scenario at ${n}², from rest, until ≥ ${MIN_JETS} jets and staircase index ≥ ${MIN_STAIRCASE}`);
+  if (!json)
+    console.log(
+      `Time to jets: default scenario at ${n}², from rest, until ≥ ${MIN_JETS} jets and staircase index ≥ ${MIN_STAIRCASE}`,
+    );
   const r = timeToJets(n, json ? undefined : console.log);
   const s = r.summary;
   emit(
-    { kind: 'time_to_jets', ...r, summary: undefined, jet_count: s.jet_count, staircase_index: s.staircase_index, zonostrophy_index: s.zonostrophy_index },
+    {
+      kind: 'time_to_jets',
+      ...r,
+      summary: undefined,
+      jet_count: s.jet_count,
+      staircase_index: s.staircase_index,
+      zonostrophy_index: s.zonostrophy_index,
+    },
     `  ${r.wall_seconds.toFixed(1)} s wall, model time ${r.model_time.toFixed(1)}, ${r.steps} steps: ${s.jet_count} jets, staircase index ${s.staircase_index?.toFixed(3)}, R_β ${s.zonostrophy_index?.toFixed(2)}\n` +
       `  scheme error over ${r.accuracy.span.toFixed(2)} T at dt = ${r.dt.toPrecision(3)}: ${r.accuracy.error_dt.toExponential(2)} relative (dt/2: ${r.accuracy.error_half.toExponential(2)}, observed order ${r.accuracy.observed_order.toFixed(2)})`,
   );
@@ -61,7 +71,10 @@ const rounds = why ? 1 : Math.max(1, Number(value('--rounds') ?? (scaling ? 1 : 
 const ratiosBySize = new Map<number, number[]>();
 let timings: StepTiming[] = [];
 for (let round = 1; round <= rounds; round++) {
-  if (!json) console.log(`Stria step benchmark (scheme ifrk4, Node ${process.version}); median of timed batches${rounds > 1 ? `, round ${round} of ${rounds}` : ''}`);
+  if (!json)
+    console.log(
+      `Stria step benchmark (scheme ifrk4, Node ${process.version}); median of timed batches${rounds > 1 ? `, round ${round} of ${rounds}` : ''}`,
+    );
   timings = [];
   for (const n of sizes) {
     const t = timeStep(n);
@@ -80,8 +93,16 @@ for (let round = 1; round <= rounds; round++) {
     const ratio = ours ? ours.ms_per_step / r.ms_per_step : undefined;
     if (ratio !== undefined) ratiosBySize.set(r.n, [...(ratiosBySize.get(r.n) ?? []), ratio]);
     emit(
-      { kind: 'reference', round, n: r.n, reference_ms_per_step: r.ms_per_step, stria_ms_per_step: ours?.ms_per_step, ratio },
-      `  n = ${String(r.n).padStart(4)}   ${r.ms_per_step.toFixed(3).padStart(9)} ms/step` + (ratio ? `   Stria/reference = ${ratio.toFixed(2)}` : ''),
+      {
+        kind: 'reference',
+        round,
+        n: r.n,
+        reference_ms_per_step: r.ms_per_step,
+        stria_ms_per_step: ours?.ms_per_step,
+        ratio,
+      },
+      `  n = ${String(r.n).padStart(4)}   ${r.ms_per_step.toFixed(3).padStart(9)} ms/step` +
+        (ratio ? `   Stria/reference = ${ratio.toFixed(2)}` : ''),
     );
   }
 }

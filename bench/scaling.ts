@@ -21,7 +21,13 @@ function slope(x: number[], y: number[]): number {
 export function fitScaling(ts: StepTiming[]): { exponentN: number; exponentN2logN: number } {
   const logT = ts.map((t) => Math.log(t.ms_per_step));
   return {
-    exponentN: slope(ts.map((t) => Math.log(t.n)), logT),
-    exponentN2logN: slope(ts.map((t) => Math.log(t.n * t.n * Math.log2(t.n))), logT),
+    exponentN: slope(
+      ts.map((t) => Math.log(t.n)),
+      logT,
+    ),
+    exponentN2logN: slope(
+      ts.map((t) => Math.log(t.n * t.n * Math.log2(t.n))),
+      logT,
+    ),
   };
 }

@@ -10,7 +10,16 @@ import { msPerCall } from './timing';
 export function benchParams(n: number): ModelParams {
   const kept = Math.floor(n / 3);
   const kf = Math.min(DEFAULT_PARAMS.kf, Math.floor(kept / 2));
-  return { ...DEFAULT_PARAMS, nx: n, ny: n, kf, dkf: Math.min(DEFAULT_PARAMS.dkf, kf / 4), init_energy: 0.5, cfl: 0, dt: (0.125 * 2 * Math.PI) / n };
+  return {
+    ...DEFAULT_PARAMS,
+    nx: n,
+    ny: n,
+    kf,
+    dkf: Math.min(DEFAULT_PARAMS.dkf, kf / 4),
+    init_energy: 0.5,
+    cfl: 0,
+    dt: (0.125 * 2 * Math.PI) / n,
+  };
 }
 
 export interface StepTiming {

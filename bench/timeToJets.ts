@@ -48,12 +48,22 @@ export function timeToJets(n = 256, log: (s: string) => void = () => {}): TimeTo
     if (model.time >= nextCheck) {
       nextCheck += CHECK_EVERY;
       summary = summarize(monitor, model.time, model.steps);
-      log(`  t = ${model.time.toFixed(1)}: ${summary.jet_count} jets, staircase index ${summary.staircase_index?.toFixed(3)}`);
+      log(
+        `  t = ${model.time.toFixed(1)}: ${summary.jet_count} jets, staircase index ${summary.staircase_index?.toFixed(3)}`,
+      );
       if ((summary.jet_count ?? 0) >= MIN_JETS && (summary.staircase_index ?? 0) >= MIN_STAIRCASE) break;
     }
   }
   const wall = (performance.now() - t0) / 1000;
-  return { n, wall_seconds: wall, model_time: model.time, steps: model.steps, summary, dt: model.dt, accuracy: stepAccuracy(model) };
+  return {
+    n,
+    wall_seconds: wall,
+    model_time: model.time,
+    steps: model.steps,
+    summary,
+    dt: model.dt,
+    accuracy: stepAccuracy(model),
+  };
 }
 
 /**

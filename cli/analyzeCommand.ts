@@ -83,12 +83,17 @@ export async function analyzeCommand(argv: string[]): Promise<number> {
  * caller), 1 with a message when the file cannot be analysed, 0 with the report on success.
  */
 async function runAnalyze(parsed: ParsedArgs, io: Streams): Promise<number> {
-  if (parsed.positionals.length !== 1) throw new UsageError(`stria analyze needs one FILE, got ${parsed.positionals.length} (see stria analyze --help)`);
+  if (parsed.positionals.length !== 1)
+    throw new UsageError(`stria analyze needs one FILE, got ${parsed.positionals.length} (see stria analyze --help)`);
   const path = parsed.positionals[0];
   const options = toOptions(parsed.options);
   const o = parsed.options;
   const showProgress = !o.quiet && !o.json && io.err.isTTY === true;
-  if (showProgress) options.onProgress = (p) => io.err.write(`\rstria analyze: record ${p.index + 1} of ${p.of} (${Math.round((100 * p.done) / Math.max(p.total, 1))}%)   `);
+  if (showProgress)
+    options.onProgress = (p) =>
+      io.err.write(
+        `\rstria analyze: record ${p.index + 1} of ${p.of} (${Math.round((100 * p.done) / Math.max(p.total, 1))}%)   `,
+      );
   let source;
   try {
     source = fileSource(path);

@@ -41,7 +41,13 @@ export const HELP_OPTION: OptionSpec = { name: 'help', kind: 'flag', help: 'show
  */
 export function parseArgs(argv: readonly string[], specs: readonly OptionSpec[], command: string): ParsedArgs {
   const byName = new Map([...specs, HELP_OPTION].map((s) => [s.name, s]));
-  const { tokens } = tokenize({ args: [...argv], options: nodeOptions(byName), strict: false, allowPositionals: true, tokens: true });
+  const { tokens } = tokenize({
+    args: [...argv],
+    options: nodeOptions(byName),
+    strict: false,
+    allowPositionals: true,
+    tokens: true,
+  });
   const options: Record<string, OptionValue | undefined> = {};
   const positionals: string[] = [];
   const see = `(see stria ${command} --help)`;
@@ -83,7 +89,8 @@ export function parseArgs(argv: readonly string[], specs: readonly OptionSpec[],
 /** The declarations as Node's parseArgs wants them: flags are booleans, every other kind takes a string. */
 function nodeOptions(byName: ReadonlyMap<string, OptionSpec>): NonNullable<ParseArgsConfig['options']> {
   const out: NonNullable<ParseArgsConfig['options']> = {};
-  for (const [name, spec] of byName) out[name] = spec.kind === 'flag' ? { type: 'boolean' } : { type: 'string', multiple: spec.kind === 'list' };
+  for (const [name, spec] of byName)
+    out[name] = spec.kind === 'flag' ? { type: 'boolean' } : { type: 'string', multiple: spec.kind === 'list' };
   out.help = { type: 'boolean', short: 'h' };
   return out;
 }
@@ -95,7 +102,8 @@ function convert(spec: OptionSpec, text: string): OptionValue {
     if (!Number.isFinite(x)) throw new UsageError(`option --${spec.name} needs a number, got "${text}"`);
     return x;
   }
-  if (!(Number.isInteger(x) && x > 0)) throw new UsageError(`option --${spec.name} needs a positive whole number, got "${text}"`);
+  if (!(Number.isInteger(x) && x > 0))
+    throw new UsageError(`option --${spec.name} needs a positive whole number, got "${text}"`);
   return x;
 }
 
@@ -119,7 +127,8 @@ export function formatOptions(specs: readonly OptionSpec[]): string {
     .map((s, i) => {
       const head = heads[i];
       const lines = s.help.split('\n');
-      const first = head.length > width ? `  ${head}\n  ${' '.repeat(width)}  ${lines[0]}` : `  ${head.padEnd(width)}  ${lines[0]}`;
+      const first =
+        head.length > width ? `  ${head}\n  ${' '.repeat(width)}  ${lines[0]}` : `  ${head.padEnd(width)}  ${lines[0]}`;
       return [first, ...lines.slice(1).map((l) => `  ${' '.repeat(width)}  ${l}`)].join('\n');
     })
     .join('\n');

@@ -17,7 +17,7 @@ export function writeFileAtomic(path: string, data: string | Uint8Array): void {
   const bytes = typeof data === 'string' ? Buffer.from(data, 'utf8') : data;
   const fd = openSync(tmp, 'w', 0o644);
   try {
-    for (let off = 0; off < bytes.length; ) off += writeSync(fd, bytes, off, bytes.length - off);
+    for (let off = 0; off < bytes.length;) off += writeSync(fd, bytes, off, bytes.length - off);
     fsyncSync(fd);
   } catch (e) {
     closeSync(fd);

@@ -14,7 +14,10 @@ import type { RunOutputs } from './runOutputs';
  * flushed to the disk, then the checkpoint that counts their records is written, so a checkpoint
  * never promises records the disk does not hold.
  */
-export type ProgressBase = Omit<RunProgress, 'retries' | 'measurement' | 'outputs'> & { createdAt: string; command: string };
+export type ProgressBase = Omit<RunProgress, 'retries' | 'measurement' | 'outputs'> & {
+  createdAt: string;
+  command: string;
+};
 
 export class CheckpointStore {
   readonly path: string;
@@ -32,12 +35,20 @@ export class CheckpointStore {
   write(run: MonitoredRun, outputs: RunOutputs, retries: readonly RetryRecord[]): void {
     outputs.sync();
     const { createdAt, command, ...rest } = this.base;
-    const progress: RunProgress = { ...rest, retries: [...retries], outputs: { created_at: createdAt, command, ...outputs.progress() }, measurement: run.saveState() };
+    const progress: RunProgress = {
+      ...rest,
+      retries: [...retries],
+      outputs: { created_at: createdAt, command, ...outputs.progress() },
+      measurement: run.saveState(),
+    };
     const text = encodeCheckpointFile(run.model.checkpoint(), progress);
     try {
       writeFileAtomic(this.path, text);
     } catch (e) {
-      throw new Error(`cannot write the checkpoint ${this.path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}; the previous checkpoint is kept`, { cause: e });
+      throw new Error(
+        `cannot write the checkpoint ${this.path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}; the previous checkpoint is kept`,
+        { cause: e },
+      );
     }
     this.written++;
   }
@@ -49,7 +60,9 @@ export function readCheckpoint(path: string): { checkpoint: Checkpoint; progress
   try {
     text = readFileSync(path, 'utf8');
   } catch (e) {
-    throw new UsageError(`--resume ${path}: cannot read it: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
+    throw new UsageError(
+      `--resume ${path}: cannot read it: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`,
+    );
   }
   try {
     return decodeCheckpointFile(text);

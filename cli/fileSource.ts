@@ -13,7 +13,10 @@ export function fileSource(path: string): ByteSource & { close(): void } {
   return {
     byteLength: size,
     read(offset: number, length: number, into?: Uint8Array): Uint8Array {
-      if (!(offset >= 0 && length >= 0 && offset + length <= size)) throw new RangeError(`truncated file: bytes ${offset} to ${offset + length} were asked for but the file has ${size} bytes`);
+      if (!(offset >= 0 && length >= 0 && offset + length <= size))
+        throw new RangeError(
+          `truncated file: bytes ${offset} to ${offset + length} were asked for but the file has ${size} bytes`,
+        );
       const out = into ?? new Uint8Array(length);
       let done = 0;
       while (done < length) {
@@ -24,7 +27,10 @@ export function fileSource(path: string): ByteSource & { close(): void } {
       return out.subarray(0, length);
     },
     whole(): ArrayBuffer {
-      if (size > constants.MAX_LENGTH) throw new RangeError(`this netCDF-4 file is ${size} bytes; the HDF5 reader holds the whole file in memory and this runtime's largest buffer is ${constants.MAX_LENGTH} bytes`);
+      if (size > constants.MAX_LENGTH)
+        throw new RangeError(
+          `this netCDF-4 file is ${size} bytes; the HDF5 reader holds the whole file in memory and this runtime's largest buffer is ${constants.MAX_LENGTH} bytes`,
+        );
       const bytes = new Uint8Array(size);
       this.read(0, size, bytes);
       return bytes.buffer;

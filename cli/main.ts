@@ -8,7 +8,20 @@ import { striaVersion } from './version';
  * adding one there is all it takes to reach it from here, its help and `stria --help`.
  */
 export function commandHelp(c: Command): string {
-  return [`stria ${c.name} — ${c.summary}`, '', `Usage: ${c.usage}`, '', c.description.trim(), '', 'Options:', formatOptions(c.options), '', 'Example:', c.examples.replace(/^\n+/, '').trimEnd(), ''].join('\n');
+  return [
+    `stria ${c.name} — ${c.summary}`,
+    '',
+    `Usage: ${c.usage}`,
+    '',
+    c.description.trim(),
+    '',
+    'Options:',
+    formatOptions(c.options),
+    '',
+    'Example:',
+    c.examples.replace(/^\n+/, '').trimEnd(),
+    '',
+  ].join('\n');
 }
 
 export function topHelp(): string {
@@ -47,7 +60,9 @@ export async function main(argv: readonly string[], io: CommandIO = processIO(ar
   }
   const command = COMMANDS.find((c) => c.name === name);
   if (!command) {
-    io.err.write(`stria: unknown command "${name}" (commands: ${COMMANDS.map((c) => c.name).join(', ')}; see stria --help)\n`);
+    io.err.write(
+      `stria: unknown command "${name}" (commands: ${COMMANDS.map((c) => c.name).join(', ')}; see stria --help)\n`,
+    );
     return EXIT_USAGE;
   }
   try {

@@ -39,7 +39,9 @@ export class NcRecordFile {
     try {
       fd = openSync(path, 'r+');
     } catch (e) {
-      throw new Error(`cannot continue ${path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`, { cause: e });
+      throw new Error(`cannot continue ${path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`, {
+        cause: e,
+      });
     }
     try {
       file.writer = adoptRecords(fd, path, kind, run, keep);
@@ -83,27 +85,42 @@ export class NcRecordFile {
 }
 
 /** A writer positioned after the first `keep` records of the open file `fd`, checked and cut there. */
-function adoptRecords(fd: number, path: string, kind: StriaFileKindSpec, run: StriaRunInfo, keep: number): StriaFileWriter {
+function adoptRecords(
+  fd: number,
+  path: string,
+  kind: StriaFileKindSpec,
+  run: StriaRunInfo,
+  keep: number,
+): StriaFileWriter {
   const writer = new StriaFileWriter(kind, run);
   const head = writer.head();
   const size = fstatSync(fd).size;
   const onDisk = new Uint8Array(head.length);
-  if (size < head.length || readSync(fd, onDisk, 0, head.length, 0) !== head.length) throw new Error(`cannot continue ${path}: it is shorter than its header`);
+  if (size < head.length || readSync(fd, onDisk, 0, head.length, 0) !== head.length)
+    throw new Error(`cannot continue ${path}: it is shorter than its header`);
   const count = new DataView(onDisk.buffer).getUint32(StriaFileWriter.NUMRECS_OFFSET, false);
   // The header but its record count must be the one this run writes (same run, grid and version).
   for (let i = 0; i < head.length; i++) {
     if (i >= StriaFileWriter.NUMRECS_OFFSET && i < StriaFileWriter.NUMRECS_OFFSET + 4) continue;
-    if (head[i] !== onDisk[i]) throw new Error(`cannot continue ${path}: its header differs from the one this run writes (another run, grid or Stria version wrote it)`);
+    if (head[i] !== onDisk[i])
+      throw new Error(
+        `cannot continue ${path}: its header differs from the one this run writes (another run, grid or Stria version wrote it)`,
+      );
   }
-  if (count < keep) throw new Error(`cannot continue ${path}: it holds ${count} records, but ${keep} were written before the checkpoint`);
+  if (count < keep)
+    throw new Error(
+      `cannot continue ${path}: it holds ${count} records, but ${keep} were written before the checkpoint`,
+    );
   const layout = readNetcdf(head, { headerOnly: true });
   const start = writer.recordOffset(0);
   const vars = layout.variables.filter((v) => v.isRecord);
-  const slab = (v: NcReadVariable, rec: Uint8Array) => decodeSlab(v.type, rec.subarray(v.begin - start, v.begin - start + v.slabCount * sizeOf(v)));
+  const slab = (v: NcReadVariable, rec: Uint8Array) =>
+    decodeSlab(v.type, rec.subarray(v.begin - start, v.begin - start + v.slabCount * sizeOf(v)));
   const rec = new Uint8Array(writer.recordSize);
   for (let r = 0; r < keep; r++) {
     const offset = writer.recordOffset(r);
-    if (readSync(fd, rec, 0, rec.length, offset) !== rec.length) throw new Error(`cannot continue ${path}: record ${r} is cut short`);
+    if (readSync(fd, rec, 0, rec.length, offset) !== rec.length)
+      throw new Error(`cannot continue ${path}: record ${r} is cut short`);
     const fields: Record<string, ArrayLike<number>> = {};
     let time = NaN;
     let steps = NaN;
@@ -119,7 +136,8 @@ function adoptRecords(fd: number, path: string, kind: StriaFileKindSpec, run: St
     } catch (e) {
       throw new Error(`cannot continue ${path}: record ${r}: ${(e as Error).message}`, { cause: e });
     }
-    for (let i = 0; i < rec.length; i++) if (again[i] !== rec[i]) throw new Error(`cannot continue ${path}: record ${r} is not what this run writes`);
+    for (let i = 0; i < rec.length; i++)
+      if (again[i] !== rec[i]) throw new Error(`cannot continue ${path}: record ${r} is not what this run writes`);
   }
   // The count first, then the cut: killed in between, the file holds extra bytes past its count,
   // which readers ignore, never a count past its end.

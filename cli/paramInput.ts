@@ -29,12 +29,16 @@ export function resolveRunStart(req: RunStartRequest): RunStart {
   let preset: Partial<ModelParams> = {};
   if (req.preset !== undefined) {
     const s = scenarioById(req.preset);
-    if (!s) throw new UsageError(`--preset ${req.preset}: no such preset (known: ${DEMO_SCENARIOS.map((d) => d.id).join(', ')})`);
+    if (!s)
+      throw new UsageError(
+        `--preset ${req.preset}: no such preset (known: ${DEMO_SCENARIOS.map((d) => d.id).join(', ')})`,
+      );
     preset = s.params;
   }
   const file = req.file === undefined ? null : readParamFile(req.file);
   if (file?.checkpoint) {
-    if (req.preset !== undefined) throw new UsageError(`--preset cannot be used with a saved run (${req.file}): the run file holds its parameters`);
+    if (req.preset !== undefined)
+      throw new UsageError(`--preset cannot be used with a saved run (${req.file}): the run file holds its parameters`);
     const cp = file.checkpoint;
     return { params: checked({ ...cp.params, ...changes }, changes), checkpoint: cp, changes };
   }
@@ -48,7 +52,12 @@ function checked(input: Record<string, unknown>, changes: Record<string, unknown
   } catch (e) {
     if (!isInputError(e, 'parameters')) throw e;
     throw new UsageError(
-      e.issues.map((i) => `parameter ${i.field} = ${JSON.stringify(i.value)}: ${i.message}${i.field in changes ? ` (from --set ${i.field})` : ''}`).join('; '),
+      e.issues
+        .map(
+          (i) =>
+            `parameter ${i.field} = ${JSON.stringify(i.value)}: ${i.message}${i.field in changes ? ` (from --set ${i.field})` : ''}`,
+        )
+        .join('; '),
     );
   }
 }
@@ -67,7 +76,8 @@ function readParamFile(path: string): { params: Record<string, unknown>; checkpo
   } catch (e) {
     throw new UsageError(`${path} is not JSON (${(e as Error).message})`);
   }
-  if (typeof json !== 'object' || json === null || Array.isArray(json)) throw new UsageError(`${path}: expected a JSON object of parameters or a run file`);
+  if (typeof json !== 'object' || json === null || Array.isArray(json))
+    throw new UsageError(`${path}: expected a JSON object of parameters or a run file`);
   if ((json as Record<string, unknown>).format === RUN_FILE_FORMAT) {
     try {
       const cp = decodeRunFile(text);
@@ -93,14 +103,18 @@ export function parseSets(words: readonly string[]): Partial<ModelParams> {
     const key = word.slice(0, eq);
     const text = word.slice(eq + 1);
     // Own keys only: `in` would let "__proto__" or "toString" through (the first then silently vanishes).
-    if (!Object.hasOwn(DEFAULT_PARAMS, key)) throw new UsageError(`--set ${word}: "${key}" is not a parameter (known: ${Object.keys(DEFAULT_PARAMS).join(', ')})`);
+    if (!Object.hasOwn(DEFAULT_PARAMS, key))
+      throw new UsageError(
+        `--set ${word}: "${key}" is not a parameter (known: ${Object.keys(DEFAULT_PARAMS).join(', ')})`,
+      );
     const kind = typeof DEFAULT_PARAMS[key as keyof ModelParams];
     if (kind === 'number') {
       const x = parseNumber(text);
       if (!Number.isFinite(x)) throw new UsageError(`--set ${word}: ${key} needs a number, got "${text}"`);
       out[key] = x;
     } else if (kind === 'boolean') {
-      if (text !== 'true' && text !== 'false') throw new UsageError(`--set ${word}: ${key} needs true or false, got "${text}"`);
+      if (text !== 'true' && text !== 'false')
+        throw new UsageError(`--set ${word}: ${key} needs true or false, got "${text}"`);
       out[key] = text === 'true';
     } else out[key] = text;
   }

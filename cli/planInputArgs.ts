@@ -12,7 +12,11 @@ import { parseNumber, UsageError } from './args';
  * Values: numbers (decimal, or a multiple of pi), true/false, otherwise text. The planner's own
  * validation then names any field that is missing or out of range.
  */
-export function planInputFrom(file: string | undefined, preset: string | undefined, sets: readonly string[]): { input: Record<string, unknown>; setPaths: string[] } {
+export function planInputFrom(
+  file: string | undefined,
+  preset: string | undefined,
+  sets: readonly string[],
+): { input: Record<string, unknown>; setPaths: string[] } {
   if (file !== undefined && preset !== undefined) throw new UsageError('give a PLANFILE or --preset, not both');
   let input: Record<string, unknown> = {};
   if (file !== undefined) {
@@ -30,7 +34,10 @@ export function planInputFrom(file: string | undefined, preset: string | undefin
     }
   } else if (preset !== undefined) {
     const p = PLAN_PRESETS.find((x) => x.id === preset);
-    if (!p) throw new UsageError(`--preset ${preset}: no such plan preset (known: ${PLAN_PRESETS.map((x) => x.id).join(', ')})`);
+    if (!p)
+      throw new UsageError(
+        `--preset ${preset}: no such plan preset (known: ${PLAN_PRESETS.map((x) => x.id).join(', ')})`,
+      );
     input = structuredClone(p.input) as unknown as Record<string, unknown>;
   }
   const setPaths: string[] = [];
@@ -38,7 +45,8 @@ export function planInputFrom(file: string | undefined, preset: string | undefin
     const eq = word.indexOf('=');
     if (eq <= 0) throw new UsageError(`--set ${word}: expected path=value, e.g. --set drive.eps=0.02`);
     const path = word.slice(0, eq).split('.');
-    if (path.some((k) => k === '' || k === '__proto__' || k === 'constructor' || k === 'prototype')) throw new UsageError(`--set ${word}: "${word.slice(0, eq)}" is not a field path`);
+    if (path.some((k) => k === '' || k === '__proto__' || k === 'constructor' || k === 'prototype'))
+      throw new UsageError(`--set ${word}: "${word.slice(0, eq)}" is not a field path`);
     setAt(input, path, valueOf(word.slice(eq + 1)), word);
     setPaths.push(path.join('.'));
   }
@@ -56,7 +64,8 @@ function setAt(root: Record<string, unknown>, path: string[], value: unknown, wo
   for (const key of path.slice(0, -1)) {
     const next = node[key];
     if (next === undefined) node[key] = {};
-    else if (typeof next !== 'object' || next === null) throw new UsageError(`--set ${word}: "${key}" holds a value, not fields`);
+    else if (typeof next !== 'object' || next === null)
+      throw new UsageError(`--set ${word}: "${key}" holds a value, not fields`);
     node = node[key] as Record<string, unknown>;
   }
   const last = path[path.length - 1];

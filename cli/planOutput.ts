@@ -22,7 +22,15 @@ export function headline(p: PlanPredictions) {
   };
 }
 
-export const HEADLINE_KEYS = ['regime', 'jet_count', 'u_rms', 'k_rhines', 'k_beta', 'zonostrophy_index', 'jet_spacing'] as const;
+export const HEADLINE_KEYS = [
+  'regime',
+  'jet_count',
+  'u_rms',
+  'k_rhines',
+  'k_beta',
+  'zonostrophy_index',
+  'jet_spacing',
+] as const;
 
 export function planJson(a: PlanAnalysis, measured: RunSummary | null): unknown {
   const p = a.predictions;
@@ -38,7 +46,12 @@ export function planJson(a: PlanAnalysis, measured: RunSummary | null): unknown 
     steps_planned: p.stepsPlanned.value,
     predictions: p,
     checks: a.checks.map((c) => ({ id: c.id, severity: c.severity, title: c.title, message: c.message, fix: c.fix })),
-    cost: { steps: a.cost.steps, seconds_per_step: a.cost.secondsPerStep, wall_seconds: a.cost.wallSeconds, memory_bytes: a.cost.memory.totalBytes },
+    cost: {
+      steps: a.cost.steps,
+      seconds_per_step: a.cost.secondsPerStep,
+      wall_seconds: a.cost.wallSeconds,
+      memory_bytes: a.cost.memory.totalBytes,
+    },
     matched: a.matched
       ? {
           params: a.matched.params,
@@ -57,16 +70,27 @@ export function planJson(a: PlanAnalysis, measured: RunSummary | null): unknown 
 export function planText(a: PlanAnalysis, measured: RunSummary | null): string {
   const p = a.predictions;
   const u = a.plan.units;
-  const lines = [`Stria plan: ${a.plan.input.title ?? 'untitled'} (${u === 'physical' ? 'SI units' : 'model units'})`, `Regime: ${regimeLabel(p)}`, '', 'Predictions:'];
-  const rows = Object.values(p).map((q) => [`${q.label} (${q.symbol})`, q.text ? `${q.text}, R_β = ${fmt(q.value)}` : withUnit(q.value, q.quantity, u)]);
+  const lines = [
+    `Stria plan: ${a.plan.input.title ?? 'untitled'} (${u === 'physical' ? 'SI units' : 'model units'})`,
+    `Regime: ${regimeLabel(p)}`,
+    '',
+    'Predictions:',
+  ];
+  const rows = Object.values(p).map((q) => [
+    `${q.label} (${q.symbol})`,
+    q.text ? `${q.text}, R_β = ${fmt(q.value)}` : withUnit(q.value, q.quantity, u),
+  ]);
   const w = Math.max(...rows.map((r) => r[0].length));
   lines.push(...rows.map(([k, x]) => `  ${k.padEnd(w)}  ${x}`), '', 'Checks:');
-  for (const c of a.checks) lines.push(`  [${c.severity}] ${c.title}: ${c.message}${c.fix ? `\n          fix: ${c.fix}` : ''}`);
+  for (const c of a.checks)
+    lines.push(`  [${c.severity}] ${c.title}: ${c.message}${c.fix ? `\n          fix: ${c.fix}` : ''}`);
   lines.push('', `Cost with Stria's model: ${a.cost.steps} steps, ${duration(a.cost.wallSeconds)} here`);
   const m = a.matched;
   if (!m) lines.push(`Matched cheap run: none (${a.matchedError})`);
   else {
-    lines.push(`Matched cheap run: ${m.params.nx} × ${m.params.ny}, ${m.cost.steps} steps, about ${duration(m.cost.wallSeconds)} (model units; ratio that gave: ${m.gives})`);
+    lines.push(
+      `Matched cheap run: ${m.params.nx} × ${m.params.ny}, ${m.cost.steps} steps, about ${duration(m.cost.wallSeconds)} (model units; ratio that gave: ${m.gives})`,
+    );
     if (measured) {
       const pred = headline(m.predictions) as Record<string, unknown>;
       const meas = measured as unknown as Record<string, unknown>;

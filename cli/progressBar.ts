@@ -31,7 +31,13 @@ export class ProgressBar {
 }
 
 /** The bar's text, fitted to `width` columns: label, bar, percentage, status, time left. */
-export function renderProgress(label: string, fraction: number, status: string, etaSeconds: number, width: number): string {
+export function renderProgress(
+  label: string,
+  fraction: number,
+  status: string,
+  etaSeconds: number,
+  width: number,
+): string {
   const f = Math.min(1, Math.max(0, Number.isFinite(fraction) ? fraction : 0));
   const tail = ` ${(100 * f).toFixed(0).padStart(3)}% ${status}${Number.isFinite(etaSeconds) ? `, ${formatSeconds(etaSeconds)} left` : ''}`;
   const barWidth = Math.max(10, Math.min(40, width - label.length - tail.length - 3));

@@ -18,5 +18,7 @@ export function checkSameRun(path: string, params: ModelParams, plan: RunPlan, p
   const what = key
     ? `${key} = ${canonicalJson(ours[key])} here, ${canonicalJson(theirs[key])} in the checkpoint`
     : `the run plan differs: here ${canonicalJson(plan)}, in the checkpoint ${canonicalJson(progress.plan)}`;
-  throw new UsageError(`--resume ${path}: the checkpoint is of another run (${what}); resume with the command that wrote it, or continue its state with stria run ${path}`);
+  throw new UsageError(
+    `--resume ${path}: the checkpoint is of another run (${what}); resume with the command that wrote it, or continue its state with stria run ${path}`,
+  );
 }

@@ -1,7 +1,14 @@
 import type { Checkpoint } from '../lib/model/checkpoint';
 import { Model } from '../lib/model/model';
 import { BlowUpError } from '../lib/model/stepper';
-import { blowUpReport, describeBlowUp, retryCheckpoint, retryRecord, type BlowUpPolicy, type RetryRecord } from '../lib/run/blowUpRetry';
+import {
+  blowUpReport,
+  describeBlowUp,
+  retryCheckpoint,
+  retryRecord,
+  type BlowUpPolicy,
+  type RetryRecord,
+} from '../lib/run/blowUpRetry';
 import type { MonitoredRun, MonitoredRunState } from '../lib/run/monitoredRun';
 import { Breather } from './breather';
 import type { CheckpointStore } from './checkpointStore';
@@ -50,7 +57,8 @@ export class RunDriver {
     private readonly config: DriverConfig,
     retries: readonly RetryRecord[] = [],
   ) {
-    if (!(Number.isInteger(config.checkpointEvery) && config.checkpointEvery > 0)) throw new RangeError(`checkpointEvery must be a positive integer, got ${config.checkpointEvery}`);
+    if (!(Number.isInteger(config.checkpointEvery) && config.checkpointEvery > 0))
+      throw new RangeError(`checkpointEvery must be a positive integer, got ${config.checkpointEvery}`);
     this.retries = [...retries];
   }
 
@@ -92,7 +100,11 @@ export class RunDriver {
 
   /** Keep the present state and measurement as the checkpoint a retry goes back to. */
   private remember(): void {
-    this.last = { checkpoint: this.run.model.checkpoint(), state: this.run.saveState(), outputs: this.outputs.counts() };
+    this.last = {
+      checkpoint: this.run.model.checkpoint(),
+      state: this.run.saveState(),
+      outputs: this.outputs.counts(),
+    };
   }
 
   private retry(e: BlowUpError, max: number): void {

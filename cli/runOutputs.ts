@@ -37,7 +37,8 @@ export class RunOutputs {
   constructor(params: ModelParams, req: RunOutputRequest, run: StriaRunInfo, keep: Partial<OutputCounts> = {}) {
     this.every = req.every ?? 0;
     this.run = run;
-    const open = (path: string, kind: typeof SNAPSHOT_FILE, n: number | null | undefined) => (typeof n === 'number' ? NcRecordFile.continue(path, kind, run, n) : new NcRecordFile(path, kind, run));
+    const open = (path: string, kind: typeof SNAPSHOT_FILE, n: number | null | undefined) =>
+      typeof n === 'number' ? NcRecordFile.continue(path, kind, run, n) : new NcRecordFile(path, kind, run);
     this.snapshots = req.snapshots ? open(req.snapshots, SNAPSHOT_FILE, keep.snapshots) : null;
     try {
       this.zonal = req.zonal ? open(req.zonal, ZONAL_MEAN_FILE, keep.zonal) : null;
@@ -66,7 +67,9 @@ export class RunOutputs {
   /** The files as a checkpoint's progress records them. */
   progress(): Pick<OutputProgress, 'snapshots' | 'zonal'> {
     return {
-      snapshots: this.snapshots ? { path: this.snapshots.path, every: this.every, records: this.snapshots.records } : null,
+      snapshots: this.snapshots
+        ? { path: this.snapshots.path, every: this.every, records: this.snapshots.records }
+        : null,
       zonal: this.zonal ? { path: this.zonal.path, records: this.zonal.records } : null,
     };
   }
@@ -87,7 +90,10 @@ export class RunOutputs {
   describe(): string {
     return [this.snapshots, this.zonal]
       .filter((f): f is NcRecordFile => f !== null)
-      .map((f) => `${f.records} ${f === this.snapshots ? 'snapshot' : 'zonal-mean'} record${f.records === 1 ? '' : 's'} in ${f.path}`)
+      .map(
+        (f) =>
+          `${f.records} ${f === this.snapshots ? 'snapshot' : 'zonal-mean'} record${f.records === 1 ? '' : 's'} in ${f.path}`,
+      )
       .join(', ');
   }
 

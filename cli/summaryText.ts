@@ -4,7 +4,11 @@ import type { RunSummary } from '../lib/analysis/summary';
 export function summaryText(s: RunSummary): string {
   const entries = Object.entries(s);
   const width = Math.max(...entries.map(([k]) => k.length));
-  return entries.map(([k, v]) => `${k.padEnd(width)}  ${typeof v === 'number' ? formatValue(v) : v === null ? '—' : String(v)}`).join('\n') + '\n';
+  return (
+    entries
+      .map(([k, v]) => `${k.padEnd(width)}  ${typeof v === 'number' ? formatValue(v) : v === null ? '—' : String(v)}`)
+      .join('\n') + '\n'
+  );
 }
 
 function formatValue(x: number): string {

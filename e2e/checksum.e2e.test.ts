@@ -24,10 +24,22 @@ const CASES: { name: string; params: ModelParams; adaptive: boolean }[] = [
   { name: '128², the default scenario', params: validateParams({ ...base }), adaptive: false },
   { name: '64², fixed dt', params: validateParams({ ...base, nx: 64, ny: 64, kf: 12, cfl: 0 }), adaptive: false },
   { name: '64², adaptive dt', params: validateParams({ ...base, nx: 64, ny: 64, kf: 12, dt: 0.2 }), adaptive: true },
-  { name: '128², adaptive dt, k_d = 4, another seed', params: validateParams({ ...base, dt: 0.1, kd: 4, seed: 987654321 }), adaptive: true },
+  {
+    name: '128², adaptive dt, k_d = 4, another seed',
+    params: validateParams({ ...base, dt: 0.1, kd: 4, seed: 987654321 }),
+    adaptive: true,
+  },
   // Wave phases ω·dt up to β·dt·Lx/2π = 2·10⁸ rad: past 2²⁵, where lib/model/hugeArgument.ts reduces them.
-  { name: '64², β = 10¹⁰', params: validateParams({ ...base, nx: 64, ny: 64, kf: 12, cfl: 0, beta: 1e10 }), adaptive: false },
-  { name: '64², steady forcing', params: validateParams({ ...base, nx: 64, ny: 64, kf: 12, cfl: 0, forcing: 'steady' }), adaptive: false },
+  {
+    name: '64², β = 10¹⁰',
+    params: validateParams({ ...base, nx: 64, ny: 64, kf: 12, cfl: 0, beta: 1e10 }),
+    adaptive: false,
+  },
+  {
+    name: '64², steady forcing',
+    params: validateParams({ ...base, nx: 64, ny: 64, kf: 12, cfl: 0, forcing: 'steady' }),
+    adaptive: false,
+  },
 ];
 
 /** The checksum after STEPS steps in Node, and how many different steps the run took. */

@@ -22,7 +22,8 @@ describe('Compare view in Chromium', () => {
     const { page } = app;
     await page.getByTestId('compare-start').click();
     await expect.poll(() => status(page)).toBe('paused');
-    for (const pane of ['compare-pane-a', 'compare-pane-b']) await expect.poll(() => steps(app, pane), { timeout: 30_000 }).toBeGreaterThan(50);
+    for (const pane of ['compare-pane-a', 'compare-pane-b'])
+      await expect.poll(() => steps(app, pane), { timeout: 30_000 }).toBeGreaterThan(50);
     const a0 = await steps(app, 'compare-pane-a');
     const b0 = await steps(app, 'compare-pane-b');
     await expect.poll(() => steps(app, 'compare-pane-a'), { timeout: 30_000 }).toBeGreaterThan(a0 + 200);
@@ -35,7 +36,12 @@ describe('Compare view in Chromium', () => {
     const { page } = app;
     const fieldA = '[data-testid=compare-pane-a] [data-testid=field-canvas]';
     const fieldB = '[data-testid=compare-pane-b] [data-testid=field-canvas]';
-    for (const id of ['compare-pane-a-zonal', 'compare-pane-b-zonal', 'compare-pane-a-spectra', 'compare-pane-b-spectra']) {
+    for (const id of [
+      'compare-pane-a-zonal',
+      'compare-pane-b-zonal',
+      'compare-pane-a-spectra',
+      'compare-pane-b-spectra',
+    ]) {
       await expect.poll(() => inkPixels(page, `[data-testid=${id}] canvas`), { timeout: 60_000 }).toBeGreaterThan(1500);
     }
     const a = await canvasSample(page, fieldA);
@@ -43,7 +49,11 @@ describe('Compare view in Chromium', () => {
     expect(a.red + a.blue).toBeGreaterThan(10_000);
     expect(b.hash).not.toBe(a.hash);
     // Let jets form in B (about t = 40 on the default run's pace, shared here by two runs).
-    await page.waitForFunction(() => Number(document.querySelector('[data-testid=compare-pane-b]')?.getAttribute('data-steps')) > 3000, null, { timeout: 150_000 });
+    await page.waitForFunction(
+      () => Number(document.querySelector('[data-testid=compare-pane-b]')?.getAttribute('data-steps')) > 3000,
+      null,
+      { timeout: 150_000 },
+    );
     await screenshot(page, 'compare.png');
   }, 200_000);
 

@@ -1,9 +1,19 @@
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchChromium, type BrowserSession } from './support/browser';
-import { canvasSample, inkPixels, modelTime, openApp, openView, screenshot, waitForTime, type AppPage } from './support/app';
+import {
+  canvasSample,
+  inkPixels,
+  modelTime,
+  openApp,
+  openView,
+  screenshot,
+  waitForTime,
+  type AppPage,
+} from './support/app';
 
-const attr = async (page: Page, testid: string, name: string) => Number(await page.getByTestId(testid).getAttribute(name));
+const attr = async (page: Page, testid: string, name: string) =>
+  Number(await page.getByTestId(testid).getAttribute(name));
 const chartCanvas = (id: string) => `[data-testid=${id}] canvas`;
 
 /** Every chart drawn, and each redrawn once the run has gone on by `dt` model time units. */
@@ -14,7 +24,10 @@ async function chartsChange(page: Page, ids: string[], dt = 2): Promise<void> {
     before.push((await canvasSample(page, chartCanvas(id))).hash);
   }
   await waitForTime(page, (await modelTime(page)) + dt);
-  for (const [i, id] of ids.entries()) await expect.poll(async () => (await canvasSample(page, chartCanvas(id))).hash, { timeout: 30_000 }).not.toBe(before[i]);
+  for (const [i, id] of ids.entries())
+    await expect
+      .poll(async () => (await canvasSample(page, chartCanvas(id))).hash, { timeout: 30_000 })
+      .not.toBe(before[i]);
 }
 
 describe('Zonal, Hovmöller, Spectra and Flux views in Chromium', () => {
@@ -33,7 +46,9 @@ describe('Zonal, Hovmöller, Spectra and Flux views in Chromium', () => {
   });
 
   it('counts the jets of the time-mean ū among the readouts', async () => {
-    await expect.poll(async () => Number(await app.page.getByTestId('model-jets').innerText())).toBeGreaterThanOrEqual(2);
+    await expect
+      .poll(async () => Number(await app.page.getByTestId('model-jets').innerText()))
+      .toBeGreaterThanOrEqual(2);
   });
 
   it('Zonal: ū, −∂y(u′v′) and q̄ + βy with the staircase, moving on with the run; a new window restarts the means', async () => {
@@ -41,7 +56,9 @@ describe('Zonal, Hovmöller, Spectra and Flux views in Chromium', () => {
     await openView(page, 'zonal');
     await page.getByTestId('zonal-view').waitFor();
     expect(await attr(page, 'zonal-view', 'data-jets')).toBeGreaterThanOrEqual(2);
-    await expect(page.getByTestId('zonal-staircase').innerText()).resolves.toMatch(/sharpness index S = 1 − ρ = -?\d\.\d+/);
+    await expect(page.getByTestId('zonal-staircase').innerText()).resolves.toMatch(
+      /sharpness index S = 1 − ρ = -?\d\.\d+/,
+    );
     const t0 = await attr(page, 'zonal-view', 'data-time');
     await chartsChange(page, ['chart-ubar', 'chart-conv', 'chart-pv']);
     expect(await attr(page, 'zonal-view', 'data-time')).toBeGreaterThan(t0);
@@ -49,14 +66,21 @@ describe('Zonal, Hovmöller, Spectra and Flux views in Chromium', () => {
     // A shorter window: the mean starts again and then covers no more than it.
     await page.getByTestId('mean-span').fill('4');
     await page.getByTestId('mean-span').press('Enter');
-    await expect.poll(async () => {
-      const m = /t = ([\d.]+)–([\d.]+): (\d+) samples/.exec(await page.getByTestId('mean-window').innerText());
-      return m ? Number(m[2]) - Number(m[1]) : Infinity;
-    }, { timeout: 30_000 }).toBeLessThanOrEqual(4);
+    await expect
+      .poll(
+        async () => {
+          const m = /t = ([\d.]+)–([\d.]+): (\d+) samples/.exec(await page.getByTestId('mean-window').innerText());
+          return m ? Number(m[2]) - Number(m[1]) : Infinity;
+        },
+        { timeout: 30_000 },
+      )
+      .toBeLessThanOrEqual(4);
     // A bad entry is refused at the field, and the window stays.
     await page.getByTestId('mean-span').fill('-1');
     await page.getByTestId('mean-span').press('Enter');
-    await expect(page.getByTestId('mean-span-error').innerText()).resolves.toMatch(/meanSpan must be a finite number > 0/);
+    await expect(page.getByTestId('mean-span-error').innerText()).resolves.toMatch(
+      /meanSpan must be a finite number > 0/,
+    );
   });
 
   it('Hovmöller: ū(y, t) as an image in a backing store of CSS size × devicePixelRatio, with jet tracks, growing as the run goes on', async () => {
@@ -67,12 +91,16 @@ describe('Zonal, Hovmöller, Spectra and Flux views in Chromium', () => {
     const a = await canvasSample(page, canvas);
     expect(a.red).toBeGreaterThan(1000);
     expect(a.blue).toBeGreaterThan(1000);
-    const css = await page.locator(canvas).evaluate((c: HTMLCanvasElement) => [c.clientWidth, c.clientHeight, c.width, c.height]);
+    const css = await page
+      .locator(canvas)
+      .evaluate((c: HTMLCanvasElement) => [c.clientWidth, c.clientHeight, c.width, c.height]);
     expect([css[2], css[3]]).toEqual([css[0], css[1]]);
     const columns = await attr(page, 'hovmoller-caption', 'data-columns');
     expect(await attr(page, 'hovmoller-caption', 'data-tracks')).toBeGreaterThan(0);
     await waitForTime(page, (await modelTime(page)) + 2);
-    await expect.poll(() => attr(page, 'hovmoller-caption', 'data-columns'), { timeout: 30_000 }).toBeGreaterThan(columns);
+    await expect
+      .poll(() => attr(page, 'hovmoller-caption', 'data-columns'), { timeout: 30_000 })
+      .toBeGreaterThan(columns);
     expect((await canvasSample(page, canvas)).hash).not.toBe(a.hash);
     await screenshot(page, 'hovmoller.png');
   });
@@ -90,7 +118,9 @@ describe('Zonal, Hovmöller, Spectra and Flux views in Chromium', () => {
     // Another band gives another fit; a band that runs backwards is refused at the field.
     await page.getByTestId('fit-hi').fill('40');
     await page.getByTestId('fit-hi').press('Enter');
-    await expect.poll(async () => Number(await page.getByTestId('spectra-fit').getAttribute('data-slope'))).not.toBe(slope);
+    await expect
+      .poll(async () => Number(await page.getByTestId('spectra-fit').getAttribute('data-slope')))
+      .not.toBe(slope);
     await page.getByTestId('fit-lo').fill('50');
     await page.getByTestId('fit-lo').press('Enter');
     await expect(page.getByTestId('fit-lo-error').innerText()).resolves.toMatch(/lower to a higher k/);

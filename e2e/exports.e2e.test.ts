@@ -33,7 +33,9 @@ describe('Data exports in Chromium', () => {
     expect(f.name).toMatch(/^stria-snapshot-t\d+\.\d\d\.nc$/);
     // NetCDF-3 64-bit offset: "CDF" and version byte 2.
     expect(Array.from(f.bytes.subarray(0, 4))).toEqual([0x43, 0x44, 0x46, 0x02]);
-    await expect(page.getByTestId('export-message').innerText()).resolves.toMatch(/read back: NetCDF-3 64-bit offset, \d+ variables \(.*\bu\b.*\), 1 record/);
+    await expect(page.getByTestId('export-message').innerText()).resolves.toMatch(
+      /read back: NetCDF-3 64-bit offset, \d+ variables \(.*\bu\b.*\), 1 record/,
+    );
     const nc = readNetcdf(f.bytes);
     expect(nc.variable('q').shape).toEqual([1, 128, 128]);
     expect(nc.attributes.Conventions).toBe('CF-1.8');
@@ -62,11 +64,13 @@ describe('Data exports in Chromium', () => {
     await expect(page.getByTestId('export-message').innerText()).resolves.toMatch(/read back: 8 columns/);
   });
 
-  it('a NetCDF file opened in the Compare view goes through Stria\'s diagnostics beside the predictions', async () => {
+  it("a NetCDF file opened in the Compare view goes through Stria's diagnostics beside the predictions", async () => {
     const { page } = app;
     const nc = await download(page, 'export-snapshot');
     await openView(page, 'compare');
-    await page.getByTestId('user-file').setInputFiles({ name: nc.name, mimeType: 'application/x-netcdf', buffer: nc.bytes });
+    await page
+      .getByTestId('user-file')
+      .setInputFiles({ name: nc.name, mimeType: 'application/x-netcdf', buffer: nc.bytes });
     await page.getByTestId('user-result').waitFor({ timeout: 60_000 });
     await expect(page.getByTestId('user-result').innerText()).resolves.toMatch(/netcdf3-64bit-offset/);
     // The file carries its run's parameters, so the planner's predictions sit beside the measurements.
@@ -75,7 +79,9 @@ describe('Data exports in Chromium', () => {
     expect(table).toMatch(/Rhines wavenumber k_R/);
     await screenshot(page, 'user-file.png');
     // What is not NetCDF is refused with the reason, as text.
-    await page.getByTestId('user-file').setInputFiles({ name: 'notes.nc', mimeType: 'text/plain', buffer: Buffer.from('<b>not netcdf</b>') });
+    await page
+      .getByTestId('user-file')
+      .setInputFiles({ name: 'notes.nc', mimeType: 'text/plain', buffer: Buffer.from('<b>not netcdf</b>') });
     await expect(page.getByTestId('user-error').innerText()).resolves.toMatch(/not a NetCDF file/);
     expect(await page.getByTestId('user-error').evaluate((e) => e.querySelector('b'))).toBeNull();
   });

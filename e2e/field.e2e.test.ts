@@ -2,7 +2,17 @@ import { readFile } from 'node:fs/promises';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchChromium, type BrowserSession } from './support/browser';
-import { canvasSample, modelTime, openApp, pause, screenshot, status, steps, waitForSteps, type AppPage } from './support/app';
+import {
+  canvasSample,
+  modelTime,
+  openApp,
+  pause,
+  screenshot,
+  status,
+  steps,
+  waitForSteps,
+  type AppPage,
+} from './support/app';
 
 // Drawn at twice the CSS resolution, to check that the canvas backing store follows devicePixelRatio.
 const DPR = 2;
@@ -20,7 +30,12 @@ function plotSample(page: Page, box: { x: number; y: number; w: number; h: numbe
       const canvas = document.querySelector<HTMLCanvasElement>('[data-testid=field-canvas]');
       const ctx = canvas?.getContext('2d');
       if (!canvas || !ctx) throw new Error('no field canvas');
-      const data = ctx.getImageData(Math.round(b.x * dpr), Math.round(b.y * dpr), Math.round(b.w * dpr), Math.round(b.h * dpr)).data;
+      const data = ctx.getImageData(
+        Math.round(b.x * dpr),
+        Math.round(b.y * dpr),
+        Math.round(b.w * dpr),
+        Math.round(b.h * dpr),
+      ).data;
       let red = 0;
       let blue = 0;
       let hash = 0x811c9dc5;
@@ -51,7 +66,9 @@ describe('Field view in Chromium', () => {
   it('opens on the default scenario playing, with the caution shown', async () => {
     const { page } = app;
     await expect.poll(() => status(page)).toBe('playing');
-    await expect(page.getByTestId('not-a-forecast').innerText()).resolves.toMatch(/not a weather, ocean or climate forecast/);
+    await expect(page.getByTestId('not-a-forecast').innerText()).resolves.toMatch(
+      /not a weather, ocean or climate forecast/,
+    );
     await expect(page.getByTestId('not-a-forecast').innerText()).resolves.toMatch(/Stria's own/);
     await expect(page.getByTestId('scenario').inputValue()).resolves.toBe('jets');
   });
@@ -64,7 +81,9 @@ describe('Field view in Chromium', () => {
     // u has both signs, and the colour map shows them apart.
     expect(a.red).toBeGreaterThan(0.05 * a.n);
     expect(a.blue).toBeGreaterThan(0.05 * a.n);
-    const css = await page.locator(FIELD).evaluate((c: HTMLCanvasElement) => ({ w: c.clientWidth, h: c.clientHeight, bw: c.width, bh: c.height }));
+    const css = await page
+      .locator(FIELD)
+      .evaluate((c: HTMLCanvasElement) => ({ w: c.clientWidth, h: c.clientHeight, bw: c.width, bh: c.height }));
     expect(css.bw).toBe(Math.round(css.w * DPR));
     expect(css.bh).toBe(Math.round(css.h * DPR));
     // The domain is square, and so is the plot.
@@ -72,7 +91,11 @@ describe('Field view in Chromium', () => {
 
     const frames = Number(await page.locator(FIELD).getAttribute('data-frames'));
     const t = await modelTime(page);
-    await page.waitForFunction((t0) => Number(document.querySelector('[data-testid=model-time]')?.textContent) > t0 + 1, t, { timeout: 60_000 });
+    await page.waitForFunction(
+      (t0) => Number(document.querySelector('[data-testid=model-time]')?.textContent) > t0 + 1,
+      t,
+      { timeout: 60_000 },
+    );
     const b = await plotSample(page, box);
     expect(b.hash).not.toBe(a.hash);
     expect(Number(await page.locator(FIELD).getAttribute('data-frames'))).toBeGreaterThan(frames);
@@ -139,7 +162,11 @@ describe('Field view in Chromium', () => {
     await waitForSteps(page, (await steps(page)) + 100);
     // Steps alone do not make a video: wait until the canvas has been repainted (a captured frame
     // each time) for a while, which a loaded machine can take longer to do than 100 steps.
-    await page.waitForFunction((n) => Number(document.querySelector('[data-testid="field-canvas"]')?.getAttribute('data-frames')) >= n, framesBefore + 40, { timeout: 60_000 });
+    await page.waitForFunction(
+      (n) => Number(document.querySelector('[data-testid="field-canvas"]')?.getAttribute('data-frames')) >= n,
+      framesBefore + 40,
+      { timeout: 60_000 },
+    );
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('record').click()]);
     expect(download.suggestedFilename()).toMatch(/\.webm$/);
     const bytes = await readFile(await download.path());

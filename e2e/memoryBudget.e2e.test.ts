@@ -36,7 +36,9 @@ describe('The memory budget in Chromium', () => {
     // The fields show the grid in force once a snapshot of the new grid has come.
     await expect.poll(() => page.locator('#param-nx').inputValue()).toBe('1024');
     await page.locator('#param-ny').selectOption('1024');
-    await expect(readText(page, 'error-ny')).resolves.toMatch(new RegExp(`${NEEDS.source} \\(the run goes on with ny = 128\\)`));
+    await expect(readText(page, 'error-ny')).resolves.toMatch(
+      new RegExp(`${NEEDS.source} \\(the run goes on with ny = 128\\)`),
+    );
     const n = await steps(page);
     await waitForSteps(page, n + 3);
     await page.close();
@@ -55,10 +57,23 @@ describe('The memory budget in Chromium', () => {
     problems.push(app.problems);
     const params = validateParams({ nx: 1024, ny: 1024 });
     const qHat = new Float64Array(2 * 1024 * 513);
-    const text = encodeRunFile({ format: CHECKPOINT_FORMAT, version: CHECKPOINT_VERSION, params, time: 0, steps: 0, dt: params.dt, rng: [1, 2, 3, 4], qHat });
+    const text = encodeRunFile({
+      format: CHECKPOINT_FORMAT,
+      version: CHECKPOINT_VERSION,
+      params,
+      time: 0,
+      steps: 0,
+      dt: params.dt,
+      rng: [1, 2, 3, 4],
+      qHat,
+    });
     expect(decodeRunFile(text).params).toEqual(params); // a good file: only its size is refused
-    await app.page.getByTestId('load-run').setInputFiles({ name: 'large.json', mimeType: 'application/json', buffer: Buffer.from(text) });
-    await expect(readText(app.page, 'share-message')).resolves.toMatch(new RegExp(`^large\\.json was not loaded: ${NEEDS.source}\\. The current run goes on\\.`));
+    await app.page
+      .getByTestId('load-run')
+      .setInputFiles({ name: 'large.json', mimeType: 'application/json', buffer: Buffer.from(text) });
+    await expect(readText(app.page, 'share-message')).resolves.toMatch(
+      new RegExp(`^large\\.json was not loaded: ${NEEDS.source}\\. The current run goes on\\.`),
+    );
     await expect(app.page.locator('#param-nx').inputValue()).resolves.toBe('128');
     await app.page.close();
   });

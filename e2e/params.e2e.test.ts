@@ -72,7 +72,9 @@ describe('Parameter controls in Chromium', () => {
     await expect(readText(page, 'param-notice')).resolves.toMatch(/New grid 256 × 128: the run goes on/);
     expect(await steps(page)).toBeGreaterThanOrEqual(before);
     await waitForSteps(page, before + 10);
-    await expect(page.locator('[data-testid=field-canvas]').getAttribute('aria-label')).resolves.toMatch(/zonal velocity/);
+    await expect(page.locator('[data-testid=field-canvas]').getAttribute('aria-label')).resolves.toMatch(
+      /zonal velocity/,
+    );
   });
 
   it('starts another scenario from its picker', async () => {

@@ -25,7 +25,12 @@ describe('Plan view in Chromium', () => {
     await page.getByTestId('plan-preset').selectOption('earthOcean');
     const expected = analysePlan(planPreset('earthOcean').input).predictions;
     const rows = page.locator('[data-testid^=prediction-]');
-    const shown = await rows.evaluateAll((els) => els.map((e) => [e.getAttribute('data-testid')!.slice('prediction-'.length), Number(e.getAttribute('data-value'))] as const));
+    const shown = await rows.evaluateAll((els) =>
+      els.map(
+        (e) =>
+          [e.getAttribute('data-testid')!.slice('prediction-'.length), Number(e.getAttribute('data-value'))] as const,
+      ),
+    );
     expect(shown.length).toBeGreaterThan(15);
     // Chromium's and Node's engines may differ in the last bit of Math.pow: a few units of round-off apart at most.
     for (const [id, value] of shown) {
@@ -35,9 +40,16 @@ describe('Plan view in Chromium', () => {
     // Hovering a prediction shows its formula and source.
     const kR = page.getByTestId('prediction-kR').getByRole('button');
     await kR.hover();
-    await expect(page.getByTestId('prediction-kR').getByRole('tooltip').innerText()).resolves.toContain(expected.kR.formula);
+    await expect(page.getByTestId('prediction-kR').getByRole('tooltip').innerText()).resolves.toContain(
+      expected.kR.formula,
+    );
     // The preset says which constants are real and which are made up.
-    await expect(page.getByText(/made up/).first().isVisible()).resolves.toBe(true);
+    await expect(
+      page
+        .getByText(/made up/)
+        .first()
+        .isVisible(),
+    ).resolves.toBe(true);
     await screenshot(page, 'plan.png');
   });
 
@@ -46,10 +58,14 @@ describe('Plan view in Chromium', () => {
     const wall = Number(await page.getByTestId('plan-cost').getAttribute('data-wall'));
     await page.getByTestId('plan-speed').fill('2');
     await page.getByTestId('plan-speed').press('Enter');
-    await expect.poll(async () => Number(await page.getByTestId('plan-cost').getAttribute('data-wall'))).toBeCloseTo(wall / 2, 6);
+    await expect
+      .poll(async () => Number(await page.getByTestId('plan-cost').getAttribute('data-wall')))
+      .toBeCloseTo(wall / 2, 6);
     await page.getByTestId('plan-domain-Lx').fill('-3');
     await page.getByTestId('plan-domain-Lx').press('Enter');
-    await expect(page.getByTestId('plan-domain-Lx-error').innerText()).resolves.toMatch(/domain length Lx: a finite number > 0/);
+    await expect(page.getByTestId('plan-domain-Lx-error').innerText()).resolves.toMatch(
+      /domain length Lx: a finite number > 0/,
+    );
     await expect(page.getByTestId('plan-refused').innerText()).resolves.toMatch(/domain\.Lx/);
     await page.getByTestId('plan-domain-Lx').fill('4e6');
     await page.getByTestId('plan-domain-Lx').press('Enter');

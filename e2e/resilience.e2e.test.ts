@@ -11,7 +11,8 @@ import { modelTime, pause, readText, screenshot, status, steps, waitForSteps } f
 const BLOWS_UP = encodeRunLink({ ...scenarioParams('jets'), cfl: 0, dt: 0.03 });
 
 const checksum = (page: Page) => readText(page, 'checksum');
-const attr = async (page: Page, testid: string, name: string) => Number(await page.getByTestId(testid).getAttribute(name));
+const attr = async (page: Page, testid: string, name: string) =>
+  Number(await page.getByTestId(testid).getAttribute(name));
 
 /** Open the built app at `?search#hash` with its test hooks, collecting the page's problems. */
 async function openAt(session: BrowserSession, hash: string, problems: string[], search = 'test-hooks'): Promise<Page> {
@@ -42,7 +43,9 @@ describe('A run that survives blow-ups, a dead worker and a reload', () => {
     const offer = page.getByTestId('blowup');
     await offer.waitFor({ timeout: 60_000 });
     expect(await status(page)).toBe('stopped');
-    expect(await readText(page, 'stopped')).toMatch(/blew up at t = 6\.12000, step 204: CFL number above 1\.5 \(dt = 0\.03000, CFL = 1\.51/);
+    expect(await readText(page, 'stopped')).toMatch(
+      /blew up at t = 6\.12000, step 204: CFL number above 1\.5 \(dt = 0\.03000, CFL = 1\.51/,
+    );
     const button = page.getByTestId('restart-halved');
     await expect(button.innerText()).resolves.toBe('Restart from t = 6.000 with dt halved');
     expect(await attr(page, 'restart-halved', 'data-dt')).toBe(0.015);
@@ -56,7 +59,8 @@ describe('A run that survives blow-ups, a dead worker and a reload', () => {
     expect(await readText(page, 'model-dt')).toBe('0.0150');
     const t = await modelTime(page);
     expect(t).toBeGreaterThan(6.12);
-    for (const id of ['model-energy', 'model-urms', 'model-cfl']) expect(Number.isFinite(Number(await readText(page, id)))).toBe(true);
+    for (const id of ['model-energy', 'model-urms', 'model-cfl'])
+      expect(Number.isFinite(Number(await readText(page, id)))).toBe(true);
     expect(await page.locator('#param-dt').inputValue()).toBe('0.015');
     await page.close();
   });
@@ -65,7 +69,11 @@ describe('A run that survives blow-ups, a dead worker and a reload', () => {
     const page = await openAt(session, '', problems);
     await expect.poll(() => status(page)).toBe('playing');
     // Past the first timed save (15 s of play), so the page has kept more than its start.
-    await page.waitForFunction(() => document.querySelector('[data-testid=autosave-status]')?.getAttribute('data-reason') === 'timer', null, { timeout: 60_000 });
+    await page.waitForFunction(
+      () => document.querySelector('[data-testid=autosave-status]')?.getAttribute('data-reason') === 'timer',
+      null,
+      { timeout: 60_000 },
+    );
     const before = await steps(page);
     const tKill = await modelTime(page);
     await page.evaluate(() => window.striaTest?.killWorker());
@@ -73,7 +81,9 @@ describe('A run that survives blow-ups, a dead worker and a reload', () => {
     await notice.waitFor({ timeout: 30_000 });
     const keptTime = await attr(page, 'worker-notice', 'data-time');
     const keptSteps = await attr(page, 'worker-notice', 'data-steps');
-    expect(await notice.innerText()).toMatch(/The simulation worker stopped \(it stopped answering\)\. The run was resumed from t = \d+\.\d{3} \(step \d+\)/);
+    expect(await notice.innerText()).toMatch(
+      /The simulation worker stopped \(it stopped answering\)\. The run was resumed from t = \d+\.\d{3} \(step \d+\)/,
+    );
     // A state kept after the start and before the kill (the page keeps one every 10 s).
     expect(keptTime).toBeGreaterThan(0);
     expect(keptTime).toBeLessThanOrEqual(tKill);
@@ -89,12 +99,18 @@ describe('A run that survives blow-ups, a dead worker and a reload', () => {
     await pause(page);
     const savedSteps = await steps(page);
     const savedSum = await checksum(page);
-    await page.waitForFunction((n) => Number(document.querySelector('[data-testid=autosave-status]')?.getAttribute('data-steps')) === n, savedSteps, { timeout: 10_000 });
+    await page.waitForFunction(
+      (n) => Number(document.querySelector('[data-testid=autosave-status]')?.getAttribute('data-steps')) === n,
+      savedSteps,
+      { timeout: 10_000 },
+    );
     await page.reload();
     const offer = page.getByTestId('resume-offer');
     await offer.waitFor();
     expect(await attr(page, 'resume-offer', 'data-steps')).toBe(savedSteps);
-    await expect(page.getByTestId('resume-saved').innerText()).resolves.toMatch(/^Resume the run saved at t = \d+\.\d{3} \(.+\)$/);
+    await expect(page.getByTestId('resume-saved').innerText()).resolves.toMatch(
+      /^Resume the run saved at t = \d+\.\d{3} \(.+\)$/,
+    );
     await expect(page.getByTestId('start-fresh').innerText()).resolves.toBe('Start the default scenario');
     expect(await page.getByTestId('model-steps').count()).toBe(0);
     await screenshot(page, 'resume-offer.png');

@@ -24,11 +24,16 @@ function listenForViolations(): void {
   const w = window as unknown as { __violations: Violation[] };
   w.__violations = [];
   document.addEventListener('securitypolicyviolation', (e) => {
-    w.__violations.push({ directive: e.effectiveDirective, blocked: e.blockedURI, source: `${e.sourceFile}:${e.lineNumber}` });
+    w.__violations.push({
+      directive: e.effectiveDirective,
+      blocked: e.blockedURI,
+      source: `${e.sourceFile}:${e.lineNumber}`,
+    });
   });
 }
 
-const violations = (page: Page): Promise<Violation[]> => page.evaluate(() => (window as unknown as { __violations: Violation[] }).__violations);
+const violations = (page: Page): Promise<Violation[]> =>
+  page.evaluate(() => (window as unknown as { __violations: Violation[] }).__violations);
 
 /** Same origin as the app, or an in-page URL (data:, blob:) that fetches nothing. */
 function isOwn(url: string, origin: string): boolean {
@@ -49,7 +54,9 @@ describe('Security of the built app in Chromium', () => {
     await session.context.addInitScript(listenForViolations);
     // Every request of every page and worker of the context, from the start.
     session.context.on('request', record);
-    session.context.on('page', (p) => p.on('console', (m) => /Content Security Policy/i.test(m.text()) && cspMessages.push(m.text())));
+    session.context.on('page', (p) =>
+      p.on('console', (m) => /Content Security Policy/i.test(m.text()) && cspMessages.push(m.text())),
+    );
   });
 
   afterAll(async () => {
@@ -58,13 +65,24 @@ describe('Security of the built app in Chromium', () => {
 
   it('the checks can fail: an off-origin fetch is refused in the page and recorded from a worker', async () => {
     const probe = await openApp(session);
-    const refused = await probe.page.evaluate((url) => fetch(url).then(() => 'fetched', () => 'refused'), OFF_ORIGIN);
+    const refused = await probe.page.evaluate(
+      (url) =>
+        fetch(url).then(
+          () => 'fetched',
+          () => 'refused',
+        ),
+      OFF_ORIGIN,
+    );
     expect(refused).toBe('refused');
-    await expect.poll(() => violations(probe.page)).toContainEqual(expect.objectContaining({ directive: 'connect-src', blocked: OFF_ORIGIN }));
+    await expect
+      .poll(() => violations(probe.page))
+      .toContainEqual(expect.objectContaining({ directive: 'connect-src', blocked: OFF_ORIGIN }));
     expect(cspMessages.some((m) => m.includes('connect-src'))).toBe(true);
     // And so is a style attribute written as markup (what 'unsafe-inline' would allow).
     await probe.page.evaluate(() => document.body.setAttribute('style', 'outline: 1px solid red'));
-    await expect.poll(() => violations(probe.page)).toContainEqual(expect.objectContaining({ directive: 'style-src-attr' }));
+    await expect
+      .poll(() => violations(probe.page))
+      .toContainEqual(expect.objectContaining({ directive: 'style-src-attr' }));
     // A worker is not under the page's meta policy: its request goes out, and the recorder must see it.
     const worker = probe.page.workers().find((w) => w.url().includes('simulation.worker'));
     expect(worker, 'the simulation worker').toBeDefined();
@@ -80,7 +98,9 @@ describe('Security of the built app in Chromium', () => {
     app = await openApp(session);
     const { page } = app;
     await waitForTime(page, 3);
-    const tabs = await page.getByRole('tab').evaluateAll((els) => els.map((e) => e.getAttribute('data-testid')?.replace(/^tab-/, '') ?? ''));
+    const tabs = await page
+      .getByRole('tab')
+      .evaluateAll((els) => els.map((e) => e.getAttribute('data-testid')?.replace(/^tab-/, '') ?? ''));
     expect(tabs).toHaveLength(10);
     for (const id of tabs) {
       await openView(page, id);
@@ -90,7 +110,11 @@ describe('Security of the built app in Chromium', () => {
     // Compare: two runs in workers of their own.
     await openView(page, 'compare');
     await page.getByTestId('compare-start').click();
-    await expect.poll(async () => Number(await page.getByTestId('compare-pane-a').getAttribute('data-steps')), { timeout: 30_000 }).toBeGreaterThan(20);
+    await expect
+      .poll(async () => Number(await page.getByTestId('compare-pane-a').getAttribute('data-steps')), {
+        timeout: 30_000,
+      })
+      .toBeGreaterThan(20);
     await page.getByTestId('compare-stop').click();
     // A file through the exports and back in through the user-data worker.
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('export-snapshot').click()]);
@@ -145,7 +169,8 @@ describe('Security of the built app in Chromium', () => {
     const found: string[] = [];
     for (const f of scripts) {
       const text = await readFile(resolve(dir, f), 'utf8');
-      for (const m of text.matchAll(/\beval\s*\(|\bnew\s+Function\b|(?<![.\w$])Function\s*\(/g)) found.push(`${f}: ${text.slice(m.index, m.index + 40)}`);
+      for (const m of text.matchAll(/\beval\s*\(|\bnew\s+Function\b|(?<![.\w$])Function\s*\(/g))
+        found.push(`${f}: ${text.slice(m.index, m.index + 40)}`);
     }
     expect(found).toEqual([]);
   });

@@ -22,7 +22,10 @@ describe('Share and keep in Chromium', () => {
     problems.push(a.problems);
     await waitForSteps(a.page, 5);
     // A run off the defaults: another seed and β, changed mid-run.
-    for (const [id, value] of [['seed', '12345'], ['beta', '33']]) {
+    for (const [id, value] of [
+      ['seed', '12345'],
+      ['beta', '33'],
+    ]) {
       await a.page.locator(`#param-${id}`).fill(value);
       await a.page.locator(`#param-${id}`).press('Enter');
     }
@@ -97,8 +100,12 @@ describe('Share and keep in Chromium', () => {
     problems.push(f.problems);
     await waitForSteps(f.page, 5);
     const broken = JSON.stringify({ format: 'stria-run', version: 1, params: { nx: 128 }, state: { time: -3 } });
-    await f.page.getByTestId('load-run').setInputFiles({ name: 'broken.json', mimeType: 'application/json', buffer: Buffer.from(broken) });
-    await expect(readText(f.page, 'share-message')).resolves.toMatch(/broken\.json was not loaded: run file: state\.time: model time must be ≥ 0/);
+    await f.page
+      .getByTestId('load-run')
+      .setInputFiles({ name: 'broken.json', mimeType: 'application/json', buffer: Buffer.from(broken) });
+    await expect(readText(f.page, 'share-message')).resolves.toMatch(
+      /broken\.json was not loaded: run file: state\.time: model time must be ≥ 0/,
+    );
     const n = await steps(f.page);
     await waitForSteps(f.page, n + 10);
     expect(await status(f.page)).toBe('playing');

@@ -8,7 +8,15 @@ import { launchChromium, type BrowserSession } from './support/browser';
 import { inkPixels, openApp, openView, screenshot, type AppPage } from './support/app';
 
 // Two runs at 32², short: the tiny sweep of the tests.
-const SPEC = { format: 'stria-sweep', version: 1, base: { nx: 32, ny: 32, kf: 6, dkf: 1, beta: 10 }, vary: [{ param: 'beta', values: [5, 20] }], length: { until: 10 }, sampleEvery: 0.25, fits: { resamples: 200 } };
+const SPEC = {
+  format: 'stria-sweep',
+  version: 1,
+  base: { nx: 32, ny: 32, kf: 6, dkf: 1, beta: 10 },
+  vary: [{ param: 'beta', values: [5, 20] }],
+  length: { until: 10 },
+  sampleEvery: 0.25,
+  fits: { resamples: 200 },
+};
 
 describe('Sweep view in Chromium', () => {
   let session: BrowserSession;
@@ -27,24 +35,39 @@ describe('Sweep view in Chromium', () => {
   it('checks the spec as the command line does, naming the bad field', async () => {
     const { page } = app;
     await page.getByTestId('sweep-spec').fill(JSON.stringify({ ...SPEC, vary: [{ param: 'betta', values: [1] }] }));
-    await expect(page.getByTestId('sweep-spec-check').innerText()).resolves.toMatch(/vary\.0\.param: "betta" is not a parameter/);
+    await expect(page.getByTestId('sweep-spec-check').innerText()).resolves.toMatch(
+      /vary\.0\.param: "betta" is not a parameter/,
+    );
     await expect(page.getByTestId('sweep-run').isDisabled()).resolves.toBe(true);
   });
 
-  it('runs a tiny sweep in a pool of workers with a progress bar, plots it, and its records are the command line\'s to round-off', async () => {
+  it("runs a tiny sweep in a pool of workers with a progress bar, plots it, and its records are the command line's to round-off", async () => {
     const { page } = app;
     await page.getByTestId('sweep-spec').fill(JSON.stringify(SPEC, null, 2));
     await expect(page.getByTestId('sweep-spec-check').innerText()).resolves.toMatch(/^2 runs: beta = 5; beta = 20/);
     await page.getByTestId('sweep-run').click();
     await expect(page.getByTestId('sweep-progress').getAttribute('max')).resolves.toBe('2');
-    await expect.poll(() => page.getByTestId('sweep-message').innerText().catch(() => ''), { timeout: 120_000 }).toMatch(/Finished 2 runs/);
+    await expect
+      .poll(
+        () =>
+          page
+            .getByTestId('sweep-message')
+            .innerText()
+            .catch(() => ''),
+        { timeout: 120_000 },
+      )
+      .toMatch(/Finished 2 runs/);
     await expect(page.getByTestId('sweep-progress').getAttribute('value')).resolves.toBe('2');
-    for (const id of ['chart-jet-spacing', 'chart-u-rms']) await expect.poll(() => inkPixels(page, `[data-testid=${id}] canvas`)).toBeGreaterThan(1000);
+    for (const id of ['chart-jet-spacing', 'chart-u-rms'])
+      await expect.poll(() => inkPixels(page, `[data-testid=${id}] canvas`)).toBeGreaterThan(1000);
     await expect(page.getByTestId('sweep-table').locator('tbody tr').count()).resolves.toBe(2);
     // Two runs are too few for a scaling fit, and the page says so.
     await expect(page.getByTestId('chart-jet-spacing-fit').innerText()).resolves.toMatch(/need at least 3/);
     await screenshot(page, 'sweep.png');
-    const [d] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Save runs.jsonl' }).click()]);
+    const [d] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('button', { name: 'Save runs.jsonl' }).click(),
+    ]);
     const lines = (await readFile(await d.path(), 'utf8')).trim().split('\n').map(parseSweepRecord);
     const direct = expandSweep(parseSweepSpec(SPEC)).map((j) => runSweepJob(j, { seconds: () => 0, iso: () => '' }));
     // The same runs, ids, parameters, plans and outcomes; summary numbers agree to round-off. (Node's
@@ -53,7 +76,14 @@ describe('Sweep view in Chromium', () => {
     expect(lines.map((r) => r.id)).toEqual(direct.map((r) => r.id));
     for (const [i, r] of lines.entries()) {
       const d = direct[i];
-      expect([r.params, r.plan, r.status, r.stopped, r.summary.steps, r.summary.jet_count]).toEqual([d.params, d.plan, d.status, d.stopped, d.summary.steps, d.summary.jet_count]);
+      expect([r.params, r.plan, r.status, r.stopped, r.summary.steps, r.summary.jet_count]).toEqual([
+        d.params,
+        d.plan,
+        d.status,
+        d.stopped,
+        d.summary.steps,
+        d.summary.jet_count,
+      ]);
       for (const [k, v] of Object.entries(d.summary)) {
         const got = (r.summary as unknown as Record<string, unknown>)[k];
         if (typeof v === 'number') expect(Math.abs((got as number) - v), k).toBeLessThanOrEqual(1e-12 * Math.abs(v));
@@ -62,13 +92,22 @@ describe('Sweep view in Chromium', () => {
     }
   }, 150_000);
 
-  it('loads a command-line sweep\'s results and fits them', async () => {
+  it("loads a command-line sweep's results and fits them", async () => {
     const { page } = app;
     const spec = parseSweepSpec({ ...SPEC, vary: [{ param: 'beta', values: [5, 10, 20] }], length: { until: 2 } });
-    const jsonl = expandSweep(spec).map((j) => JSON.stringify(runSweepJob(j, { seconds: () => 1, iso: () => '2026-01-01T00:00:00Z' }))).join('\n') + '\n';
-    await page.getByTestId('sweep-load').setInputFiles({ name: 'runs.jsonl', mimeType: 'application/jsonl', buffer: Buffer.from(jsonl) });
+    const jsonl =
+      expandSweep(spec)
+        .map((j) => JSON.stringify(runSweepJob(j, { seconds: () => 1, iso: () => '2026-01-01T00:00:00Z' })))
+        .join('\n') + '\n';
+    await page
+      .getByTestId('sweep-load')
+      .setInputFiles({ name: 'runs.jsonl', mimeType: 'application/jsonl', buffer: Buffer.from(jsonl) });
     await expect(page.getByTestId('sweep-table').locator('tbody tr').count()).resolves.toBe(3);
-    await page.getByTestId('sweep-load').setInputFiles({ name: 'runs.jsonl', mimeType: 'application/jsonl', buffer: Buffer.from('{"not":"a record"}\n') });
+    await page.getByTestId('sweep-load').setInputFiles({
+      name: 'runs.jsonl',
+      mimeType: 'application/jsonl',
+      buffer: Buffer.from('{"not":"a record"}\n'),
+    });
     await expect(page.getByTestId('sweep-load-error').innerText()).resolves.toMatch(/line 1/);
   });
 

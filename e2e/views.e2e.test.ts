@@ -17,7 +17,18 @@ describe('Budget and Scale ladder views in Chromium', () => {
 
   it('lists only the views that work', async () => {
     const tabs = await app.page.getByRole('tab').allInnerTexts();
-    expect(tabs).toEqual(['Field', 'Zonal', 'Hovmöller', 'Spectra', 'Flux', 'Budget', 'Scale ladder', 'Plan', 'Sweep', 'Compare']);
+    expect(tabs).toEqual([
+      'Field',
+      'Zonal',
+      'Hovmöller',
+      'Spectra',
+      'Flux',
+      'Budget',
+      'Scale ladder',
+      'Plan',
+      'Sweep',
+      'Compare',
+    ]);
   });
 
   it('draws the budget charts, and they grow as the run goes on', async () => {
@@ -34,10 +45,18 @@ describe('Budget and Scale ladder views in Chromium', () => {
     }
     const points = Number(await page.getByTestId('chart-energy').getAttribute('data-points'));
     const t = await modelTime(page);
-    await page.waitForFunction((t0) => Number(document.querySelector('[data-testid=model-time]')?.textContent) > t0 + 2, t, { timeout: 60_000 });
-    await expect.poll(async () => Number(await page.getByTestId('chart-energy').getAttribute('data-points'))).toBeGreaterThan(points);
+    await page.waitForFunction(
+      (t0) => Number(document.querySelector('[data-testid=model-time]')?.textContent) > t0 + 2,
+      t,
+      { timeout: 60_000 },
+    );
+    await expect
+      .poll(async () => Number(await page.getByTestId('chart-energy').getAttribute('data-points')))
+      .toBeGreaterThan(points);
     for (const [i, id] of charts.entries()) {
-      await expect.poll(async () => (await canvasSample(page, `[data-testid=${id}] canvas`)).hash, { timeout: 10_000 }).not.toBe(before[i].hash);
+      await expect
+        .poll(async () => (await canvasSample(page, `[data-testid=${id}] canvas`)).hash, { timeout: 10_000 })
+        .not.toBe(before[i].hash);
     }
     // The residual of the budget is round-off, relative to its largest term.
     const residual = Number(await page.getByTestId('residual-max').getAttribute('data-value'));
@@ -51,12 +70,25 @@ describe('Budget and Scale ladder views in Chromium', () => {
     await page.getByTestId('tab-scales').click();
     const ladder = page.getByTestId('scale-ladder');
     await ladder.waitFor();
-    for (const id of ['fixed-domain', 'fixed-transitional', 'fixed-friction', 'fixed-forcing', 'fixed-grid', 'predicted-rhines', 'measured-rhines', 'measured-dissipation']) {
+    for (const id of [
+      'fixed-domain',
+      'fixed-transitional',
+      'fixed-friction',
+      'fixed-forcing',
+      'fixed-grid',
+      'predicted-rhines',
+      'measured-rhines',
+      'measured-dissipation',
+    ]) {
       await expect(page.getByTestId(`rung-${id}`).count(), id).resolves.toBe(1);
     }
     const k0 = Number(await page.getByTestId('rung-measured-rhines').getAttribute('data-k'));
     expect(k0).toBeGreaterThan(0);
-    await expect.poll(async () => Number(await page.getByTestId('rung-measured-rhines').getAttribute('data-k')), { timeout: 30_000 }).not.toBe(k0);
+    await expect
+      .poll(async () => Number(await page.getByTestId('rung-measured-rhines').getAttribute('data-k')), {
+        timeout: 30_000,
+      })
+      .not.toBe(k0);
     await expect(page.getByTestId('predicted-regime').innerText()).resolves.toMatch(/zonostrophic/);
     await expect(page.getByTestId('measured-rbeta').innerText()).resolves.toMatch(/^\d+\.\d+$/);
     // Another Rhines convention moves the Rhines rung, and says which it is.

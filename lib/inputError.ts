@@ -13,7 +13,8 @@
  *   state                              field: why
  *   run length, plan file              why
  */
-export type InputSource = 'parameters' | 'plan input' | 'plan file' | 'run file' | 'checkpoint file' | 'sweep spec' | 'run length' | 'state';
+export type InputSource =
+  'parameters' | 'plan input' | 'plan file' | 'run file' | 'checkpoint file' | 'sweep spec' | 'run length' | 'state';
 
 /** One refused entry: its field (a dotted path), the value given, and what is allowed. */
 export interface InputIssue {
@@ -73,7 +74,8 @@ const MESSAGE: Record<InputSource, Format> = {
 /** A value as a message shows it: strings quoted, objects as (at most 60 characters of) JSON. */
 function show(value: unknown): string {
   if (typeof value === 'string') return JSON.stringify(value);
-  if (typeof value === 'number' || typeof value === 'boolean' || value === null || value === undefined) return String(value);
+  if (typeof value === 'number' || typeof value === 'boolean' || value === null || value === undefined)
+    return String(value);
   try {
     return JSON.stringify(value).slice(0, 60);
   } catch {

@@ -48,8 +48,18 @@ function ensureChromium() {
 }
 
 stage(1, 'Chromium', ensureChromium);
-stage(2, 'format + lint', () => run(bin('prettier'), ['--check', '--log-level', 'warn', '.']) && run(bin('eslint'), ['.']));
+stage(
+  2,
+  'format + lint',
+  () => run(bin('prettier'), ['--check', '--log-level', 'warn', '.']) && run(bin('eslint'), ['.']),
+);
 stage(3, 'typecheck', () => run('npm', ['run', '--silent', 'typecheck']));
 stage(4, 'unit tests', () => run(bin('vitest'), ['run']));
-stage(5, 'build + browser tests', () => run(bin('vite'), ['build', '--logLevel', 'warn']) && run(bin('vitest'), ['run', '--config', 'vitest.e2e.config.ts']));
+stage(
+  5,
+  'build + browser tests',
+  () =>
+    run(bin('vite'), ['build', '--logLevel', 'warn']) &&
+    run(bin('vitest'), ['run', '--config', 'vitest.e2e.config.ts']),
+);
 console.log(`\nall checks passed in ${((Date.now() - started) / 1000).toFixed(1)} s`);

@@ -33,8 +33,10 @@ export interface MemoryBudget {
 export function appMemoryBudget(deviceMemoryGiB: number | undefined = readDeviceMemory()): MemoryBudget {
   if (typeof deviceMemoryGiB === 'number' && Number.isFinite(deviceMemoryGiB) && deviceMemoryGiB > 0) {
     const quarter = (deviceMemoryGiB * GiB) / 4;
-    if (quarter <= APP_BUDGET_FLOOR) return { bytes: APP_BUDGET_FLOOR, reason: `its least; this device has ${deviceMemoryGiB} GiB` };
-    if (quarter < APP_BUDGET_CAP) return { bytes: quarter, reason: `a quarter of this device's ${deviceMemoryGiB} GiB` };
+    if (quarter <= APP_BUDGET_FLOOR)
+      return { bytes: APP_BUDGET_FLOOR, reason: `its least; this device has ${deviceMemoryGiB} GiB` };
+    if (quarter < APP_BUDGET_CAP)
+      return { bytes: quarter, reason: `a quarter of this device's ${deviceMemoryGiB} GiB` };
   }
   return { bytes: APP_BUDGET_CAP, reason: '' };
 }
@@ -87,13 +89,19 @@ export function estimateAppMemory(p: GridParams, replacing: GridParams | null = 
   ];
   const exporting = 160 * N;
   const replaced = replacing ? resident(replacing) : 0;
-  items.push(replaced > exporting ? { what: `the ${replacing!.nx} × ${replacing!.ny} run it replaces`, bytes: replaced } : { what: 'exporting a snapshot', bytes: exporting });
+  items.push(
+    replaced > exporting
+      ? { what: `the ${replacing!.nx} × ${replacing!.ny} run it replaces`, bytes: replaced }
+      : { what: 'exporting a snapshot', bytes: exporting },
+  );
   return { nx: p.nx, ny: p.ny, items, totalBytes: items.reduce((s, i) => s + i.bytes, 0) };
 }
 
 /** Bytes in binary units without trailing zeros: "1 GiB", "512 MiB", "1.4 GiB". */
 export function roughBytes(bytes: number): string {
-  return formatBytes(bytes).replace(/\.0+ /, ' ').replace(/(\.\d*?)0+ /, '$1 ');
+  return formatBytes(bytes)
+    .replace(/\.0+ /, ' ')
+    .replace(/(\.\d*?)0+ /, '$1 ');
 }
 
 /**
@@ -101,9 +109,16 @@ export function roughBytes(bytes: number): string {
  * fits the budget: "1024 × 1024 needs ≈ 645 MiB; the app's budget is 512 MiB (a quarter of this
  * device's 2 GiB)".
  */
-export function memoryRefusal(p: GridParams, replacing: GridParams | null = null, budget: MemoryBudget = appMemoryBudget()): string | null {
+export function memoryRefusal(
+  p: GridParams,
+  replacing: GridParams | null = null,
+  budget: MemoryBudget = appMemoryBudget(),
+): string | null {
   const e = estimateAppMemory(p, replacing);
   if (e.totalBytes <= budget.bytes) return null;
-  const along = replacing && e.items.some((i) => i.what.endsWith('it replaces')) ? ` with the ${replacing.nx} × ${replacing.ny} run it replaces` : '';
+  const along =
+    replacing && e.items.some((i) => i.what.endsWith('it replaces'))
+      ? ` with the ${replacing.nx} × ${replacing.ny} run it replaces`
+      : '';
   return `${p.nx} × ${p.ny} needs ≈ ${roughBytes(e.totalBytes)}${along}; the app's budget is ${roughBytes(budget.bytes)}${budget.reason ? ` (${budget.reason})` : ''}`;
 }

@@ -1,4 +1,11 @@
-import type { DiagnosticsPayload, FluxPayload, HovmollerPayload, MonitorStatus, SpectraPayload, ZonalPayload } from '../workers/diagnosticsApi';
+import type {
+  DiagnosticsPayload,
+  FluxPayload,
+  HovmollerPayload,
+  MonitorStatus,
+  SpectraPayload,
+  ZonalPayload,
+} from '../workers/diagnosticsApi';
 
 /**
  * The diagnostics the UI was sent, latest of each kind: raw state (the arrays are never proxied),

@@ -40,7 +40,8 @@ export function zonostrophyAt(p: ModelParams, U: number): Zonostrophy | null {
 }
 
 /** The rungs of the scale ladder, one per length scale of a run (formulas in lib/analysis/scales.ts). */
-export type ScaleId = 'domain' | 'rhines' | 'transitional' | 'friction' | 'forcing' | 'deformation' | 'dissipation' | 'grid';
+export type ScaleId =
+  'domain' | 'rhines' | 'transitional' | 'friction' | 'forcing' | 'deformation' | 'dissipation' | 'grid';
 
 /** One wavenumber of the ladder (k in rad per L; a length ℓ sits at k = 2π/ℓ). */
 export interface Rung {
@@ -76,7 +77,14 @@ function rhinesRung(p: ModelParams, U: number, convention: RhinesConvention, sou
 
 function dissipationRung(p: ModelParams, eta: number, source: string): Rung[] {
   if (!(p.nu > 0 && eta > 0)) return [];
-  return [{ id: 'dissipation', symbol: 'k_ν', k: dissipationWavenumber(eta, p.nu, p.nu_order), title: `hyperviscous dissipation (η^⅓/ν)^{1/2p}, ${source}` }];
+  return [
+    {
+      id: 'dissipation',
+      symbol: 'k_ν',
+      k: dissipationWavenumber(eta, p.nu, p.nu_order),
+      title: `hyperviscous dissipation (η^⅓/ν)^{1/2p}, ${source}`,
+    },
+  ];
 }
 
 /**
@@ -86,9 +94,18 @@ function dissipationRung(p: ModelParams, eta: number, source: string): Rung[] {
  * the rate at which hyperviscosity removes enstrophy (the η that actually reaches small scales).
  */
 export function scaleLadder(p: ModelParams, report: StepReport, convention: RhinesConvention): ScaleLadder {
-  const fixed: Rung[] = [{ id: 'domain', symbol: 'k_L', k: (2 * Math.PI) / Math.max(p.Lx, p.Ly), title: 'domain, 2π/max(Lx, Ly)' }];
-  if (p.beta > 0 && p.eps > 0) fixed.push({ id: 'transitional', symbol: 'k_β', k: transitionalWavenumber(p.beta, p.eps), title: 'transitional, (β³/ε)^⅕' });
-  if (p.mu > 0 && p.eps > 0) fixed.push({ id: 'friction', symbol: 'k_fric', k: frictionWavenumber(p.mu, p.eps), title: 'friction, (μ³/ε)^½' });
+  const fixed: Rung[] = [
+    { id: 'domain', symbol: 'k_L', k: (2 * Math.PI) / Math.max(p.Lx, p.Ly), title: 'domain, 2π/max(Lx, Ly)' },
+  ];
+  if (p.beta > 0 && p.eps > 0)
+    fixed.push({
+      id: 'transitional',
+      symbol: 'k_β',
+      k: transitionalWavenumber(p.beta, p.eps),
+      title: 'transitional, (β³/ε)^⅕',
+    });
+  if (p.mu > 0 && p.eps > 0)
+    fixed.push({ id: 'friction', symbol: 'k_fric', k: frictionWavenumber(p.mu, p.eps), title: 'friction, (μ³/ε)^½' });
   if (p.forcing !== 'none') fixed.push({ id: 'forcing', symbol: 'k_f', k: p.kf, title: `forcing, annulus ±${p.dkf}` });
   if (p.kd > 0) fixed.push({ id: 'deformation', symbol: 'k_d', k: p.kd, title: 'deformation, 1/L_d' });
   fixed.push({ id: 'grid', symbol: 'k_max', k: keptRadius(p), title: 'grid, largest kept disc (2/3 rule)' });
@@ -99,7 +116,10 @@ export function scaleLadder(p: ModelParams, report: StepReport, convention: Rhin
     ...dissipationRung(p, report.enstrophy.injection, 'injected η'),
   ];
   const measuredU = rmsVelocity(report.kinetic);
-  const measured = [...rhinesRung(p, measuredU, convention, 'measured U_rms'), ...dissipationRung(p, report.enstrophy.hyper, 'hyperviscous η')];
+  const measured = [
+    ...rhinesRung(p, measuredU, convention, 'measured U_rms'),
+    ...dissipationRung(p, report.enstrophy.hyper, 'hyperviscous η'),
+  ];
   const predictedR = predictedU && p.beta > 0 ? steadyZonostrophyIndex(p.beta, p.eps, p.mu) : null;
   return {
     fixed: fixed.filter((r) => positive(r.k)),

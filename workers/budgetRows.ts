@@ -1,7 +1,17 @@
 import type { QuadraticBudget, StepReport } from '../lib/model/budget';
 
 /** The terms of one quadratic budget, in the order they sit in a row. */
-const TERMS = ['value', 'injection', 'drag', 'hyper', 'largeScale', 'transfer', 'tendency', 'realizedTendency', 'realizedInjection'] as const;
+const TERMS = [
+  'value',
+  'injection',
+  'drag',
+  'hyper',
+  'largeScale',
+  'transfer',
+  'tendency',
+  'realizedTendency',
+  'realizedInjection',
+] as const;
 const NT = TERMS.length;
 
 /**
@@ -59,7 +69,8 @@ export class BudgetRowBuffer {
     private readonly maxRows = 1 << 14,
     private readonly minRows = 64,
   ) {
-    if (!(maxRows >= 2 && maxRows % 2 === 0)) throw new RangeError('BudgetRowBuffer: maxRows must be an even number ≥ 2');
+    if (!(maxRows >= 2 && maxRows % 2 === 0))
+      throw new RangeError('BudgetRowBuffer: maxRows must be an even number ≥ 2');
     this.data = new Float64Array(minRows * BUDGET_ROW_WIDTH);
   }
 
@@ -85,7 +96,10 @@ export class BudgetRowBuffer {
    */
   take(spare?: Float64Array | null): BudgetRows {
     const out = { rows: this.rows, data: this.data };
-    this.data = spare && spare.length >= this.minRows * BUDGET_ROW_WIDTH ? spare : new Float64Array(this.minRows * BUDGET_ROW_WIDTH);
+    this.data =
+      spare && spare.length >= this.minRows * BUDGET_ROW_WIDTH
+        ? spare
+        : new Float64Array(this.minRows * BUDGET_ROW_WIDTH);
     this.rows = 0;
     return out;
   }

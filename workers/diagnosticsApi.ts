@@ -25,7 +25,13 @@ export interface DiagnosticNeeds {
   flux: boolean;
 }
 
-export const NO_NEEDS: Readonly<DiagnosticNeeds> = Object.freeze({ zonal: false, hovmoller: false, spectra: false, spectra2d: false, flux: false });
+export const NO_NEEDS: Readonly<DiagnosticNeeds> = Object.freeze({
+  zonal: false,
+  hovmoller: false,
+  spectra: false,
+  spectra2d: false,
+  flux: false,
+});
 
 /** How the worker samples and averages; a field left out keeps its current value, null restores the default. */
 export interface SamplingOptions {

@@ -21,7 +21,10 @@ const BUDGET_ROWS_MAX = 1 << 14;
  * recentMean.ts, lib/analysis/spectra.ts and spectralFlux.ts; test/workers/diagnosticsMemory.test.ts
  * checks it against the typed arrays a SimulationHost with every view on really holds.
  */
-export function viewDiagnosticsBytes(p: Pick<ModelParams, 'nx' | 'ny' | 'Lx' | 'Ly'>, average = MAX_SPECTRAL_AVERAGE): number {
+export function viewDiagnosticsBytes(
+  p: Pick<ModelParams, 'nx' | 'ny' | 'Lx' | 'Ly'>,
+  average = MAX_SPECTRAL_AVERAGE,
+): number {
   const { nx, ny, Lx, Ly } = p;
   const S = ny * (nx / 2 + 1);
   // Time means of the views and the profiles they give.

@@ -25,7 +25,12 @@ export class DiagnosticsPublisher {
   private needs: DiagnosticNeeds = { ...NO_NEEDS };
   private options: SamplingOptions = {};
   private readonly dirty: Record<Kind, boolean> = { zonal: false, hovmoller: false, spectra: false, flux: false };
-  private readonly sent: Record<Kind, number> = { zonal: -Infinity, hovmoller: -Infinity, spectra: -Infinity, flux: -Infinity };
+  private readonly sent: Record<Kind, number> = {
+    zonal: -Infinity,
+    hovmoller: -Infinity,
+    spectra: -Infinity,
+    flux: -Infinity,
+  };
 
   get current(): RunDiagnostics {
     if (!this.diag) throw new Error('no diagnostics: no run has started');
@@ -56,7 +61,8 @@ export class DiagnosticsPublisher {
     this.needs = { ...needs };
     const d = this.diag;
     if (d && model) {
-      if (needs.spectra && d.spectral.spectraCount === 0) d.spectral.addSpectra(model.qHat, model.time, needs.spectra2d);
+      if (needs.spectra && d.spectral.spectraCount === 0)
+        d.spectral.addSpectra(model.qHat, model.time, needs.spectra2d);
       if (needs.flux && d.spectral.fluxCount === 0) d.spectral.addFlux(model.qHat, model.time);
     }
     for (const k of KINDS) this.dirty[k] = true;
@@ -91,7 +97,8 @@ export class DiagnosticsPublisher {
   payload(now: number, playing: boolean): { payload: DiagnosticsPayload; buffers: ArrayBuffer[] } {
     const d = this.current;
     const buffers: ArrayBuffer[] = [];
-    const due = (k: Kind, needed: boolean) => needed && this.dirty[k] && (!playing || now - this.sent[k] >= PAYLOAD_MS[k]);
+    const due = (k: Kind, needed: boolean) =>
+      needed && this.dirty[k] && (!playing || now - this.sent[k] >= PAYLOAD_MS[k]);
     const take = <T>(k: Kind, built: { payload: T; buffers: ArrayBuffer[] } | null): T | null => {
       this.dirty[k] = false;
       if (!built) return null;
@@ -102,8 +109,12 @@ export class DiagnosticsPublisher {
     const payload: DiagnosticsPayload = {
       status: this.status(),
       zonal: due('zonal', this.needs.zonal) ? take('zonal', this.zonal(d)) : null,
-      hovmoller: due('hovmoller', this.needs.hovmoller) ? take('hovmoller', d.samples > 0 ? hovmollerPayload(d.monitor.hovmoller) : null) : null,
-      spectra: due('spectra', this.needs.spectra) ? take('spectra', d.spectral.spectraPayload(this.needs.spectra2d)) : null,
+      hovmoller: due('hovmoller', this.needs.hovmoller)
+        ? take('hovmoller', d.samples > 0 ? hovmollerPayload(d.monitor.hovmoller) : null)
+        : null,
+      spectra: due('spectra', this.needs.spectra)
+        ? take('spectra', d.spectral.spectraPayload(this.needs.spectra2d))
+        : null,
       flux: due('flux', this.needs.flux) ? take('flux', d.spectral.fluxPayload()) : null,
     };
     return { payload, buffers };
@@ -112,14 +123,28 @@ export class DiagnosticsPublisher {
   private zonal(d: RunDiagnostics) {
     if (!d.window || !d.meanJets || !d.latestJets || d.lastSample === null) return null;
     const { monitor: m } = d;
-    return zonalPayload({ y: m.zonal.y, Ly: d.params.Ly, beta: d.params.beta, time: d.lastSample, latest: m.latest, mean: d.mean, window: d.window, meanJets: d.meanJets, latestJets: d.latestJets, staircase: d.staircase, finder: m.jetFinder });
+    return zonalPayload({
+      y: m.zonal.y,
+      Ly: d.params.Ly,
+      beta: d.params.beta,
+      time: d.lastSample,
+      latest: m.latest,
+      mean: d.mean,
+      window: d.window,
+      meanJets: d.meanJets,
+      latestJets: d.latestJets,
+      staircase: d.staircase,
+      finder: m.jetFinder,
+    });
   }
 }
 
 function checkOptions(o: SamplingOptions): void {
   for (const [key, v] of Object.entries(o) as [keyof SamplingOptions, number | null | undefined][]) {
     if (v === undefined || v === null) continue;
-    if (!(typeof v === 'number' && Number.isFinite(v) && v > 0)) throw new RangeError(`${key} must be a finite number > 0, got ${v}`);
-    if (key === 'spectralAverage' && !(Number.isInteger(v) && v <= MAX_SPECTRAL_AVERAGE)) throw new RangeError(`spectralAverage must be an integer from 1 to ${MAX_SPECTRAL_AVERAGE}, got ${v}`);
+    if (!(typeof v === 'number' && Number.isFinite(v) && v > 0))
+      throw new RangeError(`${key} must be a finite number > 0, got ${v}`);
+    if (key === 'spectralAverage' && !(Number.isInteger(v) && v <= MAX_SPECTRAL_AVERAGE))
+      throw new RangeError(`spectralAverage must be an integer from 1 to ${MAX_SPECTRAL_AVERAGE}, got ${v}`);
   }
 }

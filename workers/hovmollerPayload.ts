@@ -9,7 +9,9 @@ import type { HovmollerPayload } from './diagnosticsApi';
 export function hovmollerPayload(acc: HovmollerAccumulator): { payload: HovmollerPayload; buffers: ArrayBuffer[] } {
   const rec = acc.snapshot();
   const found = trackJets(rec);
-  const tracks = found.tracks.filter((tr) => tr.t.length > 1).map((tr) => ({ t: Float64Array.from(tr.t), y: Float64Array.from(tr.y) }));
+  const tracks = found.tracks
+    .filter((tr) => tr.t.length > 1)
+    .map((tr) => ({ t: Float64Array.from(tr.t), y: Float64Array.from(tr.y) }));
   const payload: HovmollerPayload = {
     ny: rec.ny,
     Ly: rec.Ly,
@@ -21,6 +23,10 @@ export function hovmollerPayload(acc: HovmollerAccumulator): { payload: Hovmolle
     mergers: found.mergers.map((e) => ({ t: e.t, y: e.y })),
     splits: found.splits.map((e) => ({ t: e.t, y: e.y })),
   };
-  const buffers = [rec.t.buffer, rec.data.buffer, ...tracks.flatMap((tr) => [tr.t.buffer, tr.y.buffer])] as ArrayBuffer[];
+  const buffers = [
+    rec.t.buffer,
+    rec.data.buffer,
+    ...tracks.flatMap((tr) => [tr.t.buffer, tr.y.buffer]),
+  ] as ArrayBuffer[];
   return { payload, buffers };
 }

@@ -12,8 +12,10 @@ export class RecentMean {
   private filled = 0;
 
   constructor(length: number, capacity: number) {
-    if (!(Number.isInteger(length) && length > 0)) throw new RangeError(`RecentMean: length = ${length} must be a positive integer`);
-    if (!(Number.isInteger(capacity) && capacity > 0)) throw new RangeError(`RecentMean: capacity = ${capacity} must be a positive integer`);
+    if (!(Number.isInteger(length) && length > 0))
+      throw new RangeError(`RecentMean: length = ${length} must be a positive integer`);
+    if (!(Number.isInteger(capacity) && capacity > 0))
+      throw new RangeError(`RecentMean: capacity = ${capacity} must be a positive integer`);
     this.length = length;
     this.capacity = capacity;
     this.ring = new Float64Array(length * capacity);
@@ -34,7 +36,8 @@ export class RecentMean {
 
   /** Add the array of time t, replacing the oldest once full. */
   add(t: number, values: ArrayLike<number>): void {
-    if (values.length !== this.length) throw new RangeError(`RecentMean: got ${values.length} values, expected ${this.length}`);
+    if (values.length !== this.length)
+      throw new RangeError(`RecentMean: got ${values.length} values, expected ${this.length}`);
     const off = this.head * this.length;
     for (let i = 0; i < this.length; i++) this.ring[off + i] = values[i];
     this.times[this.head] = t;
@@ -72,7 +75,8 @@ export class BlockMean {
   private doneCount = 0;
 
   constructor(length: number, size: number) {
-    if (!(Number.isInteger(size) && size > 0)) throw new RangeError(`BlockMean: size = ${size} must be a positive integer`);
+    if (!(Number.isInteger(size) && size > 0))
+      throw new RangeError(`BlockMean: size = ${size} must be a positive integer`);
     this.length = length;
     this.size = size;
     this.sum = new Float64Array(length);
@@ -85,7 +89,8 @@ export class BlockMean {
   }
 
   add(values: ArrayLike<number>): void {
-    if (values.length !== this.length) throw new RangeError(`BlockMean: got ${values.length} values, expected ${this.length}`);
+    if (values.length !== this.length)
+      throw new RangeError(`BlockMean: got ${values.length} values, expected ${this.length}`);
     for (let i = 0; i < this.length; i++) this.sum[i] += values[i];
     if (++this.count < this.size) return;
     for (let i = 0; i < this.length; i++) this.done[i] = this.sum[i] / this.count;

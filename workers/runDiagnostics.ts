@@ -59,7 +59,10 @@ export class RunDiagnostics {
     this.next = start + sampling.sampleEvery;
     this.monitor = new RunMonitor(params, { window: { kind: 'last', span: sampling.meanSpan, cap: 256 } });
     this.viewMean = this.newMean(sampling.meanSpan);
-    this.mean = Object.fromEntries(MEAN_PROFILES.map((k) => [k, new Float64Array(params.ny)])) as Record<MeanProfile, Float64Array>;
+    this.mean = Object.fromEntries(MEAN_PROFILES.map((k) => [k, new Float64Array(params.ny)])) as Record<
+      MeanProfile,
+      Float64Array
+    >;
     this.frames = new ZonalFrameStore(params.ny);
     this.spectral = new SpectralDiagnostics(this.monitor.snap, sampling.spectralAverage);
   }

@@ -16,7 +16,12 @@ export interface ExportedFile {
 }
 
 function runInfo(model: Model, action: string): StriaRunInfo {
-  return { params: { ...model.params }, striaVersion: pkg.version, createdAt: new Date().toISOString(), command: `Stria app: ${action}` };
+  return {
+    params: { ...model.params },
+    striaVersion: pkg.version,
+    createdAt: new Date().toISOString(),
+    command: `Stria app: ${action}`,
+  };
 }
 
 const stamp = (t: number) => `t${t.toFixed(2)}`;
@@ -24,17 +29,30 @@ const stamp = (t: number) => `t${t.toFixed(2)}`;
 /** The current state as a one-record snapshot file (CF NetCDF, docs/file-formats.md). */
 export function snapshotExport(model: Model, diag: RunDiagnostics): ExportedFile {
   const fields = diag.monitor.snap.gridFields(model.qHat);
-  const bytes = encodeSnapshotFile(runInfo(model, 'export the current state'), [snapshotFrame(model.time, model.steps, fields)]);
+  const bytes = encodeSnapshotFile(runInfo(model, 'export the current state'), [
+    snapshotFrame(model.time, model.steps, fields),
+  ]);
   const { nx, ny } = model.params;
-  return { name: `stria-snapshot-${stamp(model.time)}.nc`, mime: 'application/x-netcdf', bytes, description: `1 record of q, ζ, ψ, u, v on ${nx} × ${ny} at t = ${model.time.toFixed(3)}` };
+  return {
+    name: `stria-snapshot-${stamp(model.time)}.nc`,
+    mime: 'application/x-netcdf',
+    bytes,
+    description: `1 record of q, ζ, ψ, u, v on ${nx} × ${ny} at t = ${model.time.toFixed(3)}`,
+  };
 }
 
 /** The zonal-mean samples gathered since the diagnostics (re)started, as a CF NetCDF time series. */
 export function zonalNetcdfExport(model: Model, diag: RunDiagnostics): ExportedFile {
   const frames = diag.frames.frameList();
-  if (frames.length === 0) throw new RangeError('no zonal-mean samples yet: let the run go on for a sample interval first');
+  if (frames.length === 0)
+    throw new RangeError('no zonal-mean samples yet: let the run go on for a sample interval first');
   const bytes = encodeZonalMeanFile(runInfo(model, 'export the zonal-mean time series'), frames);
-  return { name: `stria-zonal-${stamp(model.time)}.nc`, mime: 'application/x-netcdf', bytes, description: describe(diag, frames.length) };
+  return {
+    name: `stria-zonal-${stamp(model.time)}.nc`,
+    mime: 'application/x-netcdf',
+    bytes,
+    description: describe(diag, frames.length),
+  };
 }
 
 /**
@@ -43,7 +61,8 @@ export function zonalNetcdfExport(model: Model, diag: RunDiagnostics): ExportedF
  */
 export function zonalCsvExport(model: Model, diag: RunDiagnostics): ExportedFile {
   const frames = diag.frames.frameList();
-  if (frames.length === 0) throw new RangeError('no zonal-mean samples yet: let the run go on for a sample interval first');
+  if (frames.length === 0)
+    throw new RangeError('no zonal-mean samples yet: let the run go on for a sample interval first');
   const { ny, Ly } = model.params;
   const rows = frames.length * ny;
   const col = () => new Float64Array(rows);
@@ -59,7 +78,12 @@ export function zonalCsvExport(model: Model, diag: RunDiagnostics): ExportedFile
     }
   });
   const columns: CsvColumn[] = Object.entries(cols).map(([name, values]) => ({ name, values }));
-  return { name: `stria-zonal-${stamp(model.time)}.csv`, mime: 'text/csv', bytes: encodeCsv(columns), description: describe(diag, frames.length) };
+  return {
+    name: `stria-zonal-${stamp(model.time)}.csv`,
+    mime: 'text/csv',
+    bytes: encodeCsv(columns),
+    description: describe(diag, frames.length),
+  };
 }
 
 function describe(diag: RunDiagnostics, n: number): string {

@@ -93,7 +93,9 @@ export interface InitInfo {
  * state, time and random stream), `regrid` (state carried to the new grid) or `fresh` (new domain:
  * a new run from t = 0).
  */
-export type ReconfigureResult = { applied: true; how: 'inPlace' | 'regrid' | 'fresh'; params: ModelParams } | { applied: false; issues: InputIssue[] };
+export type ReconfigureResult =
+  | { applied: true; how: 'inPlace' | 'regrid' | 'fresh'; params: ModelParams }
+  | { applied: false; issues: InputIssue[] };
 
 /** A blow-up, and the offer to go back to the last checkpoint with the step halved. */
 export interface BlowUpStop {

@@ -17,7 +17,15 @@ import { DiagnosticsPublisher } from './diagnosticsPublisher';
 import { snapshotExport, zonalCsvExport, zonalNetcdfExport, type ExportedFile } from './runExports';
 import { macrotask } from './macrotask';
 import { RescuePoint } from './rescuePoint';
-import type { BlowUpStop, ExportKind, InitInfo, ReconfigureResult, SimulationApi, Snapshot, SnapshotRequest } from './simulationApi';
+import type {
+  BlowUpStop,
+  ExportKind,
+  InitInfo,
+  ReconfigureResult,
+  SimulationApi,
+  Snapshot,
+  SnapshotRequest,
+} from './simulationApi';
 import { stateChecksum } from '../lib/io/digest';
 import { isInputError } from '../lib/inputError';
 
@@ -125,7 +133,8 @@ export class SimulationHost implements SimulationApi {
     }
     const old = model.params;
     const next = model.reconfigure(changes);
-    const how = next === model ? 'inPlace' : next.params.Lx !== old.Lx || next.params.Ly !== old.Ly ? 'fresh' : 'regrid';
+    const how =
+      next === model ? 'inPlace' : next.params.Lx !== old.Lx || next.params.Ly !== old.Ly ? 'fresh' : 'regrid';
     if (how === 'fresh') this.newEpoch();
     this.model = next;
     this.rescue.take(next);
@@ -162,7 +171,12 @@ export class SimulationHost implements SimulationApi {
   async exportFile(kind: ExportKind): Promise<ExportedFile> {
     const model = this.requireModel();
     const d = this.diagnostics.current;
-    const file = kind === 'snapshot' ? snapshotExport(model, d) : kind === 'zonal-netcdf' ? zonalNetcdfExport(model, d) : zonalCsvExport(model, d);
+    const file =
+      kind === 'snapshot'
+        ? snapshotExport(model, d)
+        : kind === 'zonal-netcdf'
+          ? zonalNetcdfExport(model, d)
+          : zonalCsvExport(model, d);
     return transfer(file, [file.bytes.buffer]);
   }
 
@@ -174,7 +188,8 @@ export class SimulationHost implements SimulationApi {
   nextSnapshot(request: SnapshotRequest): Promise<Snapshot> {
     if (request.recycleField) this.spareField = request.recycleField;
     if (request.recycleBudget) this.spareBudget = request.recycleBudget;
-    if (this.pending) return Promise.reject(new Error('nextSnapshot: a request is already waiting; keep one in flight'));
+    if (this.pending)
+      return Promise.reject(new Error('nextSnapshot: a request is already waiting; keep one in flight'));
     return new Promise<Snapshot>((resolve, reject) => {
       this.pending = { after: request.after, resolve, reject };
       this.answer();
@@ -264,7 +279,11 @@ export class SimulationHost implements SimulationApi {
       }
     }
     const r = kept ? retryRecord(1, e, kept) : null;
-    this.blowUp = { report: blowUpReport(e), restart: r ? { time: r.restarted_at.time, steps: r.restarted_at.steps, dt: r.dt, cfl: r.cfl } : null, refused };
+    this.blowUp = {
+      report: blowUpReport(e),
+      restart: r ? { time: r.restarted_at.time, steps: r.restarted_at.steps, dt: r.dt, cfl: r.cfl } : null,
+      refused,
+    };
   }
 
   private clearStop(): void {

@@ -49,7 +49,11 @@ export class SpectralDiagnostics {
     const plan = (this.spectraPlan ??= SpectraPlan.forSnapshots(this.snap));
     const s = plan.compute(qHat, (this.spectra ??= plan.createOutput()));
     const n = plan.nShells;
-    const m = (this.means ??= { E: new RecentMean(n, this.average), EZonal: new RecentMean(n, this.average), EResidual: new RecentMean(n, this.average) });
+    const m = (this.means ??= {
+      E: new RecentMean(n, this.average),
+      EZonal: new RecentMean(n, this.average),
+      EResidual: new RecentMean(n, this.average),
+    });
     m.E.add(t, s.E);
     m.EZonal.add(t, s.EZonal);
     m.EResidual.add(t, s.EResidual);
@@ -57,7 +61,10 @@ export class SpectralDiagnostics {
   }
 
   addFlux(qHat: Float64Array, t: number): void {
-    const plan = (this.fluxPlan ??= new SpectralFluxPlan(this.snap, (this.spectraPlan ??= SpectraPlan.forSnapshots(this.snap))));
+    const plan = (this.fluxPlan ??= new SpectralFluxPlan(
+      this.snap,
+      (this.spectraPlan ??= SpectraPlan.forSnapshots(this.snap)),
+    ));
     const f = plan.compute(qHat, (this.flux ??= plan.createOutput()));
     const n = f.PiE.length;
     const m = (this.fluxMeans ??= { PiE: new RecentMean(n, this.average), PiZ: new RecentMean(n, this.average) });
@@ -94,7 +101,10 @@ export class SpectralDiagnostics {
       E2d,
     };
     const arrays = [payload.k, payload.E, payload.EZonal, payload.EResidual, payload.kx2d, payload.ky2d, payload.E2d];
-    return { payload, buffers: arrays.filter((a): a is Float64Array => a !== null).map((a) => a.buffer as ArrayBuffer) };
+    return {
+      payload,
+      buffers: arrays.filter((a): a is Float64Array => a !== null).map((a) => a.buffer as ArrayBuffer),
+    };
   }
 
   fluxPayload(): { payload: FluxPayload; buffers: ArrayBuffer[] } | null {

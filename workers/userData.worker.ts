@@ -13,4 +13,6 @@ export interface UserDataApi {
   analyze(bytes: ArrayBuffer, options: UserFileOptions): FileAnalysis;
 }
 
-expose({ analyze: (bytes: ArrayBuffer, options: UserFileOptions) => analyzeFile(memorySource(bytes), options) } satisfies UserDataApi);
+expose({
+  analyze: (bytes: ArrayBuffer, options: UserFileOptions) => analyzeFile(memorySource(bytes), options),
+} satisfies UserDataApi);

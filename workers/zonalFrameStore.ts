@@ -74,7 +74,9 @@ export class ZonalFrameStore {
     const { ny } = this;
     return Array.from({ length: this.frames }, (_, f) => {
       const fields: Record<string, Float64Array> = {};
-      PROFILES.forEach((name, k) => (fields[name] = this.data.subarray((f * WIDTH + k) * ny, (f * WIDTH + k + 1) * ny)));
+      PROFILES.forEach(
+        (name, k) => (fields[name] = this.data.subarray((f * WIDTH + k) * ny, (f * WIDTH + k + 1) * ny)),
+      );
       return { time: this.time[f], steps: this.steps[f], fields };
     });
   }

@@ -7,11 +7,25 @@ import type { JetMark, StaircaseMark, ZonalPayload } from './diagnosticsApi';
 
 /** The jets of a report as marks (positions wrapped into [0, Ly)), with the eddy forcing of each core from the u′v′ of the same profiles. */
 export function jetMarks(report: JetReport, finder: JetFinder, upvp: Float64Array): JetMark[] {
-  return report.jets.map((j) => ({ y: j.y, speed: j.speed, ySouth: j.ySouth, yNorth: j.yNorth, coreForcing: finder.coreConvergence(j, upvp) }));
+  return report.jets.map((j) => ({
+    y: j.y,
+    speed: j.speed,
+    ySouth: j.ySouth,
+    yNorth: j.yNorth,
+    coreForcing: finder.coreConvergence(j, upvp),
+  }));
 }
 
 export function staircaseMark(fit: StaircaseFit | null): StaircaseMark | null {
-  return fit ? { edges: fit.edges.slice(), levels: fit.levels.slice(), widths: fit.widths.slice(), index: fit.index, rho: fit.rho } : null;
+  return fit
+    ? {
+        edges: fit.edges.slice(),
+        levels: fit.levels.slice(),
+        widths: fit.widths.slice(),
+        index: fit.index,
+        rho: fit.rho,
+      }
+    : null;
 }
 
 export interface ZonalPayloadInput {
@@ -48,5 +62,8 @@ export function zonalPayload(z: ZonalPayloadInput): { payload: ZonalPayload; buf
     staircase: staircaseMark(z.staircase),
   };
   const { y, ubar, qtot, convUpvp, meanUbar, meanQtot, meanConvUpvp } = payload;
-  return { payload, buffers: [y, ubar, qtot, convUpvp, meanUbar, meanQtot, meanConvUpvp].map((a) => a.buffer as ArrayBuffer) };
+  return {
+    payload,
+    buffers: [y, ubar, qtot, convUpvp, meanUbar, meanQtot, meanConvUpvp].map((a) => a.buffer as ArrayBuffer),
+  };
 }

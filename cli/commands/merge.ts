@@ -9,7 +9,14 @@ import { EXIT_OK, type Command, type CommandIO } from '../command';
 import { readRunsLog, writeRunsLog } from '../sweep/runsLog';
 import { fitsText, writeResults } from '../sweep/writeResults';
 
-const options: OptionSpec[] = [{ name: 'out', kind: 'text', value: 'DIR', help: 'directory of the merged results (required; may be one of the inputs)' }];
+const options: OptionSpec[] = [
+  {
+    name: 'out',
+    kind: 'text',
+    value: 'DIR',
+    help: 'directory of the merged results (required; may be one of the inputs)',
+  },
+];
 
 export const mergeCommand: Command = {
   name: 'merge',
@@ -34,7 +41,8 @@ when the directories hold different specs, merge says so and uses the first one'
 
 async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   const out = args.options.out as string | undefined;
-  if (args.positionals.length === 0) throw new UsageError('give the directories to merge: stria merge DIR... --out DIR');
+  if (args.positionals.length === 0)
+    throw new UsageError('give the directories to merge: stria merge DIR... --out DIR');
   if (out === undefined) throw new UsageError('--out DIR is required: where the merged results go');
   const sources = args.positionals.map((p) => {
     const file = existsSync(p) && statSync(p).isDirectory() ? join(p, 'runs.jsonl') : p;
@@ -52,7 +60,9 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   }
   const specs = sources.filter((s) => s.spec !== null);
   if (specs.some((s) => canonicalJson(s.spec!.json) !== canonicalJson(specs[0].spec!.json))) {
-    io.err.write(`stria merge: the directories hold different sweep specs; the fit options of ${specs[0].name} are used\n`);
+    io.err.write(
+      `stria merge: the directories hold different sweep specs; the fit options of ${specs[0].name} are used\n`,
+    );
   }
   const spec: SweepSpec | null = specs.length ? specs[0].spec!.spec : null;
   mkdirSync(out, { recursive: true });
@@ -60,7 +70,9 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   if (specs.length) writeFileSync(join(out, 'spec.json'), specs[0].spec!.text);
   const fits = writeResults(out, records, spec?.fits ?? {});
   const total = sources.reduce((n, s) => n + s.records.length, 0);
-  io.out.write(`${records.length} runs (from ${total} records in ${sources.length} directories) in ${out}: runs.jsonl, table.csv, table.json, fits.json\n${fitsText(fits)}`);
+  io.out.write(
+    `${records.length} runs (from ${total} records in ${sources.length} directories) in ${out}: runs.jsonl, table.csv, table.json, fits.json\n${fitsText(fits)}`,
+  );
   return EXIT_OK;
 }
 
@@ -73,7 +85,8 @@ function readSpecBeside(input: string, runsFile: string): { spec: SweepSpec; jso
     const json: unknown = JSON.parse(text);
     return { spec: parseSweepSpec(json), json, text };
   } catch (e) {
-    if (e instanceof SyntaxError || isInputError(e, 'sweep spec')) throw new UsageError(`${input}: spec.json is not a sweep spec (${e.message})`);
+    if (e instanceof SyntaxError || isInputError(e, 'sweep spec'))
+      throw new UsageError(`${input}: spec.json is not a sweep spec (${e.message})`);
     throw e;
   }
 }

@@ -18,12 +18,31 @@ import { Breather } from '../breather';
 import { ProgressBar } from '../progressBar';
 
 const options: OptionSpec[] = [
-  { name: 'preset', kind: 'text', value: 'ID', help: `start from a plan preset: ${PLAN_PRESETS.map((p) => p.id).join(', ')}` },
-  { name: 'set', kind: 'list', value: 'PATH=VALUE', help: 'set a field of the plan input (repeatable), e.g. drive.eps=0.02,\ngrid.nx=512, rotation.latitudeDeg=30; setting a kind clears its part' },
+  {
+    name: 'preset',
+    kind: 'text',
+    value: 'ID',
+    help: `start from a plan preset: ${PLAN_PRESETS.map((p) => p.id).join(', ')}`,
+  },
+  {
+    name: 'set',
+    kind: 'list',
+    value: 'PATH=VALUE',
+    help: 'set a field of the plan input (repeatable), e.g. drive.eps=0.02,\ngrid.nx=512, rotation.latitudeDeg=30; setting a kind clears its part',
+  },
   { name: 'json', kind: 'flag', help: 'print the predictions, checks, cost and matched run as JSON' },
-  { name: 'matched', kind: 'flag', help: 'also run the matched cheap run and print its measured summary\nbeside its predictions' },
+  {
+    name: 'matched',
+    kind: 'flag',
+    help: 'also run the matched cheap run and print its measured summary\nbeside its predictions',
+  },
   { name: 'target-seconds', kind: 'number', value: 'S', help: 'wall-time target of the matched run (default 600)' },
-  { name: 'report', kind: 'text', value: 'FILE', help: 'write the printable plan report: FILE.md (Markdown) or FILE.html' },
+  {
+    name: 'report',
+    kind: 'text',
+    value: 'FILE',
+    help: 'write the printable plan report: FILE.md (Markdown) or FILE.html',
+  },
 ];
 
 export const planCommand: Command = {
@@ -46,20 +65,32 @@ averaging its second half) and its measured summary is printed beside its predic
 
 async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   const o = args.options;
-  if (args.positionals.length > 1) throw new UsageError(`expected at most one PLANFILE, got ${args.positionals.length}`);
+  if (args.positionals.length > 1)
+    throw new UsageError(`expected at most one PLANFILE, got ${args.positionals.length}`);
   const report = o.report as string | undefined;
-  if (report !== undefined && !['.md', '.html'].includes(extname(report).toLowerCase())) throw new UsageError(`--report ${report}: the file name must end in .md or .html`);
+  if (report !== undefined && !['.md', '.html'].includes(extname(report).toLowerCase()))
+    throw new UsageError(`--report ${report}: the file name must end in .md or .html`);
   const target = o['target-seconds'] as number | undefined;
   if (target !== undefined && !(target > 0)) throw new UsageError(`--target-seconds must be > 0, got ${target}`);
-  const { input, setPaths } = planInputFrom(args.positionals[0], o.preset as string | undefined, (o.set as string[] | undefined) ?? []);
+  const { input, setPaths } = planInputFrom(
+    args.positionals[0],
+    o.preset as string | undefined,
+    (o.set as string[] | undefined) ?? [],
+  );
   let analysis: PlanAnalysis;
   try {
     analysis = analysePlan(input, target === undefined ? {} : { targetWallSeconds: target });
   } catch (e) {
     if (!isInputError(e, 'plan input')) throw e;
-    throw new UsageError(`plan refused: ${e.issues.map((i) => `${i.field}: ${i.message}${setPaths.includes(i.field) ? ` (from --set ${i.field})` : ''}`).join('; ')}`);
+    throw new UsageError(
+      `plan refused: ${e.issues.map((i) => `${i.field}: ${i.message}${setPaths.includes(i.field) ? ` (from --set ${i.field})` : ''}`).join('; ')}`,
+    );
   }
-  if (report) writeFileSync(report, extname(report).toLowerCase() === '.html' ? planReportHtml(analysis) : planReportMarkdown(analysis));
+  if (report)
+    writeFileSync(
+      report,
+      extname(report).toLowerCase() === '.html' ? planReportHtml(analysis) : planReportMarkdown(analysis),
+    );
   let measured: RunSummary | null = null;
   let status = EXIT_OK;
   if (o.matched) {
@@ -77,7 +108,14 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
 async function runMatched(m: MatchedRun, io: CommandIO): Promise<{ summary: RunSummary; status: number }> {
   const model = new Model(m.params);
   const length = m.plan.runLength;
-  const run = new MonitoredRun(model, resolveRunPlan(model.params, { until: length, average: length / 2, sampleEvery: Math.max(model.params.dt, Math.min(10 * model.params.dt, length / 200)) }));
+  const run = new MonitoredRun(
+    model,
+    resolveRunPlan(model.params, {
+      until: length,
+      average: length / 2,
+      sampleEvery: Math.max(model.params.dt, Math.min(10 * model.params.dt, length / 200)),
+    }),
+  );
   const bar = 'isTTY' in io.err && io.err.isTTY ? new ProgressBar(io.err, 'matched run') : null;
   try {
     const breather = new Breather();

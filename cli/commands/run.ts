@@ -3,7 +3,13 @@ import { writeFileSync } from 'node:fs';
 import { encodeRunFile } from '../../lib/io/runFile';
 import { Model } from '../../lib/model/model';
 import type { ModelParams } from '../../lib/model/params';
-import { blowUpReport, DEFAULT_MAX_RETRIES, describeBlowUp, type BlowUpPolicy, type RetryRecord } from '../../lib/run/blowUpRetry';
+import {
+  blowUpReport,
+  DEFAULT_MAX_RETRIES,
+  describeBlowUp,
+  type BlowUpPolicy,
+  type RetryRecord,
+} from '../../lib/run/blowUpRetry';
 import { MonitoredRun, type RunOrigin } from '../../lib/run/monitoredRun';
 import { runId } from '../../lib/run/runId';
 import { checkMemoryBudget, estimateRunMemory, MemoryBudgetError } from '../../lib/run/runMemory';
@@ -28,27 +34,115 @@ export const DEFAULT_CHECKPOINT_EVERY = 1000;
 export const CLI_RUNTIME_BYTES = 128 * 2 ** 20;
 
 const options: OptionSpec[] = [
-  { name: 'preset', kind: 'text', value: 'ID', help: 'start from a demo scenario: jets, few-jets, many-jets, deformation, isotropic' },
-  { name: 'set', kind: 'list', value: 'KEY=VALUE', help: 'set a parameter (repeatable): beta, kd, mu, nu, nu_order, kf, dkf, eps,\nLx, Ly, nx, ny, dt, cfl, seed, forcing, force_zonal, mu_ls, k_ls, init_energy' },
+  {
+    name: 'preset',
+    kind: 'text',
+    value: 'ID',
+    help: 'start from a demo scenario: jets, few-jets, many-jets, deformation, isotropic',
+  },
+  {
+    name: 'set',
+    kind: 'list',
+    value: 'KEY=VALUE',
+    help: 'set a parameter (repeatable): beta, kd, mu, nu, nu_order, kf, dkf, eps,\nLx, Ly, nx, ny, dt, cfl, seed, forcing, force_zonal, mu_ls, k_ls, init_energy',
+  },
   { name: 'steps', kind: 'count', value: 'N', help: 'take N steps' },
-  { name: 'until', kind: 'number', value: 'T', help: 'step until model time T (absolute: a saved run resumed stops at T too)' },
-  { name: 'until-steady', kind: 'flag', help: 'step until statistically steady (criterion below), at most until --max-time' },
+  {
+    name: 'until',
+    kind: 'number',
+    value: 'T',
+    help: 'step until model time T (absolute: a saved run resumed stops at T too)',
+  },
+  {
+    name: 'until-steady',
+    kind: 'flag',
+    help: 'step until statistically steady (criterion below), at most until --max-time',
+  },
   { name: 'steady-tol', kind: 'number', value: 'X', help: 'relative tolerance of the steady criterion (default 0.05)' },
-  { name: 'steady-window', kind: 'number', value: 'T', help: 'window of the steady criterion (default 1/(2 mu), the spin-up time)' },
-  { name: 'max-time', kind: 'number', value: 'T', help: 'give up on steadiness at time T (default start + 20 windows)' },
-  { name: 'average', kind: 'number', value: 'T', help: 'average the summary over the last T time units\n(default 1/mu, or 50 if mu = 0, at most the length of the run)' },
-  { name: 'sample-every', kind: 'number', value: 'T', help: 'sample the zonal means every T time units (default 10 dt)' },
-  { name: 'snapshots', kind: 'text', value: 'FILE', help: 'write gridded snapshots (q, zeta, psi, u, v) to a NetCDF file' },
+  {
+    name: 'steady-window',
+    kind: 'number',
+    value: 'T',
+    help: 'window of the steady criterion (default 1/(2 mu), the spin-up time)',
+  },
+  {
+    name: 'max-time',
+    kind: 'number',
+    value: 'T',
+    help: 'give up on steadiness at time T (default start + 20 windows)',
+  },
+  {
+    name: 'average',
+    kind: 'number',
+    value: 'T',
+    help: 'average the summary over the last T time units\n(default 1/mu, or 50 if mu = 0, at most the length of the run)',
+  },
+  {
+    name: 'sample-every',
+    kind: 'number',
+    value: 'T',
+    help: 'sample the zonal means every T time units (default 10 dt)',
+  },
+  {
+    name: 'snapshots',
+    kind: 'text',
+    value: 'FILE',
+    help: 'write gridded snapshots (q, zeta, psi, u, v) to a NetCDF file',
+  },
   { name: 'every', kind: 'count', value: 'K', help: 'a snapshot every K steps (with --snapshots)' },
-  { name: 'zonal', kind: 'text', value: 'FILE', help: 'write the zonal-mean time series (one record per sample) to a NetCDF file' },
-  { name: 'save', kind: 'text', value: 'FILE', help: 'save the final state as a run file, to resume with stria run FILE' },
-  { name: 'checkpoint', kind: 'text', value: 'FILE', help: 'keep a checkpoint of the run in FILE (replaced atomically), every\n--checkpoint-every steps, at the end and on Ctrl-C' },
-  { name: 'checkpoint-every', kind: 'count', value: 'K', help: `steps between checkpoints, at multiples of K of the step count\n(default ${DEFAULT_CHECKPOINT_EVERY}; also the in-memory checkpoints of --on-blowup retry)` },
-  { name: 'resume', kind: 'text', value: 'FILE', help: 'continue the run that wrote the checkpoint FILE, bit for bit: give the\nsame command as it, plus --resume FILE' },
-  { name: 'on-blowup', kind: 'text', value: 'stop|retry', help: 'on a blow-up, stop with its report (default), or go back to the last\ncheckpoint with half the time step (and half the CFL target)' },
-  { name: 'max-retries', kind: 'number', value: 'N', help: `most retries in the run with --on-blowup retry (default ${DEFAULT_MAX_RETRIES})` },
-  { name: 'memory-budget', kind: 'text', value: 'SIZE', help: 'refuse a run whose memory estimate exceeds SIZE, e.g. 512MiB, 4GiB\n(default 2GiB)' },
-  { name: 'json', kind: 'flag', help: 'print the run summary as JSON (the summary object, stable keys,\nthen retries and blow_up)' },
+  {
+    name: 'zonal',
+    kind: 'text',
+    value: 'FILE',
+    help: 'write the zonal-mean time series (one record per sample) to a NetCDF file',
+  },
+  {
+    name: 'save',
+    kind: 'text',
+    value: 'FILE',
+    help: 'save the final state as a run file, to resume with stria run FILE',
+  },
+  {
+    name: 'checkpoint',
+    kind: 'text',
+    value: 'FILE',
+    help: 'keep a checkpoint of the run in FILE (replaced atomically), every\n--checkpoint-every steps, at the end and on Ctrl-C',
+  },
+  {
+    name: 'checkpoint-every',
+    kind: 'count',
+    value: 'K',
+    help: `steps between checkpoints, at multiples of K of the step count\n(default ${DEFAULT_CHECKPOINT_EVERY}; also the in-memory checkpoints of --on-blowup retry)`,
+  },
+  {
+    name: 'resume',
+    kind: 'text',
+    value: 'FILE',
+    help: 'continue the run that wrote the checkpoint FILE, bit for bit: give the\nsame command as it, plus --resume FILE',
+  },
+  {
+    name: 'on-blowup',
+    kind: 'text',
+    value: 'stop|retry',
+    help: 'on a blow-up, stop with its report (default), or go back to the last\ncheckpoint with half the time step (and half the CFL target)',
+  },
+  {
+    name: 'max-retries',
+    kind: 'number',
+    value: 'N',
+    help: `most retries in the run with --on-blowup retry (default ${DEFAULT_MAX_RETRIES})`,
+  },
+  {
+    name: 'memory-budget',
+    kind: 'text',
+    value: 'SIZE',
+    help: 'refuse a run whose memory estimate exceeds SIZE, e.g. 512MiB, 4GiB\n(default 2GiB)',
+  },
+  {
+    name: 'json',
+    kind: 'flag',
+    help: 'print the run summary as JSON (the summary object, stable keys,\nthen retries and blow_up)',
+  },
 ];
 
 /** Option name of each RunPlan field, for error messages. */
@@ -109,46 +203,93 @@ estimate exceeds --memory-budget is refused before anything is allocated.`,
 
 async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   const o = args.options;
-  if (args.positionals.length > 1) throw new UsageError(`expected at most one FILE, got ${args.positionals.map((p) => `"${p}"`).join(', ')}`);
-  if ((o.snapshots === undefined) !== (o.every === undefined)) throw new UsageError(o.snapshots === undefined ? '--every needs --snapshots FILE' : '--snapshots needs --every K (steps between snapshots)');
+  if (args.positionals.length > 1)
+    throw new UsageError(`expected at most one FILE, got ${args.positionals.map((p) => `"${p}"`).join(', ')}`);
+  if ((o.snapshots === undefined) !== (o.every === undefined))
+    throw new UsageError(
+      o.snapshots === undefined
+        ? '--every needs --snapshots FILE'
+        : '--snapshots needs --every K (steps between snapshots)',
+    );
   const policy = blowUpPolicy(o);
   const budget = memoryBudget(o);
   const checkpointEvery = (o['checkpoint-every'] as number | undefined) ?? DEFAULT_CHECKPOINT_EVERY;
-  const start = resolveRunStart({ file: args.positionals[0], preset: o.preset as string | undefined, sets: o.set as string[] | undefined });
+  const start = resolveRunStart({
+    file: args.positionals[0],
+    preset: o.preset as string | undefined,
+    sets: o.set as string[] | undefined,
+  });
   const resumed = o.resume === undefined ? null : readCheckpoint(o.resume as string);
   // The run as the command asks for it: its parameters, where it starts, and its plan.
-  const origin: RunOrigin = resumed ? resumed.progress.origin : { time: start.checkpoint?.time ?? 0, steps: start.checkpoint?.steps ?? 0 };
+  const origin: RunOrigin = resumed
+    ? resumed.progress.origin
+    : { time: start.checkpoint?.time ?? 0, steps: start.checkpoint?.steps ?? 0 };
   const plan = runPlanOf(start.params, o, origin.time);
   if (resumed) checkSameRun(o.resume as string, start.params, plan, resumed.progress);
   const params = resumed ? resumed.checkpoint.params : start.params;
-  checkMemory(params, budget, { snapshots: o.snapshots !== undefined, zonal: o.zonal !== undefined, retry: policy.kind === 'retry', checkpointFile: o.checkpoint !== undefined });
+  checkMemory(params, budget, {
+    snapshots: o.snapshots !== undefined,
+    zonal: o.zonal !== undefined,
+    retry: policy.kind === 'retry',
+    checkpointFile: o.checkpoint !== undefined,
+  });
 
   let model: Model;
   if (resumed) model = Model.restore(resumed.checkpoint);
-  else if (start.checkpoint) model = Object.keys(start.changes).length ? Model.restore(start.checkpoint).reconfigure(start.changes) : Model.restore(start.checkpoint);
+  else if (start.checkpoint)
+    model = Object.keys(start.changes).length
+      ? Model.restore(start.checkpoint).reconfigure(start.changes)
+      : Model.restore(start.checkpoint);
   else model = new Model(start.params);
   const createdAt = resumed?.progress.outputs.created_at ?? new Date().toISOString();
   const command = resumed?.progress.outputs.command ?? ['stria', ...io.argv].join(' ');
-  const request = { snapshots: o.snapshots as string | undefined, every: o.every as number | undefined, zonal: o.zonal as string | undefined };
-  const outputs = new RunOutputs(start.params, request, { params: start.params, striaVersion: striaVersion(), createdAt, command }, resumed ? keptRecords(resumed.progress, request, io) : {});
+  const request = {
+    snapshots: o.snapshots as string | undefined,
+    every: o.every as number | undefined,
+    zonal: o.zonal as string | undefined,
+  };
+  const outputs = new RunOutputs(
+    start.params,
+    request,
+    { params: start.params, striaVersion: striaVersion(), createdAt, command },
+    resumed ? keptRecords(resumed.progress, request, io) : {},
+  );
   const monitored = new MonitoredRun(model, plan, outputs.hooks(), origin);
   if (resumed) restoreMeasurement(monitored, resumed.progress, io);
   const retries: RetryRecord[] = resumed ? resumed.progress.retries : [];
-  const store = o.checkpoint === undefined ? null : new CheckpointStore(o.checkpoint as string, { id: runId(start.params, plan), params: start.params, plan, origin, createdAt, command });
-  if (resumed) io.err.write(`stria run: resumed from ${o.resume} at t = ${model.time.toPrecision(6)}, step ${model.steps}${retries.length ? ` (after ${retries.length} retr${retries.length === 1 ? 'y' : 'ies'})` : ''}\n`);
+  const store =
+    o.checkpoint === undefined
+      ? null
+      : new CheckpointStore(o.checkpoint as string, {
+          id: runId(start.params, plan),
+          params: start.params,
+          plan,
+          origin,
+          createdAt,
+          command,
+        });
+  if (resumed)
+    io.err.write(
+      `stria run: resumed from ${o.resume} at t = ${model.time.toPrecision(6)}, step ${model.steps}${retries.length ? ` (after ${retries.length} retr${retries.length === 1 ? 'y' : 'ies'})` : ''}\n`,
+    );
 
   const bar = 'isTTY' in io.err && io.err.isTTY ? new ProgressBar(io.err, 'stria run') : null;
-  const driver = new RunDriver(monitored, outputs, {
-    policy,
-    checkpointEvery,
-    store,
-    interrupted: io.interrupted,
-    log: (line) => {
-      bar?.done();
-      io.err.write(`stria run: ${line}\n`);
+  const driver = new RunDriver(
+    monitored,
+    outputs,
+    {
+      policy,
+      checkpointEvery,
+      store,
+      interrupted: io.interrupted,
+      log: (line) => {
+        bar?.done();
+        io.err.write(`stria run: ${line}\n`);
+      },
+      onProgress: (r) => bar?.update(r.progress(), `t = ${r.model.time.toPrecision(4)}, step ${r.model.steps}`),
     },
-    onProgress: (r) => bar?.update(r.progress(), `t = ${r.model.time.toPrecision(4)}, step ${r.model.steps}`),
-  }, retries);
+    retries,
+  );
   let outcome;
   try {
     outcome = await driver.drive();
@@ -160,11 +301,22 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   if (o.save) writeFileSync(o.save as string, encodeRunFile(model.checkpoint()));
   const blowUp = outcome.kind === 'blew-up' ? blowUpReport(outcome.error) : null;
   io.out.write(runReport(monitored.summary(), driver.retries, blowUp, o.json === true));
-  const written = [outputs.describe(), o.save ? `state saved to ${o.save}` : '', store?.written ? `checkpoint in ${store.path} at step ${model.steps}` : ''].filter(Boolean).join('; ');
+  const written = [
+    outputs.describe(),
+    o.save ? `state saved to ${o.save}` : '',
+    store?.written ? `checkpoint in ${store.path} at step ${model.steps}` : '',
+  ]
+    .filter(Boolean)
+    .join('; ');
   if (written) io.err.write(`stria run: ${written}\n`);
-  if (driver.retries.length && outcome.kind !== 'blew-up') io.err.write(`stria run: recovered after ${driver.retries.length} retr${driver.retries.length === 1 ? 'y' : 'ies'}; dt is now ${model.params.dt.toPrecision(4)}\n`);
+  if (driver.retries.length && outcome.kind !== 'blew-up')
+    io.err.write(
+      `stria run: recovered after ${driver.retries.length} retr${driver.retries.length === 1 ? 'y' : 'ies'}; dt is now ${model.params.dt.toPrecision(4)}\n`,
+    );
   if (outcome.kind === 'blew-up') {
-    io.err.write(`stria run: error: ${describeBlowUp(blowUp!)}; the summary is of the last good state${store?.written ? `, and ${store.path} holds the last checkpoint before it` : ''}\n`);
+    io.err.write(
+      `stria run: error: ${describeBlowUp(blowUp!)}; the summary is of the last good state${store?.written ? `, and ${store.path} holds the last checkpoint before it` : ''}\n`,
+    );
     return EXIT_FAILED;
   }
   if (outcome.kind === 'checkpoint-failed') {
@@ -172,14 +324,21 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
     return EXIT_FAILED;
   }
   if (outcome.kind === 'interrupted') {
-    io.err.write(`stria run: interrupted at t = ${model.time}, step ${model.steps}${store ? `; resume with the same command plus --resume ${store.path}` : ''}\n`);
+    io.err.write(
+      `stria run: interrupted at t = ${model.time}, step ${model.steps}${store ? `; resume with the same command plus --resume ${store.path}` : ''}\n`,
+    );
     return EXIT_INTERRUPTED;
   }
   if (monitored.stopped === 'not-steady') {
     const [a, b] = monitored.steady!.lastPair;
-    io.err.write(`stria run: not steady by t = ${model.time.toPrecision(6)}: the last two window means of the energy were ${a.toPrecision(4)} and ${b.toPrecision(4)}\n`);
+    io.err.write(
+      `stria run: not steady by t = ${model.time.toPrecision(6)}: the last two window means of the energy were ${a.toPrecision(4)} and ${b.toPrecision(4)}\n`,
+    );
   }
-  if (monitored.stopped === 'steady') io.err.write(`stria run: steady at t = ${monitored.steady!.steadyAt!.toPrecision(6)} (${describeStopRule(plan.stop)})\n`);
+  if (monitored.stopped === 'steady')
+    io.err.write(
+      `stria run: steady at t = ${monitored.steady!.steadyAt!.toPrecision(6)} (${describeStopRule(plan.stop)})\n`,
+    );
   return EXIT_OK;
 }
 
@@ -187,7 +346,8 @@ function blowUpPolicy(o: ParsedArgs['options']): BlowUpPolicy {
   const mode = (o['on-blowup'] as string | undefined) ?? 'stop';
   if (mode !== 'stop' && mode !== 'retry') throw new UsageError(`--on-blowup ${mode}: must be stop or retry`);
   const max = o['max-retries'] as number | undefined;
-  if (max !== undefined && !(Number.isInteger(max) && max >= 0)) throw new UsageError(`--max-retries needs a whole number ≥ 0, got ${max}`);
+  if (max !== undefined && !(Number.isInteger(max) && max >= 0))
+    throw new UsageError(`--max-retries needs a whole number ≥ 0, got ${max}`);
   if (max !== undefined && mode !== 'retry') throw new UsageError('--max-retries applies only with --on-blowup retry');
   return mode === 'stop' ? { kind: 'stop' } : { kind: 'retry', maxRetries: max ?? DEFAULT_MAX_RETRIES };
 }
@@ -196,29 +356,45 @@ function memoryBudget(o: ParsedArgs['options']): number {
   const text = o['memory-budget'] as string | undefined;
   if (text === undefined) return DEFAULT_MEMORY_BUDGET;
   const bytes = parseByteSize(text);
-  if (!Number.isFinite(bytes)) throw new UsageError(`--memory-budget ${text}: needs a size such as 512MiB, 4GiB or 2000000000 (bytes)`);
+  if (!Number.isFinite(bytes))
+    throw new UsageError(`--memory-budget ${text}: needs a size such as 512MiB, 4GiB or 2000000000 (bytes)`);
   return bytes;
 }
 
 function checkMemory(p: ModelParams, budget: number, req: Parameters<typeof estimateRunMemory>[1]): void {
   try {
-    checkMemoryBudget(estimateRunMemory(p, { ...req, runtimeBytes: CLI_RUNTIME_BYTES }), budget, `nx = ${p.nx}, ny = ${p.ny}: this run`);
+    checkMemoryBudget(
+      estimateRunMemory(p, { ...req, runtimeBytes: CLI_RUNTIME_BYTES }),
+      budget,
+      `nx = ${p.nx}, ny = ${p.ny}: this run`,
+    );
   } catch (e) {
-    if (e instanceof MemoryBudgetError) throw new UsageError(`${e.message}; give a smaller grid, fewer outputs or a larger --memory-budget`);
+    if (e instanceof MemoryBudgetError)
+      throw new UsageError(`${e.message}; give a smaller grid, fewer outputs or a larger --memory-budget`);
     throw e;
   }
 }
 
 /** Records to keep in each file a resumed run continues: those its checkpoint counted, same file only. */
-function keptRecords(progress: RunProgress, req: { snapshots?: string; every?: number; zonal?: string }, io: CommandIO): Partial<OutputCounts> {
+function keptRecords(
+  progress: RunProgress,
+  req: { snapshots?: string; every?: number; zonal?: string },
+  io: CommandIO,
+): Partial<OutputCounts> {
   const keep: Partial<OutputCounts> = {};
   const saved = progress.outputs;
   if (req.snapshots !== undefined && saved.snapshots && resolve(saved.snapshots.path) === resolve(req.snapshots)) {
-    if (saved.snapshots.every !== req.every) throw new UsageError(`--every ${req.every}: the checkpoint's run wrote a snapshot every ${saved.snapshots.every} steps to ${req.snapshots}`);
+    if (saved.snapshots.every !== req.every)
+      throw new UsageError(
+        `--every ${req.every}: the checkpoint's run wrote a snapshot every ${saved.snapshots.every} steps to ${req.snapshots}`,
+      );
     keep.snapshots = saved.snapshots.records;
-  } else if (req.snapshots !== undefined) io.err.write(`stria run: ${req.snapshots} is new to this run: it starts at the resume point\n`);
-  if (req.zonal !== undefined && saved.zonal && resolve(saved.zonal.path) === resolve(req.zonal)) keep.zonal = saved.zonal.records;
-  else if (req.zonal !== undefined) io.err.write(`stria run: ${req.zonal} is new to this run: it starts at the resume point\n`);
+  } else if (req.snapshots !== undefined)
+    io.err.write(`stria run: ${req.snapshots} is new to this run: it starts at the resume point\n`);
+  if (req.zonal !== undefined && saved.zonal && resolve(saved.zonal.path) === resolve(req.zonal))
+    keep.zonal = saved.zonal.records;
+  else if (req.zonal !== undefined)
+    io.err.write(`stria run: ${req.zonal} is new to this run: it starts at the resume point\n`);
   return keep;
 }
 
@@ -232,7 +408,9 @@ function restoreMeasurement(run: MonitoredRun, progress: RunProgress, io: Comman
     run.restoreState(progress.measurement);
   } catch (e) {
     if (!isInputError(e, 'state')) throw e;
-    io.err.write(`stria run: the checkpoint's measurement does not fit this Stria (${e.message}): the summary covers the run from the resume point\n`);
+    io.err.write(
+      `stria run: the checkpoint's measurement does not fit this Stria (${e.message}): the summary covers the run from the resume point\n`,
+    );
   }
 }
 
@@ -253,7 +431,10 @@ function runPlanOf(params: ModelParams, o: ParsedArgs['options'], start: number)
     if (!isInputError(e, 'run length')) throw e;
     const option = OPTION_OF[e.field] ?? e.field;
     // Say it in the command's words: the option names, not the fields of a RunPlan.
-    const message = e.message.replace(/\b(steps|until|untilSteady|steadyTolerance|steadyWindow|maxTime|average|sampleEvery)\b/g, (k) => OPTION_OF[k] ?? k);
+    const message = e.message.replace(
+      /\b(steps|until|untilSteady|steadyTolerance|steadyWindow|maxTime|average|sampleEvery)\b/g,
+      (k) => OPTION_OF[k] ?? k,
+    );
     throw new UsageError(message.includes(option) ? message : `${option}: ${message}`);
   }
 }

@@ -17,11 +17,26 @@ import { fitsText, writeResults } from '../sweep/writeResults';
 
 const options: OptionSpec[] = [
   { name: 'out', kind: 'text', value: 'DIR', help: 'results directory (default: SPEC without .json, plus "-results")' },
-  { name: 'jobs', kind: 'count', value: 'N', help: `runs at a time, one worker thread each (default: cores − 1, at least 1; here ${defaultJobs()})` },
-  { name: 'shard', kind: 'text', value: 'i/n', help: 'run only shard i of n (i from 0): the runs whose index is i modulo n' },
+  {
+    name: 'jobs',
+    kind: 'count',
+    value: 'N',
+    help: `runs at a time, one worker thread each (default: cores − 1, at least 1; here ${defaultJobs()})`,
+  },
+  {
+    name: 'shard',
+    kind: 'text',
+    value: 'i/n',
+    help: 'run only shard i of n (i from 0): the runs whose index is i modulo n',
+  },
   { name: 'list', kind: 'flag', help: 'list the runs (id, index, shard, values, seed, finished or not) and exit' },
   { name: 'quiet', kind: 'flag', help: 'no line per finished run on standard error' },
-  { name: 'memory-budget', kind: 'text', value: 'SIZE', help: 'refuse a sweep whose runs at a time (--jobs) would need more than SIZE,\ne.g. 8GiB (default 2GiB)' },
+  {
+    name: 'memory-budget',
+    kind: 'text',
+    value: 'SIZE',
+    help: 'refuse a sweep whose runs at a time (--jobs) would need more than SIZE,\ne.g. 8GiB (default 2GiB)',
+  },
 ];
 
 /** What each worker thread takes besides its run (its own JavaScript heap and loader: about 40 MiB measured). */
@@ -86,7 +101,12 @@ export function readSpec(path: string): { spec: SweepSpec; text: string } {
 
 async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   const o = args.options;
-  if (args.positionals.length !== 1) throw new UsageError(args.positionals.length ? `expected one SPEC, got ${args.positionals.length}` : 'give the sweep spec: stria sweep SPEC');
+  if (args.positionals.length !== 1)
+    throw new UsageError(
+      args.positionals.length
+        ? `expected one SPEC, got ${args.positionals.length}`
+        : 'give the sweep spec: stria sweep SPEC',
+    );
   const specPath = args.positionals[0];
   const { spec, text } = readSpec(specPath);
   let jobs: SweepJob[];
@@ -105,7 +125,8 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
     }
   }
   const mine = selectShard(jobs, shard);
-  const dir = (o.out as string | undefined) ?? join(dirname(specPath), `${basename(specPath, extname(specPath))}-results`);
+  const dir =
+    (o.out as string | undefined) ?? join(dirname(specPath), `${basename(specPath, extname(specPath))}-results`);
   const log = join(dir, 'runs.jsonl');
   const journal = readRunsLog(log).records;
   // Finished runs of this sweep, from the journal (deduplicated, conflicts refused).
@@ -122,7 +143,9 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   writeFileSync(join(dir, 'spec.json'), text);
   const dropped = openRunsLog(log);
   if (dropped) io.err.write(`stria sweep: dropped an unfinished last line (${dropped} bytes) of ${log}\n`);
-  io.err.write(`stria sweep: ${mine.length} runs${shard ? ` in shard ${shard.index}/${shard.count}` : ''}, ${mine.length - todo.length} already finished, ${todo.length} to run on ${jobsN} worker${jobsN === 1 ? '' : 's'}\n`);
+  io.err.write(
+    `stria sweep: ${mine.length} runs${shard ? ` in shard ${shard.index}/${shard.count}` : ''}, ${mine.length - todo.length} already finished, ${todo.length} to run on ${jobsN} worker${jobsN === 1 ? '' : 's'}\n`,
+  );
   let done = mine.length - todo.length;
   const { interrupted } = await runInPool(todo, {
     size: jobsN,
@@ -131,26 +154,37 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
       appendRecord(log, r);
       finished.set(r.id, r);
       done++;
-      if (!o.quiet) io.err.write(`[${done}/${mine.length}] ${r.id} ${describePoint(r.point)}, seed ${r.seed}: ${r.status === 'done' ? (r.stopped === 'not-steady' ? 'done, not steady by its cap' : 'done') : `blew up (${r.error})`} in ${r.wall_seconds.toFixed(1)} s\n`);
+      if (!o.quiet)
+        io.err.write(
+          `[${done}/${mine.length}] ${r.id} ${describePoint(r.point)}, seed ${r.seed}: ${r.status === 'done' ? (r.stopped === 'not-steady' ? 'done, not steady by its cap' : 'done') : `blew up (${r.error})`} in ${r.wall_seconds.toFixed(1)} s\n`,
+        );
     },
   });
   const records = mine.map((j) => finished.get(j.id)).filter((r): r is SweepRecord => r !== undefined);
   const fits = writeResults(dir, records, spec.fits);
-  io.out.write(`${records.length} of ${mine.length} runs in ${dir}: runs.jsonl, table.csv, table.json, fits.json\n${fitsText(fits)}`);
+  io.out.write(
+    `${records.length} of ${mine.length} runs in ${dir}: runs.jsonl, table.csv, table.json, fits.json\n${fitsText(fits)}`,
+  );
   if (interrupted) {
-    io.err.write(`stria sweep: interrupted; run the same command again to finish the remaining ${mine.length - records.length} runs\n`);
+    io.err.write(
+      `stria sweep: interrupted; run the same command again to finish the remaining ${mine.length - records.length} runs\n`,
+    );
     return EXIT_INTERRUPTED;
   }
   const blown = records.filter((r) => r.status !== 'done').length;
   // A blow-up is a result of the sweep (its parameters are unstable), not a failure of the command.
-  if (blown) io.err.write(`stria sweep: ${blown} run${blown === 1 ? '' : 's'} blew up (status "blew-up" in the table, left out of the fits)\n`);
+  if (blown)
+    io.err.write(
+      `stria sweep: ${blown} run${blown === 1 ? '' : 's'} blew up (status "blew-up" in the table, left out of the fits)\n`,
+    );
   return EXIT_OK;
 }
 
 function memoryBudgetOf(text: string | undefined): number {
   if (text === undefined) return DEFAULT_MEMORY_BUDGET;
   const bytes = parseByteSize(text);
-  if (!Number.isFinite(bytes)) throw new UsageError(`--memory-budget ${text}: needs a size such as 512MiB, 8GiB or 2000000000 (bytes)`);
+  if (!Number.isFinite(bytes))
+    throw new UsageError(`--memory-budget ${text}: needs a size such as 512MiB, 8GiB or 2000000000 (bytes)`);
   return bytes;
 }
 
@@ -168,7 +202,9 @@ function checkSweepMemory(todo: readonly SweepJob[], jobs: number, budget: numbe
   const largest = todo.reduce((a, j) => (j.params.nx * j.params.ny > a.params.nx * a.params.ny ? j : a));
   throw new UsageError(
     `${jobs} runs at a time need about ${formatBytes(need)} (the largest, ${largest.params.nx} × ${largest.params.ny}, about ${formatBytes(perRun[0])} with its worker), more than the memory budget of ${formatBytes(budget)}: ` +
-      (fit > 0 ? `give --jobs ${fit} or a larger --memory-budget` : 'even one run does not fit: give a larger --memory-budget or smaller grids'),
+      (fit > 0
+        ? `give --jobs ${fit} or a larger --memory-budget`
+        : 'even one run does not fit: give a larger --memory-budget or smaller grids'),
   );
 }
 
@@ -176,6 +212,9 @@ function listText(jobs: readonly SweepJob[], shard: Shard | null, finished: Read
   const n = shard?.count ?? 1;
   const lines = jobs
     .filter((j) => !shard || j.index % n === shard.index)
-    .map((j) => `${j.id}  ${String(j.index).padStart(4)}  shard ${j.index % n}/${n}  ${describePoint(j.point)}, seed ${j.seed}  ${finished.has(j.id) ? 'finished' : 'to run'}`);
+    .map(
+      (j) =>
+        `${j.id}  ${String(j.index).padStart(4)}  shard ${j.index % n}/${n}  ${describePoint(j.point)}, seed ${j.seed}  ${finished.has(j.id) ? 'finished' : 'to run'}`,
+    );
   return `${lines.join('\n')}\n`;
 }

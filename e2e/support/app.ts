@@ -53,7 +53,9 @@ export const status = (page: Page): Promise<string> => readText(page, 'status');
 
 /** Wait until the run has gone past `n` steps (the page is playing). */
 export async function waitForSteps(page: Page, n: number): Promise<void> {
-  await page.waitForFunction((n0) => Number(document.querySelector('[data-testid=model-steps]')?.textContent) > n0, n, { timeout: 60_000 });
+  await page.waitForFunction((n0) => Number(document.querySelector('[data-testid=model-steps]')?.textContent) > n0, n, {
+    timeout: 60_000,
+  });
 }
 
 /** Pause with the play/pause button and wait until the page shows it. */
@@ -72,7 +74,10 @@ export async function resetAndStep(page: Page, n: number): Promise<void> {
 }
 
 /** FNV-1a hash of a canvas's pixels and how many are clearly red or clearly blue, read in the page. */
-export function canvasSample(page: Page, selector: string): Promise<{ hash: number; red: number; blue: number; width: number; height: number }> {
+export function canvasSample(
+  page: Page,
+  selector: string,
+): Promise<{ hash: number; red: number; blue: number; width: number; height: number }> {
   return page.evaluate((sel) => {
     const canvas = document.querySelector<HTMLCanvasElement>(sel);
     const ctx = canvas?.getContext('2d');
@@ -98,7 +103,8 @@ export function inkPixels(page: Page, selector: string): Promise<number> {
     if (!canvas || !ctx) throw new Error(`no canvas ${sel}`);
     const data = ctx.getImageData(0, 0, canvas.width, canvas.height).data;
     let n = 0;
-    for (let i = 0; i < data.length; i += 4) if (data[i + 3] > 0 && (data[i] < 200 || data[i + 1] < 200 || data[i + 2] < 200)) n++;
+    for (let i = 0; i < data.length; i += 4)
+      if (data[i + 3] > 0 && (data[i] < 200 || data[i + 1] < 200 || data[i + 2] < 200)) n++;
     return n;
   }, selector);
 }
@@ -111,5 +117,7 @@ export async function openView(page: Page, id: string): Promise<void> {
 
 /** Wait until the model time has gone past `t`. */
 export async function waitForTime(page: Page, t: number, timeout = 60_000): Promise<void> {
-  await page.waitForFunction((t0) => Number(document.querySelector('[data-testid=model-time]')?.textContent) > t0, t, { timeout });
+  await page.waitForFunction((t0) => Number(document.querySelector('[data-testid=model-time]')?.textContent) > t0, t, {
+    timeout,
+  });
 }

@@ -29,8 +29,11 @@ export interface BrowserSession {
  * Launch Chromium with a fresh temporary profile (--user-data-dir, which Playwright takes as the
  * persistent-context directory). `deviceScaleFactor` lets a test check device-pixel handling.
  */
-export async function launchChromium(options: { deviceScaleFactor?: number; width?: number; height?: number } = {}): Promise<BrowserSession> {
-  if (!existsSync(CHROMIUM)) throw new Error(`${CHROMIUM} not found: install it with \`sudo apt-get install -y chromium\``);
+export async function launchChromium(
+  options: { deviceScaleFactor?: number; width?: number; height?: number } = {},
+): Promise<BrowserSession> {
+  if (!existsSync(CHROMIUM))
+    throw new Error(`${CHROMIUM} not found: install it with \`sudo apt-get install -y chromium\``);
   const profile = await mkdtemp(join(tmpdir(), 'stria-chromium-'));
   try {
     const context = await chromium.launchPersistentContext(profile, {

@@ -14,7 +14,18 @@ import type { QuadraticBudget, StepReport } from '../model/budget';
  * means, sums of duration and steps, max of transferMax) and each sample from then on gathers twice as
  * many steps. The step still being gathered is shown as the last sample.
  */
-export const BUDGET_TERMS = ['value', 'injection', 'drag', 'hyper', 'largeScale', 'loss', 'transfer', 'tendency', 'realizedTendency', 'realizedInjection'] as const;
+export const BUDGET_TERMS = [
+  'value',
+  'injection',
+  'drag',
+  'hyper',
+  'largeScale',
+  'loss',
+  'transfer',
+  'tendency',
+  'realizedTendency',
+  'realizedInjection',
+] as const;
 export type BudgetTerm = (typeof BUDGET_TERMS)[number];
 
 export type BudgetColumns = Record<BudgetTerm | 'transferMax', Float64Array>;

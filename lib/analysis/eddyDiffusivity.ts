@@ -46,7 +46,8 @@ export function eddyDiffusivity(
   out?: { D: Float64Array; valid: Uint8Array },
 ): EddyDiffusivity {
   const n = dqdy.length;
-  if (vpqp.length !== n || eke.length !== n) throw new RangeError(`eddyDiffusivity: profiles of lengths ${vpqp.length}, ${n}, ${eke.length} differ`);
+  if (vpqp.length !== n || eke.length !== n)
+    throw new RangeError(`eddyDiffusivity: profiles of lengths ${vpqp.length}, ${n}, ${eke.length} differ`);
   const D = out?.D ?? new Float64Array(n);
   const valid = out?.valid ?? new Uint8Array(n);
   if (D.length !== n || valid.length !== n) throw new RangeError(`eddyDiffusivity: outputs must have length ${n}`);
@@ -77,5 +78,14 @@ export function eddyDiffusivity(
   }
   const Dfit = g2 > 0 ? -fg / g2 : null;
   const Urms = Math.sqrt((2 * ke) / n);
-  return { D, valid, validCount: count, floor, Dmean: count ? sum / count : null, Dfit, Urms, Lmix: Dfit !== null && Urms > 0 ? Dfit / Urms : null };
+  return {
+    D,
+    valid,
+    validCount: count,
+    floor,
+    Dmean: count ? sum / count : null,
+    Dfit,
+    Urms,
+    Lmix: Dfit !== null && Urms > 0 ? Dfit / Urms : null,
+  };
 }

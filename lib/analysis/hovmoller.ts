@@ -40,9 +40,12 @@ export class HovmollerAccumulator {
   private tLast = -Infinity;
 
   constructor(ny: number, Ly: number, cap = 512) {
-    if (!(Number.isInteger(ny) && ny > 0)) throw new RangeError(`HovmollerAccumulator: ny = ${ny} must be a positive integer`);
-    if (!(Ly > 0 && Number.isFinite(Ly))) throw new RangeError(`HovmollerAccumulator: Ly = ${Ly} must be a positive finite length`);
-    if (!(Number.isInteger(cap) && cap >= 2 && cap % 2 === 0)) throw new RangeError(`HovmollerAccumulator: cap = ${cap} must be an even integer ≥ 2`);
+    if (!(Number.isInteger(ny) && ny > 0))
+      throw new RangeError(`HovmollerAccumulator: ny = ${ny} must be a positive integer`);
+    if (!(Ly > 0 && Number.isFinite(Ly)))
+      throw new RangeError(`HovmollerAccumulator: Ly = ${Ly} must be a positive finite length`);
+    if (!(Number.isInteger(cap) && cap >= 2 && cap % 2 === 0))
+      throw new RangeError(`HovmollerAccumulator: cap = ${cap} must be an even integer ≥ 2`);
     this.ny = ny;
     this.Ly = Ly;
     this.cap = cap;
@@ -59,8 +62,10 @@ export class HovmollerAccumulator {
 
   /** Add the profile of instant t (non-decreasing from call to call). */
   add(t: number, profile: ArrayLike<number>): void {
-    if (!Number.isFinite(t) || t < this.tLast) throw new RangeError(`HovmollerAccumulator: sample time ${t} is not finite or goes back from ${this.tLast}`);
-    if (profile.length !== this.ny) throw new RangeError(`HovmollerAccumulator: profile has ${profile.length} points, expected ${this.ny}`);
+    if (!Number.isFinite(t) || t < this.tLast)
+      throw new RangeError(`HovmollerAccumulator: sample time ${t} is not finite or goes back from ${this.tLast}`);
+    if (profile.length !== this.ny)
+      throw new RangeError(`HovmollerAccumulator: profile has ${profile.length} points, expected ${this.ny}`);
     this.tLast = t;
     for (let j = 0; j < this.ny; j++) this.partSum[j] += profile[j];
     this.partT += t;
@@ -99,7 +104,15 @@ export class HovmollerAccumulator {
   /** The record as views into the accumulator's buffers: valid until the next `add`. */
   view(): HovmollerRecord {
     const n = this.columns;
-    return { ny: this.ny, Ly: this.Ly, y: this.y, columns: n, t: this.t.subarray(0, n), data: this.data.subarray(0, n * this.ny), samplesPerColumn: this.stride };
+    return {
+      ny: this.ny,
+      Ly: this.Ly,
+      y: this.y,
+      columns: n,
+      t: this.t.subarray(0, n),
+      data: this.data.subarray(0, n * this.ny),
+      samplesPerColumn: this.stride,
+    };
   }
 
   /** A copy of the record, safe to keep or transfer. */

@@ -69,10 +69,12 @@ export function trackJets(record: HovmollerRecord, options: JetTrackingOptions =
     const radius = options.eventRadius ?? maxJump;
     // Stage 1: one-to-one matching, nearest pairs first.
     const pairs: [number, number, number][] = [];
-    prev.forEach((a, ia) => jets.forEach((b, ib) => {
-      const d = periodicDistance(a.y, b.y, Ly);
-      if (d <= maxJump) pairs.push([d, ia, ib]);
-    }));
+    prev.forEach((a, ia) =>
+      jets.forEach((b, ib) => {
+        const d = periodicDistance(a.y, b.y, Ly);
+        if (d <= maxJump) pairs.push([d, ia, ib]);
+      }),
+    );
     pairs.sort((p, q) => p[0] - q[0]);
     const matchA = new Int32Array(prev.length).fill(-1);
     const matchB = new Int32Array(jets.length).fill(-1);

@@ -113,7 +113,8 @@ export class JetFinder {
 
     const spacings = jets.map((j, i) => (i + 1 < n ? jets[i + 1].y - j.y : jets[0].y + Ly - j.y));
     const meanSpacing = n ? spacings.reduce((a, b) => a + b, 0) / n : null;
-    const spacingStd = meanSpacing === null ? null : Math.sqrt(spacings.reduce((a, s) => a + (s - meanSpacing) ** 2, 0) / n);
+    const spacingStd =
+      meanSpacing === null ? null : Math.sqrt(spacings.reduce((a, s) => a + (s - meanSpacing) ** 2, 0) / n);
 
     // Dominant meridional wavenumber: the largest amplitude among m ≥ 1.
     this.profile.amplitudes(ubar, this.amp);
@@ -142,7 +143,8 @@ export class JetFinder {
    * not swamped by the grid-scale noise of a pointwise value.
    */
   coreConvergence(jet: Jet, upvp: Float64Array): number {
-    if (upvp.length !== this.ny) throw new RangeError(`JetFinder: profile has ${upvp.length} points, expected ${this.ny}`);
+    if (upvp.length !== this.ny)
+      throw new RangeError(`JetFinder: profile has ${upvp.length} points, expected ${this.ny}`);
     const [south, north] = this.profile.evaluate(upvp, [jet.ySouth, jet.yNorth]);
     return (south - north) / jet.width;
   }

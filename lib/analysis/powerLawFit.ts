@@ -117,12 +117,23 @@ export function zonalSpectrum(m: number, beta: number, CZ: number = ZONAL_SPECTR
  * Where the zonal line meets the inverse-cascade line: C_Z β² k^{−5} = C_K ε^{2/3} k^{−5/3} gives
  * k = (C_Z/C_K)^{3/10} (β³/ε)^{1/5} = (C_Z/C_K)^{3/10} k_β (docs/spectra.md).
  */
-export function zonalCrossover(beta: number, eps: number, CZ: number = ZONAL_SPECTRUM_CONSTANT, CK: number = INVERSE_CASCADE_CONSTANT): number {
+export function zonalCrossover(
+  beta: number,
+  eps: number,
+  CZ: number = ZONAL_SPECTRUM_CONSTANT,
+  CK: number = INVERSE_CASCADE_CONSTANT,
+): number {
   return Math.pow(CZ / CK, 0.3) * Math.pow((beta * beta * beta) / eps, 0.2);
 }
 
 /** E = E0 (k/k0)^slope at each k into out: a line of given slope through (k0, E0). Returns out. */
-export function anchoredLine(k: ArrayLike<number>, slope: number, k0: number, E0: number, out: Float64Array = new Float64Array(k.length)): Float64Array {
+export function anchoredLine(
+  k: ArrayLike<number>,
+  slope: number,
+  k0: number,
+  E0: number,
+  out: Float64Array = new Float64Array(k.length),
+): Float64Array {
   for (let i = 0; i < k.length; i++) out[i] = E0 * Math.pow(k[i] / k0, slope);
   return out;
 }

@@ -29,7 +29,13 @@ export type Continuation = 'even' | 'point';
  * The extended profile of f. `periodicRise` is what f gains over one period of a periodic profile
  * (β·Ly for a total PV, 0 for a velocity), so that the interpolation across the wrap joins up.
  */
-export function extendProfile(f: ArrayLike<number>, dy: number, periodic: boolean, continuation: Continuation, periodicRise = 0): ExtendedProfile {
+export function extendProfile(
+  f: ArrayLike<number>,
+  dy: number,
+  periodic: boolean,
+  continuation: Continuation,
+  periodicRise = 0,
+): ExtendedProfile {
   const n = f.length;
   if (periodic && isPow2(n)) return { values: Float64Array.from(f), period: n * dy, direct: true };
   let g: Float64Array;
@@ -37,7 +43,8 @@ export function extendProfile(f: ArrayLike<number>, dy: number, periodic: boolea
   else {
     g = new Float64Array(2 * (n - 1));
     for (let k = 0; k < n; k++) g[k] = f[k];
-    for (let m = 1; m <= n - 2; m++) g[n - 1 + m] = continuation === 'even' ? f[n - 1 - m] : 2 * f[n - 1] - f[n - 1 - m];
+    for (let m = 1; m <= n - 2; m++)
+      g[n - 1 + m] = continuation === 'even' ? f[n - 1 - m] : 2 * f[n - 1] - f[n - 1 - m];
   }
   const period = g.length * dy;
   let M = 64;

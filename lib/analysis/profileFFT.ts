@@ -20,8 +20,10 @@ export class ProfileFFT {
   private readonly spec: Float64Array;
 
   constructor(ny: number, Ly: number) {
-    if (!(Ly > 0) || !Number.isFinite(Ly)) throw new RangeError(`ProfileFFT: Ly = ${Ly} must be a positive finite length`);
-    if (!Number.isInteger(ny) || ny < 2 || (ny & (ny - 1)) !== 0) throw new RangeError(`ProfileFFT: ny = ${ny} must be a power of two ≥ 2`);
+    if (!(Ly > 0) || !Number.isFinite(Ly))
+      throw new RangeError(`ProfileFFT: Ly = ${Ly} must be a positive finite length`);
+    if (!Number.isInteger(ny) || ny < 2 || (ny & (ny - 1)) !== 0)
+      throw new RangeError(`ProfileFFT: ny = ${ny} must be a power of two ≥ 2`);
     this.fft = new FFT(ny);
     this.ny = ny;
     this.Ly = Ly;

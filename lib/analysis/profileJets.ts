@@ -26,11 +26,20 @@ export function profileJets(ubar: ArrayLike<number>, y0: number, dy: number, per
   const report = finder.find(ext.values);
   const Y = (n - 1) * dy;
   const kept = report.jets.filter((j) => periodic || (j.y >= EDGE_MARGIN * dy && j.y <= Y - EDGE_MARGIN * dy));
-  const jets = kept.map((j) => ({ y: y0 + j.y, speed: j.speed, width: j.width, shearJump: j.shearJump, minSouth: j.minSouth, minNorth: j.minNorth, prominence: j.prominence }));
+  const jets = kept.map((j) => ({
+    y: y0 + j.y,
+    speed: j.speed,
+    width: j.width,
+    shearJump: j.shearJump,
+    minSouth: j.minSouth,
+    minNorth: j.minNorth,
+    prominence: j.prominence,
+  }));
   let spacings: number[];
   if (periodic) spacings = report.spacings.slice();
   else spacings = jets.slice(1).map((j, i) => j.y - jets[i].y);
   const meanSpacing = spacings.length ? spacings.reduce((a, b) => a + b, 0) / spacings.length : null;
-  const spacingStd = meanSpacing === null ? null : Math.sqrt(spacings.reduce((a, s) => a + (s - meanSpacing) ** 2, 0) / spacings.length);
+  const spacingStd =
+    meanSpacing === null ? null : Math.sqrt(spacings.reduce((a, s) => a + (s - meanSpacing) ** 2, 0) / spacings.length);
   return { count: jets.length, jets, spacings, meanSpacing, spacingStd, method: ext.direct ? 'direct' : 'extended' };
 }

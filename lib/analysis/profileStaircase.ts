@@ -22,33 +22,58 @@ export interface ProfileStaircase {
 }
 
 /** qtot_j at y_j = y0 + j·dy (any additive constant); β > 0 in the profile's units. */
-export function profileStaircase(qtot: ArrayLike<number>, y0: number, dy: number, periodic: boolean, beta: number): ProfileStaircase {
+export function profileStaircase(
+  qtot: ArrayLike<number>,
+  y0: number,
+  dy: number,
+  periodic: boolean,
+  beta: number,
+): ProfileStaircase {
   const n = qtot.length;
   const ext = extendProfile(qtot, dy, periodic, 'point', beta * n * dy);
   const fitter = new StaircaseFitter(ext.values.length, ext.period, beta, { smoothing: 2 * dy, minSeparation: 3 * dy });
   const fit = fitter.fit(ext.values);
   const Y = (n - 1) * dy;
   const edges = periodic ? fit.edges : fit.edges.filter((e) => e >= EDGE_MARGIN * dy && e <= Y - EDGE_MARGIN * dy);
-  const { index, rho, levels } = periodic ? staircaseIndex(qtot, beta, n * dy, edges) : boundedIndex(qtot, beta, dy, edges);
+  const { index, rho, levels } = periodic
+    ? staircaseIndex(qtot, beta, n * dy, edges)
+    : boundedIndex(qtot, beta, dy, edges);
   let widths: number[];
   let jumps: number[];
   if (periodic) {
     widths = fit.widths.slice();
-    jumps = edges.map((_, i) => (i === 0 ? levels[0] + beta * n * dy - levels[levels.length - 1] : levels[i] - levels[i - 1]));
+    jumps = edges.map((_, i) =>
+      i === 0 ? levels[0] + beta * n * dy - levels[levels.length - 1] : levels[i] - levels[i - 1],
+    );
   } else {
     widths = edges.slice(1).map((e, i) => e - edges[i]);
     jumps = edges.map((_, i) => levels[i + 1] - levels[i]);
   }
   const meanWidth = widths.length ? widths.reduce((a, b) => a + b, 0) / widths.length : null;
-  const widthStd = meanWidth === null ? null : Math.sqrt(widths.reduce((a, w) => a + (w - meanWidth) ** 2, 0) / widths.length);
-  return { edges: edges.map((e) => y0 + e), widths, meanWidth, widthStd, jumps, index, rho, method: ext.direct ? 'direct' : 'extended' };
+  const widthStd =
+    meanWidth === null ? null : Math.sqrt(widths.reduce((a, w) => a + (w - meanWidth) ** 2, 0) / widths.length);
+  return {
+    edges: edges.map((e) => y0 + e),
+    widths,
+    meanWidth,
+    widthStd,
+    jumps,
+    index,
+    rho,
+    method: ext.direct ? 'direct' : 'extended',
+  };
 }
 
 /**
  * S = 1 − ρ with ρ² = Σ(q_j − Q_s)²/Σβ²(y_j − Ȳ_s)² over the steps [0, e_0), [e_0, e_1), …, [e_last, Y]
  * of a bounded profile (the definition of docs/staircase.md without the wrap).
  */
-export function boundedIndex(q: ArrayLike<number>, beta: number, dy: number, edges: readonly number[]): { index: number; rho: number; levels: number[] } {
+export function boundedIndex(
+  q: ArrayLike<number>,
+  beta: number,
+  dy: number,
+  edges: readonly number[],
+): { index: number; rho: number; levels: number[] } {
   const n = q.length;
   const bounds = [0, ...edges.map((e) => Math.min(n, Math.max(0, Math.ceil(e / dy - 1e-9)))), n];
   let num = 0;

@@ -57,7 +57,10 @@ export class RunMonitor {
     this.jetFinder = new JetFinder(params.ny, params.Ly);
     this.staircase = params.beta > 0 ? new StaircaseFitter(params.ny, params.Ly, params.beta) : null;
     this.latest = createZonalMeans(params.ny);
-    this.mean = Object.fromEntries(MEAN_PROFILES.map((k) => [k, new Float64Array(params.ny)])) as Record<MeanProfile, Float64Array>;
+    this.mean = Object.fromEntries(MEAN_PROFILES.map((k) => [k, new Float64Array(params.ny)])) as Record<
+      MeanProfile,
+      Float64Array
+    >;
     this.fields = this.snap.gridFields(new Float64Array(2 * this.snap.grid.spectralSize));
   }
 

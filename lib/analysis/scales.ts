@@ -22,10 +22,22 @@ export interface RhinesDefinition {
 }
 
 export const RHINES_DEFINITIONS: Readonly<Record<RhinesConvention, RhinesDefinition>> = Object.freeze({
-  kR: { id: 'kR', label: 'k_R = (β/2U)^½, length 2π/k_R', length: (b: number, U: number) => (2 * Math.PI) / rhinesWavenumber(b, U) },
+  kR: {
+    id: 'kR',
+    label: 'k_R = (β/2U)^½, length 2π/k_R',
+    length: (b: number, U: number) => (2 * Math.PI) / rhinesWavenumber(b, U),
+  },
   sqrtUbeta: { id: 'sqrtUbeta', label: 'L_R = (U/β)^½', length: (b: number, U: number) => Math.sqrt(U / b) },
-  piOverKR: { id: 'piOverKR', label: 'L_R = π(2U/β)^½ = π/k_R', length: (b: number, U: number) => Math.PI / rhinesWavenumber(b, U) },
-  twoPiSqrtUbeta: { id: 'twoPiSqrtUbeta', label: 'L_R = 2π(U/β)^½', length: (b: number, U: number) => 2 * Math.PI * Math.sqrt(U / b) },
+  piOverKR: {
+    id: 'piOverKR',
+    label: 'L_R = π(2U/β)^½ = π/k_R',
+    length: (b: number, U: number) => Math.PI / rhinesWavenumber(b, U),
+  },
+  twoPiSqrtUbeta: {
+    id: 'twoPiSqrtUbeta',
+    label: 'L_R = 2π(U/β)^½',
+    length: (b: number, U: number) => 2 * Math.PI * Math.sqrt(U / b),
+  },
 });
 
 /** Rhines length in a chosen convention. */

@@ -45,7 +45,8 @@ export function fitScaling(x: ArrayLike<number>, y: ArrayLike<number>, options: 
   if (x.length !== y.length) throw new RangeError(`fitScaling: ${x.length} x values but ${y.length} y values`);
   const resamples = options.resamples ?? 2000;
   const level = options.level ?? 0.95;
-  if (!(Number.isInteger(resamples) && resamples >= 0)) throw new RangeError(`fitScaling: resamples = ${resamples} must be a non-negative integer`);
+  if (!(Number.isInteger(resamples) && resamples >= 0))
+    throw new RangeError(`fitScaling: resamples = ${resamples} must be a non-negative integer`);
   if (!(level > 0 && level < 1)) throw new RangeError(`fitScaling: level = ${level} must lie in (0, 1)`);
   const xs: number[] = [];
   const ys: number[] = [];
@@ -57,7 +58,8 @@ export function fitScaling(x: ArrayLike<number>, y: ArrayLike<number>, options: 
   }
   const n = xs.length;
   if (n < 3) throw new RangeError(`fitScaling: ${n} usable points (x and y finite and > 0), need at least 3`);
-  if (xs.every((v) => v === xs[0])) throw new RangeError('fitScaling: every point has the same x, so no exponent can be fitted');
+  if (xs.every((v) => v === xs[0]))
+    throw new RangeError('fitScaling: every point has the same x, so no exponent can be fitted');
   const whole = fitPowerLaw(xs, ys, 0, Infinity);
   const b0 = options.fixedExponent;
   const fixedPrefactor = (px: ArrayLike<number>, py: ArrayLike<number>) => {
@@ -100,7 +102,10 @@ export function fitScaling(x: ArrayLike<number>, y: ArrayLike<number>, options: 
     level,
     resamples,
     degenerate,
-    fixed: b0 === undefined ? null : { exponent: b0, prefactor: fixedPrefactor(xs, ys), prefactorCI: percentileInterval(fixedPrefactors, level) },
+    fixed:
+      b0 === undefined
+        ? null
+        : { exponent: b0, prefactor: fixedPrefactor(xs, ys), prefactorCI: percentileInterval(fixedPrefactors, level) },
   };
 }
 

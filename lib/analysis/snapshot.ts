@@ -52,11 +52,21 @@ export class SnapshotPlan {
 
   /** True when this plan serves snapshots of these parameters' grid. */
   fits(p: ModelParams): boolean {
-    return p.nx === this.params.nx && p.ny === this.params.ny && p.Lx === this.params.Lx && p.Ly === this.params.Ly && p.kd === this.params.kd;
+    return (
+      p.nx === this.params.nx &&
+      p.ny === this.params.ny &&
+      p.Lx === this.params.Lx &&
+      p.Ly === this.params.Ly &&
+      p.kd === this.params.kd
+    );
   }
 
   /** Spectrum of a derived field (half-plane layout) into out. */
-  spectrum(qHat: Float64Array, name: FieldName, out: Float64Array = new Float64Array(2 * this.grid.spectralSize)): Float64Array {
+  spectrum(
+    qHat: Float64Array,
+    name: FieldName,
+    out: Float64Array = new Float64Array(2 * this.grid.spectralSize),
+  ): Float64Array {
     fieldSpectrum(name, qHat, this.grid, this.lin, out);
     return out;
   }

@@ -31,7 +31,12 @@ export interface StaircaseFit {
  * Ly as y + Ly, q + βLy). ρ is the fraction of the PV rise that happens inside the steps for PV that
  * rises linearly there; S = 0 exactly for q_tot = βy + c with any edges. Returns the step levels too.
  */
-export function staircaseIndex(qtot: ArrayLike<number>, beta: number, Ly: number, edges: readonly number[]): { index: number; rho: number; levels: number[] } {
+export function staircaseIndex(
+  qtot: ArrayLike<number>,
+  beta: number,
+  Ly: number,
+  edges: readonly number[],
+): { index: number; rho: number; levels: number[] } {
   const n = qtot.length;
   const dy = Ly / n;
   if (!(beta > 0)) throw new RangeError(`staircaseIndex: beta = ${beta} must be > 0`);
@@ -90,7 +95,8 @@ export class StaircaseFitter {
   private readonly profile: ProfileFFT;
 
   constructor(ny: number, Ly: number, beta: number, options: StaircaseOptions = {}) {
-    if (!(beta > 0 && Number.isFinite(beta))) throw new RangeError(`StaircaseFitter: beta = ${beta} must be a positive finite number`);
+    if (!(beta > 0 && Number.isFinite(beta)))
+      throw new RangeError(`StaircaseFitter: beta = ${beta} must be a positive finite number`);
     this.ny = ny;
     this.Ly = Ly;
     this.beta = beta;

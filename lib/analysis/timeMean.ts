@@ -43,12 +43,16 @@ export class ProfileTimeMean<K extends string> {
   private tLast = -Infinity;
 
   constructor(names: readonly K[], length: number, window: TimeWindow) {
-    if (names.length === 0 || !(Number.isInteger(length) && length > 0)) throw new RangeError('ProfileTimeMean: needs at least one profile name and a positive length');
-    if (window.kind === 'since' && !Number.isFinite(window.tStart)) throw new RangeError(`ProfileTimeMean: tStart = ${window.tStart} must be finite`);
+    if (names.length === 0 || !(Number.isInteger(length) && length > 0))
+      throw new RangeError('ProfileTimeMean: needs at least one profile name and a positive length');
+    if (window.kind === 'since' && !Number.isFinite(window.tStart))
+      throw new RangeError(`ProfileTimeMean: tStart = ${window.tStart} must be finite`);
     if (window.kind === 'last') {
-      if (!(window.span > 0 && Number.isFinite(window.span))) throw new RangeError(`ProfileTimeMean: span = ${window.span} must be a positive finite time`);
+      if (!(window.span > 0 && Number.isFinite(window.span)))
+        throw new RangeError(`ProfileTimeMean: span = ${window.span} must be a positive finite time`);
       const c = window.cap ?? 256;
-      if (!(Number.isInteger(c) && c >= 2 && c % 2 === 0)) throw new RangeError(`ProfileTimeMean: cap = ${c} must be an even integer ≥ 2`);
+      if (!(Number.isInteger(c) && c >= 2 && c % 2 === 0))
+        throw new RangeError(`ProfileTimeMean: cap = ${c} must be an even integer ≥ 2`);
     }
     this.names = names;
     this.length = length;
@@ -63,10 +67,12 @@ export class ProfileTimeMean<K extends string> {
 
   /** Add the profiles of one instant t (non-decreasing from call to call). */
   add(t: number, profiles: Readonly<Record<K, ArrayLike<number>>>): void {
-    if (!Number.isFinite(t) || t < this.tLast) throw new RangeError(`ProfileTimeMean: sample time ${t} is not finite or goes back from ${this.tLast}`);
+    if (!Number.isFinite(t) || t < this.tLast)
+      throw new RangeError(`ProfileTimeMean: sample time ${t} is not finite or goes back from ${this.tLast}`);
     for (const name of this.names) {
       const p = profiles[name];
-      if (!p || p.length !== this.length) throw new RangeError(`ProfileTimeMean: profile "${name}" missing or not of length ${this.length}`);
+      if (!p || p.length !== this.length)
+        throw new RangeError(`ProfileTimeMean: profile "${name}" missing or not of length ${this.length}`);
     }
     this.tLast = t;
     const spec = this.spec;
@@ -143,7 +149,8 @@ export class ProfileTimeMean<K extends string> {
     const inv = 1 / w.count;
     for (let n = 0; n < this.names.length; n++) {
       const o = out[this.names[n]];
-      if (!o || o.length !== this.length) throw new RangeError(`ProfileTimeMean: output "${this.names[n]}" missing or not of length ${this.length}`);
+      if (!o || o.length !== this.length)
+        throw new RangeError(`ProfileTimeMean: output "${this.names[n]}" missing or not of length ${this.length}`);
       o.fill(0);
       for (let b = 0; b < this.bins; b++) {
         const off = ((this.head + b) % this.cap) * this.width + n * this.length;

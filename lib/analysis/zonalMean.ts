@@ -79,7 +79,9 @@ export class ZonalMeanPlan {
   compute(f: GridFields, out: ZonalMeans = createZonalMeans(this.ny)): ZonalMeans {
     const { nx, ny } = this;
     if (f.nx !== nx || f.ny !== ny || f.Lx !== this.Lx || f.Ly !== this.Ly) {
-      throw new RangeError(`ZonalMeanPlan: fields are ${f.nx}×${f.ny} on ${f.Lx}×${f.Ly}, the plan is ${nx}×${ny} on ${this.Lx}×${this.Ly}`);
+      throw new RangeError(
+        `ZonalMeanPlan: fields are ${f.nx}×${f.ny} on ${f.Lx}×${f.Ly}, the plan is ${nx}×${ny} on ${this.Lx}×${this.Ly}`,
+      );
     }
     const { u, v, q, psi } = f;
     const inv = 1 / nx;

@@ -57,7 +57,8 @@ export function encodeBase64(bytes: Uint8Array): string {
  * only as the one or two last characters; bits past the last whole byte are dropped.
  */
 export function decodeBase64(text: string, field = '(base64)'): Uint8Array {
-  if (text.length % 4 !== 0) throw new InputError('run file', field, `base64 length ${text.length} is not a multiple of 4`);
+  if (text.length % 4 !== 0)
+    throw new InputError('run file', field, `base64 length ${text.length} is not a multiple of 4`);
   const pad = text.endsWith('==') ? 2 : text.endsWith('=') ? 1 : 0;
   const out = new Uint8Array((text.length / 4) * 3 - pad);
   // Every group of four but a padded last one gives three bytes.

@@ -26,7 +26,9 @@ export function memorySource(input: ArrayBuffer | Uint8Array): ByteSource {
     byteLength: bytes.length,
     read(offset: number, length: number, into?: Uint8Array): Uint8Array {
       if (!(offset >= 0 && length >= 0 && offset + length <= bytes.length)) {
-        throw new RangeError(`truncated file: bytes ${offset} to ${offset + length} were asked for but the file has ${bytes.length} bytes`);
+        throw new RangeError(
+          `truncated file: bytes ${offset} to ${offset + length} were asked for but the file has ${bytes.length} bytes`,
+        );
       }
       const view = bytes.subarray(offset, offset + length);
       if (!into) return view;

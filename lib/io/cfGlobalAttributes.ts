@@ -37,7 +37,17 @@ export interface StriaRunInfo {
 export type StriaFileKind = 'snapshots' | 'zonal_means';
 
 /** Names Stria uses itself; a parameter may not take one of them. */
-const OWN = ['format_version', 'file_kind', 'version', 'units', 'length_unit_m', 'time_unit_s', 'medium', 'equation', 'params'];
+const OWN = [
+  'format_version',
+  'file_kind',
+  'version',
+  'units',
+  'length_unit_m',
+  'time_unit_s',
+  'medium',
+  'equation',
+  'params',
+];
 
 const ISO_TIME = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:\d{2})$/;
 
@@ -47,9 +57,12 @@ const EQUATION =
   'on a doubly periodic domain Lx x Ly';
 
 export function striaGlobalAttributes(run: StriaRunInfo, kind: StriaFileKind, defaultTitle: string): NcAttribute[] {
-  if (typeof run.striaVersion !== 'string' || run.striaVersion.trim() === '') throw new RangeError('striaVersion must be a non-empty string such as "0.1.0"');
+  if (typeof run.striaVersion !== 'string' || run.striaVersion.trim() === '')
+    throw new RangeError('striaVersion must be a non-empty string such as "0.1.0"');
   if (typeof run.createdAt !== 'string' || !ISO_TIME.test(run.createdAt)) {
-    throw new RangeError(`createdAt must be an ISO 8601 time with a zone, such as "2025-01-31T12:00:00Z"; got ${JSON.stringify(run.createdAt)}`);
+    throw new RangeError(
+      `createdAt must be an ISO 8601 time with a zone, such as "2025-01-31T12:00:00Z"; got ${JSON.stringify(run.createdAt)}`,
+    );
   }
   const units = run.units ?? MODEL_UNITS;
   checkUnitSystem(units);
@@ -66,8 +79,10 @@ export function striaGlobalAttributes(run: StriaRunInfo, kind: StriaFileKind, de
       'comment',
       'Output of an idealised model run (one-layer quasi-geostrophic flow on a doubly periodic beta-plane), ' +
         'not a forecast and not an observation of any real flow. ' +
-        (units.kind === 'model' ? 'Values are in model units (see stria_model_units on each variable). ' : 'Values are converted to SI units from the model units. ') +
-        'Variables, units and attributes are described in Stria\'s docs/file-formats.md.',
+        (units.kind === 'model'
+          ? 'Values are in model units (see stria_model_units on each variable). '
+          : 'Values are converted to SI units from the model units. ') +
+        "Variables, units and attributes are described in Stria's docs/file-formats.md.",
     ),
     ncInt('stria_format_version', STRIA_FILE_FORMAT_VERSION),
     ncText('stria_file_kind', kind),
@@ -75,7 +90,10 @@ export function striaGlobalAttributes(run: StriaRunInfo, kind: StriaFileKind, de
     ncText('stria_units', units.kind),
   ];
   if (units.kind === 'physical') {
-    attrs.push(ncDouble('stria_length_unit_m', units.metresPerLength), ncDouble('stria_time_unit_s', units.secondsPerTime));
+    attrs.push(
+      ncDouble('stria_length_unit_m', units.metresPerLength),
+      ncDouble('stria_time_unit_s', units.secondsPerTime),
+    );
     if (units.medium) attrs.push(ncText('stria_medium', units.medium));
   }
   attrs.push(ncText('stria_equation', EQUATION), ncText('stria_params', JSON.stringify(run.params)));
@@ -83,12 +101,15 @@ export function striaGlobalAttributes(run: StriaRunInfo, kind: StriaFileKind, de
     if (OWN.includes(key)) throw new RangeError(`parameter "${key}" collides with Stria's own attribute stria_${key}`);
     const name = `stria_${key}`;
     if (typeof value === 'number') {
-      if (!Number.isFinite(value)) throw new RangeError(`parameter "${key}" = ${value} is not finite and cannot be recorded in stria_params`);
+      if (!Number.isFinite(value))
+        throw new RangeError(`parameter "${key}" = ${value} is not finite and cannot be recorded in stria_params`);
       attrs.push(ncDouble(name, value));
-    }
-    else if (typeof value === 'boolean') attrs.push(ncInt(name, value ? 1 : 0));
+    } else if (typeof value === 'boolean') attrs.push(ncInt(name, value ? 1 : 0));
     else if (typeof value === 'string') attrs.push(ncText(name, value));
-    else throw new RangeError(`parameter "${key}" has a value of type ${typeof value}; only numbers, booleans and strings go into a file`);
+    else
+      throw new RangeError(
+        `parameter "${key}" has a value of type ${typeof value}; only numbers, booleans and strings go into a file`,
+      );
   }
   return attrs;
 }

@@ -1,6 +1,21 @@
 import { striaGlobalAttributes, type StriaFileKind, type StriaRunInfo } from './cfGlobalAttributes';
-import { MODEL_UNITS, modelDimensionLabel, unitScale, unitsString, type Medium, type ModelDimension, type UnitSystem } from './cfUnits';
-import { ncText, type NcAttribute, type NcDimension, type NcFile, type NcFormat, type NcVariable } from './netcdf3Types';
+import {
+  MODEL_UNITS,
+  modelDimensionLabel,
+  unitScale,
+  unitsString,
+  type Medium,
+  type ModelDimension,
+  type UnitSystem,
+} from './cfUnits';
+import {
+  ncText,
+  type NcAttribute,
+  type NcDimension,
+  type NcFile,
+  type NcFormat,
+  type NcVariable,
+} from './netcdf3Types';
 
 /**
  * The data contract of Stria's NetCDF files (CF Conventions 1.8), as tables: which variables a file
@@ -25,11 +40,35 @@ export interface FieldSpec {
 
 /** Gridded fields of a snapshot file, each (time, y, x). */
 export const SNAPSHOT_FIELDS: readonly FieldSpec[] = [
-  { name: 'q', longName: 'potential vorticity anomaly q = laplacian(psi) - kd^2 psi (without beta y)', dim: { L: 0, T: -1 } },
-  { name: 'zeta', longName: 'relative vorticity zeta = laplacian(psi)', dim: { L: 0, T: -1 }, standardName: { atmosphere: 'atmosphere_relative_vorticity' } },
-  { name: 'psi', longName: 'streamfunction psi (u = -dpsi/dy, v = dpsi/dx)', dim: { L: 2, T: -1 }, standardName: { atmosphere: 'atmosphere_horizontal_streamfunction' } },
-  { name: 'u', longName: 'zonal (eastward, +x) velocity u = -dpsi/dy', dim: { L: 1, T: -1 }, standardName: { atmosphere: 'eastward_wind', ocean: 'eastward_sea_water_velocity' } },
-  { name: 'v', longName: 'meridional (northward, +y) velocity v = dpsi/dx', dim: { L: 1, T: -1 }, standardName: { atmosphere: 'northward_wind', ocean: 'northward_sea_water_velocity' } },
+  {
+    name: 'q',
+    longName: 'potential vorticity anomaly q = laplacian(psi) - kd^2 psi (without beta y)',
+    dim: { L: 0, T: -1 },
+  },
+  {
+    name: 'zeta',
+    longName: 'relative vorticity zeta = laplacian(psi)',
+    dim: { L: 0, T: -1 },
+    standardName: { atmosphere: 'atmosphere_relative_vorticity' },
+  },
+  {
+    name: 'psi',
+    longName: 'streamfunction psi (u = -dpsi/dy, v = dpsi/dx)',
+    dim: { L: 2, T: -1 },
+    standardName: { atmosphere: 'atmosphere_horizontal_streamfunction' },
+  },
+  {
+    name: 'u',
+    longName: 'zonal (eastward, +x) velocity u = -dpsi/dy',
+    dim: { L: 1, T: -1 },
+    standardName: { atmosphere: 'eastward_wind', ocean: 'eastward_sea_water_velocity' },
+  },
+  {
+    name: 'v',
+    longName: 'meridional (northward, +y) velocity v = dpsi/dx',
+    dim: { L: 1, T: -1 },
+    standardName: { atmosphere: 'northward_wind', ocean: 'northward_sea_water_velocity' },
+  },
 ];
 
 /** Zonal-mean profiles of a zonal-mean file, each (time, y); [.] is the mean over x, primes deviations from it. */
@@ -49,8 +88,18 @@ export interface StriaFileKindSpec {
   spatial: readonly ('y' | 'x')[];
 }
 
-export const SNAPSHOT_FILE: StriaFileKindSpec = { kind: 'snapshots', title: 'Stria snapshots: gridded fields of a beta-plane quasi-geostrophic run', fields: SNAPSHOT_FIELDS, spatial: ['y', 'x'] };
-export const ZONAL_MEAN_FILE: StriaFileKindSpec = { kind: 'zonal_means', title: 'Stria zonal means: jet and eddy-flux profiles of a beta-plane quasi-geostrophic run', fields: ZONAL_MEAN_FIELDS, spatial: ['y'] };
+export const SNAPSHOT_FILE: StriaFileKindSpec = {
+  kind: 'snapshots',
+  title: 'Stria snapshots: gridded fields of a beta-plane quasi-geostrophic run',
+  fields: SNAPSHOT_FIELDS,
+  spatial: ['y', 'x'],
+};
+export const ZONAL_MEAN_FILE: StriaFileKindSpec = {
+  kind: 'zonal_means',
+  title: 'Stria zonal means: jet and eddy-flux profiles of a beta-plane quasi-geostrophic run',
+  fields: ZONAL_MEAN_FIELDS,
+  spatial: ['y'],
+};
 
 export interface StriaFileOptions {
   /** Storage type of the fields (coordinates are always double). Default 'double'. */
@@ -68,11 +117,15 @@ export function striaFileSchema(spec: StriaFileKindSpec, run: StriaRunInfo, opti
   const units = run.units ?? MODEL_UNITS;
   const { nx, ny, Lx, Ly } = run.params;
   const precision = options.precision ?? 'double';
-  if (precision !== 'double' && precision !== 'float') throw new RangeError(`precision must be 'double' or 'float', got ${JSON.stringify(precision)}`);
+  if (precision !== 'double' && precision !== 'float')
+    throw new RangeError(`precision must be 'double' or 'float', got ${JSON.stringify(precision)}`);
   const attributes = striaGlobalAttributes(run, spec.kind, spec.title);
   const size = { x: nx, y: ny };
   const length = { x: Lx, y: Ly };
-  const dimensions: NcDimension[] = [{ name: 'time', unlimited: true }, ...spec.spatial.map((d) => ({ name: d, size: size[d] }))];
+  const dimensions: NcDimension[] = [
+    { name: 'time', unlimited: true },
+    ...spec.spatial.map((d) => ({ name: d, size: size[d] })),
+  ];
   const coordinates: NcVariable[] = spec.spatial
     .slice()
     .reverse()
@@ -81,21 +134,41 @@ export function striaFileSchema(spec: StriaFileKindSpec, run: StriaRunInfo, opti
       type: 'double',
       dimensions: [d],
       attributes: [
-        ncText('long_name', d === 'x' ? 'zonal (eastward) position of grid points, periodic with period Lx' : 'meridional (northward) position of grid points, periodic with period Ly'),
+        ncText(
+          'long_name',
+          d === 'x'
+            ? 'zonal (eastward) position of grid points, periodic with period Lx'
+            : 'meridional (northward) position of grid points, periodic with period Ly',
+        ),
         ...quantityAttributes({ L: 1, T: 0 }, units),
         ncText('axis', d.toUpperCase()),
       ],
       data: gridPositions(size[d], length[d] * unitScale({ L: 1, T: 0 }, units)),
     }));
-  const time: NcVariable = { name: 'time', type: 'double', dimensions: ['time'], attributes: [ncText('long_name', 'time since the start of the run'), ...quantityAttributes({ L: 0, T: 1 }, units)] };
-  const step: NcVariable = { name: 'step', type: 'int', dimensions: ['time'], attributes: [ncText('long_name', 'number of time steps taken since the start of the run'), ncText('units', '1')] };
+  const time: NcVariable = {
+    name: 'time',
+    type: 'double',
+    dimensions: ['time'],
+    attributes: [ncText('long_name', 'time since the start of the run'), ...quantityAttributes({ L: 0, T: 1 }, units)],
+  };
+  const step: NcVariable = {
+    name: 'step',
+    type: 'int',
+    dimensions: ['time'],
+    attributes: [ncText('long_name', 'number of time steps taken since the start of the run'), ncText('units', '1')],
+  };
   const fields: NcVariable[] = spec.fields.map((f) => ({
     name: f.name,
     type: precision,
     dimensions: ['time', ...spec.spatial],
     attributes: [ncText('long_name', f.longName), ...standardName(f, units), ...quantityAttributes(f.dim, units)],
   }));
-  return { format: options.format ?? 'cdf2', dimensions, attributes, variables: [...coordinates, time, step, ...fields] };
+  return {
+    format: options.format ?? 'cdf2',
+    dimensions,
+    attributes,
+    variables: [...coordinates, time, step, ...fields],
+  };
 }
 
 function quantityAttributes(dim: ModelDimension, units: UnitSystem): NcAttribute[] {
@@ -109,7 +182,8 @@ function standardName(f: FieldSpec, units: UnitSystem): NcAttribute[] {
 
 /** n points from 0 with spacing length/n, computed as i·length/n like lib/model/grid.ts. */
 function gridPositions(n: number, length: number): Float64Array {
-  if (!(Number.isInteger(n) && n > 0 && Number.isFinite(length) && length > 0)) throw new RangeError(`grid size ${n} and domain length ${length} must be a positive integer and a positive number`);
+  if (!(Number.isInteger(n) && n > 0 && Number.isFinite(length) && length > 0))
+    throw new RangeError(`grid size ${n} and domain length ${length} must be a positive integer and a positive number`);
   const out = new Float64Array(n);
   for (let i = 0; i < n; i++) out[i] = (i * length) / n;
   return out;

@@ -1,7 +1,13 @@
 import type { GridFields } from '../analysis/snapshot';
 import type { ZonalMeans } from '../analysis/zonalMean';
 import type { StriaRunInfo } from './cfGlobalAttributes';
-import { SNAPSHOT_FILE, striaFileSchema, ZONAL_MEAN_FILE, type StriaFileKindSpec, type StriaFileOptions } from './cfStria';
+import {
+  SNAPSHOT_FILE,
+  striaFileSchema,
+  ZONAL_MEAN_FILE,
+  type StriaFileKindSpec,
+  type StriaFileOptions,
+} from './cfStria';
 import { MODEL_UNITS, unitScale } from './cfUnits';
 import { NUMRECS_OFFSET } from './netcdf3Types';
 import { Netcdf3RecordWriter } from './netcdf3Writer';
@@ -69,12 +75,19 @@ export class StriaFileWriter {
   /** The bytes of the next record, in a buffer reused by the next call. */
   appendFrame(frame: StriaFrame): Uint8Array {
     const r = this.writer.numrecs;
-    if (!(typeof frame.time === 'number' && Number.isFinite(frame.time))) throw new RangeError(`frame ${r}: time must be a finite number, got ${frame.time}`);
-    if (!(frame.time > this.lastTime)) throw new RangeError(`frame ${r}: time ${frame.time} does not increase (previous ${this.lastTime}); CF coordinates must be strictly monotonic`);
-    if (!(Number.isInteger(frame.steps) && frame.steps >= 0)) throw new RangeError(`frame ${r}: steps must be a non-negative integer, got ${frame.steps}`);
+    if (!(typeof frame.time === 'number' && Number.isFinite(frame.time)))
+      throw new RangeError(`frame ${r}: time must be a finite number, got ${frame.time}`);
+    if (!(frame.time > this.lastTime))
+      throw new RangeError(
+        `frame ${r}: time ${frame.time} does not increase (previous ${this.lastTime}); CF coordinates must be strictly monotonic`,
+      );
+    if (!(Number.isInteger(frame.steps) && frame.steps >= 0))
+      throw new RangeError(`frame ${r}: steps must be a non-negative integer, got ${frame.steps}`);
     for (const [name, value] of Object.entries(frame.fields)) {
       if (typeof value === 'object' && value !== null && !this.spec.fields.some((f) => f.name === name)) {
-        throw new RangeError(`frame ${r}: "${name}" is not a field of a ${this.spec.kind} file (it holds ${this.spec.fields.map((x) => x.name).join(', ')})${this.spec.kind === 'zonal_means' ? '; build frames from ZonalMeans with zonalMeanFrame' : ''}`);
+        throw new RangeError(
+          `frame ${r}: "${name}" is not a field of a ${this.spec.kind} file (it holds ${this.spec.fields.map((x) => x.name).join(', ')})${this.spec.kind === 'zonal_means' ? '; build frames from ZonalMeans with zonalMeanFrame' : ''}`,
+        );
       }
     }
     this.timeBox[0] = frame.time * this.timeScale;
@@ -83,7 +96,10 @@ export class StriaFileWriter {
     this.values.step = this.stepBox;
     this.spec.fields.forEach((f, k) => {
       const given = frame.fields[f.name];
-      if (given === undefined) throw new RangeError(`frame ${r}: field "${f.name}" is missing (a ${this.spec.kind} file holds ${this.spec.fields.map((x) => x.name).join(', ')})`);
+      if (given === undefined)
+        throw new RangeError(
+          `frame ${r}: field "${f.name}" is missing (a ${this.spec.kind} file holds ${this.spec.fields.map((x) => x.name).join(', ')})`,
+        );
       const tmp = this.scratch[k];
       if (tmp === null || given.length !== tmp.length) {
         this.values[f.name] = given; // the record writer reports a wrong length by name
@@ -117,7 +133,12 @@ export class StriaFileWriter {
 }
 
 /** A whole Stria file in memory: sized up front, header, coordinates and every frame written in place. */
-export function encodeStriaFile(spec: StriaFileKindSpec, run: StriaRunInfo, frames: readonly StriaFrame[], options: StriaFileOptions = {}): Uint8Array {
+export function encodeStriaFile(
+  spec: StriaFileKindSpec,
+  run: StriaRunInfo,
+  frames: readonly StriaFrame[],
+  options: StriaFileOptions = {},
+): Uint8Array {
   const w = new StriaFileWriter(spec, run, options);
   const head = w.head();
   const out = new Uint8Array(head.length + frames.length * w.recordSize);
@@ -127,5 +148,13 @@ export function encodeStriaFile(spec: StriaFileKindSpec, run: StriaRunInfo, fram
   return out;
 }
 
-export const encodeSnapshotFile = (run: StriaRunInfo, frames: readonly StriaFrame[], options?: StriaFileOptions): Uint8Array => encodeStriaFile(SNAPSHOT_FILE, run, frames, options);
-export const encodeZonalMeanFile = (run: StriaRunInfo, frames: readonly StriaFrame[], options?: StriaFileOptions): Uint8Array => encodeStriaFile(ZONAL_MEAN_FILE, run, frames, options);
+export const encodeSnapshotFile = (
+  run: StriaRunInfo,
+  frames: readonly StriaFrame[],
+  options?: StriaFileOptions,
+): Uint8Array => encodeStriaFile(SNAPSHOT_FILE, run, frames, options);
+export const encodeZonalMeanFile = (
+  run: StriaRunInfo,
+  frames: readonly StriaFrame[],
+  options?: StriaFileOptions,
+): Uint8Array => encodeStriaFile(ZONAL_MEAN_FILE, run, frames, options);

@@ -19,18 +19,21 @@ export interface ModelDimension {
 export type Medium = 'atmosphere' | 'ocean';
 
 export type UnitSystem =
-  | { kind: 'model' }
-  | { kind: 'physical'; metresPerLength: number; secondsPerTime: number; medium?: Medium };
+  { kind: 'model' } | { kind: 'physical'; metresPerLength: number; secondsPerTime: number; medium?: Medium };
 
 export const MODEL_UNITS: UnitSystem = Object.freeze({ kind: 'model' });
 
 /** Checks a unit system at the boundary; names the offending field. */
 export function checkUnitSystem(u: UnitSystem): void {
   if (u.kind === 'model') return;
-  if (u.kind !== 'physical') throw new RangeError(`units.kind must be 'model' or 'physical', got ${JSON.stringify((u as { kind: unknown }).kind)}`);
+  if (u.kind !== 'physical')
+    throw new RangeError(
+      `units.kind must be 'model' or 'physical', got ${JSON.stringify((u as { kind: unknown }).kind)}`,
+    );
   for (const key of ['metresPerLength', 'secondsPerTime'] as const) {
     const x = u[key];
-    if (!(typeof x === 'number' && Number.isFinite(x) && x > 0)) throw new RangeError(`units.${key} must be a finite number > 0, got ${x}`);
+    if (!(typeof x === 'number' && Number.isFinite(x) && x > 0))
+      throw new RangeError(`units.${key} must be a finite number > 0, got ${x}`);
   }
   if (u.medium !== undefined && u.medium !== 'atmosphere' && u.medium !== 'ocean') {
     throw new RangeError(`units.medium must be 'atmosphere' or 'ocean' when given, got ${JSON.stringify(u.medium)}`);
@@ -39,12 +42,20 @@ export function checkUnitSystem(u: UnitSystem): void {
 
 /** The `units` attribute: "1" in model units, else the SI string, e.g. "m s-1" for L T-1. */
 export function unitsString(dim: ModelDimension, system: UnitSystem): string {
-  return system.kind === 'model' ? '1' : powers([['m', dim.L], ['s', dim.T]]);
+  return system.kind === 'model'
+    ? '1'
+    : powers([
+        ['m', dim.L],
+        ['s', dim.T],
+      ]);
 }
 
 /** The model dimension as a label, e.g. "L2 T-1" (or "1" for a pure number). */
 export function modelDimensionLabel(dim: ModelDimension): string {
-  return powers([['L', dim.L], ['T', dim.T]]);
+  return powers([
+    ['L', dim.L],
+    ['T', dim.T],
+  ]);
 }
 
 /**

@@ -22,7 +22,10 @@ export function formatCsv(columns: readonly CsvColumn[]): string {
     if (typeof c.name !== 'string' || c.name === '') throw new RangeError('CSV: every column needs a non-empty name');
     if (names.has(c.name)) throw new RangeError(`CSV: column "${c.name}" is given twice`);
     names.add(c.name);
-    if (c.values.length !== rows) throw new RangeError(`CSV: column "${c.name}" has ${c.values.length} values, column "${columns[0].name}" has ${rows}`);
+    if (c.values.length !== rows)
+      throw new RangeError(
+        `CSV: column "${c.name}" has ${c.values.length} values, column "${columns[0].name}" has ${rows}`,
+      );
   }
   const lines: string[] = new Array(rows + 1);
   lines[0] = columns.map((c) => quoteField(c.name)).join(',');
@@ -92,7 +95,8 @@ export function parseCsv(input: string | Uint8Array): CsvTable {
           break;
         }
       }
-      if (i < n && text[i] !== ',' && text[i] !== '\r' && text[i] !== '\n') throw new RangeError(`CSV line ${line}: unexpected ${JSON.stringify(text[i])} after a closing quote`);
+      if (i < n && text[i] !== ',' && text[i] !== '\r' && text[i] !== '\n')
+        throw new RangeError(`CSV line ${line}: unexpected ${JSON.stringify(text[i])} after a closing quote`);
     } else {
       const start = i;
       while (i < n && text[i] !== ',' && text[i] !== '\r' && text[i] !== '\n') {
@@ -118,7 +122,10 @@ export function parseCsv(input: string | Uint8Array): CsvTable {
   if (records.length === 0) throw new RangeError('CSV: no header row');
   const [header, ...rows] = records;
   rows.forEach((r, k) => {
-    if (r.length !== header.length) throw new RangeError(`CSV record ${k + 1} (line ${k + 2} if no field spans lines) has ${r.length} fields, the header has ${header.length}`);
+    if (r.length !== header.length)
+      throw new RangeError(
+        `CSV record ${k + 1} (line ${k + 2} if no field spans lines) has ${r.length} fields, the header has ${header.length}`,
+      );
   });
   return { header, rows };
 }
@@ -135,7 +142,8 @@ export function parseCsvNumber(field: string): number {
 /** The named column of a parsed table as numbers. */
 export function csvNumberColumn(table: CsvTable, name: string): Float64Array {
   const k = table.header.indexOf(name);
-  if (k < 0) throw new RangeError(`CSV has no column "${name}" (it has ${table.header.map((h) => `"${h}"`).join(', ')})`);
+  if (k < 0)
+    throw new RangeError(`CSV has no column "${name}" (it has ${table.header.map((h) => `"${h}"`).join(', ')})`);
   return Float64Array.from(table.rows, (r, i) => {
     const x = numberOf(r[k]);
     if (x === null) throw new RangeError(`CSV column "${name}", row ${i + 1}: ${JSON.stringify(r[k])} is not a number`);

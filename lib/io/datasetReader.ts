@@ -10,7 +10,20 @@ import type { AllocationMeter } from './allocationMeter';
 export type DatasetFormat = 'netcdf3-classic' | 'netcdf3-64bit-offset' | 'netcdf4';
 
 /** Storage types: the numeric ones can be read as values; char, string and other only as metadata. */
-export type DatasetType = 'int8' | 'uint8' | 'int16' | 'uint16' | 'int32' | 'uint32' | 'int64' | 'uint64' | 'float32' | 'float64' | 'char' | 'string' | 'other';
+export type DatasetType =
+  | 'int8'
+  | 'uint8'
+  | 'int16'
+  | 'uint16'
+  | 'int32'
+  | 'uint32'
+  | 'int64'
+  | 'uint64'
+  | 'float32'
+  | 'float64'
+  | 'char'
+  | 'string'
+  | 'other';
 
 /** A text attribute is a string; a numeric one a number, or an array when it has several values. */
 export type AttributeValue = string | number | number[];
@@ -81,7 +94,10 @@ export abstract class NamedVariables {
 
   variable(name: string): DatasetVariable {
     const v = this.byName.get(name);
-    if (!v) throw new RangeError(`the file has no variable "${name}" (it has ${this.variables.map((x) => `"${x.name}"`).join(', ') || 'none'})`);
+    if (!v)
+      throw new RangeError(
+        `the file has no variable "${name}" (it has ${this.variables.map((x) => `"${x.name}"`).join(', ') || 'none'})`,
+      );
     return v;
   }
 
@@ -95,7 +111,9 @@ export abstract class NamedVariables {
   }
 
   recordLength(name: string): number {
-    return this.variable(name).shape.slice(1).reduce((a, b) => a * b, 1);
+    return this.variable(name)
+      .shape.slice(1)
+      .reduce((a, b) => a * b, 1);
   }
 }
 
@@ -122,9 +140,14 @@ export function sniffFormat(head: Uint8Array, byteLength: number): FileKind {
   if (HDF5_SIGNATURE.every((b, i) => head[i] === b)) return 'hdf5';
   if (head[0] === 0x43 && head[1] === 0x44 && head[2] === 0x46) {
     if (head[3] === 1 || head[3] === 2) return 'netcdf3';
-    if (head[3] === 5) throw new RangeError('NetCDF CDF-5 (64-bit data) is not supported: Stria reads NetCDF-3 classic and 64-bit offset files and netCDF-4 (HDF5) files');
+    if (head[3] === 5)
+      throw new RangeError(
+        'NetCDF CDF-5 (64-bit data) is not supported: Stria reads NetCDF-3 classic and 64-bit offset files and netCDF-4 (HDF5) files',
+      );
     throw new RangeError(`not a NetCDF file: unknown version byte ${head[3]} after "CDF"`);
   }
   const shown = Array.from(head.subarray(0, 4), (b) => b.toString(16).padStart(2, '0')).join(' ');
-  throw new RangeError(`not a NetCDF file: it starts with bytes ${shown}, neither "CDF" (NetCDF-3) nor the HDF5 signature (netCDF-4)`);
+  throw new RangeError(
+    `not a NetCDF file: it starts with bytes ${shown}, neither "CDF" (NetCDF-3) nor the HDF5 signature (netCDF-4)`,
+  );
 }

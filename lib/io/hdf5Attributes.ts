@@ -6,14 +6,26 @@ import type { AttributeValue } from './datasetReader';
  * numbers). The netCDF-4 bookkeeping attributes (dimension scales, ids, provenance) are dropped: the
  * NetCDF data model does not show them.
  */
-const HIDDEN = new Set(['CLASS', 'NAME', 'REFERENCE_LIST', 'DIMENSION_LIST', '_Netcdf4Dimid', '_Netcdf4Coordinates', '_NCProperties', '_nc3_strict', '_IsNetcdf4', '_SuperblockVersion']);
+const HIDDEN = new Set([
+  'CLASS',
+  'NAME',
+  'REFERENCE_LIST',
+  'DIMENSION_LIST',
+  '_Netcdf4Dimid',
+  '_Netcdf4Coordinates',
+  '_NCProperties',
+  '_nc3_strict',
+  '_IsNetcdf4',
+  '_SuperblockVersion',
+]);
 
 export function cleanAttributes(raw: Record<string, unknown>): Record<string, AttributeValue> {
   const out: Record<string, AttributeValue> = {};
   for (const [name, value] of Object.entries(raw)) {
     if (HIDDEN.has(name)) continue;
     const v = cleanValue(value);
-    if (v !== null) Object.defineProperty(out, name, { value: v, enumerable: true, writable: true, configurable: true });
+    if (v !== null)
+      Object.defineProperty(out, name, { value: v, enumerable: true, writable: true, configurable: true });
   }
   return out;
 }
@@ -22,7 +34,8 @@ function cleanValue(value: unknown): AttributeValue | null {
   if (typeof value === 'string') return value.replace(/\0+$/, '');
   if (typeof value === 'number' || typeof value === 'bigint') return Number(value);
   if (Array.isArray(value)) {
-    if (value.every((x) => typeof x === 'string')) return (value as string[]).map((s) => s.replace(/\0+$/, '')).join('');
+    if (value.every((x) => typeof x === 'string'))
+      return (value as string[]).map((s) => s.replace(/\0+$/, '')).join('');
     if (value.every((x) => typeof x === 'number' || typeof x === 'bigint')) {
       const nums = value.map(Number);
       return nums.length === 1 ? nums[0] : nums;

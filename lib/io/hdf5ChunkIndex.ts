@@ -27,13 +27,24 @@ export function readChunkIndex(view: DataView, root: number, rank: number, varia
   const keySize = 8 + 8 * (rank + 1);
   const seen = new Set<number>();
   const visit = (address: number, level: number | null): void => {
-    if (seen.has(address)) throw new RangeError(`corrupt HDF5 file: the chunk B-tree of "${variable}" loops back to node ${address}`);
+    if (seen.has(address))
+      throw new RangeError(`corrupt HDF5 file: the chunk B-tree of "${variable}" loops back to node ${address}`);
     seen.add(address);
-    if (address + NODE_HEADER > view.byteLength) throw new RangeError(`truncated or corrupt HDF5 file: a chunk B-tree node of "${variable}" lies past the end of the file`);
-    const sig = String.fromCharCode(view.getUint8(address), view.getUint8(address + 1), view.getUint8(address + 2), view.getUint8(address + 3));
-    if (sig !== 'TREE' || view.getUint8(address + 4) !== 1) throw new RangeError(`corrupt HDF5 file: no chunk B-tree node at byte ${address} for "${variable}"`);
+    if (address + NODE_HEADER > view.byteLength)
+      throw new RangeError(
+        `truncated or corrupt HDF5 file: a chunk B-tree node of "${variable}" lies past the end of the file`,
+      );
+    const sig = String.fromCharCode(
+      view.getUint8(address),
+      view.getUint8(address + 1),
+      view.getUint8(address + 2),
+      view.getUint8(address + 3),
+    );
+    if (sig !== 'TREE' || view.getUint8(address + 4) !== 1)
+      throw new RangeError(`corrupt HDF5 file: no chunk B-tree node at byte ${address} for "${variable}"`);
     const nodeLevel = view.getUint8(address + 5);
-    if (level !== null && nodeLevel !== level) throw new RangeError(`corrupt HDF5 file: chunk B-tree levels of "${variable}" do not match`);
+    if (level !== null && nodeLevel !== level)
+      throw new RangeError(`corrupt HDF5 file: chunk B-tree levels of "${variable}" do not match`);
     const entries = view.getUint16(address + 6, true);
     let p = address + NODE_HEADER;
     for (let e = 0; e < entries; e++) {

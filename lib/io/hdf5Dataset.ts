@@ -26,9 +26,15 @@ export function openHdf5(source: ByteSource, options: ReaderOptions = {}): Datas
   const buffer = source.whole();
   const view = new DataView(buffer);
   const { end } = superblockEnd(view);
-  if (end > buffer.byteLength) throw new RangeError(`truncated HDF5 file: its superblock says the file is ${end} bytes long, but it has ${buffer.byteLength}`);
+  if (end > buffer.byteLength)
+    throw new RangeError(
+      `truncated HDF5 file: its superblock says the file is ${end} bytes long, but it has ${buffer.byteLength}`,
+    );
   const sizes = superblockSizes(view);
-  if (sizes.offsets !== 8 || sizes.lengths !== 8) throw new RangeError(`HDF5 files with ${sizes.offsets}-byte offsets are not supported (jsfive reads 8-byte offsets only)`);
+  if (sizes.offsets !== 8 || sizes.lengths !== 8)
+    throw new RangeError(
+      `HDF5 files with ${sizes.offsets}-byte offsets are not supported (jsfive reads 8-byte offsets only)`,
+    );
   return new Hdf5Dataset(view, options.meter);
 }
 
@@ -65,12 +71,21 @@ class Hdf5Dataset extends NamedVariables implements DatasetReader {
           const d = obj._dataobjects;
           const space = d.find_msg_type(0x0001)[0];
           const { dims, unlimited } = parseDataspace(view, space.get('offset_to_message') as number);
-          entries.push({ name: key, obj: d, attrs: { ...safeAttributes(d, key), ...denseAttributes(d, `"${key}"`) }, dims, unlimited });
+          entries.push({
+            name: key,
+            obj: d,
+            attrs: { ...safeAttributes(d, key), ...denseAttributes(d, `"${key}"`) },
+            dims,
+            unlimited,
+          });
         } else if (obj instanceof Group) {
           this.notes.push(`the group "${key}" was not read: only the root group of a netCDF-4 file is`);
         }
       }
-      const globals = { ...safeAttributes(file._dataobjects, 'the file'), ...denseAttributes(file._dataobjects, 'the file') };
+      const globals = {
+        ...safeAttributes(file._dataobjects, 'the file'),
+        ...denseAttributes(file._dataobjects, 'the file'),
+      };
       // jsfive lists links in storage order (by name hash or, for dense groups, a string sort of
       // creation indices); the netCDF library creates variables in varid order and HDF5 places each
       // new object header after the last, so header addresses give the file's variable order.
@@ -91,12 +106,15 @@ class Hdf5Dataset extends NamedVariables implements DatasetReader {
   readRecord(name: string, index: number, options: ReadOptions = {}): Float64Array {
     const plan = this.plan(name);
     const count = this.recordCount(name);
-    if (!(Number.isInteger(index) && index >= 0 && index < count)) throw new RangeError(`record ${index} of "${name}" does not exist (it has ${count})`);
+    if (!(Number.isInteger(index) && index >= 0 && index < count))
+      throw new RangeError(`record ${index} of "${name}" does not exist (it has ${count})`);
     const n = this.recordLength(name);
     const out = options.out ?? new Float64Array(n);
     if (out.length !== n) throw new RangeError(`readRecord("${name}"): out has ${out.length} values, a record ${n}`);
     const bytes = (k: number) => k * plan.elementSize;
-    readSlab(this.view, plan, index, out, this.meter, (done, total) => options.onProgress?.({ variable: name, record: index, done: bytes(done), total: bytes(total) }));
+    readSlab(this.view, plan, index, out, this.meter, (done, total) =>
+      options.onProgress?.({ variable: name, record: index, done: bytes(done), total: bytes(total) }),
+    );
     return out;
   }
 
@@ -104,9 +122,11 @@ class Hdf5Dataset extends NamedVariables implements DatasetReader {
     const v = this.variable(name);
     const total = v.shape.reduce((a, b) => a * b, 1);
     const out = options.out ?? new Float64Array(total);
-    if (out.length !== total) throw new RangeError(`readAll("${name}"): out has ${out.length} values, the variable ${total}`);
+    if (out.length !== total)
+      throw new RangeError(`readAll("${name}"): out has ${out.length} values, the variable ${total}`);
     const per = this.recordLength(name);
-    for (let r = 0; r < this.recordCount(name) && total > 0; r++) this.readRecord(name, r, { out: out.subarray(r * per, (r + 1) * per), onProgress: options.onProgress });
+    for (let r = 0; r < this.recordCount(name) && total > 0; r++)
+      this.readRecord(name, r, { out: out.subarray(r * per, (r + 1) * per), onProgress: options.onProgress });
     return out;
   }
 
@@ -115,17 +135,31 @@ class Hdf5Dataset extends NamedVariables implements DatasetReader {
     const cached = this.plans.get(name);
     if (cached) return cached;
     const v = this.variable(name);
-    if (!isNumericType(v.type)) throw new RangeError(`"${name}" holds ${v.type === 'char' || v.type === 'string' ? 'text' : 'values of a type Stria does not read'}, not numbers`);
+    if (!isNumericType(v.type))
+      throw new RangeError(
+        `"${name}" holds ${v.type === 'char' || v.type === 'string' ? 'text' : 'values of a type Stria does not read'}, not numbers`,
+      );
     const obj = this.objects.get(name) as DataObjects;
     const { size, littleEndian } = elementType(obj.dtype);
     const layoutMsg = obj.find_msg_type(0x0008)[0];
     if (!layoutMsg) throw new RangeError(`corrupt HDF5 file: "${name}" has no data layout message`);
     const layout = parseLayout(this.view, layoutMsg.get('offset_to_message') as number, v.shape.length, name);
-    const filters = (quietly([], () => obj.filter_pipeline) ?? []).map((f) => ({ id: Number(f.get('filter_id')), clientData: f.get('client_data') }));
+    const filters = (quietly([], () => obj.filter_pipeline) ?? []).map((f) => ({
+      id: Number(f.get('filter_id')),
+      clientData: f.get('client_data'),
+    }));
     checkFilters(name, filters);
     const chunks = layout.kind === 'chunked' ? readChunkIndex(this.view, layout.btree, v.shape.length, name) : [];
     this.meter?.external(chunks.length * 64, 'chunk index');
-    const plan: SlabPlan = { variable: name, shape: v.shape.slice(), layout, chunks, filters, elementSize: size, read: elementReader(v.type, littleEndian) };
+    const plan: SlabPlan = {
+      variable: name,
+      shape: v.shape.slice(),
+      layout,
+      chunks,
+      filters,
+      elementSize: size,
+      read: elementReader(v.type, littleEndian),
+    };
     this.plans.set(name, plan);
     return plan;
   }

@@ -56,14 +56,19 @@ function attributeRecords(view: DataView, header: number, owner: string): { id: 
   const depth = view.getUint16(header + 12, true);
   const root = u64(view, header + 16);
   const rootRecords = view.getUint16(header + 24, true);
-  if (type !== 8) throw new RangeError(`corrupt HDF5 file: the attribute B-tree of ${owner} has type ${type}, expected 8`);
-  if (depth > 1) throw new RangeError(`${owner} has so many attributes that their HDF5 B-tree is ${depth} levels deep; this reader reads at most 1`);
+  if (type !== 8)
+    throw new RangeError(`corrupt HDF5 file: the attribute B-tree of ${owner} has type ${type}, expected 8`);
+  if (depth > 1)
+    throw new RangeError(
+      `${owner} has so many attributes that their HDF5 B-tree is ${depth} levels deep; this reader reads at most 1`,
+    );
   const ids: { id: Uint8Array; order: number }[] = [];
   const records = (node: number, count: number) => {
     for (let i = 0; i < count; i++) {
       const r = node + 6 + i * recordSize;
       ids.push({ id: new Uint8Array(view.buffer, view.byteOffset + r, 8), order: view.getUint32(r + 9, true) });
-      if (view.getUint8(r + 8) & 1) throw new RangeError(`${owner} has a shared attribute message, which this reader does not support`);
+      if (view.getUint8(r + 8) & 1)
+        throw new RangeError(`${owner} has a shared attribute message, which this reader does not support`);
     }
   };
   if (root === UNDEFINED_ADDRESS) return ids;
@@ -88,9 +93,18 @@ function attributeRecords(view: DataView, header: number, owner: string): { id: 
 }
 
 function expectSignature(view: DataView, at: number, sig: string, owner: string): void {
-  if (at + 4 > view.byteLength) throw new RangeError(`truncated HDF5 file: attribute storage of ${owner} lies past the end of the file`);
-  const got = String.fromCharCode(view.getUint8(at), view.getUint8(at + 1), view.getUint8(at + 2), view.getUint8(at + 3));
-  if (got !== sig) throw new RangeError(`corrupt HDF5 file: expected "${sig}" at byte ${at} in the attribute storage of ${owner}, found "${got}"`);
+  if (at + 4 > view.byteLength)
+    throw new RangeError(`truncated HDF5 file: attribute storage of ${owner} lies past the end of the file`);
+  const got = String.fromCharCode(
+    view.getUint8(at),
+    view.getUint8(at + 1),
+    view.getUint8(at + 2),
+    view.getUint8(at + 3),
+  );
+  if (got !== sig)
+    throw new RangeError(
+      `corrupt HDF5 file: expected "${sig}" at byte ${at} in the attribute storage of ${owner}, found "${got}"`,
+    );
 }
 
 /** The managed objects of a fractal heap whose root is a direct block or one indirect block of direct blocks. */
@@ -110,7 +124,8 @@ class FractalHeap {
     private readonly owner: string,
   ) {
     expectSignature(view, at, 'FRHP', owner);
-    if (view.getUint16(at + 7, true) !== 0) throw new RangeError(`${owner}: attributes in a filtered HDF5 fractal heap are not supported`);
+    if (view.getUint16(at + 7, true) !== 0)
+      throw new RangeError(`${owner}: attributes in a filtered HDF5 fractal heap are not supported`);
     const maxManaged = view.getUint32(at + 10, true);
     this.width = view.getUint16(at + 110, true);
     this.start = u64(view, at + 112);
@@ -126,12 +141,16 @@ class FractalHeap {
   /** The bytes of the object with this heap ID (a copy). */
   object(id: Uint8Array): ArrayBuffer {
     const kind = (id[0] >> 4) & 3;
-    if (kind !== 0) throw new RangeError(`${this.owner}: an attribute stored as a ${kind === 1 ? 'huge' : 'tiny'} heap object is not supported`);
+    if (kind !== 0)
+      throw new RangeError(
+        `${this.owner}: an attribute stored as a ${kind === 1 ? 'huge' : 'tiny'} heap object is not supported`,
+      );
     const idView = new DataView(id.buffer, id.byteOffset, id.byteLength);
     const offset = uint(idView, 1, this.offsetBytes);
     const length = uint(idView, 1 + this.offsetBytes, this.lengthBytes);
     const where = this.locate(offset);
-    if (where + length > this.view.byteLength) throw new RangeError(`truncated HDF5 file: an attribute of ${this.owner} lies past the end of the file`);
+    if (where + length > this.view.byteLength)
+      throw new RangeError(`truncated HDF5 file: an attribute of ${this.owner} lies past the end of the file`);
     return (this.view.buffer as ArrayBuffer).slice(this.view.byteOffset + where, this.view.byteOffset + where + length);
   }
 
@@ -149,13 +168,18 @@ class FractalHeap {
         const blockStart = rowStart + col * size;
         if (o >= blockStart && o < blockStart + size) {
           const address = u64(this.view, entry);
-          if (address === UNDEFINED_ADDRESS) throw new RangeError(`corrupt HDF5 file: an attribute of ${this.owner} points into an unallocated heap block`);
+          if (address === UNDEFINED_ADDRESS)
+            throw new RangeError(
+              `corrupt HDF5 file: an attribute of ${this.owner} points into an unallocated heap block`,
+            );
           expectSignature(this.view, address, 'FHDB', this.owner);
           return address + (o - blockStart);
         }
       }
       rowStart += this.width * size;
     }
-    throw new RangeError(`${this.owner}: an attribute lies in a nested indirect heap block, which this reader does not support`);
+    throw new RangeError(
+      `${this.owner}: an attribute lies in a nested indirect heap block, which this reader does not support`,
+    );
   }
 }

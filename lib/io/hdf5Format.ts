@@ -29,7 +29,8 @@ export function u64(view: DataView, offset: number): number {
  * truncated file is refused with its expected size instead of failing somewhere inside the parse.
  */
 export function superblockEnd(view: DataView): { version: number; end: number } {
-  if (view.byteLength < 48) throw new RangeError(`truncated HDF5 file: ${view.byteLength} bytes is shorter than its superblock`);
+  if (view.byteLength < 48)
+    throw new RangeError(`truncated HDF5 file: ${view.byteLength} bytes is shorter than its superblock`);
   const version = view.getUint8(8);
   if (version === 0) return { version, end: u64(view, 40) };
   if (version === 2 || version === 3) return { version, end: u64(view, 28) };
@@ -39,7 +40,9 @@ export function superblockEnd(view: DataView): { version: number; end: number } 
 /** Sizes of offsets and lengths from the superblock (bytes 13–14 in v0, 9–10 in v2/v3). */
 export function superblockSizes(view: DataView): { offsets: number; lengths: number } {
   const v = view.getUint8(8);
-  return v === 0 ? { offsets: view.getUint8(13), lengths: view.getUint8(14) } : { offsets: view.getUint8(9), lengths: view.getUint8(10) };
+  return v === 0
+    ? { offsets: view.getUint8(13), lengths: view.getUint8(14) }
+    : { offsets: view.getUint8(9), lengths: view.getUint8(10) };
 }
 
 /** Dataspace message (type 0x0001): current and maximum sizes; a maximum of all-ones is unlimited. */
@@ -48,7 +51,8 @@ export function parseDataspace(view: DataView, offset: number): { dims: number[]
   const rank = view.getUint8(offset + 1);
   const flags = view.getUint8(offset + 2);
   let p = offset + (version === 1 ? 8 : 4);
-  if (version !== 1 && version !== 2) throw new RangeError(`HDF5 dataspace message version ${version} is not supported`);
+  if (version !== 1 && version !== 2)
+    throw new RangeError(`HDF5 dataspace message version ${version} is not supported`);
   const dims: number[] = [];
   for (let i = 0; i < rank; i++, p += 8) dims.push(u64(view, p));
   const unlimited = dims.map(() => false);
@@ -99,10 +103,16 @@ export function parseLayout(view: DataView, offset: number, rank: number, variab
       const dimensionality = view.getUint8(p + 1);
       const enc = view.getUint8(p + 2);
       const index = view.getUint8(p + 3 + dimensionality * enc);
-      const names: Record<number, string> = { 1: 'single chunk', 2: 'implicit', 3: 'fixed array', 4: 'extensible array', 5: 'version-2 B-tree' };
+      const names: Record<number, string> = {
+        1: 'single chunk',
+        2: 'implicit',
+        3: 'fixed array',
+        4: 'extensible array',
+        5: 'version-2 B-tree',
+      };
       throw new RangeError(
         `"${variable}" is stored with the HDF5 1.10 chunk index "${names[index] ?? `type ${index}`}" (data layout message version 4), which this reader does not support; ` +
-          'write the file with the netCDF library\'s default HDF5 format settings, or as NetCDF-3',
+          "write the file with the netCDF library's default HDF5 format settings, or as NetCDF-3",
       );
     }
     throw new RangeError(`"${variable}": HDF5 layout class ${cls} (virtual datasets) is not supported`);
@@ -122,7 +132,18 @@ export function elementType(dtype: string | unknown[]): { type: DatasetType; siz
   if (!m) return { type: 'other', size: 0, littleEndian: true };
   const size = Number(m[3]);
   const name = `${m[2] === 'f' ? 'float' : m[2] === 'i' ? 'int' : 'uint'}${8 * size}`;
-  const known: readonly string[] = ['int8', 'uint8', 'int16', 'uint16', 'int32', 'uint32', 'int64', 'uint64', 'float32', 'float64'];
+  const known: readonly string[] = [
+    'int8',
+    'uint8',
+    'int16',
+    'uint16',
+    'int32',
+    'uint32',
+    'int64',
+    'uint64',
+    'float32',
+    'float64',
+  ];
   return { type: known.includes(name) ? (name as DatasetType) : 'other', size, littleEndian: m[1] !== '>' };
 }
 
@@ -155,4 +176,11 @@ export function elementReader(type: DatasetType, littleEndian: boolean): (view: 
 }
 
 /** Names of the HDF5 filters the specification defines (ids 1–6); others are registered plug-ins. */
-export const FILTER_NAMES: Readonly<Record<number, string>> = { 1: 'deflate', 2: 'shuffle', 3: 'fletcher32', 4: 'szip', 5: 'nbit', 6: 'scale-offset' };
+export const FILTER_NAMES: Readonly<Record<number, string>> = {
+  1: 'deflate',
+  2: 'shuffle',
+  3: 'fletcher32',
+  4: 'szip',
+  5: 'nbit',
+  6: 'scale-offset',
+};

@@ -19,7 +19,10 @@ export interface Entry {
   unlimited: boolean[];
 }
 
-export function netcdf4Structure(links: Record<string, number | string>, entries: Entry[]): { dimensions: DatasetDimension[]; variables: { variable: DatasetVariable; obj: DataObjects }[]; notes: string[] } {
+export function netcdf4Structure(
+  links: Record<string, number | string>,
+  entries: Entry[],
+): { dimensions: DatasetDimension[]; variables: { variable: DatasetVariable; obj: DataObjects }[]; notes: string[] } {
   const dimensions: DatasetDimension[] = [];
   const variables: { variable: DatasetVariable; obj: DataObjects }[] = [];
   const notes: string[] = [];
@@ -33,16 +36,22 @@ export function netcdf4Structure(links: Record<string, number | string>, entries
     let names: string[];
     const addresses = dimensionAddresses(e.attrs.DIMENSION_LIST);
     if (scales.includes(e)) names = [e.name];
-    else if (addresses && addresses.length === e.dims.length) names = addresses.map((a) => nameAt.get(a) ?? `${e.name}_dim${a}`);
+    else if (addresses && addresses.length === e.dims.length)
+      names = addresses.map((a) => nameAt.get(a) ?? `${e.name}_dim${a}`);
     else {
       names = e.dims.map((_, k) => `${e.name}_dim${k}`);
       if (e.dims.length) {
-        notes.push(`"${e.name}" names no netCDF dimensions (no DIMENSION_LIST): its dimensions are called ${names.join(', ')}`);
+        notes.push(
+          `"${e.name}" names no netCDF dimensions (no DIMENSION_LIST): its dimensions are called ${names.join(', ')}`,
+        );
         e.dims.forEach((size, k) => dimensions.push({ name: names[k], size, unlimited: e.unlimited[k] }));
       }
     }
     const { type } = elementType(e.obj.dtype);
-    variables.push({ variable: { name: e.name, type, dimensions: names, shape: e.dims.slice(), attributes: cleanAttributes(e.attrs) }, obj: e.obj });
+    variables.push({
+      variable: { name: e.name, type, dimensions: names, shape: e.dims.slice(), attributes: cleanAttributes(e.attrs) },
+      obj: e.obj,
+    });
   }
   return { dimensions, variables, notes };
 }

@@ -25,8 +25,12 @@ export interface SlabPlan {
 export function checkFilters(variable: string, filters: readonly { id: number }[]): void {
   for (const f of filters) {
     if (!Filters.has(f.id)) {
-      const name = FILTER_NAMES[f.id] ? `the ${FILTER_NAMES[f.id]} filter (id ${f.id})` : `filter id ${f.id} (a registered plug-in filter)`;
-      throw new RangeError(`"${variable}" is compressed with ${name}, which the HDF5 reader (jsfive) cannot decode; it decodes deflate, shuffle and fletcher32 only`);
+      const name = FILTER_NAMES[f.id]
+        ? `the ${FILTER_NAMES[f.id]} filter (id ${f.id})`
+        : `filter id ${f.id} (a registered plug-in filter)`;
+      throw new RangeError(
+        `"${variable}" is compressed with ${name}, which the HDF5 reader (jsfive) cannot decode; it decodes deflate, shuffle and fletcher32 only`,
+      );
     }
   }
 }
@@ -35,7 +39,14 @@ export function checkFilters(variable: string, filters: readonly { id: number }[
  * Record `r` of the dataset into out (length = product of shape[1..], or 1 for rank ≤ 1).
  * `onChunk(done, total)` reports values produced so far.
  */
-export function readSlab(view: DataView, plan: SlabPlan, r: number, out: Float64Array, meter?: AllocationMeter, onValues?: (done: number, total: number) => void): void {
+export function readSlab(
+  view: DataView,
+  plan: SlabPlan,
+  r: number,
+  out: Float64Array,
+  meter?: AllocationMeter,
+  onValues?: (done: number, total: number) => void,
+): void {
   const { shape, layout, elementSize, read } = plan;
   const n = out.length;
   if (layout.kind !== 'chunked') {
@@ -44,7 +55,8 @@ export function readSlab(view: DataView, plan: SlabPlan, r: number, out: Float64
       out.fill(NaN);
     } else {
       const start = base + r * n * elementSize;
-      if (start + n * elementSize > view.byteLength) throw new RangeError(`truncated HDF5 file: record ${r} of "${plan.variable}" lies past the end of the file`);
+      if (start + n * elementSize > view.byteLength)
+        throw new RangeError(`truncated HDF5 file: record ${r} of "${plan.variable}" lies past the end of the file`);
       for (let k = 0; k < n; k++) out[k] = read(view, start + k * elementSize);
     }
     onValues?.(n, n);
@@ -68,24 +80,46 @@ export function readSlab(view: DataView, plan: SlabPlan, r: number, out: Float64
 }
 
 /** The decoded bytes of one chunk: a view of the file itself when unfiltered, else the decoded copy. */
-function chunkBytes(view: DataView, plan: SlabPlan, entry: ChunkEntry, decodedSize: number, meter?: AllocationMeter): { view: DataView; start: number } {
-  if (entry.address + entry.size > view.byteLength || (plan.filters.length === 0 && entry.address + decodedSize > view.byteLength)) {
+function chunkBytes(
+  view: DataView,
+  plan: SlabPlan,
+  entry: ChunkEntry,
+  decodedSize: number,
+  meter?: AllocationMeter,
+): { view: DataView; start: number } {
+  if (
+    entry.address + entry.size > view.byteLength ||
+    (plan.filters.length === 0 && entry.address + decodedSize > view.byteLength)
+  ) {
     throw new RangeError(`truncated HDF5 file: a chunk of "${plan.variable}" lies past the end of the file`);
   }
   if (plan.filters.length === 0) return { view, start: entry.address };
-  let buf: ArrayBuffer = (view.buffer as ArrayBuffer).slice(view.byteOffset + entry.address, view.byteOffset + entry.address + entry.size);
+  let buf: ArrayBuffer = (view.buffer as ArrayBuffer).slice(
+    view.byteOffset + entry.address,
+    view.byteOffset + entry.address + entry.size,
+  );
   meter?.temporary(buf.byteLength);
   for (let i = plan.filters.length - 1; i >= 0; i--) {
     if (entry.filterMask & (1 << i)) continue;
     const f = plan.filters[i];
     try {
-      buf = (Filters.get(f.id) as (b: ArrayBuffer, size: number, data: unknown) => ArrayBuffer)(buf, plan.elementSize, f.clientData);
+      buf = (Filters.get(f.id) as (b: ArrayBuffer, size: number, data: unknown) => ArrayBuffer)(
+        buf,
+        plan.elementSize,
+        f.clientData,
+      );
     } catch (e) {
-      throw new RangeError(`corrupt HDF5 data: the ${FILTER_NAMES[f.id] ?? `id ${f.id}`} filter failed on a chunk of "${plan.variable}" (${describe(e)})`, { cause: e });
+      throw new RangeError(
+        `corrupt HDF5 data: the ${FILTER_NAMES[f.id] ?? `id ${f.id}`} filter failed on a chunk of "${plan.variable}" (${describe(e)})`,
+        { cause: e },
+      );
     }
     meter?.temporary(buf.byteLength);
   }
-  if (buf.byteLength < decodedSize) throw new RangeError(`corrupt HDF5 data: a chunk of "${plan.variable}" decodes to ${buf.byteLength} bytes, expected ${decodedSize}`);
+  if (buf.byteLength < decodedSize)
+    throw new RangeError(
+      `corrupt HDF5 data: a chunk of "${plan.variable}" decodes to ${buf.byteLength} bytes, expected ${decodedSize}`,
+    );
   return { view: new DataView(buf), start: 0 };
 }
 

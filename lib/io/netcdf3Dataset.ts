@@ -11,7 +11,14 @@ import { NC_STREAMING, NC_TYPE_SIZE, type NcType } from './netcdf3Types';
  * read from its byte range and decoded straight into float64, so a file larger than memory is read
  * one record at a time. Reads go through one scratch buffer, grown to the largest slab read.
  */
-const TYPES: Readonly<Record<NcType, DatasetType>> = { byte: 'int8', char: 'char', short: 'int16', int: 'int32', float: 'float32', double: 'float64' };
+const TYPES: Readonly<Record<NcType, DatasetType>> = {
+  byte: 'int8',
+  char: 'char',
+  short: 'int16',
+  int: 'int32',
+  float: 'float32',
+  double: 'float64',
+};
 
 /** First guess at the header size; doubled until the header parses. */
 const HEADER_PREFIX = 64 * 1024;
@@ -56,7 +63,14 @@ class Netcdf3Dataset extends NamedVariables implements DatasetReader {
     this.format = nc.format === 'cdf1' ? ('netcdf3-classic' as const) : ('netcdf3-64bit-offset' as const);
     this.dimensions = nc.dimensions.map((d) => ({ ...d }));
     this.attributes = nc.attributes;
-    for (const v of nc.variables) this.addVariable({ name: v.name, type: TYPES[v.type], dimensions: v.dimensions.slice(), shape: v.shape.slice(), attributes: v.attributes });
+    for (const v of nc.variables)
+      this.addVariable({
+        name: v.name,
+        type: TYPES[v.type],
+        dimensions: v.dimensions.slice(),
+        shape: v.shape.slice(),
+        attributes: v.attributes,
+      });
     this.scratch = new Uint8Array(0);
     // A truncated file is refused here, naming the first slab that does not fit.
     for (const v of nc.variables) {
@@ -65,7 +79,9 @@ class Netcdf3Dataset extends NamedVariables implements DatasetReader {
       const { offset, byteLength } = nc.slabRange(v.name, last);
       if (offset + byteLength > source.byteLength) {
         const which = v.isRecord ? `record ${last} of "${v.name}"` : `"${v.name}"`;
-        throw new RangeError(`truncated NetCDF file: ${which} ends at byte ${offset + byteLength} but the file has ${source.byteLength} bytes`);
+        throw new RangeError(
+          `truncated NetCDF file: ${which} ends at byte ${offset + byteLength} but the file has ${source.byteLength} bytes`,
+        );
       }
     }
   }
@@ -73,7 +89,8 @@ class Netcdf3Dataset extends NamedVariables implements DatasetReader {
   readRecord(name: string, index: number, options: ReadOptions = {}): Float64Array {
     const v = this.nc.variable(name);
     const count = this.recordCount(name);
-    if (!(Number.isInteger(index) && index >= 0 && index < count)) throw new RangeError(`record ${index} of "${name}" does not exist (it has ${count})`);
+    if (!(Number.isInteger(index) && index >= 0 && index < count))
+      throw new RangeError(`record ${index} of "${name}" does not exist (it has ${count})`);
     if (v.type === 'char') throw new RangeError(`"${name}" holds text (char), not numbers`);
     const n = this.recordLength(name);
     if (v.isRecord) return this.readSlab(v.name, v.type, this.nc.slabRange(name, index).offset, n, index, options);
@@ -89,11 +106,19 @@ class Netcdf3Dataset extends NamedVariables implements DatasetReader {
     if (out.length !== n) throw new RangeError(`readAll("${name}"): out has ${out.length} values, the variable ${n}`);
     if (!v.isRecord) return this.readSlab(name, v.type, v.begin, n, 0, { ...options, out });
     const per = v.slabCount;
-    for (let r = 0; r < this.nc.numRecords; r++) this.readRecord(name, r, { out: out.subarray(r * per, (r + 1) * per), onProgress: options.onProgress });
+    for (let r = 0; r < this.nc.numRecords; r++)
+      this.readRecord(name, r, { out: out.subarray(r * per, (r + 1) * per), onProgress: options.onProgress });
     return out;
   }
 
-  private readSlab(name: string, type: NcType, offset: number, n: number, record: number, options: ReadOptions): Float64Array {
+  private readSlab(
+    name: string,
+    type: NcType,
+    offset: number,
+    n: number,
+    record: number,
+    options: ReadOptions,
+  ): Float64Array {
     const out = options.out ?? new Float64Array(n);
     if (out.length !== n) throw new RangeError(`readRecord("${name}"): out has ${out.length} values, a record ${n}`);
     const size = NC_TYPE_SIZE[type];

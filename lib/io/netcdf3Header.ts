@@ -38,7 +38,8 @@ export function writeHeader(view: DataView, file: ValidFile, layout: Netcdf3Layo
     else w.u64(layout.begins[k]);
   });
 
-  if (w.offset !== layout.headerSize) throw new Error(`NetCDF writer: header is ${w.offset} bytes, planned ${layout.headerSize}`);
+  if (w.offset !== layout.headerSize)
+    throw new Error(`NetCDF writer: header is ${w.offset} bytes, planned ${layout.headerSize}`);
 }
 
 /** Sequential big-endian writes into the header region. */

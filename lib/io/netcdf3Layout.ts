@@ -34,7 +34,11 @@ export function planLayout(file: ValidFile): Netcdf3Layout {
   let headerSize = 8; // magic, numrecs
   headerSize += listSize(file.dimensions.map((d) => nameSize(d.name) + 4));
   headerSize += attributeListSize(file.attributes);
-  headerSize += listSize(file.variables.map((v) => nameSize(v.name) + 4 + 4 * v.dimIds.length + attributeListSize(v.attributes) + 4 + 4 + offsetSize));
+  headerSize += listSize(
+    file.variables.map(
+      (v) => nameSize(v.name) + 4 + 4 * v.dimIds.length + attributeListSize(v.attributes) + 4 + 4 + offsetSize,
+    ),
+  );
 
   const begins: number[] = new Array(file.variables.length);
   let offset = headerSize;
@@ -57,7 +61,9 @@ export function planLayout(file: ValidFile): Netcdf3Layout {
   if (file.format === 'cdf1') {
     file.variables.forEach((v, k) => {
       if (begins[k] > CDF1_MAX_OFFSET) {
-        throw new RangeError(`NetCDF: variable "${v.name}" would begin at byte ${begins[k]}, beyond the classic format's 2 GiB offsets; use the 64-bit offset format (cdf2)`);
+        throw new RangeError(
+          `NetCDF: variable "${v.name}" would begin at byte ${begins[k]}, beyond the classic format's 2 GiB offsets; use the 64-bit offset format (cdf2)`,
+        );
       }
     });
   }

@@ -24,7 +24,8 @@ export function netcdfNameProblem(name: string): string | null {
   }
   for (let i = 0; i < name.length; i++) {
     const c = name.charCodeAt(i);
-    if (c < 0x20 || c === 0x7f) return `control character U+${c.toString(16).padStart(4, '0').toUpperCase()} at position ${i}`;
+    if (c < 0x20 || c === 0x7f)
+      return `control character U+${c.toString(16).padStart(4, '0').toUpperCase()} at position ${i}`;
     if (c === 0x2f) return `'/' is not allowed (position ${i})`;
   }
   if (name.endsWith(' ')) return 'trailing spaces are not allowed';

@@ -51,10 +51,24 @@ export interface NcFile {
 }
 
 /** nc_type codes of the specification (NC_BYTE = 1 … NC_DOUBLE = 6). */
-export const NC_TYPE_CODE: Readonly<Record<NcType, number>> = { byte: 1, char: 2, short: 3, int: 4, float: 5, double: 6 };
+export const NC_TYPE_CODE: Readonly<Record<NcType, number>> = {
+  byte: 1,
+  char: 2,
+  short: 3,
+  int: 4,
+  float: 5,
+  double: 6,
+};
 
 /** External size in bytes of one value. */
-export const NC_TYPE_SIZE: Readonly<Record<NcType, number>> = { byte: 1, char: 1, short: 2, int: 4, float: 4, double: 8 };
+export const NC_TYPE_SIZE: Readonly<Record<NcType, number>> = {
+  byte: 1,
+  char: 1,
+  short: 2,
+  int: 4,
+  float: 4,
+  double: 8,
+};
 
 /** The specification's default fill values, used for data padding when no _FillValue is given. */
 export const NC_DEFAULT_FILL: Readonly<Record<NcType, number>> = {
@@ -90,6 +104,14 @@ export function pad4(n: number): number {
 
 /** Attribute builders, so that descriptions read as a list of name/value pairs. */
 export const ncText = (name: string, value: string): NcAttribute => ({ name, type: 'char', value });
-export const ncDouble = (name: string, value: number | ArrayLike<number>): NcAttribute => ({ name, type: 'double', value });
-export const ncFloat = (name: string, value: number | ArrayLike<number>): NcAttribute => ({ name, type: 'float', value });
+export const ncDouble = (name: string, value: number | ArrayLike<number>): NcAttribute => ({
+  name,
+  type: 'double',
+  value,
+});
+export const ncFloat = (name: string, value: number | ArrayLike<number>): NcAttribute => ({
+  name,
+  type: 'float',
+  value,
+});
 export const ncInt = (name: string, value: number | ArrayLike<number>): NcAttribute => ({ name, type: 'int', value });

@@ -72,8 +72,12 @@ export function validateNetcdf3(file: NcFile, mode: 'whole' | 'records'): ValidF
     checkNetcdfName(d.name, 'a dimension');
     if (dimId.has(d.name)) fail(`dimension "${d.name}" is defined twice`);
     if (d.unlimited) {
-      if (recordDimId >= 0) fail(`dimension "${d.name}": only one unlimited dimension is allowed ("${dimensions[recordDimId].name}" is one)`);
-      if (d.size !== undefined && d.size !== 0) fail(`unlimited dimension "${d.name}": its length is the record count, so give no size (got ${d.size})`);
+      if (recordDimId >= 0)
+        fail(
+          `dimension "${d.name}": only one unlimited dimension is allowed ("${dimensions[recordDimId].name}" is one)`,
+        );
+      if (d.size !== undefined && d.size !== 0)
+        fail(`unlimited dimension "${d.name}": its length is the record count, so give no size (got ${d.size})`);
       recordDimId = dimensions.length;
     } else if (!(Number.isInteger(d.size) && (d.size as number) >= 1 && (d.size as number) <= NC_MAX_NON_NEG)) {
       fail(`dimension "${d.name}": size must be an integer from 1 to ${NC_MAX_NON_NEG}, got ${d.size}`);
@@ -98,13 +102,17 @@ export function validateNetcdf3(file: NcFile, mode: 'whole' | 'records'): ValidF
     const what = `variable "${v.name}"`;
     if (!v.isRecord) {
       if (v.data === undefined) fail(`${what} is not a record variable and needs its data`);
-      if (v.data!.length !== v.slabCount) fail(`${what} needs ${v.slabCount} values (its shape), got ${v.data!.length}`);
+      if (v.data!.length !== v.slabCount)
+        fail(`${what} needs ${v.slabCount} values (its shape), got ${v.data!.length}`);
     } else if (mode === 'records') {
-      if (v.data !== undefined) fail(`${what} is a record variable: append its records one at a time instead of giving data`);
+      if (v.data !== undefined)
+        fail(`${what} is a record variable: append its records one at a time instead of giving data`);
     } else {
-      if (v.data === undefined) fail(`${what} is a record variable and needs its data (all records, record index slowest)`);
+      if (v.data === undefined)
+        fail(`${what} is a record variable and needs its data (all records, record index slowest)`);
       const n = v.data!.length / v.slabCount;
-      if (!Number.isInteger(n)) fail(`${what} has ${v.data!.length} values, not a whole number of records of ${v.slabCount}`);
+      if (!Number.isInteger(n))
+        fail(`${what} has ${v.data!.length} values, not a whole number of records of ${v.slabCount}`);
       if (v === recordVariables[0]) numrecs = n;
       else if (n !== numrecs) fail(`${what} has ${n} records but "${recordVariables[0].name}" has ${numrecs}`);
     }
@@ -113,7 +121,12 @@ export function validateNetcdf3(file: NcFile, mode: 'whole' | 'records'): ValidF
   return { format, dimensions, recordDimId, attributes, variables, recordVariables, numrecs };
 }
 
-function validateVariable(v: NcVariable, dimId: Map<string, number>, dims: ValidFile['dimensions'], recordDimId: number): ValidVariable {
+function validateVariable(
+  v: NcVariable,
+  dimId: Map<string, number>,
+  dims: ValidFile['dimensions'],
+  recordDimId: number,
+): ValidVariable {
   const what = `variable "${v.name}"`;
   if (!TYPES.includes(v.type)) fail(`${what}: type must be one of ${TYPES.join(', ')}, got ${JSON.stringify(v.type)}`);
   const dimIds = v.dimensions.map((name, k) => {
@@ -127,13 +140,27 @@ function validateVariable(v: NcVariable, dimId: Map<string, number>, dims: Valid
   for (const id of dimIds) if (id !== recordDimId) slabCount *= dims[id].size;
   const slabBytes = slabCount * NC_TYPE_SIZE[v.type];
   const vsize = pad4(slabBytes);
-  if (vsize > NC_MAX_VSIZE) fail(`${what} needs ${vsize} bytes${isRecord ? ' per record' : ''}; the format's vsize allows at most ${NC_MAX_VSIZE}`);
+  if (vsize > NC_MAX_VSIZE)
+    fail(
+      `${what} needs ${vsize} bytes${isRecord ? ' per record' : ''}; the format's vsize allows at most ${NC_MAX_VSIZE}`,
+    );
   const attributes = validateAttributes(v.attributes ?? [], `attribute of ${what}`);
   const fillAttr = attributes.find((a) => a.name === '_FillValue');
   if (fillAttr && (fillAttr.type !== v.type || fillAttr.values.length !== 1)) {
     fail(`${what}: _FillValue must be a single ${v.type} value, like the variable`);
   }
-  return { name: v.name, type: v.type, dimIds, attributes, isRecord, slabCount, slabBytes, vsize, fill: fillAttr ? fillAttr.values[0] : NC_DEFAULT_FILL[v.type], data: dataOf(v.data, v.type, what) };
+  return {
+    name: v.name,
+    type: v.type,
+    dimIds,
+    attributes,
+    isRecord,
+    slabCount,
+    slabBytes,
+    vsize,
+    fill: fillAttr ? fillAttr.values[0] : NC_DEFAULT_FILL[v.type],
+    data: dataOf(v.data, v.type, what),
+  };
 }
 
 function dataOf(data: NcData | undefined, type: NcType, what: string): ArrayLike<number> | undefined {
@@ -143,7 +170,8 @@ function dataOf(data: NcData | undefined, type: NcType, what: string): ArrayLike
     if (data instanceof Uint8Array) return data;
     return fail(`${what} is of type char: give its data as a string or a Uint8Array`);
   }
-  if (typeof data === 'string' || typeof (data as ArrayLike<number>).length !== 'number') return fail(`${what} is of type ${type}: give its data as an array of numbers`);
+  if (typeof data === 'string' || typeof (data as ArrayLike<number>).length !== 'number')
+    return fail(`${what} is of type ${type}: give its data as an array of numbers`);
   return data;
 }
 
@@ -158,7 +186,8 @@ function validateAttributes(list: readonly NcAttribute[], what: string): ValidAt
       if (typeof a.value !== 'string') fail(`${where} is text: its value must be a string`);
       return { name: a.name, type: 'char', values: netcdfTextBytes(a.value as string) };
     }
-    if (!TYPES.includes(a.type)) fail(`${where}: type must be one of ${TYPES.join(', ')}, got ${JSON.stringify(a.type)}`);
+    if (!TYPES.includes(a.type))
+      fail(`${where}: type must be one of ${TYPES.join(', ')}, got ${JSON.stringify(a.type)}`);
     const values: ArrayLike<number> = typeof a.value === 'number' ? [a.value] : a.value;
     if (typeof values !== 'object' || values === null || typeof values.length !== 'number' || values.length === 0) {
       fail(`${where}: a ${a.type} attribute needs a number or a non-empty array of numbers`);

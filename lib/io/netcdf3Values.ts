@@ -10,7 +10,15 @@ const F32_OVERFLOW = 3.4028235677973366e38;
  * values that would overflow, naming `what` and the index; the check costs one compare per value.
  * Returns the offset just past the values (before any padding). Allocates nothing.
  */
-export function writeValues(view: DataView, offset: number, type: NcType, data: ArrayLike<number>, start: number, count: number, what: string): number {
+export function writeValues(
+  view: DataView,
+  offset: number,
+  type: NcType,
+  data: ArrayLike<number>,
+  start: number,
+  count: number,
+  what: string,
+): number {
   const end = start + count;
   let o = offset;
   switch (type) {
@@ -20,7 +28,8 @@ export function writeValues(view: DataView, offset: number, type: NcType, data: 
     case 'float':
       for (let k = start; k < end; k++, o += 4) {
         const x = data[k];
-        if ((x >= F32_OVERFLOW || x <= -F32_OVERFLOW) && x !== Infinity && x !== -Infinity) checkValue(x, type, `${what}[${k}]`);
+        if ((x >= F32_OVERFLOW || x <= -F32_OVERFLOW) && x !== Infinity && x !== -Infinity)
+          checkValue(x, type, `${what}[${k}]`);
         view.setFloat32(o, x);
       }
       return o;
@@ -34,14 +43,14 @@ export function writeValues(view: DataView, offset: number, type: NcType, data: 
     case 'short':
       for (let k = start; k < end; k++, o += 2) {
         const x = data[k];
-        if (((x << 16) >> 16) !== x) checkValue(x, type, `${what}[${k}]`);
+        if ((x << 16) >> 16 !== x) checkValue(x, type, `${what}[${k}]`);
         view.setInt16(o, x);
       }
       return o;
     case 'byte':
       for (let k = start; k < end; k++, o++) {
         const x = data[k];
-        if (((x << 24) >> 24) !== x) checkValue(x, type, `${what}[${k}]`);
+        if ((x << 24) >> 24 !== x) checkValue(x, type, `${what}[${k}]`);
         view.setInt8(o, x);
       }
       return o;
@@ -66,14 +75,21 @@ export function writeDataPadding(view: DataView, offset: number, type: NcType, n
 }
 
 /** Integer ranges of the integer types; float and double take any number (float is checked for overflow). */
-const INT_RANGE: Partial<Record<NcType, [number, number]>> = { byte: [-128, 127], short: [-32768, 32767], int: [-2147483648, 2147483647] };
+const INT_RANGE: Partial<Record<NcType, [number, number]>> = {
+  byte: [-128, 127],
+  short: [-32768, 32767],
+  int: [-2147483648, 2147483647],
+};
 
 /** Refuses a value the type cannot hold exactly (integers) or at all (float overflow). */
 export function checkValue(x: number, type: NcType, where: string): void {
   if (typeof x !== 'number') throw new RangeError(`NetCDF: ${where} is not a number (${typeof x})`);
   const range = INT_RANGE[type];
   if (range) {
-    if (!Number.isInteger(x) || x < range[0] || x > range[1]) throw new RangeError(`NetCDF: ${where} = ${x} does not fit type ${type} (an integer from ${range[0]} to ${range[1]})`);
+    if (!Number.isInteger(x) || x < range[0] || x > range[1])
+      throw new RangeError(
+        `NetCDF: ${where} = ${x} does not fit type ${type} (an integer from ${range[0]} to ${range[1]})`,
+      );
   } else if (type === 'float' && Number.isFinite(x) && !Number.isFinite(Math.fround(x))) {
     throw new RangeError(`NetCDF: ${where} = ${x} overflows a float (largest ≈ 3.4028235e38)`);
   }

@@ -26,7 +26,8 @@ export function encodeNetcdf3(file: NcFile): Uint8Array {
       writeSlab(view, layout.begins[k], v, v.data!, 0, true);
       return;
     }
-    for (let r = 0; r < valid.numrecs; r++) writeSlab(view, layout.begins[k] + r * layout.recsize, v, v.data!, r * v.slabCount, !packed);
+    for (let r = 0; r < valid.numrecs; r++)
+      writeSlab(view, layout.begins[k] + r * layout.recsize, v, v.data!, r * v.slabCount, !packed);
   });
   return bytes;
 }
@@ -63,9 +64,11 @@ export class Netcdf3RecordWriter {
    * of a buffer reused by the next call; write it at `recordOffset(numrecs − 1)` (the end of the file).
    */
   appendRecord(values: Readonly<Record<string, NcData>>): Uint8Array {
-    if (this.count >= NC_MAX_NON_NEG) throw new RangeError(`NetCDF: the format allows at most ${NC_MAX_NON_NEG} records`);
+    if (this.count >= NC_MAX_NON_NEG)
+      throw new RangeError(`NetCDF: the format allows at most ${NC_MAX_NON_NEG} records`);
     for (const name of Object.keys(values)) {
-      if (!this.file.recordVariables.some((v) => v.name === name)) throw new RangeError(`NetCDF: record ${this.count}: "${name}" is not a record variable of this file`);
+      if (!this.file.recordVariables.some((v) => v.name === name))
+        throw new RangeError(`NetCDF: record ${this.count}: "${name}" is not a record variable of this file`);
     }
     const packed = this.file.recordVariables.length === 1;
     let offset = 0;
@@ -75,7 +78,8 @@ export class Netcdf3RecordWriter {
       if (given === undefined) throw new RangeError(`NetCDF: ${what} is missing`);
       const data = typeof given === 'string' ? (v.type === 'char' ? netcdfTextBytes(given) : null) : given;
       if (data === null) throw new RangeError(`NetCDF: ${what}: a ${v.type} variable takes numbers, not a string`);
-      if (data.length !== v.slabCount) throw new RangeError(`NetCDF: ${what} needs ${v.slabCount} values, got ${data.length}`);
+      if (data.length !== v.slabCount)
+        throw new RangeError(`NetCDF: ${what} needs ${v.slabCount} values, got ${data.length}`);
       writeSlab(this.recordView, offset, v, data, 0, !packed);
       offset += packed ? v.slabBytes : v.vsize;
     }
@@ -104,7 +108,14 @@ export class Netcdf3RecordWriter {
 }
 
 /** One slab of a variable at `offset`, then its fill-value padding up to vsize when `pad`. */
-function writeSlab(view: DataView, offset: number, v: ValidVariable, data: ArrayLike<number>, start: number, pad: boolean): void {
+function writeSlab(
+  view: DataView,
+  offset: number,
+  v: ValidVariable,
+  data: ArrayLike<number>,
+  start: number,
+  pad: boolean,
+): void {
   const end = writeValues(view, offset, v.type, data, start, v.slabCount, `variable "${v.name}"`);
   if (pad && v.vsize > v.slabBytes) writeDataPadding(view, end, v.type, v.vsize - v.slabBytes, v.fill);
 }
@@ -113,6 +124,8 @@ function allocate(size: number): Uint8Array {
   try {
     return new Uint8Array(size);
   } catch {
-    throw new RangeError(`NetCDF: the file needs ${size} bytes, more than can be held in memory; write it record by record with Netcdf3RecordWriter`);
+    throw new RangeError(
+      `NetCDF: the file needs ${size} bytes, more than can be held in memory; write it record by record with Netcdf3RecordWriter`,
+    );
   }
 }

@@ -8,7 +8,8 @@ export function decodeSlab(type: NcType, bytes: Uint8Array, out?: NcArray): NcAr
   const size = NC_TYPE_SIZE[type];
   const n = Math.floor(bytes.length / size);
   const a = out ?? newArray(type, n);
-  if (a.length !== n || a.constructor !== ARRAY_OF[type]) throw new RangeError(`decodeSlab: out must be a ${ARRAY_OF[type].name} of length ${n} for ${type} values`);
+  if (a.length !== n || a.constructor !== ARRAY_OF[type])
+    throw new RangeError(`decodeSlab: out must be a ${ARRAY_OF[type].name} of length ${n} for ${type} values`);
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   if (type === 'double') for (let k = 0; k < n; k++) a[k] = view.getFloat64(8 * k);
   else if (type === 'float') for (let k = 0; k < n; k++) a[k] = view.getFloat32(4 * k);
@@ -19,9 +20,15 @@ export function decodeSlab(type: NcType, bytes: Uint8Array, out?: NcArray): NcAr
 }
 
 /** The typed array each external type decodes into. */
-const ARRAY_OF = { double: Float64Array, float: Float32Array, int: Int32Array, short: Int16Array, byte: Int8Array, char: Uint8Array } as const;
+const ARRAY_OF = {
+  double: Float64Array,
+  float: Float32Array,
+  int: Int32Array,
+  short: Int16Array,
+  byte: Int8Array,
+  char: Uint8Array,
+} as const;
 
 export function newArray(type: NcType, n: number): NcArray {
   return new ARRAY_OF[type](n);
 }
-

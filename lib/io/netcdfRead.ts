@@ -64,7 +64,11 @@ export function readNetcdf(input: ArrayBuffer | Uint8Array, options: { headerOnl
   try {
     reader = new NetCDFReader(bytes);
   } catch (e) {
-    if (e instanceof RangeError) throw new RangeError(`truncated or corrupt NetCDF file: the header runs past the end of the ${bytes.length} bytes given`, { cause: e });
+    if (e instanceof RangeError)
+      throw new RangeError(
+        `truncated or corrupt NetCDF file: the header runs past the end of the ${bytes.length} bytes given`,
+        { cause: e },
+      );
     throw new RangeError(`cannot read this NetCDF file: ${(e as Error).message}`, { cause: e });
   }
   const h = reader.header;
@@ -72,29 +76,57 @@ export function readNetcdf(input: ArrayBuffer | Uint8Array, options: { headerOnl
   const dims = h.dimensions ?? [];
   const variables: NcReadVariable[] = (h.variables ?? []).map((v) => {
     const type = v.type as NcType;
-    if (!TYPE_NAMES.includes(type)) throw new RangeError(`corrupt NetCDF file: variable ${JSON.stringify(v.name)} has an unknown type`);
+    if (!TYPE_NAMES.includes(type))
+      throw new RangeError(`corrupt NetCDF file: variable ${JSON.stringify(v.name)} has an unknown type`);
     const isRecord = v.record;
     let slabCount = 1;
     v.dimensions.forEach((id, k) => {
-      if (id >= dims.length) throw new RangeError(`corrupt NetCDF file: variable ${JSON.stringify(v.name)} refers to dimension ${id} of ${dims.length}`);
+      if (id >= dims.length)
+        throw new RangeError(
+          `corrupt NetCDF file: variable ${JSON.stringify(v.name)} refers to dimension ${id} of ${dims.length}`,
+        );
       if (!(isRecord && k === 0)) slabCount *= dims[id].size;
     });
-    return { name: utf8FromNetcdfjs(v.name), type, dimensions: v.dimensions.map((id) => utf8FromNetcdfjs(dims[id].name)), shape: [], attributes: attributesOf(v.attributes as unknown as RawAttribute[]), isRecord, slabCount, begin: v.offset };
+    return {
+      name: utf8FromNetcdfjs(v.name),
+      type,
+      dimensions: v.dimensions.map((id) => utf8FromNetcdfjs(dims[id].name)),
+      shape: [],
+      attributes: attributesOf(v.attributes as unknown as RawAttribute[]),
+      isRecord,
+      slabCount,
+      begin: v.offset,
+    };
   });
   const recordVars = variables.filter((v) => v.isRecord);
-  const recordSize = recordVars.length === 1 ? recordVars[0].slabCount * NC_TYPE_SIZE[recordVars[0].type] : recordVars.reduce((s, v) => s + pad4(v.slabCount * NC_TYPE_SIZE[v.type]), 0);
+  const recordSize =
+    recordVars.length === 1
+      ? recordVars[0].slabCount * NC_TYPE_SIZE[recordVars[0].type]
+      : recordVars.reduce((s, v) => s + pad4(v.slabCount * NC_TYPE_SIZE[v.type]), 0);
   let numRecords = h.recordDimension.length;
   if (numRecords === NC_STREAMING) {
     // Indeterminate record count: the specification says to infer it from the file length.
     const start = recordVars.length ? Math.min(...recordVars.map((v) => v.begin)) : bytes.length;
     numRecords = recordSize > 0 ? Math.floor((bytes.length - start) / recordSize) : 0;
   }
-  const dimensions = dims.map((d, id) => ({ name: utf8FromNetcdfjs(d.name), size: id === recordId ? numRecords : d.size, unlimited: id === recordId }));
+  const dimensions = dims.map((d, id) => ({
+    name: utf8FromNetcdfjs(d.name),
+    size: id === recordId ? numRecords : d.size,
+    unlimited: id === recordId,
+  }));
   variables.forEach((v, k) => {
     v.shape = h.variables[k].dimensions.map((id) => dimensions[id].size);
   });
 
-  const file = new View(bytes, reader.header.version === 1 ? 'cdf1' : 'cdf2', dimensions, attributesOf(h.globalAttributes as unknown as RawAttribute[]), variables, numRecords, recordSize);
+  const file = new View(
+    bytes,
+    reader.header.version === 1 ? 'cdf1' : 'cdf2',
+    dimensions,
+    attributesOf(h.globalAttributes as unknown as RawAttribute[]),
+    variables,
+    numRecords,
+    recordSize,
+  );
   if (!options.headerOnly) {
     for (const v of variables) {
       const last = v.isRecord ? numRecords - 1 : 0;
@@ -120,7 +152,10 @@ class View implements NetcdfFile {
 
   variable(name: string): NcReadVariable {
     const v = this.byName.get(name);
-    if (!v) throw new RangeError(`NetCDF file has no variable "${name}" (it has ${this.variables.map((x) => `"${x.name}"`).join(', ') || 'none'})`);
+    if (!v)
+      throw new RangeError(
+        `NetCDF file has no variable "${name}" (it has ${this.variables.map((x) => `"${x.name}"`).join(', ') || 'none'})`,
+      );
     return v;
   }
 
@@ -128,16 +163,25 @@ class View implements NetcdfFile {
     const v = this.variable(name);
     const limit = v.isRecord ? this.numRecords : 1;
     if (!(Number.isInteger(index) && index >= 0 && index < limit)) {
-      throw new RangeError(v.isRecord ? `record ${index} of "${name}" does not exist (the file has ${this.numRecords} records)` : `"${name}" is not a record variable: its only slab is index 0`);
+      throw new RangeError(
+        v.isRecord
+          ? `record ${index} of "${name}" does not exist (the file has ${this.numRecords} records)`
+          : `"${name}" is not a record variable: its only slab is index 0`,
+      );
     }
-    return { offset: v.begin + (v.isRecord ? index * this.recordSize : 0), byteLength: v.slabCount * NC_TYPE_SIZE[v.type] };
+    return {
+      offset: v.begin + (v.isRecord ? index * this.recordSize : 0),
+      byteLength: v.slabCount * NC_TYPE_SIZE[v.type],
+    };
   }
 
   checkInside(v: NcReadVariable, index: number): void {
     const { offset, byteLength } = this.slabRange(v.name, index);
     if (offset + byteLength > this.bytes.length) {
       const which = v.isRecord ? `record ${index} of "${v.name}"` : `"${v.name}"`;
-      throw new RangeError(`truncated NetCDF file: ${which} ends at byte ${offset + byteLength} but the file has ${this.bytes.length} bytes`);
+      throw new RangeError(
+        `truncated NetCDF file: ${which} ends at byte ${offset + byteLength} but the file has ${this.bytes.length} bytes`,
+      );
     }
   }
 
@@ -159,9 +203,12 @@ class View implements NetcdfFile {
 
 function checkMagic(b: Uint8Array): void {
   if (b.length >= 4 && b[0] === 0x89 && b[1] === 0x48 && b[2] === 0x44 && b[3] === 0x46) {
-    throw new RangeError('not a NetCDF-3 file: this is HDF5 (NetCDF-4); Stria reads the classic and 64-bit offset formats only');
+    throw new RangeError(
+      'not a NetCDF-3 file: this is HDF5 (NetCDF-4); Stria reads the classic and 64-bit offset formats only',
+    );
   }
-  if (b.length < 4 || b[0] !== 0x43 || b[1] !== 0x44 || b[2] !== 0x46) throw new RangeError('not a NetCDF file: it does not start with "CDF"');
+  if (b.length < 4 || b[0] !== 0x43 || b[1] !== 0x44 || b[2] !== 0x46)
+    throw new RangeError('not a NetCDF file: it does not start with "CDF"');
   if (b[3] === 5) throw new RangeError('NetCDF CDF-5 (64-bit data) is not supported: Stria reads CDF-1 and CDF-2');
   if (b[3] !== 1 && b[3] !== 2) throw new RangeError(`not a NetCDF file: unknown version byte ${b[3]} after "CDF"`);
   if (b.length < 32) throw new RangeError(`truncated NetCDF file: ${b.length} bytes is shorter than any header`);

@@ -32,7 +32,12 @@ export function attributesOf(list: readonly RawAttribute[]): Record<string, NcAt
       const signed = (value as number[]).map((x) => (x << 24) >> 24);
       value = signed.length === 1 ? signed[0] : signed;
     }
-    Object.defineProperty(out, utf8FromNetcdfjs(a.name), { value, enumerable: true, writable: true, configurable: true });
+    Object.defineProperty(out, utf8FromNetcdfjs(a.name), {
+      value,
+      enumerable: true,
+      writable: true,
+      configurable: true,
+    });
   }
   return out;
 }

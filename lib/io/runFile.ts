@@ -23,19 +23,32 @@ export const RUN_FILE_FORMAT = 'stria-run';
 export const RUN_FILE_VERSION = 1;
 export const QHAT_ENCODING = 'float64le-base64';
 
-const int32 = v.pipe(v.number('must be a number'), v.integer('must be an integer'), v.minValue(-0x80000000, 'must fit in a signed 32-bit integer'), v.maxValue(0x7fffffff, 'must fit in a signed 32-bit integer'));
+const int32 = v.pipe(
+  v.number('must be a number'),
+  v.integer('must be an integer'),
+  v.minValue(-0x80000000, 'must fit in a signed 32-bit integer'),
+  v.maxValue(0x7fffffff, 'must fit in a signed 32-bit integer'),
+);
 const finite = (what: string) => v.pipe(v.number(`${what}: must be a number`), v.finite(`${what}: must be finite`));
 
 const RunFileSchema = v.object({
   format: v.literal(RUN_FILE_FORMAT, `must be "${RUN_FILE_FORMAT}" (this is not a Stria run file)`),
-  version: v.literal(RUN_FILE_VERSION, `must be ${RUN_FILE_VERSION}: this Stria reads run files of version ${RUN_FILE_VERSION}`),
+  version: v.literal(
+    RUN_FILE_VERSION,
+    `must be ${RUN_FILE_VERSION}: this Stria reads run files of version ${RUN_FILE_VERSION}`,
+  ),
   saved: v.optional(v.string('must be a date string')),
   params: v.record(v.string(), v.unknown(), 'must be an object of named parameters'),
   state: v.object(
     {
       time: v.pipe(finite('model time'), v.minValue(0, 'model time must be ≥ 0')),
       // Beyond 2^53 adding a step no longer changes the count, and a run counting steps never ends.
-      steps: v.pipe(v.number('must be a number'), v.integer('must be an integer'), v.minValue(0, 'must be ≥ 0'), v.maxValue(Number.MAX_SAFE_INTEGER, `must be ≤ ${Number.MAX_SAFE_INTEGER}`)),
+      steps: v.pipe(
+        v.number('must be a number'),
+        v.integer('must be an integer'),
+        v.minValue(0, 'must be ≥ 0'),
+        v.maxValue(Number.MAX_SAFE_INTEGER, `must be ≤ ${Number.MAX_SAFE_INTEGER}`),
+      ),
       dt: v.pipe(finite('time step'), v.gtValue(0, 'time step must be > 0')),
       rng: v.pipe(
         v.array(int32, 'must be an array of four 32-bit integers'),
@@ -47,7 +60,10 @@ const RunFileSchema = v.object({
         {
           encoding: v.literal(QHAT_ENCODING, `must be "${QHAT_ENCODING}"`),
           length: v.pipe(v.number('must be a number'), v.integer('must be an integer'), v.minValue(0, 'must be ≥ 0')),
-          data: v.pipe(v.string('must be a base64 string'), v.regex(/^[A-Za-z0-9+/]*={0,2}$/, 'must be standard base64 (A–Z, a–z, 0–9, +, /, = padding)')),
+          data: v.pipe(
+            v.string('must be a base64 string'),
+            v.regex(/^[A-Za-z0-9+/]*={0,2}$/, 'must be standard base64 (A–Z, a–z, 0–9, +, /, = padding)'),
+          ),
         },
         'must be an object with encoding, length and data',
       ),
@@ -99,21 +115,34 @@ export function decodeRunFile(text: string): Checkpoint {
   try {
     params = validateParams(rawParams);
   } catch (e) {
-    if (isInputError(e, 'parameters')) throw new InputError('run file', `params.${e.issues[0].field}`, e.issues[0].message);
+    if (isInputError(e, 'parameters'))
+      throw new InputError('run file', `params.${e.issues[0].field}`, e.issues[0].message);
     throw e;
   }
   // A clock at which one more step changes nothing (t + dt = t) would never reach a later time.
   if (!(state.time + Math.min(state.dt, params.dt) > state.time)) {
-    throw new InputError('run file', 'state.time', `t = ${state.time} is too large for the time step ${Math.min(state.dt, params.dt)} to advance it`);
+    throw new InputError(
+      'run file',
+      'state.time',
+      `t = ${state.time} is too large for the time step ${Math.min(state.dt, params.dt)} to advance it`,
+    );
   }
   const grid = new Grid(params);
   const expected = 2 * grid.spectralSize;
   if (state.qHat.length !== expected) {
-    throw new InputError('run file', 'state.qHat.length', `is ${state.qHat.length}, but a ${params.nx} × ${params.ny} grid needs ${expected}`);
+    throw new InputError(
+      'run file',
+      'state.qHat.length',
+      `is ${state.qHat.length}, but a ${params.nx} × ${params.ny} grid needs ${expected}`,
+    );
   }
   const bytes = decodeBase64(state.qHat.data, 'state.qHat.data');
   if (bytes.length !== 8 * expected) {
-    throw new InputError('run file', 'state.qHat.data', `holds ${bytes.length} bytes, but ${expected} doubles need ${8 * expected}`);
+    throw new InputError(
+      'run file',
+      'state.qHat.data',
+      `holds ${bytes.length} bytes, but ${expected} doubles need ${8 * expected}`,
+    );
   }
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const qHat = new Float64Array(expected);
@@ -141,7 +170,11 @@ function checkSpectrum(qHat: Float64Array, grid: Grid): void {
         throw new InputError('run file', 'state.qHat.data', `mode (ix ${ix}, jy ${jy}) is not a finite number`);
       }
       if (!grid.kept(ix, jy) && (qHat[t] !== 0 || qHat[t + 1] !== 0)) {
-        throw new InputError('run file', 'state.qHat.data', `mode (ix ${ix}, jy ${jy}) lies outside the dealiased range but is not zero`);
+        throw new InputError(
+          'run file',
+          'state.qHat.data',
+          `mode (ix ${ix}, jy ${jy}) lies outside the dealiased range but is not zero`,
+        );
       }
     }
   }

@@ -23,7 +23,8 @@ export class BatchFFT {
   readonly sinT: Float64Array;
 
   constructor(n: number, cols: number) {
-    if (!Number.isInteger(n) || n < 1 || (n & (n - 1)) !== 0) throw new RangeError(`BatchFFT: n = ${n} is not a power of two`);
+    if (!Number.isInteger(n) || n < 1 || (n & (n - 1)) !== 0)
+      throw new RangeError(`BatchFFT: n = ${n} is not a power of two`);
     this.n = n;
     this.cols = cols;
     this.cosT = new Float64Array(n);
@@ -139,28 +140,42 @@ export class BatchFFT {
       }
       const m1 = p * s;
       const m3 = 3 * m1;
-      const w2r = cosT[2 * m1], w2i = sign * sinT[2 * m1];
+      const w2r = cosT[2 * m1],
+        w2i = sign * sinT[2 * m1];
       // Twiddles of the A and B outputs: w^1 and w^3, swapped with them for sign = −1.
-      const wAr = cosT[sign > 0 ? m1 : m3], wAi = sign * sinT[sign > 0 ? m1 : m3];
-      const wBr = cosT[sign > 0 ? m3 : m1], wBi = sign * sinT[sign > 0 ? m3 : m1];
+      const wAr = cosT[sign > 0 ? m1 : m3],
+        wAi = sign * sinT[sign > 0 ? m1 : m3];
+      const wBr = cosT[sign > 0 ? m3 : m1],
+        wBi = sign * sinT[sign > 0 ? m3 : m1];
       for (let t = 0; t < run; t += 2) {
-        const ar = src[i0 + t], ai = src[i0 + t + 1];
-        const br = src[i1 + t], bi = src[i1 + t + 1];
-        const cr = src[i2 + t], ci = src[i2 + t + 1];
-        const dr = src[i3 + t], di = src[i3 + t + 1];
-        const t0r = ar + cr, t0i = ai + ci;
-        const t1r = ar - cr, t1i = ai - ci;
-        const t2r = br + dr, t2i = bi + di;
-        const ur = br - dr, ui = bi - di;
+        const ar = src[i0 + t],
+          ai = src[i0 + t + 1];
+        const br = src[i1 + t],
+          bi = src[i1 + t + 1];
+        const cr = src[i2 + t],
+          ci = src[i2 + t + 1];
+        const dr = src[i3 + t],
+          di = src[i3 + t + 1];
+        const t0r = ar + cr,
+          t0i = ai + ci;
+        const t1r = ar - cr,
+          t1i = ai - ci;
+        const t2r = br + dr,
+          t2i = bi + di;
+        const ur = br - dr,
+          ui = bi - di;
         dst[o0 + t] = t0r + t2r;
         dst[o0 + t + 1] = t0i + t2i;
-        const x2r = t0r - t2r, x2i = t0i - t2i;
+        const x2r = t0r - t2r,
+          x2i = t0i - t2i;
         dst[o2 + t] = x2r * w2r - x2i * w2i;
         dst[o2 + t + 1] = x2r * w2i + x2i * w2r;
-        const xar = t1r - ui, xai = t1i + ur;
+        const xar = t1r - ui,
+          xai = t1i + ur;
         dst[oA + t] = xar * wAr - xai * wAi;
         dst[oA + t + 1] = xar * wAi + xai * wAr;
-        const xbr = t1r + ui, xbi = t1i - ur;
+        const xbr = t1r + ui,
+          xbi = t1i - ur;
         dst[oB + t] = xbr * wBr - xbi * wBi;
         dst[oB + t + 1] = xbr * wBi + xbi * wBr;
       }
@@ -184,11 +199,14 @@ export class BatchFFT {
       const wr = cosT[p];
       const wi = sign * sinT[p];
       for (let t = 0; t < run; t += 2) {
-        const ar = src[i0 + t], ai = src[i0 + t + 1];
-        const br = src[i1 + t], bi = src[i1 + t + 1];
+        const ar = src[i0 + t],
+          ai = src[i0 + t + 1];
+        const br = src[i1 + t],
+          bi = src[i1 + t + 1];
         dst[o0 + t] = ar + br;
         dst[o0 + t + 1] = ai + bi;
-        const xr = ar - br, xi = ai - bi;
+        const xr = ar - br,
+          xi = ai - bi;
         dst[o1 + t] = xr * wr - xi * wi;
         dst[o1 + t + 1] = xr * wi + xi * wr;
       }
@@ -219,14 +237,22 @@ function untwiddledRuns(src: Float64Array, dst: Float64Array, run: number, strid
   const oA = sign > 0 ? run : 3 * run;
   const oB = sign > 0 ? 3 * run : run;
   for (let t = 0; t < run; t += 2) {
-    const ar = src[t], ai = src[t + 1];
-    const br = src[i1 + t], bi = src[i1 + t + 1];
-    const cr = src[i2 + t], ci = src[i2 + t + 1];
-    const dr = src[i3 + t], di = src[i3 + t + 1];
-    const t0r = ar + cr, t0i = ai + ci;
-    const t1r = ar - cr, t1i = ai - ci;
-    const t2r = br + dr, t2i = bi + di;
-    const ur = br - dr, ui = bi - di;
+    const ar = src[t],
+      ai = src[t + 1];
+    const br = src[i1 + t],
+      bi = src[i1 + t + 1];
+    const cr = src[i2 + t],
+      ci = src[i2 + t + 1];
+    const dr = src[i3 + t],
+      di = src[i3 + t + 1];
+    const t0r = ar + cr,
+      t0i = ai + ci;
+    const t1r = ar - cr,
+      t1i = ai - ci;
+    const t2r = br + dr,
+      t2i = bi + di;
+    const ur = br - dr,
+      ui = bi - di;
     dst[t] = t0r + t2r;
     dst[t + 1] = t0i + t2i;
     dst[o2 + t] = t0r - t2r;

@@ -54,7 +54,17 @@ export function emptyBudget(): QuadraticBudget {
 }
 
 export function emptyReport(): StepReport {
-  return { time: 0, steps: 0, dt: 0, cfl: 0, maxU: 0, maxV: 0, kinetic: 0, energy: emptyBudget(), enstrophy: emptyBudget() };
+  return {
+    time: 0,
+    steps: 0,
+    dt: 0,
+    cfl: 0,
+    maxU: 0,
+    maxV: 0,
+    kinetic: 0,
+    energy: emptyBudget(),
+    enstrophy: emptyBudget(),
+  };
 }
 
 /** A plain copy, safe to keep or send (reports are reused and overwritten step after step). */

@@ -10,7 +10,13 @@ export const FIELD_NAMES: readonly FieldName[] = ['q', 'zeta', 'psi', 'u', 'v'];
  *   ψ̂ = −q̂/K²,  ζ̂ = −k²ψ̂,  û = −i ky ψ̂,  v̂ = i kx ψ̂,  K² = k² + k_d².
  * Modes the model does not keep come out zero. out may not alias qHat except for 'q'.
  */
-export function fieldSpectrum(name: FieldName, qHat: Float64Array, grid: Grid, lin: LinearOperator, out: Float64Array): void {
+export function fieldSpectrum(
+  name: FieldName,
+  qHat: Float64Array,
+  grid: Grid,
+  lin: LinearOperator,
+  out: Float64Array,
+): void {
   if (name === 'q') {
     if (out !== qHat) out.set(qHat);
     return;

@@ -31,30 +31,54 @@ export function lastStageToWorkGrid(src: Float64Array, W: Float64Array, nx: numb
     for (let r = 0; r < s; r++) {
       const ia = 2 * (r * cols + kx);
       const ib = ia + bOff;
-      const aar = src[ia], aai = src[ia + 1];
-      const abr = src[ia + run], abi = src[ia + run + 1];
-      const acr = src[ia + 2 * run], aci = src[ia + 2 * run + 1];
-      const adr = src[ia + 3 * run], adi = src[ia + 3 * run + 1];
-      const a0r = aar + acr, a0i = aai + aci;
-      const a1r = aar - acr, a1i = aai - aci;
-      const a2r = abr + adr, a2i = abi + adi;
-      const aur = abr - adr, aui = abi - adi;
-      const A0r = a0r + a2r, A0i = a0i + a2i;
-      const A2r = a0r - a2r, A2i = a0i - a2i;
-      const A1r = a1r - aui, A1i = a1i + aur;
-      const A3r = a1r + aui, A3i = a1i - aur;
-      const bar = src[ib], bai = src[ib + 1];
-      const bbr = src[ib + run], bbi = src[ib + run + 1];
-      const bcr = src[ib + 2 * run], bci = src[ib + 2 * run + 1];
-      const bdr = src[ib + 3 * run], bdi = src[ib + 3 * run + 1];
-      const b0r = bar + bcr, b0i = bai + bci;
-      const b1r = bar - bcr, b1i = bai - bci;
-      const b2r = bbr + bdr, b2i = bbi + bdi;
-      const bur = bbr - bdr, bui = bbi - bdi;
-      const B0r = b0r + b2r, B0i = b0i + b2i;
-      const B2r = b0r - b2r, B2i = b0i - b2i;
-      const B1r = b1r - bui, B1i = b1i + bur;
-      const B3r = b1r + bui, B3i = b1i - bur;
+      const aar = src[ia],
+        aai = src[ia + 1];
+      const abr = src[ia + run],
+        abi = src[ia + run + 1];
+      const acr = src[ia + 2 * run],
+        aci = src[ia + 2 * run + 1];
+      const adr = src[ia + 3 * run],
+        adi = src[ia + 3 * run + 1];
+      const a0r = aar + acr,
+        a0i = aai + aci;
+      const a1r = aar - acr,
+        a1i = aai - aci;
+      const a2r = abr + adr,
+        a2i = abi + adi;
+      const aur = abr - adr,
+        aui = abi - adi;
+      const A0r = a0r + a2r,
+        A0i = a0i + a2i;
+      const A2r = a0r - a2r,
+        A2i = a0i - a2i;
+      const A1r = a1r - aui,
+        A1i = a1i + aur;
+      const A3r = a1r + aui,
+        A3i = a1i - aur;
+      const bar = src[ib],
+        bai = src[ib + 1];
+      const bbr = src[ib + run],
+        bbi = src[ib + run + 1];
+      const bcr = src[ib + 2 * run],
+        bci = src[ib + 2 * run + 1];
+      const bdr = src[ib + 3 * run],
+        bdi = src[ib + 3 * run + 1];
+      const b0r = bar + bcr,
+        b0i = bai + bci;
+      const b1r = bar - bcr,
+        b1i = bai - bci;
+      const b2r = bbr + bdr,
+        b2i = bbi + bdi;
+      const bur = bbr - bdr,
+        bui = bbi - bdi;
+      const B0r = b0r + b2r,
+        B0i = b0i + b2i;
+      const B2r = b0r - b2r,
+        B2i = b0i - b2i;
+      const B1r = b1r - bui,
+        B1i = b1i + bur;
+      const B3r = b1r + bui,
+        B3i = b1i - bur;
       const o = up + 2 * r;
       W[o] = A0r - B0i;
       W[o + 1] = A0i + B0r;
@@ -91,18 +115,30 @@ export function lastStageProducts(data: Float64Array, run: number, speeds: Float
     const i1 = t + run;
     const i2 = i1 + run;
     const i3 = i2 + run;
-    const ar = data[t], ai = data[t + 1];
-    const br = data[i1], bi = data[i1 + 1];
-    const cr = data[i2], ci = data[i2 + 1];
-    const dr = data[i3], di = data[i3 + 1];
-    const t0r = ar + cr, t0i = ai + ci;
-    const t1r = ar - cr, t1i = ai - ci;
-    const t2r = br + dr, t2i = bi + di;
-    const ur = br - dr, ui = bi - di;
-    const u0 = t0r + t2r, v0 = t0i + t2i;
-    const u2 = t0r - t2r, v2 = t0i - t2i;
-    const u1 = t1r - ui, v1 = t1i + ur;
-    const u3 = t1r + ui, v3 = t1i - ur;
+    const ar = data[t],
+      ai = data[t + 1];
+    const br = data[i1],
+      bi = data[i1 + 1];
+    const cr = data[i2],
+      ci = data[i2 + 1];
+    const dr = data[i3],
+      di = data[i3 + 1];
+    const t0r = ar + cr,
+      t0i = ai + ci;
+    const t1r = ar - cr,
+      t1i = ai - ci;
+    const t2r = br + dr,
+      t2i = bi + di;
+    const ur = br - dr,
+      ui = bi - di;
+    const u0 = t0r + t2r,
+      v0 = t0i + t2i;
+    const u2 = t0r - t2r,
+      v2 = t0i - t2i;
+    const u1 = t1r - ui,
+      v1 = t1i + ur;
+    const u3 = t1r + ui,
+      v3 = t1i - ur;
     data[t] = u0 * v0;
     data[t + 1] = v0 * v0 - u0 * u0;
     data[i1] = u1 * v1;
@@ -134,38 +170,77 @@ export function lastStageToBlock(src: Float64Array, block: Float64Array, nx: num
     const rp = (s - r) % s; // the partner residue: nx − (j·s + r) = (3 − j)·s + (s − r)
     const pair = rp !== r;
     // Frequencies of the outputs X_j at r and at rp, and whether the block keeps them.
-    const k0 = r, k1 = s + r, k2 = 2 * s + r, k3 = 3 * s + r;
-    const q0 = rp, q1 = s + rp, q2 = 2 * s + rp, q3 = 3 * s + rp;
-    const keepK0 = k0 <= top, keepK1 = k1 <= top, keepK2 = k2 <= top, keepK3 = k3 <= top;
-    const keepQ0 = pair && q0 <= top, keepQ1 = pair && q1 <= top, keepQ2 = pair && q2 <= top, keepQ3 = pair && q3 <= top;
+    const k0 = r,
+      k1 = s + r,
+      k2 = 2 * s + r,
+      k3 = 3 * s + r;
+    const q0 = rp,
+      q1 = s + rp,
+      q2 = 2 * s + rp,
+      q3 = 3 * s + rp;
+    const keepK0 = k0 <= top,
+      keepK1 = k1 <= top,
+      keepK2 = k2 <= top,
+      keepK3 = k3 <= top;
+    const keepQ0 = pair && q0 <= top,
+      keepQ1 = pair && q1 <= top,
+      keepQ2 = pair && q2 <= top,
+      keepQ3 = pair && q3 <= top;
     const ir = 2 * r * ny;
     const ip = 2 * rp * ny;
     for (let y = 0; y < ny; y++) {
       const ia = ir + 2 * y;
-      const ar = src[ia], ai = src[ia + 1];
-      const br = src[ia + run], bi = src[ia + run + 1];
-      const cr = src[ia + 2 * run], ci = src[ia + 2 * run + 1];
-      const dr = src[ia + 3 * run], di = src[ia + 3 * run + 1];
-      const t0r = ar + cr, t0i = ai + ci;
-      const t1r = ar - cr, t1i = ai - ci;
-      const t2r = br + dr, t2i = bi + di;
-      const ur = br - dr, ui = bi - di;
+      const ar = src[ia],
+        ai = src[ia + 1];
+      const br = src[ia + run],
+        bi = src[ia + run + 1];
+      const cr = src[ia + 2 * run],
+        ci = src[ia + 2 * run + 1];
+      const dr = src[ia + 3 * run],
+        di = src[ia + 3 * run + 1];
+      const t0r = ar + cr,
+        t0i = ai + ci;
+      const t1r = ar - cr,
+        t1i = ai - ci;
+      const t2r = br + dr,
+        t2i = bi + di;
+      const ur = br - dr,
+        ui = bi - di;
       // Y_j = Y(j·s + r); forward sign: X1 = t1 − i·u, X3 = t1 + i·u.
-      const y0r = t0r + t2r, y0i = t0i + t2i;
-      const y2r = t0r - t2r, y2i = t0i - t2i;
-      const y1r = t1r + ui, y1i = t1i - ur;
-      const y3r = t1r - ui, y3i = t1i + ur;
-      let z0r = y0r, z0i = y0i, z1r = y1r, z1i = y1i, z2r = y2r, z2i = y2i, z3r = y3r, z3i = y3i;
+      const y0r = t0r + t2r,
+        y0i = t0i + t2i;
+      const y2r = t0r - t2r,
+        y2i = t0i - t2i;
+      const y1r = t1r + ui,
+        y1i = t1i - ur;
+      const y3r = t1r - ui,
+        y3i = t1i + ur;
+      let z0r = y0r,
+        z0i = y0i,
+        z1r = y1r,
+        z1i = y1i,
+        z2r = y2r,
+        z2i = y2i,
+        z3r = y3r,
+        z3i = y3i;
       if (pair) {
         const ib = ip + 2 * y;
-        const er = src[ib], ei = src[ib + 1];
-        const fr = src[ib + run], fi = src[ib + run + 1];
-        const gr = src[ib + 2 * run], gi = src[ib + 2 * run + 1];
-        const hr = src[ib + 3 * run], hi = src[ib + 3 * run + 1];
-        const s0r = er + gr, s0i = ei + gi;
-        const s1r = er - gr, s1i = ei - gi;
-        const s2r = fr + hr, s2i = fi + hi;
-        const vr = fr - hr, vi = fi - hi;
+        const er = src[ib],
+          ei = src[ib + 1];
+        const fr = src[ib + run],
+          fi = src[ib + run + 1];
+        const gr = src[ib + 2 * run],
+          gi = src[ib + 2 * run + 1];
+        const hr = src[ib + 3 * run],
+          hi = src[ib + 3 * run + 1];
+        const s0r = er + gr,
+          s0i = ei + gi;
+        const s1r = er - gr,
+          s1i = ei - gi;
+        const s2r = fr + hr,
+          s2i = fi + hi;
+        const vr = fr - hr,
+          vi = fi - hi;
         z0r = s0r + s2r;
         z0i = s0i + s2i;
         z2r = s0r - s2r;
@@ -224,32 +299,59 @@ export function lastStageToTendency(
   const lowTop = Ky;
   const highBottom = ny - Ky;
   for (let r = 0; r < s; r++) {
-    const j0 = r, j1 = s + r, j2 = 2 * s + r, j3 = 3 * s + r;
-    const keep0 = j0 <= lowTop || j0 >= highBottom, keep1 = j1 <= lowTop || j1 >= highBottom;
-    const keep2 = j2 <= lowTop || j2 >= highBottom, keep3 = j3 <= lowTop || j3 >= highBottom;
+    const j0 = r,
+      j1 = s + r,
+      j2 = 2 * s + r,
+      j3 = 3 * s + r;
+    const keep0 = j0 <= lowTop || j0 >= highBottom,
+      keep1 = j1 <= lowTop || j1 >= highBottom;
+    const keep2 = j2 <= lowTop || j2 >= highBottom,
+      keep3 = j3 <= lowTop || j3 >= highBottom;
     if (!(keep0 || keep1 || keep2 || keep3)) continue;
-    const ky0 = ky[j0], ky1 = ky[j1], ky2 = ky[j2], ky3 = ky[j3];
-    const o0 = 2 * j0 * nkx, o1 = 2 * j1 * nkx, o2 = 2 * j2 * nkx, o3 = 2 * j3 * nkx;
+    const ky0 = ky[j0],
+      ky1 = ky[j1],
+      ky2 = ky[j2],
+      ky3 = ky[j3];
+    const o0 = 2 * j0 * nkx,
+      o1 = 2 * j1 * nkx,
+      o2 = 2 * j2 * nkx,
+      o3 = 2 * j3 * nkx;
     const row = 2 * r * cols;
     for (let ix = 0; ix <= Kx; ix++) {
       const ia = row + 2 * ix;
       const ib = ia + bOff;
-      const aar = src[ia], aai = src[ia + 1];
-      const abr = src[ia + run], abi = src[ia + run + 1];
-      const acr = src[ia + 2 * run], aci = src[ia + 2 * run + 1];
-      const adr = src[ia + 3 * run], adi = src[ia + 3 * run + 1];
-      const a0r = aar + acr, a0i = aai + aci;
-      const a1r = aar - acr, a1i = aai - aci;
-      const a2r = abr + adr, a2i = abi + adi;
-      const aur = abr - adr, aui = abi - adi;
-      const bar = src[ib], bai = src[ib + 1];
-      const bbr = src[ib + run], bbi = src[ib + run + 1];
-      const bcr = src[ib + 2 * run], bci = src[ib + 2 * run + 1];
-      const bdr = src[ib + 3 * run], bdi = src[ib + 3 * run + 1];
-      const b0r = bar + bcr, b0i = bai + bci;
-      const b1r = bar - bcr, b1i = bai - bci;
-      const b2r = bbr + bdr, b2i = bbi + bdi;
-      const bur = bbr - bdr, bui = bbi - bdi;
+      const aar = src[ia],
+        aai = src[ia + 1];
+      const abr = src[ia + run],
+        abi = src[ia + run + 1];
+      const acr = src[ia + 2 * run],
+        aci = src[ia + 2 * run + 1];
+      const adr = src[ia + 3 * run],
+        adi = src[ia + 3 * run + 1];
+      const a0r = aar + acr,
+        a0i = aai + aci;
+      const a1r = aar - acr,
+        a1i = aai - aci;
+      const a2r = abr + adr,
+        a2i = abi + adi;
+      const aur = abr - adr,
+        aui = abi - adi;
+      const bar = src[ib],
+        bai = src[ib + 1];
+      const bbr = src[ib + run],
+        bbi = src[ib + run + 1];
+      const bcr = src[ib + 2 * run],
+        bci = src[ib + 2 * run + 1];
+      const bdr = src[ib + 3 * run],
+        bdi = src[ib + 3 * run + 1];
+      const b0r = bar + bcr,
+        b0i = bai + bci;
+      const b1r = bar - bcr,
+        b1i = bai - bci;
+      const b2r = bbr + bdr,
+        b2i = bbi + bdi;
+      const bur = bbr - bdr,
+        bui = bbi - bdi;
       const kxv = kx[ix];
       const t = 2 * ix;
       // Forward sign: X1 = t1 − i·u, X3 = t1 + i·u.
@@ -261,7 +363,17 @@ export function lastStageToTendency(
   }
 }
 
-function tend(out: Float64Array, at: number, kxv: number, kyv: number, scale: number, pr: number, pi: number, qr: number, qi: number): void {
+function tend(
+  out: Float64Array,
+  at: number,
+  kxv: number,
+  kyv: number,
+  scale: number,
+  pr: number,
+  pi: number,
+  qr: number,
+  qi: number,
+): void {
   const a = (kxv * kxv - kyv * kyv) * scale;
   const b = kxv * kyv * scale;
   out[at] = a * pr + b * qr;
@@ -293,24 +405,39 @@ export function velocitiesFirstStageY(
   const q = ny / radix; // rows between the inputs of a butterfly
   for (let p = 0; p < q; p++) {
     // Input rows y_j = p + j·q (j < radix), whether each is kept, and its ky.
-    const y0 = p, y1 = p + q, y2 = p + 2 * q, y3 = p + 3 * q;
+    const y0 = p,
+      y1 = p + q,
+      y2 = p + 2 * q,
+      y3 = p + 3 * q;
     const keep0 = y0 <= Ky || y0 >= ny - Ky;
     const keep1 = y1 <= Ky || y1 >= ny - Ky;
     const keep2 = radix === 4 && (y2 <= Ky || y2 >= ny - Ky);
     const keep3 = radix === 4 && (y3 <= Ky || y3 >= ny - Ky);
-    const ky0 = ky[y0], ky1 = ky[y1], ky2 = radix === 4 ? ky[y2] : 0, ky3 = radix === 4 ? ky[y3] : 0;
-    const m0 = y0 * nkx, m1 = y1 * nkx, m2 = y2 * nkx, m3 = y3 * nkx;
+    const ky0 = ky[y0],
+      ky1 = ky[y1],
+      ky2 = radix === 4 ? ky[y2] : 0,
+      ky3 = radix === 4 ? ky[y3] : 0;
+    const m0 = y0 * nkx,
+      m1 = y1 * nkx,
+      m2 = y2 * nkx,
+      m3 = y3 * nkx;
     // Twiddles, backward sign: radix 4 X1, X2, X3 by w^p, w^2p, w^3p (none at p = 0, as BatchFFT);
     // radix 2 X1 by w^p (always multiplied, as BatchFFT).
-    const c1 = cosT[p], s1 = sinT[p];
-    const c2 = radix === 4 ? cosT[2 * p] : 1, s2 = radix === 4 ? sinT[2 * p] : 0;
-    const c3 = radix === 4 ? cosT[3 * p] : 1, s3 = radix === 4 ? sinT[3 * p] : 0;
+    const c1 = cosT[p],
+      s1 = sinT[p];
+    const c2 = radix === 4 ? cosT[2 * p] : 1,
+      s2 = radix === 4 ? sinT[2 * p] : 0;
+    const c3 = radix === 4 ? cosT[3 * p] : 1,
+      s3 = radix === 4 ? sinT[3 * p] : 0;
     const twiddled = radix === 2 || p > 0;
     const o0 = radix * p * row; // output rows radix·p + j
     for (let ix = 0; ix <= Kx; ix++) {
       const kxv = kx[ix];
       // û_j, v̂_j of input row j (zero when the row is not kept or at the mean).
-      let a0r = 0, a0i = 0, b0r = 0, b0i = 0;
+      let a0r = 0,
+        a0i = 0,
+        b0r = 0,
+        b0i = 0;
       if (keep0 && (ix > 0 || y0 > 0)) {
         const m = m0 + ix;
         const pr = -qHat[2 * m] * invK2[m];
@@ -320,7 +447,10 @@ export function velocitiesFirstStageY(
         b0r = -kxv * pi;
         b0i = kxv * pr;
       }
-      let a1r = 0, a1i = 0, b1r = 0, b1i = 0;
+      let a1r = 0,
+        a1i = 0,
+        b1r = 0,
+        b1i = 0;
       if (keep1) {
         const m = m1 + ix;
         const pr = -qHat[2 * m] * invK2[m];
@@ -337,15 +467,20 @@ export function velocitiesFirstStageY(
         dst[t + 1] = a0i + a1i;
         dst[t + bOff] = b0r + b1r;
         dst[t + bOff + 1] = b0i + b1i;
-        const xr = a0r - a1r, xi = a0i - a1i;
+        const xr = a0r - a1r,
+          xi = a0i - a1i;
         dst[t + row] = xr * c1 - xi * s1;
         dst[t + row + 1] = xr * s1 + xi * c1;
-        const zr = b0r - b1r, zi = b0i - b1i;
+        const zr = b0r - b1r,
+          zi = b0i - b1i;
         dst[t + row + bOff] = zr * c1 - zi * s1;
         dst[t + row + bOff + 1] = zr * s1 + zi * c1;
         continue;
       }
-      let a2r = 0, a2i = 0, b2r = 0, b2i = 0;
+      let a2r = 0,
+        a2i = 0,
+        b2r = 0,
+        b2i = 0;
       if (keep2) {
         const m = m2 + ix;
         const pr = -qHat[2 * m] * invK2[m];
@@ -355,7 +490,10 @@ export function velocitiesFirstStageY(
         b2r = -kxv * pi;
         b2i = kxv * pr;
       }
-      let a3r = 0, a3i = 0, b3r = 0, b3i = 0;
+      let a3r = 0,
+        a3i = 0,
+        b3r = 0,
+        b3i = 0;
       if (keep3) {
         const m = m3 + ix;
         const pr = -qHat[2 * m] * invK2[m];
@@ -368,15 +506,22 @@ export function velocitiesFirstStageY(
       // Radix 4 over rows (0, 1, 2, 3) as (a, b, c, d), backward: X1 = t1 + i·u, X3 = t1 − i·u.
       {
         const o = t;
-        const t0r = a0r + a2r, t0i = a0i + a2i;
-        const t1r = a0r - a2r, t1i = a0i - a2i;
-        const t2r = a1r + a3r, t2i = a1i + a3i;
-        const ur = a1r - a3r, ui = a1i - a3i;
+        const t0r = a0r + a2r,
+          t0i = a0i + a2i;
+        const t1r = a0r - a2r,
+          t1i = a0i - a2i;
+        const t2r = a1r + a3r,
+          t2i = a1i + a3i;
+        const ur = a1r - a3r,
+          ui = a1i - a3i;
         dst[o] = t0r + t2r;
         dst[o + 1] = t0i + t2i;
-        const x2r = t0r - t2r, x2i = t0i - t2i;
-        const x1r = t1r - ui, x1i = t1i + ur;
-        const x3r = t1r + ui, x3i = t1i - ur;
+        const x2r = t0r - t2r,
+          x2i = t0i - t2i;
+        const x1r = t1r - ui,
+          x1i = t1i + ur;
+        const x3r = t1r + ui,
+          x3i = t1i - ur;
         if (twiddled) {
           dst[o + row] = x1r * c1 - x1i * s1;
           dst[o + row + 1] = x1r * s1 + x1i * c1;
@@ -395,15 +540,22 @@ export function velocitiesFirstStageY(
       }
       {
         const o = t + bOff;
-        const t0r = b0r + b2r, t0i = b0i + b2i;
-        const t1r = b0r - b2r, t1i = b0i - b2i;
-        const t2r = b1r + b3r, t2i = b1i + b3i;
-        const ur = b1r - b3r, ui = b1i - b3i;
+        const t0r = b0r + b2r,
+          t0i = b0i + b2i;
+        const t1r = b0r - b2r,
+          t1i = b0i - b2i;
+        const t2r = b1r + b3r,
+          t2i = b1i + b3i;
+        const ur = b1r - b3r,
+          ui = b1i - b3i;
         dst[o] = t0r + t2r;
         dst[o + 1] = t0i + t2i;
-        const x2r = t0r - t2r, x2i = t0i - t2i;
-        const x1r = t1r - ui, x1i = t1i + ur;
-        const x3r = t1r + ui, x3i = t1i - ur;
+        const x2r = t0r - t2r,
+          x2i = t0i - t2i;
+        const x1r = t1r - ui,
+          x1i = t1i + ur;
+        const x3r = t1r + ui,
+          x3i = t1i - ur;
         if (twiddled) {
           dst[o + row] = x1r * c1 - x1i * s1;
           dst[o + row + 1] = x1r * s1 + x1i * c1;
@@ -423,4 +575,3 @@ export function velocitiesFirstStageY(
     }
   }
 }
-

@@ -34,5 +34,7 @@ const size = LOG_LAST - LOG_FIRST + 1;
 export const LOG_HI = new Float64Array(size);
 export const LOG_LO = new Float64Array(size);
 for (let j = LOG_FIRST; j <= LOG_LAST; j++) {
-  [LOG_HI[j - LOG_FIRST], LOG_LO[j - LOG_FIRST]] = fixedToPair(twiceArtanhFixed(BigInt(j - LOG_DENOMINATOR), BigInt(j + LOG_DENOMINATOR)));
+  [LOG_HI[j - LOG_FIRST], LOG_LO[j - LOG_FIRST]] = fixedToPair(
+    twiceArtanhFixed(BigInt(j - LOG_DENOMINATOR), BigInt(j + LOG_DENOMINATOR)),
+  );
 }

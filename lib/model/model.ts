@@ -50,7 +50,9 @@ export class Model {
   private seedInitialField(p: ModelParams): void {
     const init = new RandomStream((p.seed ^ 0x9e3779b9) >>> 0);
     const q = this.stepper.qHat;
-    const f = this.forcing.modes.length ? this.forcing : new Forcing(this.grid, { ...p, forcing: 'stochastic' }, this.lin);
+    const f = this.forcing.modes.length
+      ? this.forcing
+      : new Forcing(this.grid, { ...p, forcing: 'stochastic' }, this.lin);
     let e = 0;
     const cs = new Float64Array(2);
     for (let i = 0; i < f.modes.length; i++) {

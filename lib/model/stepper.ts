@@ -121,7 +121,8 @@ export class Stepper {
     // Refuse before anything changes: the state, the step in use and the propagators stay as they were.
     if (!Number.isFinite(speed)) throw new BlowUpError('non-finite velocity', r);
     // An adaptive step 2^40 below its maximum means speeds beyond any flow the grid can carry.
-    if (!(dt >= this.dtMax * MIN_STEP_FRACTION) || this.time + dt === this.time) throw new BlowUpError('time step collapsed: too small to advance the clock', r);
+    if (!(dt >= this.dtMax * MIN_STEP_FRACTION) || this.time + dt === this.time)
+      throw new BlowUpError('time step collapsed: too small to advance the clock', r);
     if (!(r.cfl <= CFL_LIMIT)) throw new BlowUpError(`CFL number above ${CFL_LIMIT}`, r);
     this.dt = dt;
     lin.setStep(dt);
@@ -267,7 +268,10 @@ export class Stepper {
 }
 
 /** 2^(−r/8), r = 0..7, as literals: the same bits on every engine (unlike Math.pow). */
-const EIGHTH_POWERS = [1, 0.9170040432046712, 0.8408964152537145, 0.7711054127039704, 0.7071067811865476, 0.6484197773255048, 0.5946035575013605, 0.5452538663326288];
+const EIGHTH_POWERS = [
+  1, 0.9170040432046712, 0.8408964152537145, 0.7711054127039704, 0.7071067811865476, 0.6484197773255048,
+  0.5946035575013605, 0.5452538663326288,
+];
 
 /**
  * The least j ≥ 0 with dtMax·2^(−j/8) ≤ target (for target < dtMax), found by halving (exact) and
@@ -299,7 +303,15 @@ function sumOver(idx: Int32Array, values: Float64Array): number {
   return s;
 }
 
-function fill(bud: QuadraticBudget, value: number, inj: number, drag: number, hyper: number, ls: number, tr: number): void {
+function fill(
+  bud: QuadraticBudget,
+  value: number,
+  inj: number,
+  drag: number,
+  hyper: number,
+  ls: number,
+  tr: number,
+): void {
   bud.value = value;
   bud.injection = inj;
   bud.drag = drag;

@@ -61,7 +61,9 @@ export function keptRadius(p: Pick<ModelParams, 'nx' | 'ny' | 'Lx' | 'Ly'>): num
  */
 export function validateParams(input: unknown, base: Readonly<ModelParams> = DEFAULT_PARAMS): ModelParams {
   if (typeof input !== 'object' || input === null || Array.isArray(input)) {
-    throw new InputError('parameters', [{ field: '(parameters)', value: input, message: 'must be an object of named parameters' }]);
+    throw new InputError('parameters', [
+      { field: '(parameters)', value: input, message: 'must be an object of named parameters' },
+    ]);
   }
   const merged = { ...base, ...(input as Record<string, unknown>) };
   const parsed = v.safeParse(ModelParamsSchema, merged);
@@ -99,17 +101,29 @@ export function validateParams(input: unknown, base: Readonly<ModelParams> = DEF
       });
     }
     if (issues.length === 0 && !annulusHoldsModes(p)) {
-      issues.push({ field: 'dkf', value: p.dkf, message: `the annulus |k − k_f| ≤ δk holds no grid wavenumber: widen δk or move k_f` });
+      issues.push({
+        field: 'dkf',
+        value: p.dkf,
+        message: `the annulus |k − k_f| ≤ δk holds no grid wavenumber: widen δk or move k_f`,
+      });
     }
   }
   if (p.cfl > 0 && p.cfl < 0.01) {
     issues.push({ field: 'cfl', value: p.cfl, message: 'a CFL target must be 0 (fixed dt) or from 0.01 to 1.2' });
   }
   if (p.forcing === 'steady' && !(p.mu > 0)) {
-    issues.push({ field: 'mu', value: p.mu, message: 'steady forcing needs linear drag μ > 0 (its strength is the energy it would inject against drag)' });
+    issues.push({
+      field: 'mu',
+      value: p.mu,
+      message: 'steady forcing needs linear drag μ > 0 (its strength is the energy it would inject against drag)',
+    });
   }
   if (p.mu_ls > 0 && p.k_ls >= kMax) {
-    issues.push({ field: 'k_ls', value: p.k_ls, message: `large-scale drag cutoff must lie below the dealiased range, < ${fmt(kMax)}` });
+    issues.push({
+      field: 'k_ls',
+      value: p.k_ls,
+      message: `large-scale drag cutoff must lie below the dealiased range, < ${fmt(kMax)}`,
+    });
   }
   if (issues.length) throw new InputError('parameters', issues);
   return p;

@@ -7,7 +7,14 @@ import { THRESHOLDS as T } from './thresholds';
 
 export type Severity = 'error' | 'warning' | 'ok';
 export type CheckId =
-  | 'scaleSeparation' | 'jetCount' | 'forcingNearGrid' | 'frictionDominated' | 'runLength' | 'arrestInDomain' | 'forcingAnnulus' | 'deformation';
+  | 'scaleSeparation'
+  | 'jetCount'
+  | 'forcingNearGrid'
+  | 'frictionDominated'
+  | 'runLength'
+  | 'arrestInDomain'
+  | 'forcingAnnulus'
+  | 'deformation';
 
 /** A number behind a check, with what it measures so the app can give its unit. */
 export interface CheckNumber {
@@ -35,7 +42,16 @@ const num = (label: string, value: number, quantity: Quantity = 'ratio'): CheckN
 
 /** Every check of the plan, in a fixed order. Predictions are computed when not given. */
 export function checkPlan(plan: ResolvedPlan, pred: PlanPredictions = predictPlan(plan)): PlanCheck[] {
-  return [scaleSeparation, jetCount, forcingNearGrid, frictionDominated, runLength, arrestInDomain, forcingAnnulus, deformation].map((c) => c(plan, pred));
+  return [
+    scaleSeparation,
+    jetCount,
+    forcingNearGrid,
+    frictionDominated,
+    runLength,
+    arrestInDomain,
+    forcingAnnulus,
+    deformation,
+  ].map((c) => c(plan, pred));
 }
 
 type Check = (plan: ResolvedPlan, p: PlanPredictions) => PlanCheck;
@@ -56,7 +72,8 @@ export const scaleSeparation: Check = (plan, p) => {
     gridDiss >= 1 ? 'ok' : 'warning',
   ];
   const fixes: string[] = [];
-  if (sev[0] !== 'ok') fixes.push(`enlarge Ly to at least ${withUnit(T.minJets * Ljet, 'length', u, 'up')} (see the jet count)`);
+  if (sev[0] !== 'ok')
+    fixes.push(`enlarge Ly to at least ${withUnit(T.minJets * Ljet, 'length', u, 'up')} (see the jet count)`);
   if (sev[1] !== 'ok') {
     const kfNew = (2 * Math.PI * T.minJetToForcing) / Ljet;
     fixes.push(
@@ -67,10 +84,19 @@ export const scaleSeparation: Check = (plan, p) => {
     const kNeed = T.minForcingToDissipation * plan.kf;
     const eta13 = Math.cbrt(p.eta.value);
     // k_ν = k_max (η^{1/3} τ)^{1/(2p)}: the τ that puts k_ν at kNeed, when the grid reaches it.
-    if (kNeed <= plan.kMax) fixes.push(`lengthen the grid-scale damping time to at least ${withUnit(Math.pow(kNeed / plan.kMax, 2 * plan.order) / eta13, 'time', u, 'up')} (k_ν = ${fmt(T.minForcingToDissipation)} k_f)`);
-    else fixes.push(`${growthText(gridReaching(plan.nx, plan.ny, plan.Lx, plan.Ly, kNeed))} so that k_ν can lie ${fmt(T.minForcingToDissipation)} × above k_f`);
+    if (kNeed <= plan.kMax)
+      fixes.push(
+        `lengthen the grid-scale damping time to at least ${withUnit(Math.pow(kNeed / plan.kMax, 2 * plan.order) / eta13, 'time', u, 'up')} (k_ν = ${fmt(T.minForcingToDissipation)} k_f)`,
+      );
+    else
+      fixes.push(
+        `${growthText(gridReaching(plan.nx, plan.ny, plan.Lx, plan.Ly, kNeed))} so that k_ν can lie ${fmt(T.minForcingToDissipation)} × above k_f`,
+      );
   }
-  if (sev[3] !== 'ok') fixes.push(`shorten the grid-scale damping time to at most η^{−1/3} = ${withUnit(1 / Math.cbrt(p.eta.value), 'time', u, 'down')} so the dissipation range is resolved`);
+  if (sev[3] !== 'ok')
+    fixes.push(
+      `shorten the grid-scale damping time to at most η^{−1/3} = ${withUnit(1 / Math.cbrt(p.eta.value), 'time', u, 'down')} so the dissipation range is resolved`,
+    );
   const severity = worst(sev);
   return {
     id: 'scaleSeparation',
@@ -79,8 +105,23 @@ export const scaleSeparation: Check = (plan, p) => {
     message:
       `domain/jet spacing ${fmt(domainJet)}, jet spacing/forcing wavelength ${fmt(jetForcing)}, ` +
       `forcing/dissipation wavelength ${fmt(forcingDiss)}, dissipation/grid wavelength ${fmt(gridDiss)}` +
-      (severity === 'ok' ? ': the scales are in order and separated' : ': ' + ['domain ≤ jet spacing', 'jets too close to the forcing scale', 'forcing too close to the dissipation scale', 'dissipation scale below the grid: enstrophy piles up at k_max'].filter((_, i) => sev[i] !== 'ok').join('; ')),
-    numbers: [num('Ly / L_jet', domainJet), num('L_jet / λ_f = k_f/k_jet', jetForcing), num('λ_f / λ_ν = k_ν/k_f', forcingDiss), num('λ_ν / Δ = k_max/k_ν', gridDiss)],
+      (severity === 'ok'
+        ? ': the scales are in order and separated'
+        : ': ' +
+          [
+            'domain ≤ jet spacing',
+            'jets too close to the forcing scale',
+            'forcing too close to the dissipation scale',
+            'dissipation scale below the grid: enstrophy piles up at k_max',
+          ]
+            .filter((_, i) => sev[i] !== 'ok')
+            .join('; ')),
+    numbers: [
+      num('Ly / L_jet', domainJet),
+      num('L_jet / λ_f = k_f/k_jet', jetForcing),
+      num('λ_f / λ_ν = k_ν/k_f', forcingDiss),
+      num('λ_ν / Δ = k_max/k_ν', gridDiss),
+    ],
     threshold: `Ly/L_jet > 1; L_jet/λ_f ≥ ${T.minJetToForcing} (error ≤ 1); k_ν/k_f ≥ ${T.minForcingToDissipation} (error ≤ 1); k_max/k_ν ≥ 1`,
     fix: fixes.length ? fixes.join('; ') : null,
     reference: REFERENCES.practice,
@@ -98,10 +139,19 @@ export const jetCount: Check = (plan, p) => {
     id: 'jetCount',
     title: 'jets to measure a spacing',
     severity,
-    message: severity === 'ok' ? `${fmt(n)} jets or more fit in Ly` : `only ${fmt(n)} jets fit in Ly by the wider spacing estimate: a spacing cannot be measured from fewer than ${T.minJets}`,
-    numbers: [num('jets (Rhines spacing)', p.jetsRhines.value, 'count'), num('jets (staircase spacing)', p.jetsStaircase.value, 'count')],
+    message:
+      severity === 'ok'
+        ? `${fmt(n)} jets or more fit in Ly`
+        : `only ${fmt(n)} jets fit in Ly by the wider spacing estimate: a spacing cannot be measured from fewer than ${T.minJets}`,
+    numbers: [
+      num('jets (Rhines spacing)', p.jetsRhines.value, 'count'),
+      num('jets (staircase spacing)', p.jetsStaircase.value, 'count'),
+    ],
     threshold: `at least ${T.minJets} jets (error below 1)`,
-    fix: severity === 'ok' ? null : `enlarge Ly to at least ${withUnit(LyNew, 'length', plan.units, 'up')} with ny = ${nyNew} to keep dy (or lower U: the spacing scales as (U/β)^½)`,
+    fix:
+      severity === 'ok'
+        ? null
+        : `enlarge Ly to at least ${withUnit(LyNew, 'length', plan.units, 'up')} with ny = ${nyNew} to keep dy (or lower U: the spacing scales as (U/β)^½)`,
     reference: REFERENCES.practice,
   };
 };
@@ -110,7 +160,8 @@ export const jetCount: Check = (plan, p) => {
 export const forcingNearGrid: Check = (plan, p) => {
   const tauF = p.turnoverForcing.value;
   const frac = plan.nu * Math.pow(plan.kf, 2 * plan.order) * tauF;
-  const severity: Severity = frac <= T.maxForcingDamping ? 'ok' : frac <= T.maxForcingDampingError ? 'warning' : 'error';
+  const severity: Severity =
+    frac <= T.maxForcingDamping ? 'ok' : frac <= T.maxForcingDampingError ? 'warning' : 'error';
   // ν k_f^{2p} τ_f = (k_f/k_max)^{2p} τ_f/τ: the k_max or τ that bring it to the threshold.
   const kNeed = plan.kf * Math.pow(tauF / (plan.gridDampingTime * T.maxForcingDamping), 1 / (2 * plan.order));
   const tauNeed = (tauF / T.maxForcingDamping) * Math.pow(plan.kf / plan.kMax, 2 * plan.order);
@@ -118,10 +169,15 @@ export const forcingNearGrid: Check = (plan, p) => {
     id: 'forcingNearGrid',
     title: 'forcing clear of the hyperviscous range',
     severity,
-    message: `hyperviscosity (order ${plan.order}) damps the forced modes at ${fmt(frac)} of their turnover rate` + (severity === 'ok' ? '' : ': part of the injected energy is dissipated where it is injected'),
+    message:
+      `hyperviscosity (order ${plan.order}) damps the forced modes at ${fmt(frac)} of their turnover rate` +
+      (severity === 'ok' ? '' : ': part of the injected energy is dissipated where it is injected'),
     numbers: [num('ν k_f^{2p} τ_f', frac), num('k_max / k_f', plan.kMax / plan.kf), num('τ_f', tauF, 'time')],
     threshold: `ν k_f^{2p} τ_f ≤ ${T.maxForcingDamping} (error above ${T.maxForcingDampingError})`,
-    fix: severity === 'ok' ? null : `${growthText(gridReaching(plan.nx, plan.ny, plan.Lx, plan.Ly, kNeed))}, or lengthen the grid-scale damping time to at least ${withUnit(tauNeed, 'time', plan.units, 'up')}`,
+    fix:
+      severity === 'ok'
+        ? null
+        : `${growthText(gridReaching(plan.nx, plan.ny, plan.Lx, plan.Ly, kNeed))}, or lengthen the grid-scale damping time to at least ${withUnit(tauNeed, 'time', plan.units, 'up')}`,
     reference: REFERENCES.practice,
   };
 };
@@ -150,7 +206,10 @@ export const frictionDominated: Check = (plan, p) => {
     id: 'frictionDominated',
     title: 'zonostrophic regime',
     severity,
-    message: severity === 'ok' ? `R_β = ${fmt(R)}: ${p.regime.text}` : `R_β = ${fmt(R)} < ${T.frictionDominated}: friction-dominated, expect weak or no jets`,
+    message:
+      severity === 'ok'
+        ? `R_β = ${fmt(R)}: ${p.regime.text}`
+        : `R_β = ${fmt(R)} < ${T.frictionDominated}: friction-dominated, expect weak or no jets`,
     numbers: [num('R_β', R), num('k_β', p.kBeta.value, 'wavenumber'), num('k_R', p.kR.value, 'wavenumber')],
     threshold: `R_β ≥ ${T.frictionDominated}; the fix aims at R_β = ${target} (fully developed)`,
     fix,
@@ -166,10 +225,19 @@ export const runLength: Check = (plan, p) => {
     id: 'runLength',
     title: 'run long enough for steady state',
     severity,
-    message: `the run lasts ${fmt(plan.runLength / p.spinUpTime.value)} spin-up times 1/(2μ)` + (severity === 'ok' ? '' : `, short of the ${T.steadyMultiple} needed for statistical steady state`),
-    numbers: [num('run length', plan.runLength, 'time'), num('t_ss', tss, 'time'), num('spin-up time 1/(2μ)', p.spinUpTime.value, 'time')],
+    message:
+      `the run lasts ${fmt(plan.runLength / p.spinUpTime.value)} spin-up times 1/(2μ)` +
+      (severity === 'ok' ? '' : `, short of the ${T.steadyMultiple} needed for statistical steady state`),
+    numbers: [
+      num('run length', plan.runLength, 'time'),
+      num('t_ss', tss, 'time'),
+      num('spin-up time 1/(2μ)', p.spinUpTime.value, 'time'),
+    ],
     threshold: `run length ≥ ${T.steadyMultiple}/(2μ)`,
-    fix: severity === 'ok' ? null : `run for at least ${withUnit(tss, 'time', plan.units, 'up')} (${p.stepsToSteady.value} steps), plus the averaging window, or shorten the drag time`,
+    fix:
+      severity === 'ok'
+        ? null
+        : `run for at least ${withUnit(tss, 'time', plan.units, 'up')} (${p.stepsToSteady.value} steps), plus the averaging window, or shorten the drag time`,
     reference: REFERENCES.spinUp,
   };
 };
@@ -186,12 +254,17 @@ export const arrestInDomain: Check = (plan, p) => {
     title: 'arrest inside the domain',
     severity,
     message:
-      severity === 'ok' ? 'k_R and k_β lie above the domain wavenumber 2π/Ly'
-      : severity === 'error' ? 'k_R lies at or below the domain wavenumber: the cascade reaches the domain scale before β arrests it, and energy condenses there'
-      : 'k_β lies at or below the domain wavenumber: β cannot make the cascade anisotropic inside the domain',
+      severity === 'ok'
+        ? 'k_R and k_β lie above the domain wavenumber 2π/Ly'
+        : severity === 'error'
+          ? 'k_R lies at or below the domain wavenumber: the cascade reaches the domain scale before β arrests it, and energy condenses there'
+          : 'k_β lies at or below the domain wavenumber: β cannot make the cascade anisotropic inside the domain',
     numbers: [num('k_R / k_dom', kR / kDom), num('k_β / k_dom', kB / kDom)],
     threshold: 'k_R > 2π/Ly (error otherwise); k_β > 2π/Ly (warning otherwise)',
-    fix: severity === 'ok' ? null : `enlarge Ly to at least ${withUnit(LyNew, 'length', plan.units, 'up')} (ny = ${growthOfLength(plan.ny, plan.Ly, LyNew)} to keep dy), or lower U`,
+    fix:
+      severity === 'ok'
+        ? null
+        : `enlarge Ly to at least ${withUnit(LyNew, 'length', plan.units, 'up')} (ny = ${growthOfLength(plan.ny, plan.Ly, LyNew)} to keep dy), or lower U`,
     reference: REFERENCES.rhines,
   };
 };
@@ -205,14 +278,29 @@ export const forcingAnnulus: Check = (plan) => {
   const below = bottom < kMin;
   const u = plan.units;
   const fixes: string[] = [];
-  if (above) fixes.push(`${growthText(gridReaching(plan.nx, plan.ny, plan.Lx, plan.Ly, top))}, or lengthen the forcing wavelength to at least ${withUnit((2 * Math.PI * (1 + plan.input.forcing.halfWidth)) / plan.kMax, 'length', u, 'up')}`);
-  if (below) fixes.push(`shorten the forcing wavelength to at most ${withUnit((2 * Math.PI * (1 - plan.input.forcing.halfWidth)) / kMin, 'length', u, 'down')} or narrow the annulus`);
+  if (above)
+    fixes.push(
+      `${growthText(gridReaching(plan.nx, plan.ny, plan.Lx, plan.Ly, top))}, or lengthen the forcing wavelength to at least ${withUnit((2 * Math.PI * (1 + plan.input.forcing.halfWidth)) / plan.kMax, 'length', u, 'up')}`,
+    );
+  if (below)
+    fixes.push(
+      `shorten the forcing wavelength to at most ${withUnit((2 * Math.PI * (1 - plan.input.forcing.halfWidth)) / kMin, 'length', u, 'down')} or narrow the annulus`,
+    );
   return {
     id: 'forcingAnnulus',
     title: 'forcing annulus within the dealiased range',
     severity: above || below ? 'error' : 'ok',
-    message: above ? 'the annulus reaches beyond k_max, the largest kept wavenumber (2/3 rule)' : below ? 'the annulus reaches below the smallest wavenumber of the domain' : 'the annulus lies within the kept wavenumbers',
-    numbers: [num('k_f − δk', bottom, 'wavenumber'), num('k_f + δk', top, 'wavenumber'), num('k_min', kMin, 'wavenumber'), num('k_max', plan.kMax, 'wavenumber')],
+    message: above
+      ? 'the annulus reaches beyond k_max, the largest kept wavenumber (2/3 rule)'
+      : below
+        ? 'the annulus reaches below the smallest wavenumber of the domain'
+        : 'the annulus lies within the kept wavenumbers',
+    numbers: [
+      num('k_f − δk', bottom, 'wavenumber'),
+      num('k_f + δk', top, 'wavenumber'),
+      num('k_min', kMin, 'wavenumber'),
+      num('k_max', plan.kMax, 'wavenumber'),
+    ],
     threshold: 'k_min ≤ k_f − δk and k_f + δk ≤ k_max',
     fix: fixes.length ? fixes.join('; ') : null,
     reference: REFERENCES.dealiasing,
@@ -227,10 +315,16 @@ export const deformation: Check = (plan, p) => {
     id: 'deformation',
     title: 'deformation radius and the barotropic predictions',
     severity,
-    message: severity === 'ok' ? `k_d/k_R = ${fmt(ratio)}: the deformation radius is longer than the Rhines length 1/k_R` : `k_d/k_R = ${fmt(ratio)}: the Rhines, staircase and drag-balance predictions assume k_d ≪ k_R and are rough here (drag acts on vorticity, so part of the energy is potential)`,
+    message:
+      severity === 'ok'
+        ? `k_d/k_R = ${fmt(ratio)}: the deformation radius is longer than the Rhines length 1/k_R`
+        : `k_d/k_R = ${fmt(ratio)}: the Rhines, staircase and drag-balance predictions assume k_d ≪ k_R and are rough here (drag acts on vorticity, so part of the energy is potential)`,
     numbers: [num('k_d / k_R', ratio), num('L_d', plan.Ld, 'length')],
     threshold: 'k_d < k_R',
-    fix: severity === 'ok' ? null : `lengthen L_d beyond 1/k_R = ${withUnit(1 / p.kR.value, 'length', plan.units, 'up')} to use the barotropic predictions, or measure the spacing in the matched run`,
+    fix:
+      severity === 'ok'
+        ? null
+        : `lengthen L_d beyond 1/k_R = ${withUnit(1 / p.kR.value, 'length', plan.units, 'up')} to use the barotropic predictions, or measure the spacing in the matched run`,
     reference: REFERENCES.practice,
   };
 };

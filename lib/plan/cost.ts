@@ -77,7 +77,13 @@ export function modelMemory(nx: number, ny: number, forcedModes: number): Memory
     ['Forcing', 'annulus modes and mirrors', 2 * forcedModes, 4],
     ['Model', 'field spectrum buffer', 2 * S, 8],
   ];
-  const arrays = rows.map(([owner, name, elements, b]) => ({ owner, name, elements, bytesPerElement: b, bytes: elements * b }));
+  const arrays = rows.map(([owner, name, elements, b]) => ({
+    owner,
+    name,
+    elements,
+    bytesPerElement: b,
+    bytes: elements * b,
+  }));
   const totalBytes = arrays.reduce((s, a) => s + a.bytes, 0);
   return { arrays, totalBytes, bytesPerPoint: totalBytes / (nx * ny) };
 }
@@ -88,7 +94,15 @@ export function modelMemory(nx: number, ny: number, forcedModes: number): Memory
  * modes are forced. Any consistent length unit. Cost O(⌊nx/3⌋ + modes): per column only the rows
  * near the ring are tested, with the model's own test.
  */
-export function annulusModeCount(p: { nx: number; ny: number; Lx: number; Ly: number; kf: number; dkf: number; force_zonal?: boolean }): number {
+export function annulusModeCount(p: {
+  nx: number;
+  ny: number;
+  Lx: number;
+  Ly: number;
+  kf: number;
+  dkf: number;
+  force_zonal?: boolean;
+}): number {
   const dkx = (2 * Math.PI) / p.Lx;
   const dky = (2 * Math.PI) / p.Ly;
   const Kx = Math.floor(p.nx / 3);
@@ -119,7 +133,14 @@ const COUNT_LIMIT = 2_000_000;
  * enough to count quickly, else its half-plane area 2π k_f δk/(dkx·dky). The lists cost 8 bytes a
  * mode, a small share of the total either way.
  */
-export function forcedModesForCost(p: { nx: number; ny: number; Lx: number; Ly: number; kf: number; dkf: number }): number {
+export function forcedModesForCost(p: {
+  nx: number;
+  ny: number;
+  Lx: number;
+  Ly: number;
+  kf: number;
+  dkf: number;
+}): number {
   const area = (2 * Math.PI * p.kf * p.dkf) / (((2 * Math.PI) / p.Lx) * ((2 * Math.PI) / p.Ly));
   return area > COUNT_LIMIT ? Math.round(area) : annulusModeCount(p);
 }
@@ -143,7 +164,10 @@ const MeasuredStepSchema = v.object({
   format: v.literal('stria-measured-step'),
   version: v.literal(1),
   n: v.pipe(v.number(), v.integer(), v.minValue(2)),
-  ms_per_step: v.pipe(v.number(), v.check((x) => Number.isFinite(x) && x > 0, 'a positive number of milliseconds')),
+  ms_per_step: v.pipe(
+    v.number(),
+    v.check((x) => Number.isFinite(x) && x > 0, 'a positive number of milliseconds'),
+  ),
   measured_on: v.string(),
   how: v.string(),
 });
@@ -153,7 +177,9 @@ export function parseMeasuredStep(json: unknown): MeasuredStep {
   const r = v.safeParse(MeasuredStepSchema, json);
   if (!r.success) {
     const i = r.issues[0];
-    throw new RangeError(`measured step time: ${i.path?.map((p) => String(p.key)).join('.') ?? '(record)'}: ${i.message}`);
+    throw new RangeError(
+      `measured step time: ${i.path?.map((p) => String(p.key)).join('.') ?? '(record)'}: ${i.message}`,
+    );
   }
   return r.output;
 }
@@ -166,7 +192,8 @@ export const MEASURED_STEP: Readonly<MeasuredStep> = Object.freeze(parseMeasured
  * square grids) and divided by `speed`, the machine's speed relative to the measuring one.
  */
 export function stepSeconds(nx: number, ny: number, speed = 1, ref: MeasuredStep = MEASURED_STEP): number {
-  if (!(speed > 0 && Number.isFinite(speed))) throw new RangeError(`machine-speed factor must be a finite number > 0, got ${speed}`);
+  if (!(speed > 0 && Number.isFinite(speed)))
+    throw new RangeError(`machine-speed factor must be a finite number > 0, got ${speed}`);
   const N = nx * ny;
   const Nref = ref.n * ref.n;
   return ((ref.ms_per_step / 1000) * (N * Math.log2(N))) / (Nref * Math.log2(Nref)) / speed;
@@ -184,7 +211,22 @@ export interface RunCost {
 }
 
 /** Memory, work and wall time of `steps` steps on nx × ny with `forcedModes` annulus modes. */
-export function runCost(nx: number, ny: number, steps: number, forcedModes: number, speed = 1, ref: MeasuredStep = MEASURED_STEP): RunCost {
+export function runCost(
+  nx: number,
+  ny: number,
+  steps: number,
+  forcedModes: number,
+  speed = 1,
+  ref: MeasuredStep = MEASURED_STEP,
+): RunCost {
   const secondsPerStep = stepSeconds(nx, ny, speed, ref);
-  return { memory: modelMemory(nx, ny, forcedModes), flopsPerStep: flopsPerStep(nx, ny), steps, secondsPerStep, wallSeconds: steps * secondsPerStep, speed, reference: ref };
+  return {
+    memory: modelMemory(nx, ny, forcedModes),
+    flopsPerStep: flopsPerStep(nx, ny),
+    steps,
+    secondsPerStep,
+    wallSeconds: steps * secondsPerStep,
+    speed,
+    reference: ref,
+  };
 }

@@ -52,7 +52,8 @@ export const DEMO_SCENARIOS: readonly DemoScenario[] = Object.freeze([
   {
     id: 'jets',
     name: 'Jets (default)',
-    description: 'Stochastic forcing at k_f = 24 on a β-plane: eddies merge into four or five eastward jets (red bands of u).',
+    description:
+      'Stochastic forcing at k_f = 24 on a β-plane: eddies merge into four or five eastward jets (red bands of u).',
     // Predicted U = 1, k_R = 4.5, k_β = 20, R_β = 4.5, spin-up 25 T. Measured (Node, 4 ms/step):
     // bands of u by t = 40 (3400 steps, zonal share 0.38), five jets at t = 60–80 (5500–7700
     // steps, share 0.50–0.57), four after a merger by t = 120; U_rms = 0.85, hyperviscosity takes
@@ -82,7 +83,8 @@ export const DEMO_SCENARIOS: readonly DemoScenario[] = Object.freeze([
   {
     id: 'deformation',
     name: 'Finite deformation radius',
-    description: 'The default jets with a deformation wavenumber k_d = 4 near k_R: the largest scales are screened and jets form more slowly.',
+    description:
+      'The default jets with a deformation wavenumber k_d = 4 near k_R: the largest scales are screened and jets form more slowly.',
     // Measured: U_rms 0.79 (part of the energy is potential, ½k_d²ψ²); jets form about half as
     // fast as in the default: zonal share 0.19 at t = 80 (7000 steps), five jets and share 0.28 at
     // t = 120 (11 200 steps).

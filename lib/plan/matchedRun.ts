@@ -79,7 +79,11 @@ const FLOOR_MARGIN = 1 + 1e-9;
  * 1024) whose predicted wall time is within the target; the smallest workable grid, flagged, when
  * none is. Throws RangeError when no grid from 32 up can hold the run.
  */
-export function matchedRun(plan: ResolvedPlan, pred: PlanPredictions = predictPlan(plan), opts: MatchedRunOptions = {}): MatchedRun {
+export function matchedRun(
+  plan: ResolvedPlan,
+  pred: PlanPredictions = predictPlan(plan),
+  opts: MatchedRunOptions = {},
+): MatchedRun {
   const target = opts.targetWallSeconds ?? DEFAULT_TARGET_SECONDS;
   const speed = opts.speed ?? 1;
   const ref = opts.reference ?? MEASURED_STEP;
@@ -97,8 +101,13 @@ export function matchedRun(plan: ResolvedPlan, pred: PlanPredictions = predictPl
     }
   }
   const smallest = candidates[candidates.length - 1];
-  if (!smallest) throw new RangeError(`no grid can hold a matched run of this plan (${refusals.join('; ') || 'the planned aspect needs sizes outside 32..1024'})`);
-  smallest.notes.push(`no workable grid fits the target of ${fmt(target)} s; the smallest workable one takes ${fmt(smallest.cost.wallSeconds)} s: shorten the run length or raise the target`);
+  if (!smallest)
+    throw new RangeError(
+      `no grid can hold a matched run of this plan (${refusals.join('; ') || 'the planned aspect needs sizes outside 32..1024'})`,
+    );
+  smallest.notes.push(
+    `no workable grid fits the target of ${fmt(target)} s; the smallest workable one takes ${fmt(smallest.cost.wallSeconds)} s: shorten the run length or raise the target`,
+  );
   return smallest;
 }
 
@@ -144,10 +153,14 @@ function buildMatched(
         gives = 'kmaxOverKf';
         why.jetsPerDomain = `held at its floor ${fmt(f.J)} (the fewest jets that give a spacing): ${limits}`;
         why.kmaxOverKf = `gives last, with k_f/k_R and the jet count at their floors: ${limits}`;
-        if (b < f.b) return `too small: even with k_f/k_R and the jet count at their floors, k_max/k_f would be ${fmt(b)}, below its floor ${fmt(f.b)}`;
+        if (b < f.b)
+          return `too small: even with k_f/k_R and the jet count at their floors, k_max/k_f would be ${fmt(b)}, below its floor ${fmt(f.b)}`;
       }
     }
-    if (a < want.RBeta && want.kfOverKR >= want.RBeta) notes.push(`k_f/k_R = ${fmt(a)} is below R_β = ${fmt(want.RBeta)}: the forcing now lies below k_β, inside the anisotropic range`);
+    if (a < want.RBeta && want.kfOverKR >= want.RBeta)
+      notes.push(
+        `k_f/k_R = ${fmt(a)} is below R_β = ${fmt(want.RBeta)}: the forcing now lies below k_β, inside the anisotropic range`,
+      );
   }
   // Model units: U = 1, L_jet = Ly/J, so k_R = γJ/(√2 Ly), β = 2k_R², and R_β fixes ε = β³/k_β⁵ = μ.
   const kR = (gamma * J) / (Math.SQRT2 * Ly);
@@ -161,7 +174,8 @@ function buildMatched(
     halfWidth = dkMesh / kf;
     why.annulusHalfWidth = `widened to half a grid wavenumber, the least that surely holds modes on ${grid}`;
   }
-  if (!(halfWidth < 1) || kf * (1 + halfWidth) > kMax * (1 + KEPT_TOL)) return `the forcing annulus does not fit below k_max = ${fmt(kMax)}`;
+  if (!(halfWidth < 1) || kf * (1 + halfWidth) > kMax * (1 + KEPT_TOL))
+    return `the forcing annulus does not fit below k_max = ${fmt(kMax)}`;
   const tauF = Math.pow(eps * kf * kf, -1 / 3);
   const input: PlanInput = {
     units: 'model',
@@ -193,11 +207,30 @@ function buildMatched(
   const got = planRatios(mPlan, mPred);
   const ratios = (Object.keys(RATIO_LABELS) as RatioId[]).map((id) => {
     const kept = Math.abs(got[id] / want[id] - 1) <= KEPT_TOL || got[id] === want[id];
-    if (id === 'runDragTimes' && !kept) why.runDragTimes = `shortened to two times to statistical steady state (${T.steadyMultiple} drag times): spin-up, then as long again to average; long statistics are the planned run's job`;
-    return { id, label: RATIO_LABELS[id], planned: want[id], matched: got[id], kept, why: kept ? '' : (why[id] ?? 'follows from the ratios above') };
+    if (id === 'runDragTimes' && !kept)
+      why.runDragTimes = `shortened to two times to statistical steady state (${T.steadyMultiple} drag times): spin-up, then as long again to average; long statistics are the planned run's job`;
+    return {
+      id,
+      label: RATIO_LABELS[id],
+      planned: want[id],
+      matched: got[id],
+      kept,
+      why: kept ? '' : (why[id] ?? 'follows from the ratios above'),
+    };
   });
   const cost = runCost(nx, ny, mPred.stepsPlanned.value, annulusModeCount(params), speed, ref);
-  return { input, plan: mPlan, predictions: mPred, params, ratios, gives, cost, targetWallSeconds: target, withinTarget: cost.wallSeconds <= target, notes };
+  return {
+    input,
+    plan: mPlan,
+    predictions: mPred,
+    params,
+    ratios,
+    gives,
+    cost,
+    targetWallSeconds: target,
+    withinTarget: cost.wallSeconds <= target,
+    notes,
+  };
 }
 
 /**
@@ -211,7 +244,11 @@ function buildMatched(
 function floors(want: RatioSet, gamma: number, order: number): { a: number; J: number; b: number } {
   const h = want.gridDampingOverTurnover;
   const stairOverConv = Math.pow(720, 0.25) / gamma;
-  const b = Math.max(T.minForcingToDissipation * Math.pow(h, -1 / (2 * order)), Math.pow(h * T.maxForcingDamping, -1 / (2 * order)), 1 + want.annulusHalfWidth);
+  const b = Math.max(
+    T.minForcingToDissipation * Math.pow(h, -1 / (2 * order)),
+    Math.pow(h * T.maxForcingDamping, -1 / (2 * order)),
+    1 + want.annulusHalfWidth,
+  );
   return {
     a: Math.min(want.kfOverKR, FLOOR_MARGIN * ((T.minJetToForcing * 2 * Math.PI * Math.SQRT2) / gamma)),
     J: Math.min(want.jetsPerDomain, FLOOR_MARGIN * T.minJets * Math.max(1, stairOverConv)),

@@ -31,7 +31,9 @@ export const PlanFileSchema = v.strictObject({
 /** A plan file for a (validated) input; `savedAt` an ISO 8601 timestamp if wanted. */
 export function planFile(input: PlanInput, savedAt?: string): PlanFile {
   validatePlanInput(input);
-  return savedAt === undefined ? { format: PLAN_FILE_FORMAT, version: PLAN_FILE_VERSION, input } : { format: PLAN_FILE_FORMAT, version: PLAN_FILE_VERSION, savedAt, input };
+  return savedAt === undefined
+    ? { format: PLAN_FILE_FORMAT, version: PLAN_FILE_VERSION, input }
+    : { format: PLAN_FILE_FORMAT, version: PLAN_FILE_VERSION, savedAt, input };
 }
 
 /** The plan file as JSON text (two-space indent, trailing newline). */
@@ -50,12 +52,22 @@ export function parsePlanFile(source: string | unknown): PlanFile {
     try {
       data = JSON.parse(source);
     } catch (e) {
-      throw new InputError('plan file', '(file)', `not a plan file: the text is not JSON (${e instanceof Error ? e.message : String(e)})`);
+      throw new InputError(
+        'plan file',
+        '(file)',
+        `not a plan file: the text is not JSON (${e instanceof Error ? e.message : String(e)})`,
+      );
     }
   }
-  if (typeof data !== 'object' || data === null || Array.isArray(data)) throw new InputError('plan file', '(file)', 'not a plan file: expected a JSON object');
+  if (typeof data !== 'object' || data === null || Array.isArray(data))
+    throw new InputError('plan file', '(file)', 'not a plan file: expected a JSON object');
   const rec = data as Record<string, unknown>;
-  if (rec.format !== PLAN_FILE_FORMAT) throw new InputError('plan file', 'format', `not a Stria plan file: format is ${JSON.stringify(rec.format)}, expected "${PLAN_FILE_FORMAT}"`);
+  if (rec.format !== PLAN_FILE_FORMAT)
+    throw new InputError(
+      'plan file',
+      'format',
+      `not a Stria plan file: format is ${JSON.stringify(rec.format)}, expected "${PLAN_FILE_FORMAT}"`,
+    );
   if (rec.version !== PLAN_FILE_VERSION) {
     throw new InputError(
       'plan file',
@@ -66,7 +78,12 @@ export function parsePlanFile(source: string | unknown): PlanFile {
   try {
     validatePlanInput(rec.input);
   } catch (e) {
-    if (isInputError(e, 'plan input')) throw new InputError('plan file', 'input', `plan file input refused: ${e.issues.map((i) => `input.${i.field}: ${i.message}`).join('; ')}`);
+    if (isInputError(e, 'plan input'))
+      throw new InputError(
+        'plan file',
+        'input',
+        `plan file input refused: ${e.issues.map((i) => `input.${i.field}: ${i.message}`).join('; ')}`,
+      );
     throw e;
   }
   const parsed = v.safeParse(PlanFileSchema, data);

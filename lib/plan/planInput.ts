@@ -29,9 +29,9 @@ import { THRESHOLDS } from './thresholds';
 export type UnitSystem = 'physical' | 'model';
 
 export type RotationInput =
-  | { kind: 'planet'; planet: 'earth' | 'jupiter'; latitudeDeg: number }
-  | { kind: 'beta'; beta: number; f?: number };
-export type DeformationInput = { kind: 'none' } | { kind: 'radius'; Ld: number } | { kind: 'layer'; H: number; gPrime: number };
+  { kind: 'planet'; planet: 'earth' | 'jupiter'; latitudeDeg: number } | { kind: 'beta'; beta: number; f?: number };
+export type DeformationInput =
+  { kind: 'none' } | { kind: 'radius'; Ld: number } | { kind: 'layer'; H: number; gPrime: number };
 export type DriveInput = { kind: 'injection'; eps: number } | { kind: 'velocity'; U: number };
 export type GridInput = { kind: 'points'; nx: number; ny: number } | { kind: 'spacing'; dx: number; dy: number };
 
@@ -74,7 +74,10 @@ const isPow2 = (n: number) => Number.isInteger(n) && n > 0 && (n & (n - 1)) === 
 const points = (what: string) =>
   v.pipe(
     v.number(`${what}: a power of two from ${PLAN_SIZE_MIN} to ${PLAN_SIZE_MAX}`),
-    v.check((n) => isPow2(n) && n >= PLAN_SIZE_MIN && n <= PLAN_SIZE_MAX, `must be a power of two from ${PLAN_SIZE_MIN} to ${PLAN_SIZE_MAX}`),
+    v.check(
+      (n) => isPow2(n) && n >= PLAN_SIZE_MIN && n <= PLAN_SIZE_MAX,
+      `must be a power of two from ${PLAN_SIZE_MIN} to ${PLAN_SIZE_MAX}`,
+    ),
   );
 
 const kindOf = (options: string) => `must be one of ${options}`;
@@ -100,7 +103,11 @@ export const PlanInputSchema = v.strictObject({
     [
       v.strictObject({ kind: v.literal('none') }),
       v.strictObject({ kind: v.literal('radius'), Ld: positive('deformation radius L_d') }),
-      v.strictObject({ kind: v.literal('layer'), H: positive('layer depth H'), gPrime: positive('reduced gravity g′') }),
+      v.strictObject({
+        kind: v.literal('layer'),
+        H: positive('layer depth H'),
+        gPrime: positive('reduced gravity g′'),
+      }),
     ],
     kindOf('{ kind: "none" }, { kind: "radius", Ld } or { kind: "layer", H, gPrime }'),
   ),
@@ -134,8 +141,22 @@ export const PlanInputSchema = v.strictObject({
     gridDampingTime: positive('damping time at the grid scale τ'),
   }),
   runLength: positive('run length'),
-  cfl: v.optional(v.pipe(v.number('CFL number'), v.check((c) => Number.isFinite(c) && c > 0 && c <= 1.2, 'out of range (CFL number: > 0 and ≤ 1.2)'))),
-  rhines: v.optional(v.picklist(Object.keys(RHINES_DEFINITIONS) as RhinesConvention[], kindOf(Object.keys(RHINES_DEFINITIONS).map((k) => `"${k}"`).join(', ')))),
+  cfl: v.optional(
+    v.pipe(
+      v.number('CFL number'),
+      v.check((c) => Number.isFinite(c) && c > 0 && c <= 1.2, 'out of range (CFL number: > 0 and ≤ 1.2)'),
+    ),
+  ),
+  rhines: v.optional(
+    v.picklist(
+      Object.keys(RHINES_DEFINITIONS) as RhinesConvention[],
+      kindOf(
+        Object.keys(RHINES_DEFINITIONS)
+          .map((k) => `"${k}"`)
+          .join(', '),
+      ),
+    ),
+  ),
 });
 
 /** The plan input with defaults filled (cfl, rhines), as every other planner module receives it. */
@@ -160,7 +181,11 @@ export function validatePlanInput(input: unknown): ValidPlanInput {
   const p = parsed.output as PlanInput;
   const issues: InputIssue[] = [];
   if (p.units === 'model' && p.rotation.kind === 'planet') {
-    issues.push({ field: 'rotation.kind', value: 'planet', message: 'a planet gives f and β in SI units: use units "physical", or give β in model units' });
+    issues.push({
+      field: 'rotation.kind',
+      value: 'planet',
+      message: 'a planet gives f and β in SI units: use units "physical", or give β in model units',
+    });
   }
   if (p.deformation.kind === 'layer') {
     const f = p.rotation.kind === 'planet' ? NaN : p.rotation.f;
@@ -169,15 +194,23 @@ export function validatePlanInput(input: unknown): ValidPlanInput {
       issues.push({
         field: 'deformation.kind',
         value: 'layer',
-        message: 'L_d = √(g′H)/|f| needs f ≠ 0: give the rotation as a planet off the equator, give f, or give L_d directly',
+        message:
+          'L_d = √(g′H)/|f| needs f ≠ 0: give the rotation as a planet off the equator, give f, or give L_d directly',
       });
     }
   }
   if (p.grid.kind === 'spacing') {
-    for (const [axis, L, d] of [['dx', p.domain.Lx, p.grid.dx], ['dy', p.domain.Ly, p.grid.dy]] as const) {
+    for (const [axis, L, d] of [
+      ['dx', p.domain.Lx, p.grid.dx],
+      ['dy', p.domain.Ly, p.grid.dy],
+    ] as const) {
       const n = pointsForSpacing(L, d);
       if (n > PLAN_SIZE_MAX) {
-        issues.push({ field: `grid.${axis}`, value: d, message: `needs ${n} points across the domain, more than ${PLAN_SIZE_MAX}: widen the spacing or shrink the domain` });
+        issues.push({
+          field: `grid.${axis}`,
+          value: d,
+          message: `needs ${n} points across the domain, more than ${PLAN_SIZE_MAX}: widen the spacing or shrink the domain`,
+        });
       }
     }
   }
@@ -199,11 +232,29 @@ const SOURCES: Record<PredictionId, readonly string[]> = (() => {
   const rhines = ['rotation', ...speed];
   const step = ['cfl', 'grid', 'domain', ...speed];
   return {
-    U: speed, kR: rhines, rhines_kR: rhines, rhines_sqrtUbeta: rhines, rhines_piOverKR: rhines, rhines_twoPiSqrtUbeta: rhines,
-    kBeta: rhines, kFric: speed, eta: ['drive', 'dragTime', 'forcing.wavelength'], kNu: ['drive', 'dragTime', 'forcing.wavelength', 'hyperviscosity', 'grid', 'domain'],
-    R_beta: rhines, regime: rhines, jetSpacingRhines: rhines, jetSpacingStaircase: rhines, jetsRhines: [...rhines, 'domain.Ly'], jetsStaircase: [...rhines, 'domain.Ly'],
-    spinUpTime: ['dragTime'], steadyTime: ['dragTime'], turnoverForcing: ['drive', 'dragTime', 'forcing.wavelength'], peakSpeed: speed,
-    dtCFL: step, stepsToSteady: step, stepsPlanned: [...step, 'runLength'],
+    U: speed,
+    kR: rhines,
+    rhines_kR: rhines,
+    rhines_sqrtUbeta: rhines,
+    rhines_piOverKR: rhines,
+    rhines_twoPiSqrtUbeta: rhines,
+    kBeta: rhines,
+    kFric: speed,
+    eta: ['drive', 'dragTime', 'forcing.wavelength'],
+    kNu: ['drive', 'dragTime', 'forcing.wavelength', 'hyperviscosity', 'grid', 'domain'],
+    R_beta: rhines,
+    regime: rhines,
+    jetSpacingRhines: rhines,
+    jetSpacingStaircase: rhines,
+    jetsRhines: [...rhines, 'domain.Ly'],
+    jetsStaircase: [...rhines, 'domain.Ly'],
+    spinUpTime: ['dragTime'],
+    steadyTime: ['dragTime'],
+    turnoverForcing: ['drive', 'dragTime', 'forcing.wavelength'],
+    peakSpeed: speed,
+    dtCFL: step,
+    stepsToSteady: step,
+    stepsPlanned: [...step, 'runLength'],
   };
 })();
 
@@ -217,7 +268,10 @@ function nonFinitePredictions(p: ValidPlanInput): InputIssue[] {
   for (const [id, pr] of Object.entries(predictions) as [PredictionId, (typeof predictions)[PredictionId]][]) {
     if (Number.isFinite(pr.value)) continue;
     const leaves = numberLeaves(p).filter(([path]) => SOURCES[id].some((s) => path === s || path.startsWith(`${s}.`)));
-    const worst = leaves.reduce((a, b) => (Math.abs(Math.log10(Math.abs(b[1]))) > Math.abs(Math.log10(Math.abs(a[1]))) ? b : a), leaves[0] ?? ['(plan)', NaN]);
+    const worst = leaves.reduce(
+      (a, b) => (Math.abs(Math.log10(Math.abs(b[1]))) > Math.abs(Math.log10(Math.abs(a[1]))) ? b : a),
+      leaves[0] ?? ['(plan)', NaN],
+    );
     const list = blamed.get(worst[0]) ?? [];
     list.push(`${pr.symbol} = ${pr.value}`);
     blamed.set(worst[0], list);

@@ -17,7 +17,8 @@ export function planReportBlocks(a: PlanAnalysis): Block[] {
   const { plan, predictions: p } = a;
   const u = plan.units;
   const title = reportTitle(a);
-  const counts = (cs: PlanCheck[]) => ['error', 'warning', 'ok'].map((s) => `${cs.filter((c) => c.severity === s).length} ${s}`).join(', ');
+  const counts = (cs: PlanCheck[]) =>
+    ['error', 'warning', 'ok'].map((s) => `${cs.filter((c) => c.severity === s).length} ${s}`).join(', ');
   const blocks: Block[] = [
     { type: 'heading', level: 1, text: title },
     {
@@ -25,7 +26,11 @@ export function planReportBlocks(a: PlanAnalysis): Block[] {
       text: `Regime: ${regimeLabel(p)}. Expected jets in the domain: ${fmt(p.jetsRhines.value, 3)} (Rhines spacing, ${plan.input.rhines}) to ${fmt(p.jetsStaircase.value, 3)} (staircase spacing). Checks: ${counts(a.checks)}. Units: ${u === 'physical' ? 'SI (m, s)' : 'model units'}.`,
     },
     { type: 'heading', level: 2, text: 'Inputs as entered' },
-    { type: 'table', head: ['field', 'value', 'unit'], rows: flatten(plan.input).map(([k, v]) => [k, v, inputUnit(k, u, plan.order)]) },
+    {
+      type: 'table',
+      head: ['field', 'value', 'unit'],
+      rows: flatten(plan.input).map(([k, v]) => [k, v, inputUnit(k, u, plan.order)]),
+    },
     { type: 'heading', level: 2, text: 'Inputs as derived' },
     {
       type: 'table',
@@ -41,7 +46,10 @@ export function planReportBlocks(a: PlanAnalysis): Block[] {
         ['spacing dx, dy', `${withUnit(plan.dx, 'length', u)}, ${withUnit(plan.dy, 'length', u)}`],
         ['largest kept wavenumber k_max (2/3 rule)', withUnit(plan.kMax, 'wavenumber', u)],
         [`hyperviscosity ν (order p = ${plan.order})`, `${fmt(plan.nu)} ${hyperUnit(u, plan.order)}`],
-        ['run length', withUnit(plan.runLength, 'time', u) + (u === 'physical' ? ` (${duration(plan.runLength)})` : '')],
+        [
+          'run length',
+          withUnit(plan.runLength, 'time', u) + (u === 'physical' ? ` (${duration(plan.runLength)})` : ''),
+        ],
       ],
     },
     { type: 'list', items: plan.derivations },
@@ -50,18 +58,37 @@ export function planReportBlocks(a: PlanAnalysis): Block[] {
     {
       type: 'table',
       head: ['prediction', 'symbol', 'value', 'formula', 'source'],
-      rows: Object.values(p).map((q) => [q.label, q.symbol, q.text ? `${q.text} (R_β = ${fmt(q.value)})` : withUnit(q.value, q.quantity, u), q.formula, q.reference]),
+      rows: Object.values(p).map((q) => [
+        q.label,
+        q.symbol,
+        q.text ? `${q.text} (R_β = ${fmt(q.value)})` : withUnit(q.value, q.quantity, u),
+        q.formula,
+        q.reference,
+      ]),
     },
     { type: 'heading', level: 2, text: 'Checks' },
-    { type: 'table', head: ['verdict', 'check', 'finding', 'numbers', 'threshold', 'fix', 'source'], rows: a.checks.map((c) => checkRow(c, u)) },
+    {
+      type: 'table',
+      head: ['verdict', 'check', 'finding', 'numbers', 'threshold', 'fix', 'source'],
+      rows: a.checks.map((c) => checkRow(c, u)),
+    },
     ...costBlocks(a),
     ...matchedBlocks(a),
     { type: 'heading', level: 2, text: 'Scale ladder' },
-    { type: 'figure', svg: scaleLadderSvg(plan, p), caption: `Every wavenumber of the plan on one logarithmic axis (${unitLabel('wavenumber', u)}); regime: ${p.regime.text}.` },
+    {
+      type: 'figure',
+      svg: scaleLadderSvg(plan, p),
+      caption: `Every wavenumber of the plan on one logarithmic axis (${unitLabel('wavenumber', u)}); regime: ${p.regime.text}.`,
+    },
     {
       type: 'table',
       head: ['mark', 'meaning', 'k', 'length 2π/k'],
-      rows: ladderMarks(plan, p).map((m) => [m.symbol, m.label, withUnit(m.k, 'wavenumber', u), withUnit((2 * Math.PI) / m.k, 'length', u)]),
+      rows: ladderMarks(plan, p).map((m) => [
+        m.symbol,
+        m.label,
+        withUnit(m.k, 'wavenumber', u),
+        withUnit((2 * Math.PI) / m.k, 'length', u),
+      ]),
     },
   ];
   return blocks;
@@ -82,12 +109,24 @@ function reportTitle(a: PlanAnalysis): string {
 }
 
 function checkRow(c: PlanCheck, u: UnitSystem): string[] {
-  return [c.severity, c.title, c.message, c.numbers.map((x) => `${x.label} = ${withUnit(x.value, x.quantity, u)}`).join('; '), c.threshold, c.fix ?? '—', c.reference];
+  return [
+    c.severity,
+    c.title,
+    c.message,
+    c.numbers.map((x) => `${x.label} = ${withUnit(x.value, x.quantity, u)}`).join('; '),
+    c.threshold,
+    c.fix ?? '—',
+    c.reference,
+  ];
 }
 
 function scalingBlocks(a: PlanAnalysis): Block[] {
   const { plan, scaling, predictions: p } = a;
-  if (plan.units === 'model') return [{ type: 'heading', level: 2, text: 'Units' }, { type: 'paragraph', text: 'The plan is in model units; no scaling applies.' }];
+  if (plan.units === 'model')
+    return [
+      { type: 'heading', level: 2, text: 'Units' },
+      { type: 'paragraph', text: 'The plan is in model units; no scaling applies.' },
+    ];
   const mp = planModelParams(plan, p.dtCFL.value / scaling.time, scaling);
   return [
     { type: 'heading', level: 2, text: 'Model units' },
@@ -95,7 +134,11 @@ function scalingBlocks(a: PlanAnalysis): Block[] {
       type: 'paragraph',
       text: `Length unit ℓ = Lx/2π = ${fmt(scaling.length)} m (the domain is 2π long in x); time unit t = ℓ/U = ${fmt(scaling.time)} s (${duration(scaling.time)}), so the rms velocity is 1. The planned run in model units:`,
     },
-    { type: 'table', head: ['parameter', 'model value'], rows: Object.entries(mp).map(([k, v]) => [k, typeof v === 'number' ? fmt(v, 6) : String(v)]) },
+    {
+      type: 'table',
+      head: ['parameter', 'model value'],
+      rows: Object.entries(mp).map(([k, v]) => [k, typeof v === 'number' ? fmt(v, 6) : String(v)]),
+    },
   ];
 }
 
@@ -116,14 +159,25 @@ function costBlocks(a: PlanAnalysis): Block[] {
         ['machine', `speed factor ${fmt(c.speed)} relative to the measuring machine`],
       ],
     },
-    { type: 'paragraph', text: `Step time scaled as N² log N from ${fmt(ref.ms_per_step)} ms per step at ${ref.n} × ${ref.n}, measured ${ref.measured_on} (${ref.how}).` },
-    { type: 'table', head: ['owner', 'array', 'elements', 'bytes'], rows: c.memory.arrays.map((x) => [x.owner, x.name, String(x.elements), bytes(x.bytes)]) },
+    {
+      type: 'paragraph',
+      text: `Step time scaled as N² log N from ${fmt(ref.ms_per_step)} ms per step at ${ref.n} × ${ref.n}, measured ${ref.measured_on} (${ref.how}).`,
+    },
+    {
+      type: 'table',
+      head: ['owner', 'array', 'elements', 'bytes'],
+      rows: c.memory.arrays.map((x) => [x.owner, x.name, String(x.elements), bytes(x.bytes)]),
+    },
   ];
 }
 
 function matchedBlocks(a: PlanAnalysis): Block[] {
   const m = a.matched;
-  if (!m) return [{ type: 'heading', level: 2, text: 'Matched cheap run' }, { type: 'paragraph', text: `No matched run: ${a.matchedError ?? 'unknown reason'}` }];
+  if (!m)
+    return [
+      { type: 'heading', level: 2, text: 'Matched cheap run' },
+      { type: 'paragraph', text: `No matched run: ${a.matchedError ?? 'unknown reason'}` },
+    ];
   const worst = a.matchedChecks.filter((c) => c.severity !== 'ok');
   return [
     { type: 'heading', level: 2, text: 'Matched cheap run' },
@@ -131,19 +185,43 @@ function matchedBlocks(a: PlanAnalysis): Block[] {
       type: 'paragraph',
       text: `${m.params.nx} × ${m.params.ny} grid, ${m.cost.steps} steps, about ${duration(m.cost.wallSeconds)} here (target ${duration(m.targetWallSeconds)}${m.withinTarget ? '' : ', exceeded'}). Ratio that gave: ${m.gives}.`,
     },
-    { type: 'table', head: ['ratio', 'planned', 'matched', 'kept', 'why'], rows: m.ratios.map((r) => [r.label, fmt(r.planned), fmt(r.matched), r.kept ? 'exactly' : 'compromised', r.why || '—']) },
+    {
+      type: 'table',
+      head: ['ratio', 'planned', 'matched', 'kept', 'why'],
+      rows: m.ratios.map((r) => [
+        r.label,
+        fmt(r.planned),
+        fmt(r.matched),
+        r.kept ? 'exactly' : 'compromised',
+        r.why || '—',
+      ]),
+    },
     ...(m.notes.length ? [{ type: 'list' as const, items: m.notes }] : []),
     { type: 'heading', level: 3, text: 'Its model parameters' },
-    { type: 'table', head: ['parameter', 'value'], rows: Object.entries(m.params).map(([k, v]) => [k, typeof v === 'number' ? fmt(v, 6) : String(v)]) },
+    {
+      type: 'table',
+      head: ['parameter', 'value'],
+      rows: Object.entries(m.params).map(([k, v]) => [k, typeof v === 'number' ? fmt(v, 6) : String(v)]),
+    },
     { type: 'heading', level: 3, text: 'Its checks' },
-    worst.length ? { type: 'table', head: ['verdict', 'check', 'finding', 'numbers', 'threshold', 'fix', 'source'], rows: worst.map((c) => checkRow(c, 'model')) } : { type: 'paragraph', text: 'Every check passes.' },
+    worst.length
+      ? {
+          type: 'table',
+          head: ['verdict', 'check', 'finding', 'numbers', 'threshold', 'fix', 'source'],
+          rows: worst.map((c) => checkRow(c, 'model')),
+        }
+      : { type: 'paragraph', text: 'Every check passes.' },
   ];
 }
 
 /** [dotted path, value text] for every leaf of the input. */
 function flatten(x: unknown, prefix = ''): Array<[string, string]> {
   if (typeof x !== 'object' || x === null) return [[prefix, String(x)]];
-  return Object.entries(x as Record<string, unknown>).flatMap(([k, v]) => (typeof v === 'object' && v !== null ? flatten(v, `${prefix}${k}.`) : [[`${prefix}${k}`, typeof v === 'number' ? fmt(v, 8) : String(v)] as [string, string]]));
+  return Object.entries(x as Record<string, unknown>).flatMap(([k, v]) =>
+    typeof v === 'object' && v !== null
+      ? flatten(v, `${prefix}${k}.`)
+      : [[`${prefix}${k}`, typeof v === 'number' ? fmt(v, 8) : String(v)] as [string, string]],
+  );
 }
 
 function inputUnit(path: string, u: UnitSystem, order: number): string {
@@ -155,7 +233,13 @@ function inputUnit(path: string, u: UnitSystem, order: number): string {
       return betaUnit(u);
     case 'f':
       return unitLabel('rate', u);
-    case 'Ld': case 'H': case 'wavelength': case 'Lx': case 'Ly': case 'dx': case 'dy':
+    case 'Ld':
+    case 'H':
+    case 'wavelength':
+    case 'Lx':
+    case 'Ly':
+    case 'dx':
+    case 'dy':
       return unitLabel('length', u);
     case 'gPrime':
       return u === 'physical' ? 'm/s²' : 'model length/time²';
@@ -163,7 +247,9 @@ function inputUnit(path: string, u: UnitSystem, order: number): string {
       return injectionUnit(u);
     case 'U':
       return unitLabel('velocity', u);
-    case 'dragTime': case 'gridDampingTime': case 'runLength':
+    case 'dragTime':
+    case 'gridDampingTime':
+    case 'runLength':
       return unitLabel('time', u);
     case 'halfWidth':
       return 'fraction of k_f';

@@ -36,9 +36,26 @@ export interface Prediction {
 
 export type RhinesId = `rhines_${RhinesConvention}`;
 export type PredictionId =
-  | 'U' | RhinesId | 'kR' | 'kBeta' | 'kFric' | 'eta' | 'kNu' | 'R_beta' | 'regime'
-  | 'jetSpacingRhines' | 'jetSpacingStaircase' | 'jetsRhines' | 'jetsStaircase'
-  | 'spinUpTime' | 'steadyTime' | 'turnoverForcing' | 'peakSpeed' | 'dtCFL' | 'stepsToSteady' | 'stepsPlanned';
+  | 'U'
+  | RhinesId
+  | 'kR'
+  | 'kBeta'
+  | 'kFric'
+  | 'eta'
+  | 'kNu'
+  | 'R_beta'
+  | 'regime'
+  | 'jetSpacingRhines'
+  | 'jetSpacingStaircase'
+  | 'jetsRhines'
+  | 'jetsStaircase'
+  | 'spinUpTime'
+  | 'steadyTime'
+  | 'turnoverForcing'
+  | 'peakSpeed'
+  | 'dtCFL'
+  | 'stepsToSteady'
+  | 'stepsPlanned';
 
 export type PlanPredictions = Record<PredictionId, Prediction> & { regime: Prediction & { text: Regime } };
 
@@ -52,42 +69,163 @@ export function predictPlan(plan: ResolvedPlan): PlanPredictions {
   const conv = plan.input.rhines;
   const given = plan.input.drive.kind === 'velocity';
   const out: Partial<Record<PredictionId, Prediction>> = {};
-  const put = (id: PredictionId, label: string, symbol: string, value: number, quantity: Quantity, formula: string, reference: string) => {
+  const put = (
+    id: PredictionId,
+    label: string,
+    symbol: string,
+    value: number,
+    quantity: Quantity,
+    formula: string,
+    reference: string,
+  ) => {
     out[id] = { id, label, symbol, value, quantity, formula, reference };
   };
-  put('U', 'rms velocity', 'U', U, 'velocity', given ? 'U given as the target; ε = μU²' : 'U = (ε/μ)^½', REFERENCES.energyBalance);
+  put(
+    'U',
+    'rms velocity',
+    'U',
+    U,
+    'velocity',
+    given ? 'U given as the target; ε = μU²' : 'U = (ε/μ)^½',
+    REFERENCES.energyBalance,
+  );
   for (const c of Object.keys(RHINES_DEFINITIONS) as RhinesConvention[]) {
-    put(`rhines_${c}`, `Rhines length (${c})`, 'L_R', rhinesLength(beta, U, c), 'length', RHINES_DEFINITIONS[c].label, REFERENCES.rhinesConventions);
+    put(
+      `rhines_${c}`,
+      `Rhines length (${c})`,
+      'L_R',
+      rhinesLength(beta, U, c),
+      'length',
+      RHINES_DEFINITIONS[c].label,
+      REFERENCES.rhinesConventions,
+    );
   }
   const kR = rhinesWavenumber(beta, U);
   put('kR', 'Rhines wavenumber', 'k_R', kR, 'wavenumber', 'k_R = (β/2U)^½', REFERENCES.rhines);
   const kBeta = transitionalWavenumber(beta, eps);
   put('kBeta', 'transitional wavenumber', 'k_β', kBeta, 'wavenumber', 'k_β = (β³/ε)^{1/5}', REFERENCES.transitional);
-  put('kFric', 'friction wavenumber', 'k_fric', frictionWavenumber(mu, eps), 'wavenumber', 'k_fric = (μ³/ε)^½', REFERENCES.friction);
+  put(
+    'kFric',
+    'friction wavenumber',
+    'k_fric',
+    frictionWavenumber(mu, eps),
+    'wavenumber',
+    'k_fric = (μ³/ε)^½',
+    REFERENCES.friction,
+  );
   const eta = kf * kf * eps;
   put('eta', 'enstrophy injection rate', 'η', eta, 'enstrophyRate', 'η = k_f² ε', REFERENCES.ringEnstrophy);
-  put('kNu', 'dissipation wavenumber', 'k_ν', dissipationWavenumber(eta, nu, order), 'wavenumber', 'k_ν = (η^{1/3}/ν)^{1/(2p)}', REFERENCES.dissipation);
+  put(
+    'kNu',
+    'dissipation wavenumber',
+    'k_ν',
+    dissipationWavenumber(eta, nu, order),
+    'wavenumber',
+    'k_ν = (η^{1/3}/ν)^{1/(2p)}',
+    REFERENCES.dissipation,
+  );
   const R = steadyZonostrophyIndex(beta, eps, mu);
   put('R_beta', 'zonostrophy index', 'R_β', R, 'ratio', 'R_β = k_β/k_R = √2 (β²ε/μ⁵)^{1/20}', REFERENCES.zonostrophy);
   const regime = regimeOf(R);
-  out.regime = { id: 'regime', label: 'regime', symbol: 'regime', value: R, quantity: 'ratio', formula: 'R_β < 1.5 friction-dominated; 1.5–2.5 transitional; ≥ 2.5 zonostrophic', reference: REFERENCES.regime, text: regime };
+  out.regime = {
+    id: 'regime',
+    label: 'regime',
+    symbol: 'regime',
+    value: R,
+    quantity: 'ratio',
+    formula: 'R_β < 1.5 friction-dominated; 1.5–2.5 transitional; ≥ 2.5 zonostrophic',
+    reference: REFERENCES.regime,
+    text: regime,
+  };
   const Lr = rhinesLength(beta, U, conv);
-  put('jetSpacingRhines', `jet spacing from the Rhines scale (${conv})`, 'L_jet', Lr, 'length', RHINES_DEFINITIONS[conv].label, REFERENCES.rhinesConventions);
+  put(
+    'jetSpacingRhines',
+    `jet spacing from the Rhines scale (${conv})`,
+    'L_jet',
+    Lr,
+    'length',
+    RHINES_DEFINITIONS[conv].label,
+    REFERENCES.rhinesConventions,
+  );
   const Ls = staircaseSpacing(beta, U);
-  put('jetSpacingStaircase', 'jet spacing of the ideal PV staircase', 'L_stair', Ls, 'length', 'L = 720^{1/4} (U/β)^½ ≈ 5.1800 (U/β)^½', REFERENCES.staircase);
-  put('jetsRhines', 'jets in the domain (Rhines spacing)', 'Ly/L_jet', Ly / Lr, 'count', 'Ly / L_jet', REFERENCES.practice);
-  put('jetsStaircase', 'jets in the domain (staircase spacing)', 'Ly/L_stair', Ly / Ls, 'count', 'Ly / L_stair', REFERENCES.practice);
+  put(
+    'jetSpacingStaircase',
+    'jet spacing of the ideal PV staircase',
+    'L_stair',
+    Ls,
+    'length',
+    'L = 720^{1/4} (U/β)^½ ≈ 5.1800 (U/β)^½',
+    REFERENCES.staircase,
+  );
+  put(
+    'jetsRhines',
+    'jets in the domain (Rhines spacing)',
+    'Ly/L_jet',
+    Ly / Lr,
+    'count',
+    'Ly / L_jet',
+    REFERENCES.practice,
+  );
+  put(
+    'jetsStaircase',
+    'jets in the domain (staircase spacing)',
+    'Ly/L_stair',
+    Ly / Ls,
+    'count',
+    'Ly / L_stair',
+    REFERENCES.practice,
+  );
   const spin = 1 / (2 * mu);
   put('spinUpTime', 'spin-up time (energy e-folding)', 't_spin', spin, 'time', 't_spin = 1/(2μ)', REFERENCES.spinUp);
   const steady = THRESHOLDS.steadyMultiple * spin;
-  put('steadyTime', 'time to statistical steady state', 't_ss', steady, 'time', `t_ss = ${THRESHOLDS.steadyMultiple}/(2μ)`, REFERENCES.spinUp);
-  put('turnoverForcing', 'eddy turnover time at the forcing scale', 'τ_f', Math.pow(eps * kf * kf, -1 / 3), 'time', 'τ_f = (ε k_f²)^{−1/3}', REFERENCES.turnover);
+  put(
+    'steadyTime',
+    'time to statistical steady state',
+    't_ss',
+    steady,
+    'time',
+    `t_ss = ${THRESHOLDS.steadyMultiple}/(2μ)`,
+    REFERENCES.spinUp,
+  );
+  put(
+    'turnoverForcing',
+    'eddy turnover time at the forcing scale',
+    'τ_f',
+    Math.pow(eps * kf * kf, -1 / 3),
+    'time',
+    'τ_f = (ε k_f²)^{−1/3}',
+    REFERENCES.turnover,
+  );
   const peak = THRESHOLDS.peakToRms * U;
-  put('peakSpeed', `expected peak speed (peak/rms = ${THRESHOLDS.peakToRms})`, 'u_peak', peak, 'velocity', `u_peak = ${THRESHOLDS.peakToRms} U`, REFERENCES.cfl);
+  put(
+    'peakSpeed',
+    `expected peak speed (peak/rms = ${THRESHOLDS.peakToRms})`,
+    'u_peak',
+    peak,
+    'velocity',
+    `u_peak = ${THRESHOLDS.peakToRms} U`,
+    REFERENCES.cfl,
+  );
   const dt = cflStep(cfl, peak, dx, dy);
   put('dtCFL', `time step at CFL ${cfl}`, 'dt', dt, 'time', 'dt = C / (u_peak/dx + u_peak/dy)', REFERENCES.cfl);
-  put('stepsToSteady', 'steps to statistical steady state', 'n_ss', Math.ceil(steady / dt), 'count', 'n_ss = ⌈t_ss / dt⌉', REFERENCES.practice);
-  put('stepsPlanned', 'steps in the planned run', 'n_run', Math.ceil(runLength / dt), 'count', 'n_run = ⌈T_run / dt⌉', REFERENCES.practice);
+  put(
+    'stepsToSteady',
+    'steps to statistical steady state',
+    'n_ss',
+    Math.ceil(steady / dt),
+    'count',
+    'n_ss = ⌈t_ss / dt⌉',
+    REFERENCES.practice,
+  );
+  put(
+    'stepsPlanned',
+    'steps in the planned run',
+    'n_run',
+    Math.ceil(runLength / dt),
+    'count',
+    'n_run = ⌈T_run / dt⌉',
+    REFERENCES.practice,
+  );
   return out as PlanPredictions;
 }
 

@@ -8,7 +8,15 @@ import type { ResolvedPlan } from './resolvePlan';
  * turnover time (ε k_f²)^{−1/3}), δk/k_f, μT (run length in drag times), Ly/Lx.
  */
 export type RatioId =
-  | 'RBeta' | 'jetsPerDomain' | 'kfOverKR' | 'kmaxOverKf' | 'kdOverKR' | 'gridDampingOverTurnover' | 'annulusHalfWidth' | 'runDragTimes' | 'aspect';
+  | 'RBeta'
+  | 'jetsPerDomain'
+  | 'kfOverKR'
+  | 'kmaxOverKf'
+  | 'kdOverKR'
+  | 'gridDampingOverTurnover'
+  | 'annulusHalfWidth'
+  | 'runDragTimes'
+  | 'aspect';
 
 export type RatioSet = Record<RatioId, number>;
 

@@ -26,8 +26,20 @@ export interface LadderMark {
 export function ladderMarks(plan: ResolvedPlan, pred: PlanPredictions): LadderMark[] {
   const marks: LadderMark[] = [
     { id: 'domainY', symbol: '2π/Ly', label: 'domain (y)', k: (2 * Math.PI) / plan.Ly, kind: 'domain' },
-    { id: 'rhines', symbol: 'k_Rh', label: `Rhines (${plan.input.rhines})`, k: (2 * Math.PI) / pred.jetSpacingRhines.value, kind: 'jets' },
-    { id: 'staircase', symbol: 'k_stair', label: 'staircase spacing', k: (2 * Math.PI) / pred.jetSpacingStaircase.value, kind: 'jets' },
+    {
+      id: 'rhines',
+      symbol: 'k_Rh',
+      label: `Rhines (${plan.input.rhines})`,
+      k: (2 * Math.PI) / pred.jetSpacingRhines.value,
+      kind: 'jets',
+    },
+    {
+      id: 'staircase',
+      symbol: 'k_stair',
+      label: 'staircase spacing',
+      k: (2 * Math.PI) / pred.jetSpacingStaircase.value,
+      kind: 'jets',
+    },
     { id: 'kBeta', symbol: 'k_β', label: 'transitional', k: pred.kBeta.value, kind: 'arrest' },
     { id: 'kFric', symbol: 'k_fric', label: 'friction', k: pred.kFric.value, kind: 'arrest' },
     { id: 'kf', symbol: 'k_f', label: 'forcing', k: plan.kf, kind: 'forcing' },
@@ -35,7 +47,8 @@ export function ladderMarks(plan: ResolvedPlan, pred: PlanPredictions): LadderMa
     { id: 'kMax', symbol: 'k_max', label: 'grid (2/3 rule)', k: plan.kMax, kind: 'grid' },
     { id: 'kd', symbol: 'k_d', label: 'deformation', k: plan.kd, kind: 'deformation' },
   ];
-  if (plan.Lx !== plan.Ly) marks.push({ id: 'domainX', symbol: '2π/Lx', label: 'domain (x)', k: (2 * Math.PI) / plan.Lx, kind: 'domain' });
+  if (plan.Lx !== plan.Ly)
+    marks.push({ id: 'domainX', symbol: '2π/Lx', label: 'domain (x)', k: (2 * Math.PI) / plan.Lx, kind: 'domain' });
   return marks.filter((m) => Number.isFinite(m.k) && m.k > 0).sort((a, b) => a.k - b.k);
 }
 
@@ -51,7 +64,12 @@ const COLOURS: Readonly<Record<MarkKind, string>> = Object.freeze({
 
 /** Escape text for XML character data and attribute values. */
 export function escapeXml(s: string): string {
-  return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');
+  return s
+    .replace(/&/g, '&amp;')
+    .replace(/</g, '&lt;')
+    .replace(/>/g, '&gt;')
+    .replace(/"/g, '&quot;')
+    .replace(/'/g, '&#39;');
 }
 
 export interface LadderOptions {
@@ -90,18 +108,27 @@ export function scaleLadderSvg(plan: ResolvedPlan, pred: PlanPredictions, opts: 
   const regime = REGIME_LABELS[pred.regime.text];
   const parts: string[] = [];
   const ns = opts.standalone === false ? '' : ' xmlns="http://www.w3.org/2000/svg"';
-  parts.push(`<svg${ns} viewBox="0 0 ${width} ${height}" width="${width}" height="${height}" role="img" aria-label="${escapeXml(`${title}: ${regime}`)}" font-family="sans-serif" font-size="11">`);
+  parts.push(
+    `<svg${ns} viewBox="0 0 ${width} ${height}" width="${width}" height="${height}" role="img" aria-label="${escapeXml(`${title}: ${regime}`)}" font-family="sans-serif" font-size="11">`,
+  );
   parts.push(`<title>${escapeXml(`${title}: ${regime}`)}</title>`);
   parts.push(`<rect x="0" y="0" width="${width}" height="${height}" fill="#ffffff"/>`);
   parts.push(`<text x="${left}" y="20" font-size="13" font-weight="bold">${escapeXml(title)}</text>`);
-  parts.push(`<text x="${left}" y="38" fill="#555555">${escapeXml(`wavenumber k (${unit}), logarithmic; a length L sits at k = 2π/L`)}</text>`);
+  parts.push(
+    `<text x="${left}" y="38" fill="#555555">${escapeXml(`wavenumber k (${unit}), logarithmic; a length L sits at k = 2π/L`)}</text>`,
+  );
   const kRh = marks.find((m) => m.id === 'rhines');
   const kB = marks.find((m) => m.id === 'kBeta');
   if (kRh && kB && kRh.k < kB.k) {
-    parts.push(`<rect x="${n(x(kRh.k))}" y="${axisY - 10}" width="${n(x(kB.k) - x(kRh.k))}" height="20" fill="#1f5fa8" fill-opacity="0.12"><title>anisotropic (zonostrophic) range</title></rect>`);
+    parts.push(
+      `<rect x="${n(x(kRh.k))}" y="${axisY - 10}" width="${n(x(kB.k) - x(kRh.k))}" height="20" fill="#1f5fa8" fill-opacity="0.12"><title>anisotropic (zonostrophic) range</title></rect>`,
+    );
   }
   const f0 = plan.kf - plan.dkf;
-  if (f0 > 0) parts.push(`<rect x="${n(x(f0))}" y="${axisY - 10}" width="${n(Math.max(1, x(plan.kf + plan.dkf) - x(f0)))}" height="20" fill="#c0392b" fill-opacity="0.25"/>`);
+  if (f0 > 0)
+    parts.push(
+      `<rect x="${n(x(f0))}" y="${axisY - 10}" width="${n(Math.max(1, x(plan.kf + plan.dkf) - x(f0)))}" height="20" fill="#c0392b" fill-opacity="0.25"/>`,
+    );
   parts.push(`<line x1="${left}" y1="${axisY}" x2="${right}" y2="${axisY}" stroke="#000000"/>`);
   for (let d = lo; d <= hi; d++) {
     const xd = n(x(Math.pow(10, d)));
@@ -113,12 +140,16 @@ export function scaleLadderSvg(plan: ResolvedPlan, pred: PlanPredictions, opts: 
     const dash = m.kind === 'domain' || m.kind === 'grid' ? 'none' : '3 2';
     const bend = axisY - 22;
     const foot = axisY - 34;
-    parts.push(`<polyline points="${n(cxs[i])},${axisY + 10} ${n(cxs[i])},${bend} ${n(pos[i])},${foot}" fill="none" stroke="${c}" stroke-dasharray="${dash}"/>`);
+    parts.push(
+      `<polyline points="${n(cxs[i])},${axisY + 10} ${n(cxs[i])},${bend} ${n(pos[i])},${foot}" fill="none" stroke="${c}" stroke-dasharray="${dash}"/>`,
+    );
     parts.push(
       `<text x="${n(pos[i] + 4)}" y="${foot - 3}" fill="${c}" transform="rotate(-90 ${n(pos[i] + 4)} ${foot - 3})">${escapeXml(texts[i])}<title>${escapeXml(`${m.label}: ${m.symbol} = ${fmt(m.k)} ${unit}`)}</title></text>`,
     );
   });
-  parts.push(`<text x="${left}" y="${height - 8}" fill="#555555">${escapeXml('shaded: Rhines to k_β (anisotropic range, blue); forcing annulus (red)')}</text>`);
+  parts.push(
+    `<text x="${left}" y="${height - 8}" fill="#555555">${escapeXml('shaded: Rhines to k_β (anisotropic range, blue); forcing annulus (red)')}</text>`,
+  );
   parts.push('</svg>');
   return parts.join('\n');
 }

@@ -25,7 +25,11 @@ export function betaParameter(omega: number, radius: number, latitudeDeg: number
 
 /** f and β of the plane tangent to `planet` at `latitudeDeg`. */
 export function tangentPlane(planet: Pick<Planet, 'omega' | 'radius'>, latitudeDeg: number): TangentPlane {
-  return { latitudeDeg, f: coriolisParameter(planet.omega, latitudeDeg), beta: betaParameter(planet.omega, planet.radius, latitudeDeg) };
+  return {
+    latitudeDeg,
+    f: coriolisParameter(planet.omega, latitudeDeg),
+    beta: betaParameter(planet.omega, planet.radius, latitudeDeg),
+  };
 }
 
 function radians(deg: number): number {

@@ -47,7 +47,13 @@ export function blowUpReport(e: BlowUpError): BlowUpReport {
 export function retryCheckpoint(cp: Checkpoint): Checkpoint {
   const dt = cp.params.dt / 2;
   const cfl = cp.params.cfl / 2;
-  return { ...cp, params: { ...cp.params, dt, cfl }, dt: Math.min(cp.dt, dt), qHat: cp.qHat.slice(), rng: [...cp.rng] as unknown as Checkpoint['rng'] };
+  return {
+    ...cp,
+    params: { ...cp.params, dt, cfl },
+    dt: Math.min(cp.dt, dt),
+    qHat: cp.qHat.slice(),
+    rng: [...cp.rng] as unknown as Checkpoint['rng'],
+  };
 }
 
 /** The record of a retry from `cp` after `e`. */

@@ -13,8 +13,10 @@ import { InputError } from '../inputError';
  * Restore writes typed arrays back into the object's own buffers (views others hold stay valid) and
  * refuses a state whose fields, array types or lengths differ from the object's.
  */
-export type TypedArray = Float64Array | Float32Array | Int32Array | Uint32Array | Int16Array | Uint16Array | Int8Array | Uint8Array;
-export type StateValue = number | boolean | string | null | undefined | TypedArray | StateValue[] | { [field: string]: StateValue };
+export type TypedArray =
+  Float64Array | Float32Array | Int32Array | Uint32Array | Int16Array | Uint16Array | Int8Array | Uint8Array;
+export type StateValue =
+  number | boolean | string | null | undefined | TypedArray | StateValue[] | { [field: string]: StateValue };
 export interface CapturedState {
   [field: string]: StateValue;
 }
@@ -40,7 +42,8 @@ function isPlainObject(x: unknown): x is Record<string, unknown> {
   return proto === Object.prototype || proto === null;
 }
 
-const isPrimitive = (x: unknown) => x === null || x === undefined || typeof x === 'number' || typeof x === 'boolean' || typeof x === 'string';
+const isPrimitive = (x: unknown) =>
+  x === null || x === undefined || typeof x === 'number' || typeof x === 'boolean' || typeof x === 'string';
 
 /**
  * A deep copy of the own fields of `obj` but those in `skip`. Throws an InputError of source 'state'
@@ -61,7 +64,11 @@ function copyValue(x: unknown, path: string): StateValue {
   if (Array.isArray(x)) return x.map((e, i) => copyValue(e, `${path}.${i}`));
   if (isPlainObject(x)) return captureState(x, [], path);
   const kind = typeof x === 'object' && x !== null ? (x.constructor?.name ?? 'object') : typeof x;
-  throw new InputError('state', path, `holds a ${kind}, which is not plain data: skip it as configuration or capture it on its own`);
+  throw new InputError(
+    'state',
+    path,
+    `holds a ${kind}, which is not plain data: skip it as configuration or capture it on its own`,
+  );
 }
 
 /** Write a captured state back into `obj` (the same kind of object it was captured from). */
@@ -72,7 +79,11 @@ export function restoreState(obj: object, state: CapturedState, skip: readonly s
   const missing = keys.filter((k) => !Object.hasOwn(state, k));
   const extra = saved.filter((k) => !keys.includes(k));
   if (missing.length || extra.length) {
-    throw new InputError('state', path, `the state does not fit: ${missing.length ? `it lacks ${missing.join(', ')}` : ''}${missing.length && extra.length ? '; ' : ''}${extra.length ? `it has unknown ${extra.join(', ')}` : ''}`);
+    throw new InputError(
+      'state',
+      path,
+      `the state does not fit: ${missing.length ? `it lacks ${missing.join(', ')}` : ''}${missing.length && extra.length ? '; ' : ''}${extra.length ? `it has unknown ${extra.join(', ')}` : ''}`,
+    );
   }
   // Check everything before writing anything, so a refused state leaves the object as it was.
   for (const key of keys) checkValue(target[key], state[key], `${path}.${key}`);
@@ -81,15 +92,18 @@ export function restoreState(obj: object, state: CapturedState, skip: readonly s
 
 function checkValue(current: unknown, saved: StateValue, path: string): void {
   if (isTypedArray(current)) {
-    if (!isTypedArray(saved) || saved.constructor !== current.constructor) throw new InputError('state', path, `must be a ${current.constructor.name}`);
-    if (saved.length !== current.length) throw new InputError('state', path, `holds ${saved.length} values, the object ${current.length}`);
+    if (!isTypedArray(saved) || saved.constructor !== current.constructor)
+      throw new InputError('state', path, `must be a ${current.constructor.name}`);
+    if (saved.length !== current.length)
+      throw new InputError('state', path, `holds ${saved.length} values, the object ${current.length}`);
     return;
   }
   if (Array.isArray(current)) {
     if (!Array.isArray(saved)) throw new InputError('state', path, 'must be a list');
     // A list of typed arrays is storage of fixed shape; a list of plain values may change length.
     if (current.some(isTypedArray)) {
-      if (saved.length !== current.length) throw new InputError('state', path, `holds ${saved.length} entries, the object ${current.length}`);
+      if (saved.length !== current.length)
+        throw new InputError('state', path, `holds ${saved.length} entries, the object ${current.length}`);
       current.forEach((c, i) => checkValue(c, saved[i], `${path}.${i}`));
     } else saved.forEach((s, i) => checkPlain(s, `${path}.${i}`));
     return;

@@ -37,7 +37,20 @@ export const TIME_MEAN_CAP = 256;
 
 // Fields that are configuration or plan objects rebuilt identically by the constructor, not state.
 const RUN_CONFIG = ['current', 'plan', 'monitor', 'steady', 'hooks', 'startTime', 'startSteps'];
-const MONITOR_CONFIG = ['params', 'snap', 'zonal', 'budget', 'hovmoller', 'means', 'window', 'jetFinder', 'staircase', 'latest', 'mean', 'fields'];
+const MONITOR_CONFIG = [
+  'params',
+  'snap',
+  'zonal',
+  'budget',
+  'hovmoller',
+  'means',
+  'window',
+  'jetFinder',
+  'staircase',
+  'latest',
+  'mean',
+  'fields',
+];
 
 /**
  * A model driven to the end of its RunPlan with a RunMonitor watching: every step's budget goes to
@@ -64,14 +77,20 @@ export class MonitoredRun {
   private samplesTaken = 0;
   private reason: StopReason | null = null;
 
-  constructor(model: Model, plan: RunPlan, hooks: RunHooks = {}, origin: RunOrigin = { time: model.time, steps: model.steps }) {
+  constructor(
+    model: Model,
+    plan: RunPlan,
+    hooks: RunHooks = {},
+    origin: RunOrigin = { time: model.time, steps: model.steps },
+  ) {
     this.current = model;
     this.plan = plan;
     this.hooks = hooks;
     this.startTime = origin.time;
     this.startSteps = origin.steps;
     this.monitor = new RunMonitor(model.params, { window: { kind: 'last', span: plan.average, cap: TIME_MEAN_CAP } });
-    this.steady = plan.stop.kind === 'steady' ? new SteadyCriterion(origin.time, plan.stop.window, plan.stop.tolerance) : null;
+    this.steady =
+      plan.stop.kind === 'steady' ? new SteadyCriterion(origin.time, plan.stop.window, plan.stop.tolerance) : null;
     this.nextSample = origin.time + plan.sampleEvery;
   }
 
@@ -92,7 +111,10 @@ export class MonitoredRun {
       const before = m.time;
       const report = m.step();
       // A clock that no longer moves (dt below the resolution of t) would never reach its stop time.
-      if (!(m.time > before)) throw new RangeError(`the model clock no longer advances: t = ${before}, dt = ${report.dt} is below its resolution`);
+      if (!(m.time > before))
+        throw new RangeError(
+          `the model clock no longer advances: t = ${before}, dt = ${report.dt} is below its resolution`,
+        );
       this.monitor.step(report);
       this.hooks.onStep?.(m);
       if (m.time >= this.nextSample) {
@@ -126,7 +148,10 @@ export class MonitoredRun {
     const s = this.plan.stop;
     const m = this.current;
     if (this.reason !== null) return 1;
-    const f = s.kind === 'steps' ? (m.steps - this.startSteps) / s.steps : (m.time - this.startTime) / ((s.kind === 'until' ? s.time : s.maxTime) - this.startTime);
+    const f =
+      s.kind === 'steps'
+        ? (m.steps - this.startSteps) / s.steps
+        : (m.time - this.startTime) / ((s.kind === 'until' ? s.time : s.maxTime) - this.startTime);
     return Math.min(1, Math.max(0, f));
   }
 
@@ -156,7 +181,8 @@ export class MonitoredRun {
    * from its final checkpoint takes no further step.
    */
   restoreState(s: MonitoredRunState): void {
-    if ((s.steady === null) !== (this.steady === null)) throw new RangeError(`restoreState: the state is of a run ${s.steady ? 'with' : 'without'} a steady criterion`);
+    if ((s.steady === null) !== (this.steady === null))
+      throw new RangeError(`restoreState: the state is of a run ${s.steady ? 'with' : 'without'} a steady criterion`);
     const mon = this.monitor;
     // Every part is checked by a dry run on a throwaway copy first, so a misfit changes nothing.
     const probe = this.saveState();
@@ -178,7 +204,8 @@ export class MonitoredRun {
   /** Go back to a checkpoint: `model` restored from it, `state` the measurement saved with it. */
   rollBack(model: Model, state: MonitoredRunState): void {
     const p = this.current.params;
-    if (model.params.nx !== p.nx || model.params.ny !== p.ny || model.params.Lx !== p.Lx || model.params.Ly !== p.Ly) throw new RangeError('rollBack: the model is of another grid');
+    if (model.params.nx !== p.nx || model.params.ny !== p.ny || model.params.Lx !== p.Lx || model.params.Ly !== p.Ly)
+      throw new RangeError('rollBack: the model is of another grid');
     const previous = this.current;
     this.current = model;
     try {

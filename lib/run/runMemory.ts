@@ -75,7 +75,10 @@ function snapshotPlanBytes(model: MemoryEstimate, S: number): number {
  * The estimate for a run of these parameters. Only nx, ny, Lx, Ly, kf, dkf are read (the forcing
  * annulus sets the size of the forcing's mode lists).
  */
-export function estimateRunMemory(p: Pick<ModelParams, 'nx' | 'ny' | 'Lx' | 'Ly' | 'kf' | 'dkf'>, options: RunMemoryOptions = {}): RunMemoryEstimate {
+export function estimateRunMemory(
+  p: Pick<ModelParams, 'nx' | 'ny' | 'Lx' | 'Ly' | 'kf' | 'dkf'>,
+  options: RunMemoryOptions = {},
+): RunMemoryEstimate {
   const { nx, ny } = p;
   const S = ny * (nx / 2 + 1);
   const N = nx * ny;
@@ -107,7 +110,9 @@ export class MemoryBudgetError extends RangeError {
     readonly budgetBytes: number,
     what = `a ${estimate.nx} × ${estimate.ny} run`,
   ) {
-    super(`${what} needs about ${formatBytes(estimate.totalBytes)} (${describeItems(estimate)}), more than the memory budget of ${formatBytes(budgetBytes)}`);
+    super(
+      `${what} needs about ${formatBytes(estimate.totalBytes)} (${describeItems(estimate)}), more than the memory budget of ${formatBytes(budgetBytes)}`,
+    );
     this.name = 'MemoryBudgetError';
   }
 }

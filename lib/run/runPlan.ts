@@ -58,35 +58,70 @@ export function spinUpTime(mu: number): number {
  */
 export function resolveRunPlan(p: ModelParams, req: RunLengthRequest, start = 0): RunPlan {
   const given = (['steps', 'until', 'untilSteady'] as const).filter((k) => req[k] !== undefined && req[k] !== false);
-  if (given.length !== 1) throw new InputError('run length', 'length', given.length ? `give one run length, not ${given.join(' and ')}` : 'give a run length: steps, until or untilSteady');
+  if (given.length !== 1)
+    throw new InputError(
+      'run length',
+      'length',
+      given.length
+        ? `give one run length, not ${given.join(' and ')}`
+        : 'give a run length: steps, until or untilSteady',
+    );
   for (const k of ['steadyTolerance', 'steadyWindow', 'maxTime', 'average', 'sampleEvery', 'until'] as const) {
     if (!positive(req[k])) throw new InputError('run length', k, `${k} must be a finite number > 0, got ${req[k]}`);
   }
   if (!req.untilSteady) {
-    for (const k of ['steadyTolerance', 'steadyWindow', 'maxTime'] as const) if (req[k] !== undefined) throw new InputError('run length', k, `${k} applies only with untilSteady`);
+    for (const k of ['steadyTolerance', 'steadyWindow', 'maxTime'] as const)
+      if (req[k] !== undefined) throw new InputError('run length', k, `${k} applies only with untilSteady`);
   }
   let stop: StopRule;
   if (req.steps !== undefined) {
-    if (!(Number.isInteger(req.steps) && req.steps > 0)) throw new InputError('run length', 'steps', `steps must be a positive integer, got ${req.steps}`);
+    if (!(Number.isInteger(req.steps) && req.steps > 0))
+      throw new InputError('run length', 'steps', `steps must be a positive integer, got ${req.steps}`);
     stop = { kind: 'steps', steps: req.steps };
   } else if (req.until !== undefined) {
-    if (!(req.until > start)) throw new InputError('run length', 'until', `until = ${req.until} must lie after the start of the run, t = ${start}`);
+    if (!(req.until > start))
+      throw new InputError(
+        'run length',
+        'until',
+        `until = ${req.until} must lie after the start of the run, t = ${start}`,
+      );
     stop = { kind: 'until', time: req.until };
   } else {
     const window = req.steadyWindow ?? spinUpTime(p.mu);
-    if (!Number.isFinite(window)) throw new InputError('run length', 'steadyWindow', 'with no drag (μ = 0) the steady window 1/(2μ) is infinite: give steadyWindow');
+    if (!Number.isFinite(window))
+      throw new InputError(
+        'run length',
+        'steadyWindow',
+        'with no drag (μ = 0) the steady window 1/(2μ) is infinite: give steadyWindow',
+      );
     const maxTime = req.maxTime ?? start + STEADY_CAP_WINDOWS * window;
-    if (!(maxTime >= start + 2 * window)) throw new InputError('run length', 'maxTime', `maxTime = ${maxTime} leaves less than the two steady windows (2 × ${window}) after t = ${start}`);
+    if (!(maxTime >= start + 2 * window))
+      throw new InputError(
+        'run length',
+        'maxTime',
+        `maxTime = ${maxTime} leaves less than the two steady windows (2 × ${window}) after t = ${start}`,
+      );
     stop = { kind: 'steady', window, tolerance: req.steadyTolerance ?? DEFAULT_STEADY_TOLERANCE, maxTime };
   }
   // The default window shrinks to a run that is shorter; a window asked for must fit.
   const span = stop.kind === 'until' ? stop.time - start : Infinity;
   const average = req.average ?? Math.min(p.mu > 0 ? 1 / p.mu : 50, span);
-  if (average > span) throw new InputError('run length', 'average', `average = ${average} is longer than the run (${span} time units)`);
+  if (average > span)
+    throw new InputError('run length', 'average', `average = ${average} is longer than the run (${span} time units)`);
   const sampleEvery = req.sampleEvery ?? DEFAULT_SAMPLE_STEPS * p.dt;
   // Samples must come at equal intervals; a step longer than the interval would skip some.
-  if (sampleEvery < p.dt) throw new InputError('run length', 'sampleEvery', `sampleEvery = ${sampleEvery} is shorter than the time step dt = ${p.dt}: samples would not be equally spaced`);
-  if (sampleEvery > average) throw new InputError('run length', 'sampleEvery', `sampleEvery = ${sampleEvery} is longer than the averaging window ${average}`);
+  if (sampleEvery < p.dt)
+    throw new InputError(
+      'run length',
+      'sampleEvery',
+      `sampleEvery = ${sampleEvery} is shorter than the time step dt = ${p.dt}: samples would not be equally spaced`,
+    );
+  if (sampleEvery > average)
+    throw new InputError(
+      'run length',
+      'sampleEvery',
+      `sampleEvery = ${sampleEvery} is longer than the averaging window ${average}`,
+    );
   return { stop, average, sampleEvery };
 }
 

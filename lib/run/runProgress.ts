@@ -57,7 +57,11 @@ export interface RunProgress {
 
 const finite = v.pipe(v.number('must be a number'), v.finite('must be finite'));
 const positive = v.pipe(finite, v.gtValue(0, 'must be > 0'));
-const count = v.pipe(v.number('must be a number'), v.safeInteger('must be a whole number'), v.minValue(0, 'must be ≥ 0'));
+const count = v.pipe(
+  v.number('must be a number'),
+  v.safeInteger('must be a whole number'),
+  v.minValue(0, 'must be ≥ 0'),
+);
 
 const StopSchema = v.variant(
   'kind',
@@ -84,21 +88,39 @@ const RetrySchema = v.strictObject({
   blow_up: ReportSchema,
   restarted_at: v.strictObject({ time: v.pipe(finite, v.minValue(0, 'must be ≥ 0')), steps: count }),
   dt: v.strictObject({ from: positive, to: positive }),
-  cfl: v.strictObject({ from: v.pipe(finite, v.minValue(0, 'must be ≥ 0')), to: v.pipe(finite, v.minValue(0, 'must be ≥ 0')) }),
+  cfl: v.strictObject({
+    from: v.pipe(finite, v.minValue(0, 'must be ≥ 0')),
+    to: v.pipe(finite, v.minValue(0, 'must be ≥ 0')),
+  }),
 });
 
 const ProgressSchema = v.strictObject({
   format: v.literal(PROGRESS_FORMAT, `must be "${PROGRESS_FORMAT}"`),
-  version: v.literal(PROGRESS_VERSION, `must be ${PROGRESS_VERSION}: this Stria reads run progress of version ${PROGRESS_VERSION}`),
+  version: v.literal(
+    PROGRESS_VERSION,
+    `must be ${PROGRESS_VERSION}: this Stria reads run progress of version ${PROGRESS_VERSION}`,
+  ),
   id: v.pipe(v.string('must be a text'), v.regex(/^r[0-9a-f]{16}$/, 'must be a run id such as r0123456789abcdef')),
   params: v.record(v.string(), v.unknown(), 'must be an object of parameters'),
-  plan: v.strictObject({ stop: StopSchema, average: positive, sampleEvery: positive }, 'must be a run plan { stop, average, sampleEvery }'),
-  origin: v.strictObject({ time: v.pipe(finite, v.minValue(0, 'must be ≥ 0')), steps: count }, 'must be { time, steps }'),
+  plan: v.strictObject(
+    { stop: StopSchema, average: positive, sampleEvery: positive },
+    'must be a run plan { stop, average, sampleEvery }',
+  ),
+  origin: v.strictObject(
+    { time: v.pipe(finite, v.minValue(0, 'must be ≥ 0')), steps: count },
+    'must be { time, steps }',
+  ),
   retries: v.array(RetrySchema, 'must be a list of retries'),
   outputs: v.strictObject({
     created_at: v.string('must be a text'),
     command: v.string('must be a text'),
-    snapshots: v.nullable(v.strictObject({ path: v.string('must be a text'), every: v.pipe(count, v.minValue(1, 'must be ≥ 1')), records: count })),
+    snapshots: v.nullable(
+      v.strictObject({
+        path: v.string('must be a text'),
+        every: v.pipe(count, v.minValue(1, 'must be ≥ 1')),
+        records: count,
+      }),
+    ),
     zonal: v.nullable(v.strictObject({ path: v.string('must be a text'), records: count })),
   }),
   measurement: v.nullable(v.unknown()),
@@ -142,25 +164,49 @@ export function decodeCheckpointFile(text: string): { checkpoint: Checkpoint; pr
     const issue = parsed.issues[0];
     const path = issue.path?.map((p) => String(p.key)).join('.');
     const unknownKey = issue.kind === 'schema' && issue.type === 'strict_object' && issue.expected === 'never';
-    throw new InputError('checkpoint file', path ? `progress.${path}` : 'progress', unknownKey ? 'is not a field of the run progress' : issue.message);
+    throw new InputError(
+      'checkpoint file',
+      path ? `progress.${path}` : 'progress',
+      unknownKey ? 'is not a field of the run progress' : issue.message,
+    );
   }
   const p = parsed.output;
   let params: ModelParams;
   try {
     params = validateParams(p.params);
   } catch (e) {
-    if (isInputError(e, 'parameters')) throw new InputError('checkpoint file', `progress.params.${e.issues[0].field}`, e.issues[0].message);
+    if (isInputError(e, 'parameters'))
+      throw new InputError('checkpoint file', `progress.params.${e.issues[0].field}`, e.issues[0].message);
     throw e;
   }
   const plan = p.plan as RunPlan;
-  if (runId(params, plan) !== p.id) throw new InputError('checkpoint file', 'progress.id', 'does not match the parameters and plan beside it');
-  if (checkpoint.params.nx !== params.nx || checkpoint.params.ny !== params.ny || checkpoint.params.Lx !== params.Lx || checkpoint.params.Ly !== params.Ly) {
-    throw new InputError('checkpoint file', 'params', 'the saved state is of another grid or domain than the run it says it belongs to');
+  if (runId(params, plan) !== p.id)
+    throw new InputError('checkpoint file', 'progress.id', 'does not match the parameters and plan beside it');
+  if (
+    checkpoint.params.nx !== params.nx ||
+    checkpoint.params.ny !== params.ny ||
+    checkpoint.params.Lx !== params.Lx ||
+    checkpoint.params.Ly !== params.Ly
+  ) {
+    throw new InputError(
+      'checkpoint file',
+      'params',
+      'the saved state is of another grid or domain than the run it says it belongs to',
+    );
   }
-  if (checkpoint.steps < p.origin.steps || checkpoint.time < p.origin.time) throw new InputError('checkpoint file', 'progress.origin', 'lies after the saved state');
+  if (checkpoint.steps < p.origin.steps || checkpoint.time < p.origin.time)
+    throw new InputError('checkpoint file', 'progress.origin', 'lies after the saved state');
   return {
     checkpoint,
-    progress: { id: p.id, params, plan, origin: p.origin, retries: p.retries as RetryRecord[], outputs: p.outputs, measurement: p.measurement === null ? null : measurementFromJson(p.measurement) },
+    progress: {
+      id: p.id,
+      params,
+      plan,
+      origin: p.origin,
+      retries: p.retries as RetryRecord[],
+      outputs: p.outputs,
+      measurement: p.measurement === null ? null : measurementFromJson(p.measurement),
+    },
   };
 }
 
@@ -181,17 +227,37 @@ function sealedEntry(text: string): { entry: unknown; runFile: string } {
       throw new InputError('checkpoint file', '(file)', `not JSON (${e instanceof Error ? e.message : String(e)})`);
     }
     const isObject = typeof json === 'object' && json !== null && !Array.isArray(json);
-    if (isObject && !Object.hasOwn(json as object, 'progress')) throw new InputError('checkpoint file', 'progress', 'is missing: this is not a checkpoint (a saved run continues with stria run FILE)');
-    throw new InputError('checkpoint file', '(file)', 'is not laid out as stria run writes checkpoints (it must begin with its progress entry): it was edited or damaged');
+    if (isObject && !Object.hasOwn(json as object, 'progress'))
+      throw new InputError(
+        'checkpoint file',
+        'progress',
+        'is missing: this is not a checkpoint (a saved run continues with stria run FILE)',
+      );
+    throw new InputError(
+      'checkpoint file',
+      '(file)',
+      'is not laid out as stria run writes checkpoints (it must begin with its progress entry): it was edited or damaged',
+    );
   }
   const end = text.indexOf('\n', PREFIX.length);
-  if (end < 0 || text[end - 1] !== ',') throw new InputError('checkpoint file', '(file)', 'is cut short after its progress entry');
+  if (end < 0 || text[end - 1] !== ',')
+    throw new InputError('checkpoint file', '(file)', 'is cut short after its progress entry');
   const sealed = text.slice(PREFIX.length, end - 1);
   const m = DIGEST_TAIL.exec(sealed);
-  if (!m) throw new InputError('checkpoint file', 'progress.digest', 'is missing: the progress entry must end with its digest');
+  if (!m)
+    throw new InputError(
+      'checkpoint file',
+      'progress.digest',
+      'is missing: the progress entry must end with its digest',
+    );
   const head = `${sealed.slice(0, m.index)}}`;
   const runFile = `{${text.slice(end)}`;
-  if (textDigest(`${head}\n${runFile}`) !== m[1]) throw new InputError('checkpoint file', 'progress.digest', 'does not match the file: it was damaged or edited after it was written');
+  if (textDigest(`${head}\n${runFile}`) !== m[1])
+    throw new InputError(
+      'checkpoint file',
+      'progress.digest',
+      'does not match the file: it was damaged or edited after it was written',
+    );
   try {
     return { entry: JSON.parse(sealed), runFile };
   } catch (e) {
@@ -207,9 +273,12 @@ function measurementFromJson(j: unknown): MonitoredRunState {
     if (isInputError(e, 'state')) throw new InputError('checkpoint file', e.field, e.reason);
     throw e;
   }
-  const obj = (x: unknown): x is Record<string, unknown> => typeof x === 'object' && x !== null && !Array.isArray(x) && !ArrayBuffer.isView(x);
-  if (!obj(s) || !obj(s.run) || !(s.steady === null || obj(s.steady)) || !obj(s.monitor)) throw new InputError('checkpoint file', 'progress.measurement', 'must be { run, steady, monitor }');
+  const obj = (x: unknown): x is Record<string, unknown> =>
+    typeof x === 'object' && x !== null && !Array.isArray(x) && !ArrayBuffer.isView(x);
+  if (!obj(s) || !obj(s.run) || !(s.steady === null || obj(s.steady)) || !obj(s.monitor))
+    throw new InputError('checkpoint file', 'progress.measurement', 'must be { run, steady, monitor }');
   const m = s.monitor;
-  for (const k of ['self', 'budget', 'hovmoller', 'means']) if (!obj(m[k])) throw new InputError('checkpoint file', `progress.measurement.monitor.${k}`, 'must be an object');
+  for (const k of ['self', 'budget', 'hovmoller', 'means'])
+    if (!obj(m[k])) throw new InputError('checkpoint file', `progress.measurement.monitor.${k}`, 'must be an object');
   return s as unknown as MonitoredRunState;
 }

@@ -22,7 +22,8 @@ export function stateToJson(x: StateValue): unknown {
   }
   if (x === null || typeof x === 'boolean' || typeof x === 'string') return x;
   if (isTypedArray(x)) {
-    if (!LITTLE_ENDIAN) throw new RangeError('stateToJson: typed arrays are stored little-endian; this platform is big-endian');
+    if (!LITTLE_ENDIAN)
+      throw new RangeError('stateToJson: typed arrays are stored little-endian; this platform is big-endian');
     return { $a: x.constructor.name, b64: encodeBase64(new Uint8Array(x.buffer, x.byteOffset, x.byteLength)) };
   }
   if (Array.isArray(x)) return x.map((e) => stateToJson(e));
@@ -44,23 +45,27 @@ export function stateFromJson(j: unknown, path = '(state)'): StateValue {
   const keys = Object.keys(o);
   if (keys.length === 1 && keys[0] === '$u' && o.$u === 1) return undefined;
   if (keys.length === 1 && keys[0] === '$n') {
-    if (typeof o.$n !== 'string' || !Object.hasOwn(NUMBERS, o.$n)) throw new InputError('state', path, `"$n" must be one of ${Object.keys(NUMBERS).join(', ')}`);
+    if (typeof o.$n !== 'string' || !Object.hasOwn(NUMBERS, o.$n))
+      throw new InputError('state', path, `"$n" must be one of ${Object.keys(NUMBERS).join(', ')}`);
     return NUMBERS[o.$n];
   }
   if (keys.length === 2 && '$a' in o && 'b64' in o) return typedFromJson(o.$a, o.b64, path);
   const out: Record<string, StateValue> = {};
   for (const k of keys) {
-    if (k.startsWith('$')) throw new InputError('state', `${path}.${k}`, 'is not a state field (tags are $n, $a with b64, $u)');
+    if (k.startsWith('$'))
+      throw new InputError('state', `${path}.${k}`, 'is not a state field (tags are $n, $a with b64, $u)');
     out[k] = stateFromJson(o[k], `${path}.${k}`);
   }
   return out;
 }
 
 function typedFromJson(kind: unknown, b64: unknown, path: string): TypedArray {
-  if (typeof kind !== 'string' || !Object.hasOwn(TYPED_ARRAYS, kind)) throw new InputError('state', path, `"$a" must name a typed array (${Object.keys(TYPED_ARRAYS).join(', ')})`);
+  if (typeof kind !== 'string' || !Object.hasOwn(TYPED_ARRAYS, kind))
+    throw new InputError('state', path, `"$a" must name a typed array (${Object.keys(TYPED_ARRAYS).join(', ')})`);
   const malformed = () => new InputError('state', path, '"b64" must be padded standard base64');
   if (typeof b64 !== 'string' || b64.length % 4 !== 0) throw malformed();
-  if (!LITTLE_ENDIAN) throw new RangeError('stateFromJson: typed arrays are stored little-endian; this platform is big-endian');
+  if (!LITTLE_ENDIAN)
+    throw new RangeError('stateFromJson: typed arrays are stored little-endian; this platform is big-endian');
   // The decoder checks the alphabet as it decodes (one pass over megabytes, not three).
   let bytes: Uint8Array;
   try {
@@ -70,7 +75,8 @@ function typedFromJson(kind: unknown, b64: unknown, path: string): TypedArray {
   }
   const Ctor = TYPED_ARRAYS[kind];
   const size = (Ctor as unknown as { BYTES_PER_ELEMENT: number }).BYTES_PER_ELEMENT;
-  if (bytes.byteLength % size !== 0) throw new InputError('state', path, `${bytes.byteLength} bytes is not a whole number of ${kind} values`);
+  if (bytes.byteLength % size !== 0)
+    throw new InputError('state', path, `${bytes.byteLength} bytes is not a whole number of ${kind} values`);
   const out = new Ctor(bytes.byteLength / size);
   new Uint8Array(out.buffer).set(bytes);
   return out;

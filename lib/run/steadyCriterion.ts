@@ -28,7 +28,8 @@ export class SteadyCriterion {
   steadyAt: number | null = null;
 
   constructor(start: number, window: number, tolerance: number) {
-    if (!(window > 0 && Number.isFinite(window))) throw new RangeError(`SteadyCriterion: window = ${window} must be a positive finite time`);
+    if (!(window > 0 && Number.isFinite(window)))
+      throw new RangeError(`SteadyCriterion: window = ${window} must be a positive finite time`);
     if (!(tolerance > 0)) throw new RangeError(`SteadyCriterion: tolerance = ${tolerance} must be > 0`);
     this.window = window;
     this.tolerance = tolerance;

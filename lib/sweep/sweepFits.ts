@@ -37,18 +37,50 @@ export interface SweepFits {
 export function sweepFits(rows: readonly TableRow[], options: ScalingFitOptions = {}): SweepFits {
   const done = rows.filter((r) => r.status === 'done');
   return {
-    jet_spacing_vs_rhines_length: fitColumns(done, 'rhines_length', 'jet_spacing', 'jet_spacing = A · rhines_length^b, rhines_length = 2π/k_rhines', options),
-    u_rms_vs_balance_velocity: fitColumns(done, 'balance_velocity', 'u_rms', 'u_rms = A · balance_velocity^b, balance_velocity = (eps/mu)^½', options),
+    jet_spacing_vs_rhines_length: fitColumns(
+      done,
+      'rhines_length',
+      'jet_spacing',
+      'jet_spacing = A · rhines_length^b, rhines_length = 2π/k_rhines',
+      options,
+    ),
+    u_rms_vs_balance_velocity: fitColumns(
+      done,
+      'balance_velocity',
+      'u_rms',
+      'u_rms = A · balance_velocity^b, balance_velocity = (eps/mu)^½',
+      options,
+    ),
   };
 }
 
-function fitColumns(rows: readonly TableRow[], xName: string, yName: string, law: string, options: ScalingFitOptions): FitReport {
+function fitColumns(
+  rows: readonly TableRow[],
+  xName: string,
+  yName: string,
+  law: string,
+  options: ScalingFitOptions,
+): FitReport {
   const num = (v: unknown) => (typeof v === 'number' ? v : NaN);
   const x = rows.map((r) => num(r[xName]));
   const y = rows.map((r) => num(r[yName]));
   const level = options.level ?? 0.95;
   const resamples = options.resamples ?? 2000;
-  const empty = { law, x: xName, y: yName, exponent: null, exponent_ci: null, prefactor: null, prefactor_ci: null, prefactor_at_exponent_1: null, prefactor_at_exponent_1_ci: null, log_residual_rms: null, level, resamples, degenerate_resamples: 0 };
+  const empty = {
+    law,
+    x: xName,
+    y: yName,
+    exponent: null,
+    exponent_ci: null,
+    prefactor: null,
+    prefactor_ci: null,
+    prefactor_at_exponent_1: null,
+    prefactor_at_exponent_1_ci: null,
+    log_residual_rms: null,
+    level,
+    resamples,
+    degenerate_resamples: 0,
+  };
   try {
     const f = fitScaling(x, y, { ...options, fixedExponent: 1 });
     return {

@@ -40,7 +40,14 @@ const RecordSchema = v.looseObject({
   replica: v.pipe(v.number('must be a number'), v.integer('must be an integer')),
   seed: v.pipe(v.number('must be a number'), v.integer('must be an integer')),
   params: v.record(v.string(), v.unknown(), 'must be an object of parameters'),
-  plan: v.looseObject({ stop: v.looseObject({ kind: v.picklist(['steps', 'until', 'steady']) }), average: v.number(), sampleEvery: v.number() }, 'must be a run plan'),
+  plan: v.looseObject(
+    {
+      stop: v.looseObject({ kind: v.picklist(['steps', 'until', 'steady']) }),
+      average: v.number(),
+      sampleEvery: v.number(),
+    },
+    'must be a run plan',
+  ),
   status: v.picklist(['done', 'blew-up'], 'must be "done" or "blew-up"'),
   stopped: v.nullable(v.picklist(['steps', 'until', 'steady', 'not-steady'], 'must be a stop reason')),
   error: v.nullable(v.string('must be a text')),
@@ -73,7 +80,8 @@ export function parseSweepRecord(line: string): SweepRecord {
     throw new RangeError(`${issue.path?.map((p) => String(p.key)).join('.') || '(record)'}: ${issue.message}`);
   }
   const bad = nonFinitePath(json, '');
-  if (bad !== null) throw new RangeError(`${bad || '(record)'}: must be a finite number (JSON such as 1e999 reads as Infinity)`);
+  if (bad !== null)
+    throw new RangeError(`${bad || '(record)'}: must be a finite number (JSON such as 1e999 reads as Infinity)`);
   return json as SweepRecord;
 }
 
@@ -95,7 +103,16 @@ export function formatSweepRecord(r: SweepRecord): string {
 
 /** Everything of a record that the run's computation decides; equal for every rerun of the run. */
 export function resultKey(r: SweepRecord): string {
-  return canonicalJson({ id: r.id, params: r.params, plan: r.plan, seed: r.seed, status: r.status, stopped: r.stopped, error: r.error, summary: r.summary });
+  return canonicalJson({
+    id: r.id,
+    params: r.params,
+    plan: r.plan,
+    seed: r.seed,
+    status: r.status,
+    stopped: r.stopped,
+    error: r.error,
+    summary: r.summary,
+  });
 }
 
 /**
@@ -110,7 +127,10 @@ export function joinRecords(sources: readonly { name: string; records: readonly 
       const key = resultKey(r);
       const seen = byId.get(r.id);
       if (!seen) byId.set(r.id, { record: r, from: s.name, key });
-      else if (seen.key !== key) throw new RangeError(`run ${r.id} differs between ${seen.from} and ${s.name}: ${firstDifference(seen.record, r)}`);
+      else if (seen.key !== key)
+        throw new RangeError(
+          `run ${r.id} differs between ${seen.from} and ${s.name}: ${firstDifference(seen.record, r)}`,
+        );
     }
   }
   return sortRecords([...byId.values()].map((e) => e.record));
@@ -129,7 +149,8 @@ function firstDifference(a: SweepRecord, b: SweepRecord): string {
     const x = (a.summary as unknown as Record<string, unknown>)[k];
     const y = (b.summary as unknown as Record<string, unknown>)[k];
     const show = (z: unknown) => (z === undefined ? 'missing' : String(z));
-    if (x === undefined || y === undefined ? x !== y : canonicalJson(x) !== canonicalJson(y)) return `summary.${k} is ${show(x)} in one and ${show(y)} in the other`;
+    if (x === undefined || y === undefined ? x !== y : canonicalJson(x) !== canonicalJson(y))
+      return `summary.${k} is ${show(x)} in one and ${show(y)} in the other`;
   }
   return 'the records differ';
 }

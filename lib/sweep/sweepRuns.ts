@@ -33,16 +33,25 @@ export function expandSweep(spec: SweepSpec): SweepJob[] {
   try {
     base = validateParams({ ...preset, ...spec.base });
   } catch (e) {
-    if (isInputError(e, 'parameters')) throw new InputError('sweep spec', `base.${e.issues[0].field}`, e.issues.map((i) => i.message).join('; '));
+    if (isInputError(e, 'parameters'))
+      throw new InputError('sweep spec', `base.${e.issues[0].field}`, e.issues.map((i) => i.message).join('; '));
     throw e;
   }
   const axes = spec.vary.map((a) => ({ param: a.param, values: axisValues(a) }));
-  const points: SweepPoint[] = axes.length === 1 ? axes[0].values.map((x) => ({ [axes[0].param]: x })) : axes[0].values.flatMap((x) => axes[1].values.map((y) => ({ [axes[0].param]: x, [axes[1].param]: y })));
+  const points: SweepPoint[] =
+    axes.length === 1
+      ? axes[0].values.map((x) => ({ [axes[0].param]: x }))
+      : axes[0].values.flatMap((x) => axes[1].values.map((y) => ({ [axes[0].param]: x, [axes[1].param]: y })));
   const jobs: SweepJob[] = [];
   for (const point of points) {
     for (let replica = 0; replica < spec.replicas; replica++) {
       const seed = base.seed + replica;
-      if (seed > 0xffffffff) throw new InputError('sweep spec', 'replicas', `base seed ${base.seed} + ${replica} passes the largest seed 4294967295`);
+      if (seed > 0xffffffff)
+        throw new InputError(
+          'sweep spec',
+          'replicas',
+          `base seed ${base.seed} + ${replica} passes the largest seed 4294967295`,
+        );
       let params: ModelParams;
       try {
         params = validateParams({ ...base, ...point, seed });
@@ -51,21 +60,29 @@ export function expandSweep(spec: SweepSpec): SweepJob[] {
         const i = e.issues[0];
         const axis = spec.vary.findIndex((a) => a.param === i.field);
         const where = axis >= 0 ? `vary.${axis}` : `base.${i.field}`;
-        throw new InputError('sweep spec', where, `at ${describePoint(point)}: ${i.field} = ${String(i.value)}: ${i.message}`);
+        throw new InputError(
+          'sweep spec',
+          where,
+          `at ${describePoint(point)}: ${i.field} = ${String(i.value)}: ${i.message}`,
+        );
       }
       let plan: RunPlan;
       try {
         plan = resolveRunPlan(params, { ...spec.length, average: spec.average, sampleEvery: spec.sampleEvery });
       } catch (e) {
         if (!isInputError(e, 'run length')) throw e;
-        const field = e.field === 'average' || e.field === 'sampleEvery' ? e.field : `length${e.field === 'length' ? '' : `.${e.field}`}`;
+        const field =
+          e.field === 'average' || e.field === 'sampleEvery'
+            ? e.field
+            : `length${e.field === 'length' ? '' : `.${e.field}`}`;
         throw new InputError('sweep spec', field, `at ${describePoint(point)}: ${e.message}`);
       }
       jobs.push({ id: runId(params, plan), index: jobs.length, point, replica, seed, params, plan });
     }
   }
   const ids = new Set(jobs.map((j) => j.id));
-  if (ids.size !== jobs.length) throw new InputError('sweep spec', 'vary', 'two runs of the sweep are the same run (a value is listed twice)');
+  if (ids.size !== jobs.length)
+    throw new InputError('sweep spec', 'vary', 'two runs of the sweep are the same run (a value is listed twice)');
   return jobs;
 }
 

@@ -31,15 +31,28 @@ export const SWEEP_VERSION = 1;
 export const MAX_SWEEP_RUNS = 100_000;
 export const MAX_RESAMPLES = 1_000_000;
 
-const positive = (what: string) => v.pipe(v.number(`${what}: a number`), v.finite(`${what}: must be finite`), v.gtValue(0, `${what}: must be > 0`));
-const count = (what: string, min: number) => v.pipe(v.number(`${what}: a number`), v.integer(`${what}: must be an integer`), v.minValue(min, `${what}: must be ≥ ${min}`));
+const positive = (what: string) =>
+  v.pipe(v.number(`${what}: a number`), v.finite(`${what}: must be finite`), v.gtValue(0, `${what}: must be > 0`));
+const count = (what: string, min: number) =>
+  v.pipe(
+    v.number(`${what}: a number`),
+    v.integer(`${what}: must be an integer`),
+    v.minValue(min, `${what}: must be ≥ ${min}`),
+  );
 const paramValue = v.union([v.number(), v.boolean(), v.string()], 'must be a number, true/false or a text');
 
 const AxisSchema = v.strictObject(
   {
     param: v.string('must be the name of a parameter'),
-    values: v.optional(v.pipe(v.array(paramValue, 'must be a list of values'), v.minLength(1, 'must hold at least one value'))),
-    logRange: v.optional(v.strictObject({ from: positive('from'), to: positive('to'), count: count('count', 2) }, 'must be { from, to, count }')),
+    values: v.optional(
+      v.pipe(v.array(paramValue, 'must be a list of values'), v.minLength(1, 'must hold at least one value')),
+    ),
+    logRange: v.optional(
+      v.strictObject(
+        { from: positive('from'), to: positive('to'), count: count('count', 2) },
+        'must be { from, to, count }',
+      ),
+    ),
   },
   'must be { param, values } or { param, logRange }',
 );
@@ -59,20 +72,35 @@ const LengthSchema = v.strictObject(
 export const SweepSpecSchema = v.strictObject(
   {
     format: v.optional(v.literal(SWEEP_FORMAT, `must be "${SWEEP_FORMAT}"`)),
-    version: v.optional(v.literal(SWEEP_VERSION, `must be ${SWEEP_VERSION}: this Stria reads sweep specs of version ${SWEEP_VERSION}`)),
+    version: v.optional(
+      v.literal(SWEEP_VERSION, `must be ${SWEEP_VERSION}: this Stria reads sweep specs of version ${SWEEP_VERSION}`),
+    ),
     title: v.optional(v.string('must be a text')),
-    preset: v.optional(v.picklist(DEMO_SCENARIOS.map((s) => s.id), `must be one of ${DEMO_SCENARIOS.map((s) => `"${s.id}"`).join(', ')}`)),
+    preset: v.optional(
+      v.picklist(
+        DEMO_SCENARIOS.map((s) => s.id),
+        `must be one of ${DEMO_SCENARIOS.map((s) => `"${s.id}"`).join(', ')}`,
+      ),
+    ),
     base: v.optional(v.record(v.string(), v.unknown(), 'must be an object of named parameters'), {}),
-    vary: v.pipe(v.array(AxisSchema, 'must be a list of one or two swept parameters'), v.minLength(1, 'must name at least one swept parameter'), v.maxLength(2, 'sweeps one or two parameters')),
+    vary: v.pipe(
+      v.array(AxisSchema, 'must be a list of one or two swept parameters'),
+      v.minLength(1, 'must name at least one swept parameter'),
+      v.maxLength(2, 'sweeps one or two parameters'),
+    ),
     replicas: v.optional(count('replicas', 1), 1),
     length: LengthSchema,
     average: v.optional(positive('average')),
     sampleEvery: v.optional(positive('sampleEvery')),
     fits: v.optional(
       v.strictObject({
-        resamples: v.optional(v.pipe(count('resamples', 0), v.maxValue(MAX_RESAMPLES, `resamples: must be ≤ ${MAX_RESAMPLES}`))),
+        resamples: v.optional(
+          v.pipe(count('resamples', 0), v.maxValue(MAX_RESAMPLES, `resamples: must be ≤ ${MAX_RESAMPLES}`)),
+        ),
         seed: v.optional(v.pipe(count('seed', 0), v.maxValue(0xffffffff, 'seed: must be ≤ 4294967295'))),
-        level: v.optional(v.pipe(v.number('level: a number'), v.gtValue(0, 'level: must be > 0'), v.ltValue(1, 'level: must be < 1'))),
+        level: v.optional(
+          v.pipe(v.number('level: a number'), v.gtValue(0, 'level: must be > 0'), v.ltValue(1, 'level: must be < 1')),
+        ),
       }),
       {},
     ),
@@ -99,21 +127,47 @@ export function parseSweepSpec(json: unknown): SweepSpec {
   const seen = new Set<string>();
   spec.vary.forEach((axis, i) => {
     // Own keys only: "toString" or "__proto__" are found on every object but are not parameters.
-    if (!Object.hasOwn(DEFAULT_PARAMS, axis.param)) throw new InputError('sweep spec', `vary.${i}.param`, `"${axis.param}" is not a parameter (known: ${Object.keys(DEFAULT_PARAMS).join(', ')})`);
-    if (axis.param === 'seed') throw new InputError('sweep spec', `vary.${i}.param`, 'seeds are not swept: give "replicas" for runs with different seeds');
+    if (!Object.hasOwn(DEFAULT_PARAMS, axis.param))
+      throw new InputError(
+        'sweep spec',
+        `vary.${i}.param`,
+        `"${axis.param}" is not a parameter (known: ${Object.keys(DEFAULT_PARAMS).join(', ')})`,
+      );
+    if (axis.param === 'seed')
+      throw new InputError(
+        'sweep spec',
+        `vary.${i}.param`,
+        'seeds are not swept: give "replicas" for runs with different seeds',
+      );
     if (seen.has(axis.param)) throw new InputError('sweep spec', `vary.${i}.param`, `"${axis.param}" is swept twice`);
     seen.add(axis.param);
-    if ((axis.values === undefined) === (axis.logRange === undefined)) throw new InputError('sweep spec', `vary.${i}`, 'give exactly one of "values" and "logRange"');
+    if ((axis.values === undefined) === (axis.logRange === undefined))
+      throw new InputError('sweep spec', `vary.${i}`, 'give exactly one of "values" and "logRange"');
     if (axis.logRange && typeof DEFAULT_PARAMS[axis.param as keyof typeof DEFAULT_PARAMS] !== 'number') {
-      throw new InputError('sweep spec', `vary.${i}.logRange`, `"${axis.param}" is not a number, so it has no logarithmic range`);
+      throw new InputError(
+        'sweep spec',
+        `vary.${i}.logRange`,
+        `"${axis.param}" is not a number, so it has no logarithmic range`,
+      );
     }
   });
   const given = (['steps', 'until', 'untilSteady'] as const).filter((k) => spec.length[k] !== undefined);
-  if (given.length !== 1) throw new InputError('sweep spec', 'length', given.length ? `give one run length, not ${given.join(' and ')}` : 'give a run length: steps, until or untilSteady');
+  if (given.length !== 1)
+    throw new InputError(
+      'sweep spec',
+      'length',
+      given.length
+        ? `give one run length, not ${given.join(' and ')}`
+        : 'give a run length: steps, until or untilSteady',
+    );
   // Counted before anything is expanded, so the check itself costs nothing.
   const points = spec.vary.reduce((n, a) => n * (a.values ? a.values.length : a.logRange!.count), 1);
   if (points * spec.replicas > MAX_SWEEP_RUNS) {
-    throw new InputError('sweep spec', spec.replicas > 1 ? 'replicas' : 'vary', `the spec makes ${points * spec.replicas} runs (${points} points × ${spec.replicas} replicas), more than ${MAX_SWEEP_RUNS}: split it into several sweeps`);
+    throw new InputError(
+      'sweep spec',
+      spec.replicas > 1 ? 'replicas' : 'vary',
+      `the spec makes ${points * spec.replicas} runs (${points} points × ${spec.replicas} replicas), more than ${MAX_SWEEP_RUNS}: split it into several sweeps`,
+    );
   }
   return spec;
 }
@@ -126,5 +180,7 @@ export function axisValues(axis: SweepAxis): (number | boolean | string)[] {
   const step = (Math.log(to) - a) / (count - 1);
   // The ends are the numbers given, exactly; the inner points are exp of equally spaced logs,
   // rounded to 12 significant digits so that 20 to 80 in 3 gives 40, not 39.99999999999998.
-  return Array.from({ length: count }, (_, k) => (k === 0 ? from : k === count - 1 ? to : Number(Math.exp(a + k * step).toPrecision(12))));
+  return Array.from({ length: count }, (_, k) =>
+    k === 0 ? from : k === count - 1 ? to : Number(Math.exp(a + k * step).toPrecision(12)),
+  );
 }

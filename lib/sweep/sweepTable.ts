@@ -13,11 +13,31 @@ import type { SweepRecord } from './sweepRecord';
 export type TableValue = number | string | boolean | null;
 export type TableRow = Record<string, TableValue>;
 
-const OTHER_SUMMARY_KEYS = ['ls_loss', 'regime', 'jet_spacing_std', 'window_start', 'window_end', 'window_samples'] as const satisfies readonly (keyof RunSummary)[];
+const OTHER_SUMMARY_KEYS = [
+  'ls_loss',
+  'regime',
+  'jet_spacing_std',
+  'window_start',
+  'window_end',
+  'window_samples',
+] as const satisfies readonly (keyof RunSummary)[];
 
 /** Column names in order, for records whose swept parameters are `pointKeys`. */
 export function tableColumns(pointKeys: readonly string[]): string[] {
-  return ['id', 'index', ...pointKeys, 'replica', 'seed', 'status', 'stopped', ...SUMMARY_KEYS, ...OTHER_SUMMARY_KEYS, 'rhines_length', 'balance_velocity', 'wall_seconds'];
+  return [
+    'id',
+    'index',
+    ...pointKeys,
+    'replica',
+    'seed',
+    'status',
+    'stopped',
+    ...SUMMARY_KEYS,
+    ...OTHER_SUMMARY_KEYS,
+    'rhines_length',
+    'balance_velocity',
+    'wall_seconds',
+  ];
 }
 
 /** The swept parameter names of a set of records, in first-seen order. */
@@ -48,6 +68,8 @@ export function tableCsvColumns(rows: readonly TableRow[], columns: readonly str
   return columns.map((name) => {
     const values = rows.map((r) => r[name] ?? null);
     const numeric = values.every((x) => x === null || typeof x === 'number');
-    return numeric ? { name, values: Float64Array.from(values, (x) => (x === null ? NaN : (x as number))) } : { name, values: values.map((x) => (x === null ? '' : String(x))) };
+    return numeric
+      ? { name, values: Float64Array.from(values, (x) => (x === null ? NaN : (x as number))) }
+      : { name, values: values.map((x) => (x === null ? '' : String(x))) };
   });
 }

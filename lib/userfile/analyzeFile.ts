@@ -44,7 +44,13 @@ export interface AnalyzeFileOptions {
 }
 
 export interface FileAnalysis {
-  file: { format: string; layout: 'gridded' | 'zonal-mean'; fields: Partial<Record<FieldRole, { variable: string; found: string; units: string | null }>>; records: number; notes: string[] };
+  file: {
+    format: string;
+    layout: 'gridded' | 'zonal-mean';
+    fields: Partial<Record<FieldRole, { variable: string; found: string; units: string | null }>>;
+    records: number;
+    notes: string[];
+  };
   masking: Partial<Record<FieldRole, MaskCounts & { masked: number; fraction: number }>>;
   parameters: Record<'beta' | 'kd' | 'eps' | 'mu', { value: number; source: string } | null>;
   plane: { lat0: number; lon0: number; radius: number; label: string } | null;
@@ -57,9 +63,21 @@ export function analyzeFile(source: ByteSource, options: AnalyzeFileOptions = {}
   const reader = openDataset(source, { meter });
   const d = discoverFields(reader, { map: options.map, tolerance: options.tolerance, domain: options.domain });
   const planet = options.planet ? PLANETS[options.planet] : null;
-  if (options.planet && !planet) throw new RangeError(`unknown planet "${options.planet}" (known: ${Object.keys(PLANETS).join(', ')})`);
+  if (options.planet && !planet)
+    throw new RangeError(`unknown planet "${options.planet}" (known: ${Object.keys(PLANETS).join(', ')})`);
   const lonlat = d.y.kind === 'latitude';
-  const fs = userFieldSource(reader, d, { meter, tangentPlane: planet && lonlat ? { radius: planet.radius, label: `${planet.name}: ${planet.sources.radius}`, lat0: options.lat0, lon0: options.lon0 } : undefined });
+  const fs = userFieldSource(reader, d, {
+    meter,
+    tangentPlane:
+      planet && lonlat
+        ? {
+            radius: planet.radius,
+            label: `${planet.name}: ${planet.sources.radius}`,
+            lat0: options.lat0,
+            lon0: options.lon0,
+          }
+        : undefined,
+  });
   const stria = striaParameters(reader.attributes);
   const params: FileAnalysis['parameters'] = { beta: null, kd: null, eps: null, mu: null };
   for (const k of ['beta', 'kd', 'eps', 'mu'] as const) {
@@ -67,12 +85,20 @@ export function analyzeFile(source: ByteSource, options: AnalyzeFileOptions = {}
     else if (stria[k]) params[k] = stria[k];
   }
   if (planet && options.beta === undefined) {
-    if (fs.grid.lengthUnit !== 'm') throw new RangeError('a planet gives β in SI units (m⁻¹ s⁻¹), but this grid is in model units: give --beta in the file\'s units instead');
+    if (fs.grid.lengthUnit !== 'm')
+      throw new RangeError(
+        "a planet gives β in SI units (m⁻¹ s⁻¹), but this grid is in model units: give --beta in the file's units instead",
+      );
     const lat0 = fs.plane?.lat0 ?? options.lat0;
     if (lat0 === undefined) throw new RangeError('β from a planet needs the central latitude (--lat0) on an x/y grid');
-    params.beta = { value: tangentPlane(planet, lat0).beta, source: `β = 2Ω cos φ0/R for ${planet.name} at φ0 = ${lat0}° (${planet.sources.omega}; ${planet.sources.radius})` };
+    params.beta = {
+      value: tangentPlane(planet, lat0).beta,
+      source: `β = 2Ω cos φ0/R for ${planet.name} at φ0 = ${lat0}° (${planet.sources.omega}; ${planet.sources.radius})`,
+    };
   }
-  const window = options.records ? parseRecordWindow(options.records, d.records.count) : { start: 0, end: d.records.count };
+  const window = options.records
+    ? parseRecordWindow(options.records, d.records.count)
+    : { start: 0, end: d.records.count };
   const value = (k: keyof FileAnalysis['parameters']) => params[k]?.value;
   const analysis = analyzeUserRecords(fs, {
     beta: value('beta'),
@@ -90,9 +116,18 @@ export function analyzeFile(source: ByteSource, options: AnalyzeFileOptions = {}
   });
   let comparison: Comparison;
   try {
-    comparison = measuredVsPredicted(analysis, { beta: value('beta'), eps: value('eps'), mu: value('mu'), kd: value('kd') });
+    comparison = measuredVsPredicted(analysis, {
+      beta: value('beta'),
+      eps: value('eps'),
+      mu: value('mu'),
+      kd: value('kd'),
+    });
   } catch (e) {
-    comparison = { units: analysis.grid.lengthUnit === 'm' ? 'physical' : 'model', rows: [], missing: `no planner predictions: ${(e as Error).message}` };
+    comparison = {
+      units: analysis.grid.lengthUnit === 'm' ? 'physical' : 'model',
+      rows: [],
+      missing: `no planner predictions: ${(e as Error).message}`,
+    };
   }
   const masking: FileAnalysis['masking'] = {};
   for (const [role, c] of Object.entries(fs.masks) as [FieldRole, MaskCounts][]) {
@@ -100,9 +135,16 @@ export function analyzeFile(source: ByteSource, options: AnalyzeFileOptions = {}
     masking[role] = { ...c, masked, fraction: c.total ? masked / c.total : 0 };
   }
   const fields: FileAnalysis['file']['fields'] = {};
-  for (const [role, f] of Object.entries(d.fields)) fields[role as FieldRole] = { variable: f.variable, found: f.detail, units: f.units };
+  for (const [role, f] of Object.entries(d.fields))
+    fields[role as FieldRole] = { variable: f.variable, found: f.detail, units: f.units };
   return {
-    file: { format: reader.format, layout: d.layout, fields, records: d.records.count, notes: [...reader.notes, ...d.notes] },
+    file: {
+      format: reader.format,
+      layout: d.layout,
+      fields,
+      records: d.records.count,
+      notes: [...reader.notes, ...d.notes],
+    },
     masking,
     parameters: params,
     plane: fs.plane,

@@ -34,10 +34,16 @@ export interface CoordinateAxis {
 export const SPACING_TOLERANCE = 1e-3;
 
 /** Checks that values are regular (within tolerance·spacing); returns start, spacing, direction. */
-export function regularSpacing(name: string, values: Float64Array, tolerance = SPACING_TOLERANCE): { start: number; spacing: number; reversed: boolean; irregularity: number } {
+export function regularSpacing(
+  name: string,
+  values: Float64Array,
+  tolerance = SPACING_TOLERANCE,
+): { start: number; spacing: number; reversed: boolean; irregularity: number } {
   const n = values.length;
   if (n < 2) throw new RangeError(`axis "${name}" has ${n} point${n === 1 ? '' : 's'}; at least 2 are needed`);
-  for (let i = 0; i < n; i++) if (!Number.isFinite(values[i])) throw new RangeError(`axis "${name}" has a missing or non-finite position at index ${i}`);
+  for (let i = 0; i < n; i++)
+    if (!Number.isFinite(values[i]))
+      throw new RangeError(`axis "${name}" has a missing or non-finite position at index ${i}`);
   const spacing = (values[n - 1] - values[0]) / (n - 1);
   if (spacing === 0) throw new RangeError(`axis "${name}" has equal first and last positions`);
   let worst = 0;
@@ -74,8 +80,24 @@ export function coordinateAxis(
   const n = reader.dimensions.find((d) => d.name === dim)?.size ?? 0;
   const coord = reader.has(dim) ? reader.variable(dim) : null;
   if (!coord || coord.shape.length !== 1) {
-    if (options.length === undefined) throw new RangeError(`dimension "${dim}" has no coordinate variable, so its positions are unknown: give the domain length (--domain) to place its ${n} points at i·L/${n}`);
-    return { dimension: dim, variable: null, kind: role, n, start: 0, spacing: options.length / n, reversed: false, units: '1', scale: 'model', irregularity: 0, period: options.length, periodSource: 'the domain length given' };
+    if (options.length === undefined)
+      throw new RangeError(
+        `dimension "${dim}" has no coordinate variable, so its positions are unknown: give the domain length (--domain) to place its ${n} points at i·L/${n}`,
+      );
+    return {
+      dimension: dim,
+      variable: null,
+      kind: role,
+      n,
+      start: 0,
+      spacing: options.length / n,
+      reversed: false,
+      units: '1',
+      scale: 'model',
+      irregularity: 0,
+      period: options.length,
+      periodSource: 'the domain length given',
+    };
   }
   const values = reader.readAll(dim);
   const { start, spacing, reversed, irregularity } = regularSpacing(dim, values, options.tolerance);
@@ -84,16 +106,38 @@ export function coordinateAxis(
   let kind: AxisKind = role;
   let scale: CoordinateAxis['scale'];
   if (deg) {
-    if ((deg === 'east') !== (role === 'x')) throw new RangeError(`axis "${dim}" is in degrees_${deg} but is the ${role === 'x' ? 'second' : 'first'} of the field's horizontal dimensions, where ${role === 'x' ? 'longitude' : 'latitude'} was expected`);
+    if ((deg === 'east') !== (role === 'x'))
+      throw new RangeError(
+        `axis "${dim}" is in degrees_${deg} but is the ${role === 'x' ? 'second' : 'first'} of the field's horizontal dimensions, where ${role === 'x' ? 'longitude' : 'latitude'} was expected`,
+      );
     kind = deg === 'east' ? 'longitude' : 'latitude';
     scale = 'degrees';
   } else {
     const u = lengthUnits(units);
-    if (u.kind === 'unknown') throw new RangeError(`axis "${dim}" has units "${u.text}", which Stria does not read as a length (m, km, cm, degrees_east/degrees_north, or "1" for model units)`);
+    if (u.kind === 'unknown')
+      throw new RangeError(
+        `axis "${dim}" has units "${u.text}", which Stria does not read as a length (m, km, cm, degrees_east/degrees_north, or "1" for model units)`,
+      );
     scale = u.kind === 'si' ? u.factor : 'model';
   }
-  const { period, source } = options.filePeriod && options.length === undefined ? { period: options.filePeriod.period, source: options.filePeriod.source } : knownPeriod(coord, kind, options.length);
-  return { dimension: dim, variable: dim, kind, n, start, spacing, reversed, units: units ?? '1', scale, irregularity, period, periodSource: source };
+  const { period, source } =
+    options.filePeriod && options.length === undefined
+      ? { period: options.filePeriod.period, source: options.filePeriod.source }
+      : knownPeriod(coord, kind, options.length);
+  return {
+    dimension: dim,
+    variable: dim,
+    kind,
+    n,
+    start,
+    spacing,
+    reversed,
+    units: units ?? '1',
+    scale,
+    irregularity,
+    period,
+    periodSource: source,
+  };
 }
 
 function standardDegrees(v: DatasetVariable): 'east' | 'north' | null {
@@ -108,7 +152,11 @@ function standardDegrees(v: DatasetVariable): 'east' | 'north' | null {
  * on the coordinate (a practice some datasets follow for cyclic axes) [practice]; the domain length
  * the user gave. Latitude has none.
  */
-function knownPeriod(v: DatasetVariable, kind: AxisKind, length?: number): { period: number | null; source: string | null } {
+function knownPeriod(
+  v: DatasetVariable,
+  kind: AxisKind,
+  length?: number,
+): { period: number | null; source: string | null } {
   if (kind === 'latitude') return { period: null, source: null };
   if (length !== undefined) return { period: length, source: 'the domain length given' };
   if (kind === 'longitude') return { period: 360, source: 'longitude (360°)' };

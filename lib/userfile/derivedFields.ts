@@ -21,7 +21,12 @@ export interface DerivationPlan {
   reasons: string[];
 }
 
-export function planDerivation(roles: readonly UserRole[], kd: number, lengths: boolean, spectral: boolean): DerivationPlan {
+export function planDerivation(
+  roles: readonly UserRole[],
+  kd: number,
+  lengths: boolean,
+  spectral: boolean,
+): DerivationPlan {
   const has = (r: UserRole) => roles.includes(r);
   const reasons: string[] = [];
   const u = has('u') ? 'file' : has('psi') && lengths ? 'psi' : null;
@@ -31,11 +36,18 @@ export function planDerivation(roles: readonly UserRole[], kd: number, lengths: 
   let psi: DerivationPlan['psi'] = has('psi') ? 'file' : null;
   if (!psi && kd !== 0 && zeta && !has('q')) {
     if (spectral) psi = 'inversion';
-    else reasons.push('ψ: k_d ≠ 0 needs ψ for q = ζ − k_d²ψ, and the file has none; inverting ζ needs a doubly periodic grid of 2^k × 2^m points');
+    else
+      reasons.push(
+        'ψ: k_d ≠ 0 needs ψ for q = ζ − k_d²ψ, and the file has none; inverting ζ needs a doubly periodic grid of 2^k × 2^m points',
+      );
   }
   const q: DerivationPlan['q'] = has('q') ? 'file' : zeta && (kd === 0 || psi) ? 'zeta' : null;
-  if (!lengths && !has('q') && !has('zeta')) reasons.push('ζ and q: derivatives need lengths, and the grid is in degrees (map it onto the tangent plane with a planet and a central latitude)');
-  if (!q && lengths && !zeta) reasons.push('q: the file has no PV, vorticity or streamfunction, nor both velocity components');
+  if (!lengths && !has('q') && !has('zeta'))
+    reasons.push(
+      'ζ and q: derivatives need lengths, and the grid is in degrees (map it onto the tangent plane with a planet and a central latitude)',
+    );
+  if (!q && lengths && !zeta)
+    reasons.push('q: the file has no PV, vorticity or streamfunction, nor both velocity components');
   return { u, v, zeta, psi, q, reasons };
 }
 

@@ -39,13 +39,24 @@ export function hintOf(reader: DatasetReader, dim: string): Hint {
     const axis = typeof a.axis === 'string' ? a.axis.toUpperCase() : '';
     const sn = typeof a.standard_name === 'string' ? a.standard_name : '';
     const units = typeof a.units === 'string' ? a.units.toLowerCase() : '';
-    if (axis === 'X' || /^(longitude|grid_longitude|projection_x_coordinate)$/.test(sn) || /^degrees?_?e(ast)?$/.test(units)) return 'x';
-    if (axis === 'Y' || /^(latitude|grid_latitude|projection_y_coordinate)$/.test(sn) || /^degrees?_?n(orth)?$/.test(units)) return 'y';
+    if (
+      axis === 'X' ||
+      /^(longitude|grid_longitude|projection_x_coordinate)$/.test(sn) ||
+      /^degrees?_?e(ast)?$/.test(units)
+    )
+      return 'x';
+    if (
+      axis === 'Y' ||
+      /^(latitude|grid_latitude|projection_y_coordinate)$/.test(sn) ||
+      /^degrees?_?n(orth)?$/.test(units)
+    )
+      return 'y';
     if (axis === 'T' || sn === 'time' || / since /.test(units)) return 't';
   }
   if (/^(x|xc|xh|xt|xu|xq|lon|long|longitude|nav_lon|x_.*|lon_.*)$/i.test(dim)) return 'x';
   if (/^(y|yc|yh|yt|yu|yq|lat|latitude|nav_lat|y_.*|lat_.*)$/i.test(dim)) return 'y';
-  if (/^(t|time|times|ocean_time|record|rec)$/i.test(dim) || reader.dimensions.find((d) => d.name === dim)?.unlimited) return 't';
+  if (/^(t|time|times|ocean_time|record|rec)$/i.test(dim) || reader.dimensions.find((d) => d.name === dim)?.unlimited)
+    return 't';
   return null;
 }
 
@@ -53,18 +64,29 @@ export function hintOf(reader: DatasetReader, dim: string): Hint {
 export function recordAxis(reader: DatasetReader, v: DatasetVariable, lead: string[]): RecordAxis {
   const long = lead.map((d, k) => ({ d, n: v.shape[k] })).filter((e) => e.n !== 1);
   if (long.length > 1) {
-    throw new RangeError(`"${v.name}" has ${long.length} dimensions besides its horizontal ones longer than 1 (${long.map((e) => `${e.d} = ${e.n}`).join(', ')}): Stria analyses a 2D field over records; extract one level first`);
+    throw new RangeError(
+      `"${v.name}" has ${long.length} dimensions besides its horizontal ones longer than 1 (${long.map((e) => `${e.d} = ${e.n}`).join(', ')}): Stria analyses a 2D field over records; extract one level first`,
+    );
   }
   const dimension = long[0]?.d ?? (lead.length ? lead[0] : null);
   const count = long[0]?.n ?? (lead.length ? v.shape[0] : 1);
   if (count === 0) throw new RangeError(`"${v.name}" has no records (its ${dimension} dimension is empty)`);
-  const c = dimension && reader.has(dimension) && reader.variable(dimension).shape.length === 1 && isNumericType(reader.variable(dimension).type) ? reader.variable(dimension) : null;
+  const c =
+    dimension &&
+    reader.has(dimension) &&
+    reader.variable(dimension).shape.length === 1 &&
+    isNumericType(reader.variable(dimension).type)
+      ? reader.variable(dimension)
+      : null;
   const units = c && typeof c.attributes.units === 'string' ? c.attributes.units : null;
   return { dimension, variable: c ? c.name : null, count, units, secondsPer: timeUnits(units ?? undefined).secondsPer };
 }
 
 /** Domain lengths of a Stria-written file (its stria_Lx, stria_Ly in model units, scaled to the file's). */
-export function striaPeriods(reader: DatasetReader): { x?: { period: number; source: string }; y?: { period: number; source: string } } {
+export function striaPeriods(reader: DatasetReader): {
+  x?: { period: number; source: string };
+  y?: { period: number; source: string };
+} {
   const a = reader.attributes;
   if (typeof a.stria_file_kind !== 'string') return {};
   const unit = a.stria_units === 'physical' && typeof a.stria_length_unit_m === 'number' ? a.stria_length_unit_m : 1;

@@ -60,7 +60,10 @@ export function discoverFields(reader: DatasetReader, options: DiscoveryOptions 
     const shape = horizontal(reader, v);
     if (shape === 'grid' && role !== 'ubar') grids.push([role, v]);
     else if (shape === 'profile' && (role === 'ubar' || role === 'u')) profile ??= [role, v];
-    else notes.push(`"${v.name}" (${ROLE_LABELS[role]}) is left out: its dimensions (${v.dimensions.join(', ')}) are not ${role === 'ubar' ? '(time, y)' : '(…, y, x)'}`);
+    else
+      notes.push(
+        `"${v.name}" (${ROLE_LABELS[role]}) is left out: its dimensions (${v.dimensions.join(', ')}) are not ${role === 'ubar' ? '(time, y)' : '(…, y, x)'}`,
+      );
   }
   const layout = grids.length ? 'gridded' : profile ? 'zonal-mean' : null;
   if (!layout) {
@@ -75,14 +78,17 @@ export function discoverFields(reader: DatasetReader, options: DiscoveryOptions 
   // `matched` is the role the variable was found as (a u on (time, y) serves as ū).
   const take = (role: FieldRole, v: DatasetVariable, matched: FieldRole) => {
     if (v.dimensions.join() !== lead.dimensions.join()) {
-      notes.push(`"${v.name}" is left out: it is on dimensions (${v.dimensions.join(', ')}), not those of "${lead.name}" (${lead.dimensions.join(', ')}); Stria needs every field on one grid`);
+      notes.push(
+        `"${v.name}" is left out: it is on dimensions (${v.dimensions.join(', ')}), not those of "${lead.name}" (${lead.dimensions.join(', ')}); Stria needs every field on one grid`,
+      );
       return;
     }
     fields[role] = found(role, v, chosen.how[matched] as { how: MatchHow; detail: string }, notes);
   };
   if (layout === 'gridded') for (const [role, v] of grids) take(role, v, role);
   else take('ubar', (profile as [FieldRole, DatasetVariable])[1], (profile as [FieldRole, DatasetVariable])[0]);
-  if (layout === 'gridded' && profile) notes.push(`"${profile[1].name}" (a zonal-mean profile) is not used: the gridded fields give the zonal means`);
+  if (layout === 'gridded' && profile)
+    notes.push(`"${profile[1].name}" (a zonal-mean profile) is not used: the gridded fields give the zonal means`);
 
   const dims = lead.dimensions;
   const nh = layout === 'gridded' ? 2 : 1;
@@ -91,24 +97,43 @@ export function discoverFields(reader: DatasetReader, options: DiscoveryOptions 
   if (nh === 2) {
     const [a, b] = hdims.map((d) => hintOf(reader, d));
     if (a === 'x' && b === 'y') order = 'xy';
-    else if (!(a === 'y' && b === 'x')) notes.push(`the axes of "${lead.name}" are not marked as x and y: taken in the CF order (y, x)`);
+    else if (!(a === 'y' && b === 'x'))
+      notes.push(`the axes of "${lead.name}" are not marked as x and y: taken in the CF order (y, x)`);
   }
   const records = recordAxis(reader, lead, dims.slice(0, -nh));
   const periods = striaPeriods(reader);
   const ydim = nh === 2 ? (order === 'yx' ? hdims[0] : hdims[1]) : hdims[0];
-  const y = coordinateAxis(reader, ydim, 'y', { tolerance: options.tolerance, length: options.domain?.y, filePeriod: periods.y });
-  const x = nh === 2 ? coordinateAxis(reader, order === 'yx' ? hdims[1] : hdims[0], 'x', { tolerance: options.tolerance, length: options.domain?.x, filePeriod: periods.x }) : null;
+  const y = coordinateAxis(reader, ydim, 'y', {
+    tolerance: options.tolerance,
+    length: options.domain?.y,
+    filePeriod: periods.y,
+  });
+  const x =
+    nh === 2
+      ? coordinateAxis(reader, order === 'yx' ? hdims[1] : hdims[0], 'x', {
+          tolerance: options.tolerance,
+          length: options.domain?.x,
+          filePeriod: periods.x,
+        })
+      : null;
   return { layout, fields, x, y, order, dimensions: dims.slice(), records, notes };
 }
 
 /** The variable for each role: the user's mapping, else the best match in the file. */
 function chooseFields(reader: DatasetReader, map: FieldMapping, notes: string[]) {
-  const out: Partial<Record<FieldRole, DatasetVariable>> & { how: Partial<Record<FieldRole, { how: MatchHow; detail: string }>> } = { how: {} };
+  const out: Partial<Record<FieldRole, DatasetVariable>> & {
+    how: Partial<Record<FieldRole, { how: MatchHow; detail: string }>>;
+  } = { how: {} };
   for (const [role, name] of Object.entries(map) as [FieldRole, string][]) {
-    if (!FIELD_ROLES.includes(role)) throw new RangeError(`--map: "${role}" is not a field Stria reads (it reads ${FIELD_ROLES.join(', ')})`);
-    if (!reader.has(name)) throw new RangeError(`missing variable: the mapping names "${name}" for ${role}, but the file has ${reader.variables.map((v) => `"${v.name}"`).join(', ')}`);
+    if (!FIELD_ROLES.includes(role))
+      throw new RangeError(`--map: "${role}" is not a field Stria reads (it reads ${FIELD_ROLES.join(', ')})`);
+    if (!reader.has(name))
+      throw new RangeError(
+        `missing variable: the mapping names "${name}" for ${role}, but the file has ${reader.variables.map((v) => `"${v.name}"`).join(', ')}`,
+      );
     const v = reader.variable(name);
-    if (!isNumericType(v.type)) throw new RangeError(`the mapping names "${name}" for ${role}, but it holds ${v.type}, not numbers`);
+    if (!isNumericType(v.type))
+      throw new RangeError(`the mapping names "${name}" for ${role}, but it holds ${v.type}, not numbers`);
     out[role] = v;
     out.how[role] = { how: 'mapping', detail: `the mapping ${role}=${name}` };
   }
@@ -124,7 +149,10 @@ function chooseFields(reader: DatasetReader, map: FieldMapping, notes: string[])
     out[role] = matches[0].v;
     out.how[role] = matches[0].m;
     taken.add(matches[0].v.name);
-    if (matches.length > 1) notes.push(`${ROLE_LABELS[role]}: took "${matches[0].v.name}" (by ${matches[0].m.detail}) of ${matches.map((c) => `"${c.v.name}"`).join(', ')}; choose another with --map ${role}=NAME`);
+    if (matches.length > 1)
+      notes.push(
+        `${ROLE_LABELS[role]}: took "${matches[0].v.name}" (by ${matches[0].m.detail}) of ${matches.map((c) => `"${c.v.name}"`).join(', ')}; choose another with --map ${role}=NAME`,
+      );
   }
   return out;
 }
@@ -132,6 +160,16 @@ function chooseFields(reader: DatasetReader, map: FieldMapping, notes: string[])
 function found(role: FieldRole, v: DatasetVariable, m: { how: MatchHow; detail: string }, notes: string[]): FoundField {
   const units = typeof v.attributes.units === 'string' ? v.attributes.units : null;
   const reading = roleUnits(role, units ?? undefined);
-  if (reading.kind === 'unknown') notes.push(`"${v.name}": units "${units}" not recognised for ${ROLE_LABELS[role]}; its values are taken as they are`);
-  return { role, variable: v.name, how: m.how, detail: m.detail, units, factor: reading.kind === 'si' ? reading.factor : 1 };
+  if (reading.kind === 'unknown')
+    notes.push(
+      `"${v.name}": units "${units}" not recognised for ${ROLE_LABELS[role]}; its values are taken as they are`,
+    );
+  return {
+    role,
+    variable: v.name,
+    how: m.how,
+    detail: m.detail,
+    units,
+    factor: reading.kind === 'si' ? reading.factor : 1,
+  };
 }

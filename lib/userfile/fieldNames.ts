@@ -49,7 +49,11 @@ export function roleUnits(role: FieldRole, units: string | undefined): UnitReadi
 export type MatchHow = 'mapping' | 'standard_name' | 'name';
 
 /** How `v` matches `role`, or null; `why` collects the reasons a name match was turned down. */
-export function matchRole(v: DatasetVariable, role: FieldRole, why: string[]): { how: MatchHow; detail: string } | null {
+export function matchRole(
+  v: DatasetVariable,
+  role: FieldRole,
+  why: string[],
+): { how: MatchHow; detail: string } | null {
   const sn = typeof v.attributes.standard_name === 'string' ? v.attributes.standard_name : undefined;
   if (sn && STANDARD_NAMES[role].includes(sn)) return { how: 'standard_name', detail: `standard_name "${sn}"` };
   if (!COMMON_NAMES[role].includes(v.name.toLowerCase())) return null;
@@ -59,7 +63,9 @@ export function matchRole(v: DatasetVariable, role: FieldRole, why: string[]): {
   }
   const units = typeof v.attributes.units === 'string' ? v.attributes.units : undefined;
   if (roleUnits(role, units).kind === 'unknown') {
-    why.push(`"${v.name}" was not taken as ${ROLE_LABELS[role]}: its units "${units}" are not those of ${ROLE_LABELS[role]}`);
+    why.push(
+      `"${v.name}" was not taken as ${ROLE_LABELS[role]}: its units "${units}" are not those of ${ROLE_LABELS[role]}`,
+    );
     return null;
   }
   return { how: 'name', detail: `its name "${v.name}"` };

@@ -39,13 +39,20 @@ export interface UserFieldSource extends UserRecordSource {
 /** Tolerance for "the axis spans exactly one period": n·spacing within 1e-3 spacings of it. */
 const PERIOD_TOLERANCE = 1e-3;
 
-export function userFieldSource(reader: DatasetReader, d: Discovery, options: FieldSourceOptions = {}): UserFieldSource {
+export function userFieldSource(
+  reader: DatasetReader,
+  d: Discovery,
+  options: FieldSourceOptions = {},
+): UserFieldSource {
   const notes: string[] = [];
   const { grid, plane } = buildGrid(d, options.tangentPlane, notes);
   const roles = Object.keys(d.fields) as UserRole[];
   const lead = d.dimensions.slice(0, d.dimensions.length - (d.layout === 'gridded' ? 2 : 1));
   const recordDim = d.records.dimension;
-  if (recordDim !== null && lead.indexOf(recordDim) > 0) throw new RangeError(`the record dimension "${recordDim}" must come first in the fields' dimensions (${d.dimensions.join(', ')})`);
+  if (recordDim !== null && lead.indexOf(recordDim) > 0)
+    throw new RangeError(
+      `the record dimension "${recordDim}" must come first in the fields' dimensions (${d.dimensions.join(', ')})`,
+    );
   const perRecord = lead.length > 0;
   const nFile = (d.x?.n ?? 1) * d.y.n;
   const rules = new Map<UserRole, ValueRule>();
@@ -57,10 +64,19 @@ export function userFieldSource(reader: DatasetReader, d: Discovery, options: Fi
   }
   const needsReorder = d.order === 'xy' || d.y.reversed || !!d.x?.reversed;
   // Fields in the file's order are read straight into the analysis buffers; others through one buffer.
-  const raw = !needsReorder ? new Float64Array(0) : options.meter ? options.meter.f64(nFile, 'read buffer') : new Float64Array(nFile);
+  const raw = !needsReorder
+    ? new Float64Array(0)
+    : options.meter
+      ? options.meter.f64(nFile, 'read buffer')
+      : new Float64Array(nFile);
   const times = d.records.variable ? reader.readAll(d.records.variable) : null;
-  const read = (r: number, into: Partial<Record<UserRole, Float64Array>>, onProgress?: (done: number, total: number) => void): UserRecordInfo => {
-    if (!(Number.isInteger(r) && r >= 0 && r < d.records.count)) throw new RangeError(`record ${r} does not exist (the file has ${d.records.count})`);
+  const read = (
+    r: number,
+    into: Partial<Record<UserRole, Float64Array>>,
+    onProgress?: (done: number, total: number) => void,
+  ): UserRecordInfo => {
+    if (!(Number.isInteger(r) && r >= 0 && r < d.records.count))
+      throw new RangeError(`record ${r} does not exist (the file has ${d.records.count})`);
     let k = 0;
     for (const role of roles) {
       const out = into[role];
@@ -68,7 +84,8 @@ export function userFieldSource(reader: DatasetReader, d: Discovery, options: Fi
       const name = (d.fields[role] as { variable: string }).variable;
       const target = needsReorder ? raw : out;
       // Progress in bytes of the float64 values produced, over all the record's fields.
-      const report = (p: { done: number; total: number }) => onProgress?.((k + p.done / Math.max(p.total, 1)) * 8 * nFile, roles.length * 8 * nFile);
+      const report = (p: { done: number; total: number }) =>
+        onProgress?.((k + p.done / Math.max(p.total, 1)) * 8 * nFile, roles.length * 8 * nFile);
       if (perRecord) reader.readRecord(name, r, { out: target, onProgress: report });
       else reader.readAll(name, { out: target, onProgress: report });
       applyValueRule(rules.get(role) as ValueRule, target, target, masks[role] as MaskCounts);
@@ -77,7 +94,15 @@ export function userFieldSource(reader: DatasetReader, d: Discovery, options: Fi
     }
     return { time: times ? times[r] : null };
   };
-  return { grid: { ...grid, notes: [...grid.notes, ...notes] }, roles, recordCount: d.records.count, timeUnits: d.records.units, read, masks, plane };
+  return {
+    grid: { ...grid, notes: [...grid.notes, ...notes] },
+    roles,
+    recordCount: d.records.count,
+    timeUnits: d.records.units,
+    read,
+    masks,
+    plane,
+  };
 }
 
 /** Stria's order from the file's: target (i east, j north) from the file's (possibly transposed, reversed) index. */
@@ -95,10 +120,17 @@ function reorder(src: Float64Array, out: Float64Array, d: Discovery): void {
   }
 }
 
-function buildGrid(d: Discovery, tp: TangentPlaneSpec | undefined, notes: string[]): { grid: UserGrid; plane: UserFieldSource['plane'] } {
+function buildGrid(
+  d: Discovery,
+  tp: TangentPlaneSpec | undefined,
+  notes: string[],
+): { grid: UserGrid; plane: UserFieldSource['plane'] } {
   const { x, y } = d;
   const lonlat = y.kind === 'latitude' || x?.kind === 'longitude';
-  if (lonlat && !(y.kind === 'latitude' && (!x || x.kind === 'longitude'))) throw new RangeError('the grid mixes degrees with lengths on its two axes; Stria reads a longitude/latitude grid or an x/y grid');
+  if (lonlat && !(y.kind === 'latitude' && (!x || x.kind === 'longitude')))
+    throw new RangeError(
+      'the grid mixes degrees with lengths on its two axes; Stria reads a longitude/latitude grid or an x/y grid',
+    );
   const periodicX = x ? axisPeriodic(x, notes) : false;
   const periodicY = y.kind === 'latitude' ? false : axisPeriodic(y, notes);
   if (y.kind === 'latitude') notes.push('y: latitude is not periodic');
@@ -106,26 +138,48 @@ function buildGrid(d: Discovery, tp: TangentPlaneSpec | undefined, notes: string
     const deg = Math.PI / 180;
     const lat0 = tp.lat0 ?? y.start + ((y.n - 1) * y.spacing) / 2;
     const lon0 = tp.lon0 ?? (x ? x.start + ((x.n - 1) * x.spacing) / 2 : 0);
-    if (!(Math.abs(lat0) < 90)) throw new RangeError(`the central latitude ${lat0}° must lie strictly between −90° and 90°`);
+    if (!(Math.abs(lat0) < 90))
+      throw new RangeError(`the central latitude ${lat0}° must lie strictly between −90° and 90°`);
     const c = Math.cos(lat0 * deg);
     notes.push(
       `geometry: longitude/latitude mapped onto the plane tangent to a sphere of radius R = ${tp.radius} m (${tp.label}) at φ0 = ${round(lat0)}°, λ0 = ${round(lon0)}°: ` +
         'x = R cos φ0 (λ − λ0), y = R (φ − φ0). This approximates the spherical geometry: x-distances are exact only at φ0, and curvature terms and the variation of β with latitude are neglected',
     );
     const grid: UserGrid = {
-      nx: x?.n ?? 1, ny: y.n, lengthUnit: 'm', periodicX, periodicY, notes: [],
-      x0: x ? tp.radius * c * (x.start - lon0) * deg : 0, dx: x ? tp.radius * c * x.spacing * deg : 1,
-      y0: tp.radius * (y.start - lat0) * deg, dy: tp.radius * y.spacing * deg,
+      nx: x?.n ?? 1,
+      ny: y.n,
+      lengthUnit: 'm',
+      periodicX,
+      periodicY,
+      notes: [],
+      x0: x ? tp.radius * c * (x.start - lon0) * deg : 0,
+      dx: x ? tp.radius * c * x.spacing * deg : 1,
+      y0: tp.radius * (y.start - lat0) * deg,
+      dy: tp.radius * y.spacing * deg,
     };
     return { grid, plane: { lat0, lon0, radius: tp.radius, label: tp.label } };
   }
-  if (lonlat) notes.push('geometry: longitude/latitude in degrees, not mapped onto a plane (give a planet to map it): diagnostics that need lengths are skipped');
+  if (lonlat)
+    notes.push(
+      'geometry: longitude/latitude in degrees, not mapped onto a plane (give a planet to map it): diagnostics that need lengths are skipped',
+    );
   const sx = x ? x.scale : y.scale;
-  if (!lonlat && x && (x.scale === 'model') !== (y.scale === 'model')) throw new RangeError(`the axes are in different unit systems: "${x.dimension}" in "${x.units}", "${y.dimension}" in "${y.units}"`);
+  if (!lonlat && x && (x.scale === 'model') !== (y.scale === 'model'))
+    throw new RangeError(
+      `the axes are in different unit systems: "${x.dimension}" in "${x.units}", "${y.dimension}" in "${y.units}"`,
+    );
   const f = (a: CoordinateAxis) => (typeof a.scale === 'number' ? a.scale : 1);
   const grid: UserGrid = {
-    nx: x?.n ?? 1, ny: y.n, lengthUnit: lonlat ? 'degrees' : sx === 'model' ? 'model' : 'm', periodicX, periodicY, notes: [],
-    x0: x ? x.start * f(x) : 0, dx: x ? x.spacing * f(x) : 1, y0: y.start * f(y), dy: y.spacing * f(y),
+    nx: x?.n ?? 1,
+    ny: y.n,
+    lengthUnit: lonlat ? 'degrees' : sx === 'model' ? 'model' : 'm',
+    periodicX,
+    periodicY,
+    notes: [],
+    x0: x ? x.start * f(x) : 0,
+    dx: x ? x.spacing * f(x) : 1,
+    y0: y.start * f(y),
+    dy: y.spacing * f(y),
   };
   return { grid, plane: null };
 }
@@ -135,7 +189,9 @@ function axisPeriodic(a: CoordinateAxis, notes: string[]): boolean | null {
   if (a.period === null) return null;
   const span = a.n * a.spacing;
   const ok = Math.abs(span - a.period) <= PERIOD_TOLERANCE * a.spacing;
-  notes.push(`${a.kind === 'longitude' || a.kind === 'x' ? 'x' : 'y'}: ${ok ? 'periodic' : 'not periodic'} — ${a.n} points × spacing ${round(a.spacing)} = ${round(span)} ${ok ? 'equals' : 'differs from'} the period ${round(a.period)} (${a.periodSource})`);
+  notes.push(
+    `${a.kind === 'longitude' || a.kind === 'x' ? 'x' : 'y'}: ${ok ? 'periodic' : 'not periodic'} — ${a.n} points × spacing ${round(a.spacing)} = ${round(span)} ${ok ? 'equals' : 'differs from'} the period ${round(a.period)} (${a.periodSource})`,
+  );
   return ok;
 }
 

@@ -65,19 +65,38 @@ export function analyzeUserRecords(source: UserRecordSource, options: UserAnalys
   // The file's fields, read before anything that depends on periodicity is built.
   const fileBuffers: Partial<Record<UserRole, Float64Array>> = {};
   for (const r of source.roles) fileBuffers[r] = meter.f64(r === 'ubar' ? g.ny : n, 'fields');
-  const progress = (index: number) => (done: number, total: number) => options.onProgress?.({ record: index, index: index - start, of: end - start, done, total });
+  const progress = (index: number) => (done: number, total: number) =>
+    options.onProgress?.({ record: index, index: index - start, of: end - start, done, total });
   const time0 = source.read(start, fileBuffers, progress(start)).time;
   const grid = resolvePeriodicity(g, fileBuffers, options.periodic, notes);
   const lengths = g.lengthUnit !== 'degrees';
-  const spectralGrid = !profileLayout && lengths && grid.periodicX === true && grid.periodicY === true && isPow2(g.nx) && isPow2(g.ny);
-  const spectral = spectralGrid ? new UserSpectralPlan({ nx: g.nx, ny: g.ny, Lx: g.nx * g.dx, Ly: g.ny * g.dy }, kd, meter) : null;
-  const plan: DerivationPlan = profileLayout ? { u: null, v: null, zeta: null, psi: null, q: null, reasons: [] } : planDerivation(source.roles, kd, lengths, spectralGrid);
-  const fd: FdGrid = { nx: g.nx, ny: g.ny, dx: g.dx, dy: g.dy, periodicX: grid.periodicX === true, periodicY: grid.periodicY === true };
+  const spectralGrid =
+    !profileLayout && lengths && grid.periodicX === true && grid.periodicY === true && isPow2(g.nx) && isPow2(g.ny);
+  const spectral = spectralGrid
+    ? new UserSpectralPlan({ nx: g.nx, ny: g.ny, Lx: g.nx * g.dx, Ly: g.ny * g.dy }, kd, meter)
+    : null;
+  const plan: DerivationPlan = profileLayout
+    ? { u: null, v: null, zeta: null, psi: null, q: null, reasons: [] }
+    : planDerivation(source.roles, kd, lengths, spectralGrid);
+  const fd: FdGrid = {
+    nx: g.nx,
+    ny: g.ny,
+    dx: g.dx,
+    dy: g.dy,
+    periodicX: grid.periodicX === true,
+    periodicY: grid.periodicY === true,
+  };
   const y = (j: number) => g.y0 + j * g.dy;
   const betaOff = options.qIncludesBeta && options.beta !== undefined ? { beta: options.beta, y0: g.y0, y } : null;
   const deriver = profileLayout ? null : new FieldDeriver(plan, fd, spectral, kd, betaOff, fileBuffers, meter);
   const zm = new MaskedZonalMean(g.nx, g.ny, Math.max(1, Math.ceil(frac * g.nx)), meter);
-  const acc = { ubar: new ProfileAccumulator(g.ny, meter), qbar: new ProfileAccumulator(g.ny, meter), upvp: new ProfileAccumulator(g.ny, meter), vpqp: new ProfileAccumulator(g.ny, meter), eke: new ProfileAccumulator(g.ny, meter) };
+  const acc = {
+    ubar: new ProfileAccumulator(g.ny, meter),
+    qbar: new ProfileAccumulator(g.ny, meter),
+    upvp: new ProfileAccumulator(g.ny, meter),
+    vpqp: new ProfileAccumulator(g.ny, meter),
+    eke: new ProfileAccumulator(g.ny, meter),
+  };
   const spec = spectral && options.spectra !== false ? new SpectraAccumulator(spectral, meter) : null;
   let speed2 = 0;
   let speed2Count = 0;
@@ -113,7 +132,10 @@ export function analyzeUserRecords(source: UserRecordSource, options: UserAnalys
     }
     meter.endRecord();
   }
-  if (spectralRoute > 0 && spectralRoute < end - start) notes.push(`derivatives were spectral in ${spectralRoute} of ${end - start} records; records with missing values used finite differences`);
+  if (spectralRoute > 0 && spectralRoute < end - start)
+    notes.push(
+      `derivatives were spectral in ${spectralRoute} of ${end - start} records; records with missing values used finite differences`,
+    );
   const used = end - start;
   return summarizeUserAnalysis({
     grid: { ...g, periodicX: grid.periodicX === true, periodicY: grid.periodicY === true, notes },
@@ -131,14 +153,23 @@ export function analyzeUserRecords(source: UserRecordSource, options: UserAnalys
     uRms: speed2Count ? Math.sqrt(speed2 / speed2Count) : null,
     uRmsKind: profileLayout ? 'zonal mean' : source.roles.includes('v') || plan.v ? 'u and v' : 'u only',
     spectra: spec?.result() ?? null,
-    spectralReason: spectral ? (options.spectra === false ? 'not asked for' : null) : spectraReason(g, grid, lengths, profileLayout),
+    spectralReason: spectral
+      ? options.spectra === false
+        ? 'not asked for'
+        : null
+      : spectraReason(g, grid, lengths, profileLayout),
     options: { ...options, kd },
     meter,
   });
 }
 
 /** Periodicity of each axis: the user's word, else the coordinates', else the edge test on the first record. */
-function resolvePeriodicity(g: UserGrid, fields: Partial<Record<UserRole, Float64Array>>, force: { x?: boolean; y?: boolean } | undefined, notes: string[]): { periodicX: boolean | null; periodicY: boolean | null } {
+function resolvePeriodicity(
+  g: UserGrid,
+  fields: Partial<Record<UserRole, Float64Array>>,
+  force: { x?: boolean; y?: boolean } | undefined,
+  notes: string[],
+): { periodicX: boolean | null; periodicY: boolean | null } {
   const probe = fields.u ?? fields.zeta ?? fields.psi ?? fields.q ?? fields.v ?? fields.ubar;
   const decide = (axis: 'x' | 'y', stated: boolean | null, forced: boolean | undefined): boolean | null => {
     if (forced !== undefined) {
@@ -149,7 +180,9 @@ function resolvePeriodicity(g: UserGrid, fields: Partial<Record<UserRole, Float6
     if ((axis === 'x' && g.nx === 1) || !probe) return null;
     const t = seamTest(probe, fields.ubar ? 1 : g.nx, g.ny, axis);
     if (!t) {
-      notes.push(`${axis}: periodicity unknown (no period stated, too few points or values for the edge test): taken as not periodic; give the domain length or --periodic`);
+      notes.push(
+        `${axis}: periodicity unknown (no period stated, too few points or values for the edge test): taken as not periodic; give the domain length or --periodic`,
+      );
       return null;
     }
     notes.push(
@@ -162,10 +195,17 @@ function resolvePeriodicity(g: UserGrid, fields: Partial<Record<UserRole, Float6
   return { periodicX: decide('x', g.periodicX, force?.x), periodicY: decide('y', g.periodicY, force?.y) };
 }
 
-function spectraReason(g: UserGrid, p: { periodicX: boolean | null; periodicY: boolean | null }, lengths: boolean, profile: boolean): string {
+function spectraReason(
+  g: UserGrid,
+  p: { periodicX: boolean | null; periodicY: boolean | null },
+  lengths: boolean,
+  profile: boolean,
+): string {
   if (profile) return 'the file holds zonal-mean profiles only, not 2D fields';
-  if (!lengths) return 'the grid is in degrees: map it onto the tangent plane (a planet and a central latitude) to get wavenumbers';
-  if (p.periodicX !== true || p.periodicY !== true) return `the grid is not periodic in ${[p.periodicX !== true ? 'x' : '', p.periodicY !== true ? 'y' : ''].filter(Boolean).join(' and ')}: Fourier spectra of a bounded field would be dominated by its edges`;
+  if (!lengths)
+    return 'the grid is in degrees: map it onto the tangent plane (a planet and a central latitude) to get wavenumbers';
+  if (p.periodicX !== true || p.periodicY !== true)
+    return `the grid is not periodic in ${[p.periodicX !== true ? 'x' : '', p.periodicY !== true ? 'y' : ''].filter(Boolean).join(' and ')}: Fourier spectra of a bounded field would be dominated by its edges`;
   return `the grid is ${g.nx} × ${g.ny}: Stria's transforms need powers of two`;
 }
 

@@ -67,7 +67,12 @@ export function laplacian(g: FdGrid, f: Float64Array, out: Float64Array): Float6
 }
 
 /** Centred derivative of a profile (length n, spacing dy), wrapped when periodic, one-sided at bounded ends. */
-export function profileDerivative(f: ArrayLike<number>, dy: number, periodic: boolean, out: Float64Array): Float64Array {
+export function profileDerivative(
+  f: ArrayLike<number>,
+  dy: number,
+  periodic: boolean,
+  out: Float64Array,
+): Float64Array {
   const n = f.length;
   for (let j = 0; j < n; j++) {
     if (periodic) out[j] = (f[(j + 1) % n] - f[(j - 1 + n) % n]) / (2 * dy);

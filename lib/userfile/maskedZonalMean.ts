@@ -131,7 +131,8 @@ export class ProfileAccumulator {
 
   mean(minRecords: number): Float64Array {
     const out = new Float64Array(this.n);
-    for (let j = 0; j < this.n; j++) out[j] = this.count[j] >= Math.max(1, minRecords) ? this.sum[j] / this.count[j] : NaN;
+    for (let j = 0; j < this.n; j++)
+      out[j] = this.count[j] >= Math.max(1, minRecords) ? this.sum[j] / this.count[j] : NaN;
     return out;
   }
 }

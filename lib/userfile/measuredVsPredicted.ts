@@ -47,35 +47,123 @@ export function measuredVsPredicted(a: UserAnalysis, p: ComparisonParams): Compa
   const units: UnitSystem = a.grid.lengthUnit === 'm' ? 'physical' : 'model';
   const rows: ComparisonRow[] = [];
   const ratio = (m: number | null, q: number | null) => (m !== null && q !== null && q !== 0 ? m / q : null);
-  const put = (id: string, label: string, quantity: Quantity, measured: number | null, predicted: number | null, formula: string, reference: string) =>
-    rows.push({ id, label, quantity, measured, predicted, ratio: ratio(measured, predicted), formula, reference });
+  const put = (
+    id: string,
+    label: string,
+    quantity: Quantity,
+    measured: number | null,
+    predicted: number | null,
+    formula: string,
+    reference: string,
+  ) => rows.push({ id, label, quantity, measured, predicted, ratio: ratio(measured, predicted), formula, reference });
   const lengths = a.grid.lengthUnit !== 'degrees';
   const Ly = a.grid.periodicY ? a.grid.ny * a.grid.dy : (a.grid.ny - 1) * a.grid.dy;
   const U = a.uRms?.value ?? null;
   const spacing = a.jets?.meanSpacing ?? null;
-  const absent = [p.beta === undefined ? 'β' : '', p.eps === undefined ? 'ε' : '', p.mu === undefined ? 'μ' : ''].filter(Boolean).join(', ');
-  const missing = !lengths ? 'the grid is in degrees (give a planet to map it onto the tangent plane)' : absent ? `give ${absent}` : '';
-  const pred = lengths && !missing ? planPredictions(a, p as Required<Omit<ComparisonParams, 'kd'>> & { kd?: number }, units, Ly) : null;
+  const absent = [p.beta === undefined ? 'β' : '', p.eps === undefined ? 'ε' : '', p.mu === undefined ? 'μ' : '']
+    .filter(Boolean)
+    .join(', ');
+  const missing = !lengths
+    ? 'the grid is in degrees (give a planet to map it onto the tangent plane)'
+    : absent
+      ? `give ${absent}`
+      : '';
+  const pred =
+    lengths && !missing
+      ? planPredictions(a, p as Required<Omit<ComparisonParams, 'kd'>> & { kd?: number }, units, Ly)
+      : null;
   const P = (id: PredictionId) => (pred ? pred[id].value : null);
   const F = (id: PredictionId, fallback: string) => (pred ? pred[id].formula : fallback);
   const R = (id: PredictionId, fallback: string) => (pred ? pred[id].reference : fallback);
   const conv = a.scales.rhinesConvention;
 
   put('U', 'rms velocity U', 'velocity', U, P('U'), F('U', 'U = (ε/μ)^½'), R('U', REFERENCES.energyBalance));
-  put('kR', 'Rhines wavenumber k_R', 'wavenumber', a.scales.kRhines, P('kR'), F('kR', 'k_R = (β/2U)^½'), R('kR', REFERENCES.rhines));
-  put('rhines', `Rhines length (${conv})`, 'length', a.scales.rhinesLength, P(`rhines_${conv}`), F(`rhines_${conv}`, conv), R(`rhines_${conv}`, REFERENCES.rhinesConventions));
-  put('spacingRhines', 'jet spacing vs the Rhines spacing', 'length', spacing, P('jetSpacingRhines'), F('jetSpacingRhines', 'L_jet = Rhines length'), R('jetSpacingRhines', REFERENCES.rhinesConventions));
-  put('spacingStaircase', 'jet spacing vs the ideal staircase', 'length', spacing, P('jetSpacingStaircase'), F('jetSpacingStaircase', 'L = 720^{1/4}(U/β)^½'), R('jetSpacingStaircase', REFERENCES.staircase));
-  put('stepStaircase', 'PV step width vs the ideal staircase', 'length', a.staircase?.meanWidth ?? null, P('jetSpacingStaircase'), F('jetSpacingStaircase', 'L = 720^{1/4}(U/β)^½'), R('jetSpacingStaircase', REFERENCES.staircase));
-  put('jetsRhines', 'jets in the domain vs Rhines', 'count', a.jets?.count ?? null, P('jetsRhines'), F('jetsRhines', 'Ly / L_jet'), R('jetsRhines', REFERENCES.practice));
-  put('jetsStaircase', 'jets in the domain vs staircase', 'count', a.jets?.count ?? null, P('jetsStaircase'), F('jetsStaircase', 'Ly / L_stair'), R('jetsStaircase', REFERENCES.practice));
-  put('R_beta', 'zonostrophy index R_β', 'ratio', a.scales.zonostrophyIndex, P('R_beta'), F('R_beta', 'R_β = k_β/k_R'), R('R_beta', REFERENCES.zonostrophy));
+  put(
+    'kR',
+    'Rhines wavenumber k_R',
+    'wavenumber',
+    a.scales.kRhines,
+    P('kR'),
+    F('kR', 'k_R = (β/2U)^½'),
+    R('kR', REFERENCES.rhines),
+  );
+  put(
+    'rhines',
+    `Rhines length (${conv})`,
+    'length',
+    a.scales.rhinesLength,
+    P(`rhines_${conv}`),
+    F(`rhines_${conv}`, conv),
+    R(`rhines_${conv}`, REFERENCES.rhinesConventions),
+  );
+  put(
+    'spacingRhines',
+    'jet spacing vs the Rhines spacing',
+    'length',
+    spacing,
+    P('jetSpacingRhines'),
+    F('jetSpacingRhines', 'L_jet = Rhines length'),
+    R('jetSpacingRhines', REFERENCES.rhinesConventions),
+  );
+  put(
+    'spacingStaircase',
+    'jet spacing vs the ideal staircase',
+    'length',
+    spacing,
+    P('jetSpacingStaircase'),
+    F('jetSpacingStaircase', 'L = 720^{1/4}(U/β)^½'),
+    R('jetSpacingStaircase', REFERENCES.staircase),
+  );
+  put(
+    'stepStaircase',
+    'PV step width vs the ideal staircase',
+    'length',
+    a.staircase?.meanWidth ?? null,
+    P('jetSpacingStaircase'),
+    F('jetSpacingStaircase', 'L = 720^{1/4}(U/β)^½'),
+    R('jetSpacingStaircase', REFERENCES.staircase),
+  );
+  put(
+    'jetsRhines',
+    'jets in the domain vs Rhines',
+    'count',
+    a.jets?.count ?? null,
+    P('jetsRhines'),
+    F('jetsRhines', 'Ly / L_jet'),
+    R('jetsRhines', REFERENCES.practice),
+  );
+  put(
+    'jetsStaircase',
+    'jets in the domain vs staircase',
+    'count',
+    a.jets?.count ?? null,
+    P('jetsStaircase'),
+    F('jetsStaircase', 'Ly / L_stair'),
+    R('jetsStaircase', REFERENCES.practice),
+  );
+  put(
+    'R_beta',
+    'zonostrophy index R_β',
+    'ratio',
+    a.scales.zonostrophyIndex,
+    P('R_beta'),
+    F('R_beta', 'R_β = k_β/k_R'),
+    R('R_beta', REFERENCES.zonostrophy),
+  );
   const regime = rows[rows.length - 1];
   if (a.scales.regime) regime.measuredText = a.scales.regime;
   if (pred) regime.predictedText = regimeOf(pred.R_beta.value);
   // The staircase relation applied to the measured U_rms: needs β alone.
   if (p.beta !== undefined && U !== null && lengths) {
-    put('spacingFromU', 'jet spacing vs 720^{1/4}(U_rms/β)^½ of the measured U_rms', 'length', spacing, staircaseSpacing(p.beta, U), 'L = 720^{1/4}(U_rms/β)^½ with the measured U_rms', REFERENCES.staircase);
+    put(
+      'spacingFromU',
+      'jet spacing vs 720^{1/4}(U_rms/β)^½ of the measured U_rms',
+      'length',
+      spacing,
+      staircaseSpacing(p.beta, U),
+      'L = 720^{1/4}(U_rms/β)^½ with the measured U_rms',
+      REFERENCES.staircase,
+    );
   }
   return { units, rows, missing: missing ? `no planner predictions: ${missing}` : null };
 }
@@ -85,7 +173,12 @@ export function measuredVsPredicted(a: UserAnalysis, p: ComparisonParams): Compa
  * (order 4, damping time 1) and run length (1) are neutral fill-ins for resolvePlan's validation;
  * the rows above use no prediction that depends on them.
  */
-function planPredictions(a: UserAnalysis, p: { beta: number; eps: number; mu: number; kd?: number }, units: UnitSystem, Ly: number): PlanPredictions {
+function planPredictions(
+  a: UserAnalysis,
+  p: { beta: number; eps: number; mu: number; kd?: number },
+  units: UnitSystem,
+  Ly: number,
+): PlanPredictions {
   const Lx = Math.max(a.grid.nx, 1) * a.grid.dx;
   const input: PlanInput = {
     units,

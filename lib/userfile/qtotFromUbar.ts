@@ -7,7 +7,13 @@
  * would put a point halfway up the step at every cusp). ψ̄ by the trapezoidal rule (any constant).
  * On a periodic axis n midpoints (the last between row n−1 and row 0), on a bounded one n − 1.
  */
-export function qtotFromUbar(u: ArrayLike<number>, dy: number, periodic: boolean, beta: number, kd: number): { y: number[]; values: number[]; source: string } {
+export function qtotFromUbar(
+  u: ArrayLike<number>,
+  dy: number,
+  periodic: boolean,
+  beta: number,
+  kd: number,
+): { y: number[]; values: number[]; source: string } {
   const n = u.length;
   const m = periodic ? n : n - 1;
   const y: number[] = [];

@@ -5,7 +5,11 @@
  */
 export function parseRecordWindow(text: string, count: number): { start: number; end: number } {
   const m = /^\s*(-?\d+)?\s*(:)?\s*(-?\d+)?\s*$/.exec(text);
-  if (!m || (m[1] === undefined && m[3] === undefined && m[2] === undefined) || (m[2] === undefined && m[3] !== undefined)) {
+  if (
+    !m ||
+    (m[1] === undefined && m[3] === undefined && m[2] === undefined) ||
+    (m[2] === undefined && m[3] !== undefined)
+  ) {
     throw new RangeError(`records "${text}": write a:b (records a to b − 1, from 0), a:, :b, or a single record a`);
   }
   const at = (s: string | undefined, dflt: number) => {
@@ -15,6 +19,7 @@ export function parseRecordWindow(text: string, count: number): { start: number;
   };
   const start = at(m[1], 0);
   const end = m[2] === undefined ? start + 1 : at(m[3], count);
-  if (!(start >= 0 && end <= count && start < end)) throw new RangeError(`records "${text}" select nothing of the file's ${count} records (0 to ${count - 1})`);
+  if (!(start >= 0 && end <= count && start < end))
+    throw new RangeError(`records "${text}" select nothing of the file's ${count} records (0 to ${count - 1})`);
   return { start, end };
 }

@@ -12,22 +12,35 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
   const a = r.analysis;
   const g = a.grid;
   const units = r.comparison.units;
-  const L = (x: number | null | undefined) => (x === null || x === undefined ? '—' : `${fmt(x)}${g.lengthUnit === 'degrees' ? '°' : units === 'physical' ? ' m' : ''}`);
+  const L = (x: number | null | undefined) =>
+    x === null || x === undefined
+      ? '—'
+      : `${fmt(x)}${g.lengthUnit === 'degrees' ? '°' : units === 'physical' ? ' m' : ''}`;
   const out: string[] = [];
-  out.push(`Stria analysis of ${name} (${r.file.format}, ${r.file.layout === 'gridded' ? 'gridded fields' : 'zonal-mean profiles'})`);
+  out.push(
+    `Stria analysis of ${name} (${r.file.format}, ${r.file.layout === 'gridded' ? 'gridded fields' : 'zonal-mean profiles'})`,
+  );
   out.push('', 'Fields');
-  for (const [role, f] of Object.entries(r.file.fields)) out.push(`  ${role.padEnd(5)} ← "${f.variable}" (by ${f.found}${f.units ? `, units "${f.units}"` : ''})`);
+  for (const [role, f] of Object.entries(r.file.fields))
+    out.push(`  ${role.padEnd(5)} ← "${f.variable}" (by ${f.found}${f.units ? `, units "${f.units}"` : ''})`);
   const derived = Object.entries(a.fields).filter(([, from]) => from && from !== 'file');
   if (derived.length) out.push(`  derived: ${derived.map(([k, from]) => `${k} from ${from}`).join(', ')}`);
   out.push('', 'Grid');
-  out.push(`  ${g.nx} × ${g.ny} points, dx = ${L(g.dx)}, dy = ${L(g.dy)}; periodic in x: ${g.periodicX ? 'yes' : 'no'}, in y: ${g.periodicY ? 'yes' : 'no'}`);
-  out.push(`  records ${a.window.start} to ${a.window.end - 1} of ${r.file.records} (${a.window.count})${a.window.timeStart !== null ? `, time ${fmt(a.window.timeStart)} to ${fmt(a.window.timeEnd as number)}${a.window.timeUnits ? ` ${a.window.timeUnits}` : ''}` : ''}`);
+  out.push(
+    `  ${g.nx} × ${g.ny} points, dx = ${L(g.dx)}, dy = ${L(g.dy)}; periodic in x: ${g.periodicX ? 'yes' : 'no'}, in y: ${g.periodicY ? 'yes' : 'no'}`,
+  );
+  out.push(
+    `  records ${a.window.start} to ${a.window.end - 1} of ${r.file.records} (${a.window.count})${a.window.timeStart !== null ? `, time ${fmt(a.window.timeStart)} to ${fmt(a.window.timeEnd as number)}${a.window.timeUnits ? ` ${a.window.timeUnits}` : ''}` : ''}`,
+  );
   out.push('', 'Masked values (missing data are left out, never averaged in)');
   for (const [role, m] of Object.entries(r.masking)) {
-    out.push(`  ${role.padEnd(5)} ${m.masked} of ${m.total} (${fmt(100 * m.fraction, 3)}%): ${m.fill} fill or missing_value, ${m.nonFinite} NaN/Inf, ${m.outOfRange} outside the valid range`);
+    out.push(
+      `  ${role.padEnd(5)} ${m.masked} of ${m.total} (${fmt(100 * m.fraction, 3)}%): ${m.fill} fill or missing_value, ${m.nonFinite} NaN/Inf, ${m.outOfRange} outside the valid range`,
+    );
   }
   out.push('', 'Parameters');
-  for (const [k, p] of Object.entries(r.parameters)) out.push(`  ${k.padEnd(5)} ${p ? `${fmt(p.value, 6)} (${p.source})` : 'not given'}`);
+  for (const [k, p] of Object.entries(r.parameters))
+    out.push(`  ${k.padEnd(5)} ${p ? `${fmt(p.value, 6)} (${p.source})` : 'not given'}`);
   out.push('', 'Computed');
   for (const c of a.computed) out.push(`  - ${c}`);
   if (a.skipped.length) {
@@ -36,15 +49,29 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
   }
   out.push('', 'Results');
   if (a.jets) {
-    out.push(`  jets: ${a.jets.count} eastward jet${a.jets.count === 1 ? '' : 's'}${a.jets.count ? ` at y = ${a.jets.jets.map((j) => fmt(j.y)).join(', ')}` : ''}`);
+    out.push(
+      `  jets: ${a.jets.count} eastward jet${a.jets.count === 1 ? '' : 's'}${a.jets.count ? ` at y = ${a.jets.jets.map((j) => fmt(j.y)).join(', ')}` : ''}`,
+    );
     if (a.jets.meanSpacing !== null) out.push(`  jet spacing: ${L(a.jets.meanSpacing)} ± ${L(a.jets.spacingStd)}`);
   }
-  if (a.staircase) out.push(`  PV staircase: ${a.staircase.edges.length} edges, mean step width ${L(a.staircase.meanWidth)}, sharpness index ${fmt(a.staircase.index, 4)} (1 perfect, 0 the plain βy)`);
+  if (a.staircase)
+    out.push(
+      `  PV staircase: ${a.staircase.edges.length} edges, mean step width ${L(a.staircase.meanWidth)}, sharpness index ${fmt(a.staircase.index, 4)} (1 perfect, 0 the plain βy)`,
+    );
   if (a.uRms) out.push(`  U_rms = ${fmt(a.uRms.value)} (${a.uRms.kind})`);
-  if (a.scales.kRhines !== null) out.push(`  k_R = ${fmt(a.scales.kRhines)}, Rhines length (${a.scales.rhinesConvention}) = ${L(a.scales.rhinesLength)}, staircase spacing 720^¼(U/β)^½ = ${L(a.scales.staircaseSpacing)}`);
+  if (a.scales.kRhines !== null)
+    out.push(
+      `  k_R = ${fmt(a.scales.kRhines)}, Rhines length (${a.scales.rhinesConvention}) = ${L(a.scales.rhinesLength)}, staircase spacing 720^¼(U/β)^½ = ${L(a.scales.staircaseSpacing)}`,
+    );
   if (a.scales.zonostrophyIndex !== null) out.push(`  R_β = ${fmt(a.scales.zonostrophyIndex)} (${a.scales.regime})`);
-  if (a.diffusivity?.Dfit !== null && a.diffusivity) out.push(`  eddy diffusivity of PV D_fit = ${fmt(a.diffusivity.Dfit as number)}, mixing length ${L(a.diffusivity.Lmix)}`);
-  if (a.spectra) out.push(`  spectra: ${a.spectra.kind === 'pv' ? 'energy and enstrophy of q' : 'kinetic energy'}, mean of ${a.spectra.records} records${a.spectra.refused ? ` (${a.spectra.refused} left out for missing values)` : ''}`);
+  if (a.diffusivity?.Dfit !== null && a.diffusivity)
+    out.push(
+      `  eddy diffusivity of PV D_fit = ${fmt(a.diffusivity.Dfit as number)}, mixing length ${L(a.diffusivity.Lmix)}`,
+    );
+  if (a.spectra)
+    out.push(
+      `  spectra: ${a.spectra.kind === 'pv' ? 'energy and enstrophy of q' : 'kinetic energy'}, mean of ${a.spectra.records} records${a.spectra.refused ? ` (${a.spectra.refused} left out for missing values)` : ''}`,
+    );
   out.push('', 'Measured beside the planner');
   out.push(...comparisonTable(r.comparison.rows, units));
   if (r.comparison.missing) out.push(`  (${r.comparison.missing})`);
@@ -53,7 +80,10 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
     out.push('', 'Notes');
     for (const n of notes) out.push(`  - ${n}`);
   }
-  out.push('', `Memory: ${fmt(a.memory.retainedBytes / 1048576, 3)} MiB of buffers kept, at most ${fmt(a.memory.peakTransientBytes / 1048576, 3)} MiB more while a record is read`);
+  out.push(
+    '',
+    `Memory: ${fmt(a.memory.retainedBytes / 1048576, 3)} MiB of buffers kept, at most ${fmt(a.memory.peakTransientBytes / 1048576, 3)} MiB more while a record is read`,
+  );
   return out.join('\n') + '\n';
 }
 
@@ -61,7 +91,13 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
 export function comparisonTable(rows: readonly ComparisonRow[], units: 'physical' | 'model'): string[] {
   const cell = (x: number | null, text?: string) => (x === null ? '—' : fmt(x) + (text ? ` (${text})` : ''));
   const head = ['quantity', 'measured', 'predicted', 'ratio', 'unit'];
-  const body = rows.map((r) => [r.label, cell(r.measured, r.measuredText), cell(r.predicted, r.predictedText), r.ratio === null ? '—' : fmt(r.ratio, 3), unitLabel(r.quantity, units)]);
+  const body = rows.map((r) => [
+    r.label,
+    cell(r.measured, r.measuredText),
+    cell(r.predicted, r.predictedText),
+    r.ratio === null ? '—' : fmt(r.ratio, 3),
+    unitLabel(r.quantity, units),
+  ]);
   const w = head.map((h, i) => Math.max(h.length, ...body.map((b) => b[i].length)));
   const line = (c: string[]) => '  ' + c.map((x, i) => (i === 0 ? x.padEnd(w[i]) : x.padStart(w[i]))).join('  ');
   return [line(head), ...body.map(line)];

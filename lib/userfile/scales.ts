@@ -1,4 +1,12 @@
-import { RHINES_DEFINITIONS, regimeOf, rhinesLength, rhinesWavenumber, staircaseSpacing, transitionalWavenumber, type RhinesConvention } from '../analysis/scales';
+import {
+  RHINES_DEFINITIONS,
+  regimeOf,
+  rhinesLength,
+  rhinesWavenumber,
+  staircaseSpacing,
+  transitionalWavenumber,
+  type RhinesConvention,
+} from '../analysis/scales';
 import type { UserAnalysis } from './summary';
 
 /**
@@ -17,21 +25,43 @@ export interface ScaleInput {
   rhines?: RhinesConvention;
 }
 
-export function userScales(s: ScaleInput, skip: (diagnostic: string, reason: string) => void, computed: string[]): UserAnalysis['scales'] {
+export function userScales(
+  s: ScaleInput,
+  skip: (diagnostic: string, reason: string) => void,
+  computed: string[],
+): UserAnalysis['scales'] {
   const { beta } = s;
   const conv = s.rhines ?? 'kR';
-  const out: UserAnalysis['scales'] = { beta, kRhines: null, rhinesConvention: conv, rhinesLength: null, rhinesLengths: null, staircaseSpacing: null, kBeta: null, zonostrophyIndex: null, regime: null };
+  const out: UserAnalysis['scales'] = {
+    beta,
+    kRhines: null,
+    rhinesConvention: conv,
+    rhinesLength: null,
+    rhinesLengths: null,
+    staircaseSpacing: null,
+    kBeta: null,
+    zonostrophyIndex: null,
+    regime: null,
+  };
   const U = s.uRms;
   if (U !== null) computed.push(`U_rms (${s.uRmsKind})`);
-  if (s.degrees) return skip('Rhines scale, zonostrophy index', 'the grid is in degrees: lengths need the tangent plane'), out;
-  if (beta === null || U === null || !(beta > 0 && U > 0)) return skip('Rhines scale, zonostrophy index', beta === null ? 'needs β' : 'needs β > 0 and a non-zero U_rms'), out;
+  if (s.degrees)
+    return (skip('Rhines scale, zonostrophy index', 'the grid is in degrees: lengths need the tangent plane'), out);
+  if (beta === null || U === null || !(beta > 0 && U > 0))
+    return (
+      skip('Rhines scale, zonostrophy index', beta === null ? 'needs β' : 'needs β > 0 and a non-zero U_rms'),
+      out
+    );
   out.kRhines = rhinesWavenumber(beta, U);
-  out.rhinesLengths = Object.fromEntries((Object.keys(RHINES_DEFINITIONS) as RhinesConvention[]).map((c) => [c, rhinesLength(beta, U, c)])) as Record<RhinesConvention, number>;
+  out.rhinesLengths = Object.fromEntries(
+    (Object.keys(RHINES_DEFINITIONS) as RhinesConvention[]).map((c) => [c, rhinesLength(beta, U, c)]),
+  ) as Record<RhinesConvention, number>;
   out.rhinesLength = out.rhinesLengths[conv];
   out.staircaseSpacing = staircaseSpacing(beta, U);
   computed.push('Rhines scale from U_rms');
   const eps = s.eps;
-  if (eps === undefined || !(eps > 0)) return skip('zonostrophy index R_β', 'needs the energy injection rate ε (files rarely carry it: give it)'), out;
+  if (eps === undefined || !(eps > 0))
+    return (skip('zonostrophy index R_β', 'needs the energy injection rate ε (files rarely carry it: give it)'), out);
   out.kBeta = transitionalWavenumber(beta, eps);
   out.zonostrophyIndex = out.kBeta / out.kRhines;
   out.regime = regimeOf(out.zonostrophyIndex);

@@ -55,7 +55,8 @@ export class SpectraAccumulator {
     if (q) {
       if (!allFinite(q)) return void this.refused++;
       const sp = this.plan.pvSpectra(q, this.out);
-      for (const k of ['E', 'EZonal', 'EResidual', 'Z'] as const) for (let s = 0; s < sp.E.length; s++) this.sums[k][s] += sp[k][s];
+      for (const k of ['E', 'EZonal', 'EResidual', 'Z'] as const)
+        for (let s = 0; s < sp.E.length; s++) this.sums[k][s] += sp[k][s];
       const { flux, keptEnergyFraction } = this.plan.pvFlux(q);
       for (let s = 0; s < flux.PiE.length; s++) {
         this.sums.PiE[s] += flux.PiE[s];
@@ -80,13 +81,54 @@ export class SpectraAccumulator {
     if (this.pvRecords) {
       const n = this.pvRecords;
       return {
-        kind: 'pv', k, kEdge, E: mean(this.sums.E, n), EZonal: mean(this.sums.EZonal, n), EResidual: mean(this.sums.EResidual, n), Z: mean(this.sums.Z, n),
-        PiE: mean(this.sums.PiE, n), PiZ: mean(this.sums.PiZ, n), zonalEnergyTransfer: this.zonal / n, keptEnergyFraction: this.kept / n, records: n, refused: this.refused,
+        kind: 'pv',
+        k,
+        kEdge,
+        E: mean(this.sums.E, n),
+        EZonal: mean(this.sums.EZonal, n),
+        EResidual: mean(this.sums.EResidual, n),
+        Z: mean(this.sums.Z, n),
+        PiE: mean(this.sums.PiE, n),
+        PiZ: mean(this.sums.PiZ, n),
+        zonalEnergyTransfer: this.zonal / n,
+        keptEnergyFraction: this.kept / n,
+        records: n,
+        refused: this.refused,
       };
     }
     if (this.keRecords) {
-      return { kind: 'kinetic', k, kEdge, E: mean(this.ke, this.keRecords), EZonal: null, EResidual: null, Z: null, PiE: null, PiZ: null, zonalEnergyTransfer: null, keptEnergyFraction: null, records: this.keRecords, refused: this.refused };
+      return {
+        kind: 'kinetic',
+        k,
+        kEdge,
+        E: mean(this.ke, this.keRecords),
+        EZonal: null,
+        EResidual: null,
+        Z: null,
+        PiE: null,
+        PiZ: null,
+        zonalEnergyTransfer: null,
+        keptEnergyFraction: null,
+        records: this.keRecords,
+        refused: this.refused,
+      };
     }
-    return this.refused ? { kind: 'pv', k, kEdge, E: [], EZonal: null, EResidual: null, Z: null, PiE: null, PiZ: null, zonalEnergyTransfer: null, keptEnergyFraction: null, records: 0, refused: this.refused } : null;
+    return this.refused
+      ? {
+          kind: 'pv',
+          k,
+          kEdge,
+          E: [],
+          EZonal: null,
+          EResidual: null,
+          Z: null,
+          PiE: null,
+          PiZ: null,
+          zonalEnergyTransfer: null,
+          keptEnergyFraction: null,
+          records: 0,
+          refused: this.refused,
+        }
+      : null;
   }
 }

@@ -115,7 +115,14 @@ export class UserSpectralPlan {
    */
   pvFlux(q: Float64Array): { flux: SpectralFlux; keptEnergyFraction: number } {
     if (!this.flux) {
-      const snap = new SnapshotPlan({ ...DEFAULT_PARAMS, nx: this.grid.nx, ny: this.grid.ny, Lx: this.grid.Lx, Ly: this.grid.Ly, kd: this.kd });
+      const snap = new SnapshotPlan({
+        ...DEFAULT_PARAMS,
+        nx: this.grid.nx,
+        ny: this.grid.ny,
+        Lx: this.grid.Lx,
+        Ly: this.grid.Ly,
+        kd: this.kd,
+      });
       this.flux = new SpectralFluxPlan(snap);
       this.fluxOut = this.flux.createOutput();
       this.meter.external(typedArrayBytes([snap, this.flux, this.fluxOut]), 'spectral flux plan');
@@ -132,7 +139,9 @@ export class UserSpectralPlan {
         if (this.grid.kept(ix, jy)) kept += e;
       }
     }
-    return { flux: (this.flux as SpectralFluxPlan).compute(this.b, this.fluxOut as SpectralFlux), keptEnergyFraction: all > 0 ? kept / all : 1 };
+    return {
+      flux: (this.flux as SpectralFluxPlan).compute(this.b, this.fluxOut as SpectralFlux),
+      keptEnergyFraction: all > 0 ? kept / all : 1,
+    };
   }
 }
-

@@ -7,7 +7,9 @@ import type { AttributeValue } from '../io/datasetReader';
  */
 const DIMS = { beta: [-1, -1], kd: [-1, 0], eps: [2, -3], mu: [0, -1] } as const;
 
-export function striaParameters(attributes: Readonly<Record<string, AttributeValue>>): Partial<Record<keyof typeof DIMS, { value: number; source: string }>> {
+export function striaParameters(
+  attributes: Readonly<Record<string, AttributeValue>>,
+): Partial<Record<keyof typeof DIMS, { value: number; source: string }>> {
   if (typeof attributes.stria_file_kind !== 'string') return {};
   const physical = attributes.stria_units === 'physical';
   const l = typeof attributes.stria_length_unit_m === 'number' ? attributes.stria_length_unit_m : 1;
@@ -16,7 +18,10 @@ export function striaParameters(attributes: Readonly<Record<string, AttributeVal
   for (const [k, [a, b]] of Object.entries(DIMS) as [keyof typeof DIMS, readonly [number, number]][]) {
     const v = attributes[`stria_${k}`];
     if (typeof v !== 'number') continue;
-    out[k] = { value: physical ? v * Math.pow(l, a) * Math.pow(t, b) : v, source: `the file's stria_${k} attribute (a Stria run)` };
+    out[k] = {
+      value: physical ? v * Math.pow(l, a) * Math.pow(t, b) : v,
+      source: `the file's stria_${k} attribute (a Stria run)`,
+    };
   }
   return out;
 }

@@ -17,10 +17,23 @@ import type { UserGrid } from './userData';
  */
 export interface UserAnalysis {
   grid: Omit<UserGrid, 'periodicX' | 'periodicY' | 'notes'> & { periodicX: boolean; periodicY: boolean };
-  window: { start: number; end: number; count: number; timeStart: number | null; timeEnd: number | null; timeUnits: string | null };
+  window: {
+    start: number;
+    end: number;
+    count: number;
+    timeStart: number | null;
+    timeEnd: number | null;
+    timeUnits: string | null;
+  };
   /** Where each working field came from: 'file', or the field it was derived from; null: unavailable. */
   fields: Omit<DerivationPlan, 'reasons'>;
-  profiles: { y: number[]; ubar: (number | null)[]; upvp: (number | null)[] | null; vpqp: (number | null)[] | null; eke: (number | null)[] | null };
+  profiles: {
+    y: number[];
+    ubar: (number | null)[];
+    upvp: (number | null)[] | null;
+    vpqp: (number | null)[] | null;
+    eke: (number | null)[] | null;
+  };
   /** Total zonal-mean PV q̄ + β(y − y0) at positions y (grid rows, or midpoints between them), and how it was formed. */
   qtot: { y: number[]; values: number[]; source: string } | null;
   jets: ProfileJets | null;
@@ -51,7 +64,13 @@ export interface SummaryInput {
   window: { start: number; end: number; times: (number | null)[]; timeUnits: string | null };
   plan: DerivationPlan;
   profileLayout: boolean;
-  means: { ubar: Float64Array; qbar: Float64Array | null; upvp: Float64Array; vpqp: Float64Array | null; eke: Float64Array };
+  means: {
+    ubar: Float64Array;
+    qbar: Float64Array | null;
+    upvp: Float64Array;
+    vpqp: Float64Array | null;
+    eke: Float64Array;
+  };
   qRecords: number;
   uRms: number | null;
   uRmsKind: 'u and v' | 'u only' | 'zonal mean';
@@ -75,18 +94,26 @@ export function summarizeUserAnalysis(s: SummaryInput): UserAnalysis {
   const hasV = !s.profileLayout && !!s.plan.v;
   computed.push('zonal-mean zonal velocity ū');
   if (hasV) computed.push('eddy momentum flux u′v′', 'eddy kinetic energy');
-  else skip('eddy momentum flux u′v′ and EKE', s.profileLayout ? 'the file holds zonal means only' : 'the file has no northward velocity v (nor ψ)');
+  else
+    skip(
+      'eddy momentum flux u′v′ and EKE',
+      s.profileLayout ? 'the file holds zonal means only' : 'the file has no northward velocity v (nor ψ)',
+    );
 
   // Jets, from ū over its valid rows: invalid rows may be cut off the ends, not from the middle.
   const span = validSpan(means.ubar);
   let jets: ProfileJets | null = null;
   if (!span) skip('jets', 'ū has no valid rows');
-  else if (span.gaps) skip('jets', `ū is invalid at rows inside the domain (first at row ${span.gaps}): too few valid points there`);
+  else if (span.gaps)
+    skip('jets', `ū is invalid at rows inside the domain (first at row ${span.gaps}): too few valid points there`);
   else {
     const periodic = g.periodicY && span.a === 0 && span.b === g.ny;
     jets = profileJets(means.ubar.subarray(span.a, span.b), g.y0 + span.a * g.dy, g.dy, periodic);
     computed.push('jets (positions, spacing)');
-    if (span.b - span.a < g.ny) s.grid.notes.push(`ū is invalid on ${g.ny - (span.b - span.a)} rows at the edges: jets are sought on rows ${span.a}–${span.b - 1}, as a bounded profile`);
+    if (span.b - span.a < g.ny)
+      s.grid.notes.push(
+        `ū is invalid on ${g.ny - (span.b - span.a)} rows at the edges: jets are sought on rows ${span.a}–${span.b - 1}, as a bounded profile`,
+      );
   }
 
   // Total PV: from the file's own PV or vorticity when it has them (no derivative taken), else
@@ -96,7 +123,11 @@ export function summarizeUserAnalysis(s: SummaryInput): UserAnalysis {
   const direct = s.plan.q === 'file' || (s.plan.q === 'zeta' && s.plan.zeta === 'file');
   if (beta === null) skip('PV staircase', 'needs β (give it, or a planet and a central latitude)');
   else if (s.profileLayout || !direct || !complete(means.qbar)) {
-    if (direct) skip('q̄ from the PV field', `q was formed in ${s.qRecords} records, too few or with invalid rows; q̄ is formed from ū instead`);
+    if (direct)
+      skip(
+        'q̄ from the PV field',
+        `q was formed in ${s.qRecords} records, too few or with invalid rows; q̄ is formed from ū instead`,
+      );
     if (span && !span.gaps) {
       const u = means.ubar.subarray(span.a, span.b);
       const periodic = g.periodicY && span.a === 0 && span.b === g.ny;
@@ -104,7 +135,11 @@ export function summarizeUserAnalysis(s: SummaryInput): UserAnalysis {
       qtot = { y: q.y.map((v) => v + g.y0 + span.a * g.dy), values: q.values, source: q.source };
     }
   } else {
-    qtot = { y, values: Array.from(means.qbar as Float64Array, (v, j) => v + beta * j * g.dy), source: `zonal mean of the PV anomaly q (${s.plan.q === 'file' ? 'from the file' : 'q = ζ − k_d²ψ'}) plus β(y − y0)` };
+    qtot = {
+      y,
+      values: Array.from(means.qbar as Float64Array, (v, j) => v + beta * j * g.dy),
+      source: `zonal mean of the PV anomaly q (${s.plan.q === 'file' ? 'from the file' : 'q = ζ − k_d²ψ'}) plus β(y − y0)`,
+    };
   }
   let staircase: ProfileStaircase | null = null;
   if (qtot && beta !== null) {
@@ -118,10 +153,15 @@ export function summarizeUserAnalysis(s: SummaryInput): UserAnalysis {
 
   // Eddy PV flux and diffusivity, on the grid rows.
   let diffusivity: UserAnalysis['diffusivity'] = null;
-  if (!hasV || !s.qRecords) skip('eddy PV flux v′q′ and eddy diffusivity', !hasV ? 'needs v' : s.plan.reasons.join('; ') || 'q could not be formed');
+  if (!hasV || !s.qRecords)
+    skip(
+      'eddy PV flux v′q′ and eddy diffusivity',
+      !hasV ? 'needs v' : s.plan.reasons.join('; ') || 'q could not be formed',
+    );
   else {
     computed.push('eddy PV flux v′q′');
-    if (beta === null || !complete(means.qbar) || !complete(means.vpqp) || !complete(means.eke)) skip('eddy diffusivity', beta === null ? 'needs β' : 'some rows of q̄, v′q′ or EKE are invalid');
+    if (beta === null || !complete(means.qbar) || !complete(means.vpqp) || !complete(means.eke))
+      skip('eddy diffusivity', beta === null ? 'needs β' : 'some rows of q̄, v′q′ or EKE are invalid');
     else {
       const anomaly = means.qbar as Float64Array;
       const dqdy = profileDerivative(anomaly, g.dy, g.periodicY, new Float64Array(g.ny)).map((d) => d + beta);
@@ -131,18 +171,50 @@ export function summarizeUserAnalysis(s: SummaryInput): UserAnalysis {
     }
   }
 
-  const scales = userScales({ uRms: s.uRms, uRmsKind: s.uRmsKind, degrees: g.lengthUnit === 'degrees', beta, eps: s.options.eps, rhines: s.options.rhines }, skip, computed);
-  if (s.spectra && s.spectra.records > 0) computed.push(s.spectra.kind === 'pv' ? 'energy and enstrophy spectra, spectral flux' : 'kinetic-energy spectrum');
-  else skip('spectra and spectral flux', s.spectralReason ?? (s.spectra?.refused ? `every record had missing values (${s.spectra.refused}); spectra need complete fields` : 'no field to transform'));
+  const scales = userScales(
+    {
+      uRms: s.uRms,
+      uRmsKind: s.uRmsKind,
+      degrees: g.lengthUnit === 'degrees',
+      beta,
+      eps: s.options.eps,
+      rhines: s.options.rhines,
+    },
+    skip,
+    computed,
+  );
+  if (s.spectra && s.spectra.records > 0)
+    computed.push(s.spectra.kind === 'pv' ? 'energy and enstrophy spectra, spectral flux' : 'kinetic-energy spectrum');
+  else
+    skip(
+      'spectra and spectral flux',
+      s.spectralReason ??
+        (s.spectra?.refused
+          ? `every record had missing values (${s.spectra.refused}); spectra need complete fields`
+          : 'no field to transform'),
+    );
   if (s.spectra?.kind === 'kinetic') skip('spectral flux', 'needs the PV (or vorticity)');
   for (const r of s.plan.reasons) s.grid.notes.push(r);
   const t = s.window.times;
   const { notes, ...grid } = g;
   return {
     grid,
-    window: { start: s.window.start, end: s.window.end, count: s.window.end - s.window.start, timeStart: t[0] ?? null, timeEnd: t[t.length - 1] ?? null, timeUnits: s.window.timeUnits },
+    window: {
+      start: s.window.start,
+      end: s.window.end,
+      count: s.window.end - s.window.start,
+      timeStart: t[0] ?? null,
+      timeEnd: t[t.length - 1] ?? null,
+      timeUnits: s.window.timeUnits,
+    },
     fields: { u: s.plan.u, v: s.plan.v, zeta: s.plan.zeta, psi: s.plan.psi, q: s.plan.q },
-    profiles: { y, ubar: arr(means.ubar) as (number | null)[], upvp: hasV ? arr(means.upvp) : null, vpqp: s.qRecords && hasV ? arr(means.vpqp) : null, eke: hasV ? arr(means.eke) : null },
+    profiles: {
+      y,
+      ubar: arr(means.ubar) as (number | null)[],
+      upvp: hasV ? arr(means.upvp) : null,
+      vpqp: s.qRecords && hasV ? arr(means.vpqp) : null,
+      eke: hasV ? arr(means.eke) : null,
+    },
     qtot,
     jets,
     staircase,
@@ -153,7 +225,11 @@ export function summarizeUserAnalysis(s: SummaryInput): UserAnalysis {
     computed,
     skipped,
     notes,
-    memory: { retainedBytes: s.meter.retained, peakTransientBytes: s.meter.peakTransient, byLabel: Object.fromEntries(s.meter.byLabel) },
+    memory: {
+      retainedBytes: s.meter.retained,
+      peakTransientBytes: s.meter.peakTransient,
+      byLabel: Object.fromEntries(s.meter.byLabel),
+    },
   };
 }
 

@@ -7,18 +7,32 @@
  */
 export type UnitReading = { kind: 'si'; factor: number } | { kind: 'model' } | { kind: 'unknown'; text: string };
 
-const norm = (u: string) => u.trim().replace(/\s+/g, ' ').replace(/\^/g, '').replace(/\*\*/g, '').replace(/\./g, ' ').toLowerCase();
+const norm = (u: string) =>
+  u.trim().replace(/\s+/g, ' ').replace(/\^/g, '').replace(/\*\*/g, '').replace(/\./g, ' ').toLowerCase();
 
 const LENGTHS: Record<string, number> = {
-  m: 1, metre: 1, meter: 1, metres: 1, meters: 1,
-  km: 1000, kilometre: 1000, kilometer: 1000, kilometres: 1000, kilometers: 1000,
-  cm: 0.01, centimetre: 0.01, centimeter: 0.01, centimetres: 0.01, centimeters: 0.01,
+  m: 1,
+  metre: 1,
+  meter: 1,
+  metres: 1,
+  meters: 1,
+  km: 1000,
+  kilometre: 1000,
+  kilometer: 1000,
+  kilometres: 1000,
+  kilometers: 1000,
+  cm: 0.01,
+  centimetre: 0.01,
+  centimeter: 0.01,
+  centimetres: 0.01,
+  centimeters: 0.01,
 };
 
 function read(units: string | undefined, table: Record<string, number>): UnitReading {
   if (units === undefined) return { kind: 'model' };
   const u = norm(units);
-  if (u === '' || u === '1' || u === 'none' || u === 'nondimensional' || u === 'dimensionless') return { kind: 'model' };
+  if (u === '' || u === '1' || u === 'none' || u === 'nondimensional' || u === 'dimensionless')
+    return { kind: 'model' };
   const f = table[u];
   return f === undefined ? { kind: 'unknown', text: units } : { kind: 'si', factor: f };
 }
@@ -31,21 +45,39 @@ export function lengthUnits(units: string | undefined): UnitReading {
 /** m/s per unit of a velocity. */
 export function velocityUnits(units: string | undefined): UnitReading {
   const t: Record<string, number> = {};
-  for (const [name, f] of [['m', 1], ['cm', 0.01], ['km', 1000]] as const) {
+  for (const [name, f] of [
+    ['m', 1],
+    ['cm', 0.01],
+    ['km', 1000],
+  ] as const) {
     for (const form of [`${name} s-1`, `${name}/s`, `${name} / s`, `${name} sec-1`, `${name}/sec`]) t[form] = f;
   }
-  t['meter second-1'] = t['meters second-1'] = t['metre second-1'] = t['metres second-1'] = t['meters per second'] = t['metres per second'] = 1;
+  t['meter second-1'] =
+    t['meters second-1'] =
+    t['metre second-1'] =
+    t['metres second-1'] =
+    t['meters per second'] =
+    t['metres per second'] =
+      1;
   return read(units, t);
 }
 
 /** 1/s per unit of a vorticity or PV. */
 export function rateUnits(units: string | undefined): UnitReading {
-  return read(units, { 's-1': 1, '1/s': 1, '1 / s': 1, 'second-1': 1, 'per second': 1, 'sec-1': 1, 'hz': 1 });
+  return read(units, { 's-1': 1, '1/s': 1, '1 / s': 1, 'second-1': 1, 'per second': 1, 'sec-1': 1, hz: 1 });
 }
 
 /** m²/s per unit of a streamfunction. */
 export function streamfunctionUnits(units: string | undefined): UnitReading {
-  return read(units, { 'm2 s-1': 1, 'm2/s': 1, 'm2 / s': 1, 'km2 s-1': 1e6, 'km2/s': 1e6, 'cm2 s-1': 1e-4, 'cm2/s': 1e-4 });
+  return read(units, {
+    'm2 s-1': 1,
+    'm2/s': 1,
+    'm2 / s': 1,
+    'km2 s-1': 1e6,
+    'km2/s': 1e6,
+    'cm2 s-1': 1e-4,
+    'cm2/s': 1e-4,
+  });
 }
 
 /** Degrees of longitude or latitude, by CF's units spellings (CF 1.8, sections 4.1 and 4.2). */
@@ -62,6 +94,24 @@ export function timeUnits(units: string | undefined): { secondsPer: number | nul
   if (units === undefined) return { secondsPer: null, since: null };
   const m = /^\s*([a-z]+)\s*(?:since\s+(.*))?$/i.exec(units);
   if (!m) return { secondsPer: null, since: null };
-  const per: Record<string, number> = { s: 1, sec: 1, secs: 1, second: 1, seconds: 1, min: 60, mins: 60, minute: 60, minutes: 60, h: 3600, hr: 3600, hrs: 3600, hour: 3600, hours: 3600, d: 86400, day: 86400, days: 86400 };
+  const per: Record<string, number> = {
+    s: 1,
+    sec: 1,
+    secs: 1,
+    second: 1,
+    seconds: 1,
+    min: 60,
+    mins: 60,
+    minute: 60,
+    minutes: 60,
+    h: 3600,
+    hr: 3600,
+    hrs: 3600,
+    hour: 3600,
+    hours: 3600,
+    d: 86400,
+    day: 86400,
+    days: 86400,
+  };
   return { secondsPer: per[m[1].toLowerCase()] ?? null, since: m[2]?.trim() ?? null };
 }

@@ -42,5 +42,9 @@ export interface UserRecordSource {
    * Reads record r into `into[role]` for each provided role (length nx·ny; ny for ubar), missing
    * values as NaN. `onProgress(done, total)` in bytes of the record.
    */
-  read(r: number, into: Partial<Record<UserRole, Float64Array>>, onProgress?: (done: number, total: number) => void): UserRecordInfo;
+  read(
+    r: number,
+    into: Partial<Record<UserRole, Float64Array>>,
+    onProgress?: (done: number, total: number) => void,
+  ): UserRecordInfo;
 }

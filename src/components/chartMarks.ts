@@ -39,7 +39,9 @@ export class ChartMarks {
     ctx.font = `${11 * ratio}px system-ui, sans-serif`;
     // Labels that would overlap the previous one along the scale drop to the next row.
     const rowOf = new Map<ChartMark, number>();
-    const labelled = this.marks.filter((m) => m.label && m.value !== undefined).map((m) => ({ m, p: u.valToPos(m.value!, m.scale ?? 'x', true) }));
+    const labelled = this.marks
+      .filter((m) => m.label && m.value !== undefined)
+      .map((m) => ({ m, p: u.valToPos(m.value!, m.scale ?? 'x', true) }));
     labelled.sort((a, b) => a.p - b.p);
     let last = -Infinity;
     let row = 0;

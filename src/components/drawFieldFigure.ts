@@ -21,7 +21,14 @@ export interface FigureText {
  * smooth (spectrally truncated) function: bilinear smoothing shows it better than blocks of uneven
  * size at a non-integer scale, which would show a grid pattern not in the data.
  */
-export function drawFieldFigure(ctx: CanvasRenderingContext2D, layout: FigureLayout, dpr: number, tile: CanvasImageSource, barTile: CanvasImageSource, text: FigureText): void {
+export function drawFieldFigure(
+  ctx: CanvasRenderingContext2D,
+  layout: FigureLayout,
+  dpr: number,
+  tile: CanvasImageSource,
+  barTile: CanvasImageSource,
+  text: FigureText,
+): void {
   drawHeatmapFigure(ctx, layout, dpr, tile, barTile, {
     title: text.title,
     stamp: text.stamp,

@@ -28,7 +28,12 @@ function layoutFor(w: number, h: number): FigureLayout {
   w = Math.round(w);
   h = Math.round(h);
   const plot = { x: LEFT, y: TOP, w, h };
-  return { width: LEFT + w + RIGHT, height: TOP + h + BOTTOM, plot, bar: { x: LEFT + w + BAR_GAP, y: TOP, w: BAR_WIDTH, h } };
+  return {
+    width: LEFT + w + RIGHT,
+    height: TOP + h + BOTTOM,
+    plot,
+    bar: { x: LEFT + w + BAR_GAP, y: TOP, w: BAR_WIDTH, h },
+  };
 }
 
 /**

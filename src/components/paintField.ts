@@ -12,9 +12,15 @@ export function symmetricRange(field: Float64Array): number {
   // Four partial sums: the additions no longer wait on each other, which halves the time at 512².
   const n = field.length;
   const m = n - (n % 4);
-  let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+  let s0 = 0,
+    s1 = 0,
+    s2 = 0,
+    s3 = 0;
   for (let i = 0; i < m; i += 4) {
-    const a = field[i], b = field[i + 1], c = field[i + 2], d = field[i + 3];
+    const a = field[i],
+      b = field[i + 1],
+      c = field[i + 2],
+      d = field[i + 3];
     s0 += a * a;
     s1 += b * b;
     s2 += c * c;
@@ -30,7 +36,14 @@ export function symmetricRange(field: Float64Array): number {
  * clamp beyond it. Image rows run top to bottom, so row r shows jy = ny − 1 − r: north is up.
  * A range of 0 (or not finite) paints every point with the colour of zero.
  */
-export function paintField(field: Float64Array, nx: number, ny: number, range: number, table: Uint32Array, pixels: Uint32Array): void {
+export function paintField(
+  field: Float64Array,
+  nx: number,
+  ny: number,
+  range: number,
+  table: Uint32Array,
+  pixels: Uint32Array,
+): void {
   if (field.length !== nx * ny || pixels.length !== nx * ny) {
     throw new RangeError(`paintField: expected ${nx * ny} values and pixels, got ${field.length} and ${pixels.length}`);
   }

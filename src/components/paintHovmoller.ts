@@ -6,9 +6,18 @@ import { TABLE_SIZE } from './divergingTable';
  * from [−range, range] onto the table and clamp beyond. Image row r shows y index ny − 1 − r (north
  * up). A range of 0 (or not finite) paints the colour of zero.
  */
-export function paintHovmoller(data: Float64Array, columns: number, ny: number, range: number, table: Uint32Array, pixels: Uint32Array): void {
+export function paintHovmoller(
+  data: Float64Array,
+  columns: number,
+  ny: number,
+  range: number,
+  table: Uint32Array,
+  pixels: Uint32Array,
+): void {
   if (data.length < columns * ny || pixels.length !== columns * ny) {
-    throw new RangeError(`paintHovmoller: expected ${columns * ny} values and pixels, got ${data.length} and ${pixels.length}`);
+    throw new RangeError(
+      `paintHovmoller: expected ${columns * ny} values and pixels, got ${data.length} and ${pixels.length}`,
+    );
   }
   const half = TABLE_SIZE / 2;
   const s = range > 0 && Number.isFinite(range) ? half / range : 0;

@@ -7,7 +7,9 @@ import { TABLE_SIZE } from './divergingTable';
  * with the value. Packed like `divergingTable` (RGBA bytes viewed as platform-order words).
  */
 export function sequentialTable(): Uint32Array {
-  const scale = chroma.scale([chroma.lch(97, 0, 0), chroma.lch(62, 55, 40), chroma.lch(40, 60, 25), chroma.lch(18, 30, 20)]).mode('lab');
+  const scale = chroma
+    .scale([chroma.lch(97, 0, 0), chroma.lch(62, 55, 40), chroma.lch(40, 60, 25), chroma.lch(18, 30, 20)])
+    .mode('lab');
   const bytes = new Uint8ClampedArray(4 * TABLE_SIZE);
   for (let i = 0; i < TABLE_SIZE; i++) {
     const [r, g, b] = scale((i + 0.5) / TABLE_SIZE).rgb();
@@ -21,8 +23,19 @@ export function sequentialTable(): Uint32Array {
  * = last data row, through `table` on a log scale: log10(value) from `lo` to `hi` (decades) across
  * the table, clamped; values ≤ 0 (no mode there) take the table's first entry.
  */
-export function paintLogMap(values: Float64Array, cols: number, rows: number, lo: number, hi: number, table: Uint32Array, pixels: Uint32Array): void {
-  if (values.length !== cols * rows || pixels.length !== cols * rows) throw new RangeError(`paintLogMap: expected ${cols * rows} values and pixels, got ${values.length} and ${pixels.length}`);
+export function paintLogMap(
+  values: Float64Array,
+  cols: number,
+  rows: number,
+  lo: number,
+  hi: number,
+  table: Uint32Array,
+  pixels: Uint32Array,
+): void {
+  if (values.length !== cols * rows || pixels.length !== cols * rows)
+    throw new RangeError(
+      `paintLogMap: expected ${cols * rows} values and pixels, got ${values.length} and ${pixels.length}`,
+    );
   const s = hi > lo ? TABLE_SIZE / (hi - lo) : 0;
   for (let r = 0; r < rows; r++) {
     const src = r * cols;

@@ -31,7 +31,11 @@ const NEW_MODEL_KEYS = ['nx', 'ny', 'Lx', 'Ly'] as const;
  * as an issue of the edited field, or null. Only grid and domain changes build a new model; the
  * current run is held until the new one stands, so it is counted too.
  */
-export function memoryRefusalOf(params: ModelParams, changes: Partial<ModelParams>, budget: MemoryBudget = appMemoryBudget()): InputIssue[] | null {
+export function memoryRefusalOf(
+  params: ModelParams,
+  changes: Partial<ModelParams>,
+  budget: MemoryBudget = appMemoryBudget(),
+): InputIssue[] | null {
   const field = NEW_MODEL_KEYS.find((k) => k in changes && changes[k] !== params[k]);
   if (!field) return null;
   const why = memoryRefusal({ ...params, ...changes }, params, budget);

@@ -52,7 +52,14 @@ export function asSavedRun(x: unknown): SavedRun | null {
   const num = (k: string) => typeof r[k] === 'number' && Number.isFinite(r[k]);
   if (typeof r.tab !== 'string' || typeof r.text !== 'string' || typeof r.playing !== 'boolean') return null;
   if (!num('savedAt') || !num('time') || !num('steps')) return null;
-  return { tab: r.tab, savedAt: r.savedAt as number, time: r.time as number, steps: r.steps as number, playing: r.playing, text: r.text };
+  return {
+    tab: r.tab,
+    savedAt: r.savedAt as number,
+    time: r.time as number,
+    steps: r.steps as number,
+    playing: r.playing,
+    text: r.text,
+  };
 }
 
 function openDb(): Promise<IDBDatabase> {
@@ -69,7 +76,10 @@ function openDb(): Promise<IDBDatabase> {
 }
 
 /** Run `work` in one transaction and settle when it commits (not merely when the requests succeed). */
-async function inTransaction<T>(mode: IDBTransactionMode, work: (store: IDBObjectStore, result: (v: T) => void) => void): Promise<T> {
+async function inTransaction<T>(
+  mode: IDBTransactionMode,
+  work: (store: IDBObjectStore, result: (v: T) => void) => void,
+): Promise<T> {
   const db = await openDb();
   try {
     return await new Promise<T>((resolve, reject) => {

@@ -83,7 +83,14 @@ export class Autosaver {
       const key = `${cp.steps}:${cp.time}:${stateChecksum(cp.qHat)}:${JSON.stringify(cp.params)}:${playing}`;
       if (key === this.savedKey) return;
       const savedAt = Date.now();
-      await this.put({ tab: this.tab, savedAt, time: cp.time, steps: cp.steps, playing, text: encodeRunFile(cp, new Date(savedAt)) });
+      await this.put({
+        tab: this.tab,
+        savedAt,
+        time: cp.time,
+        steps: cp.steps,
+        playing,
+        text: encodeRunFile(cp, new Date(savedAt)),
+      });
       this.savedKey = key;
       this.last = { time: cp.time, steps: cp.steps, savedAt, reason };
       this.failed = null;

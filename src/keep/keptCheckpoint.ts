@@ -17,7 +17,11 @@ export interface KeptMark {
  * parameters than the copy (resuming it would bring back the wrong run); or the copy is
  * KEEP_EVERY_MS old. `snap` is the latest snapshot, or null when there is none.
  */
-export function keepDue(mark: KeptMark | null, snap: { epoch: number; params: ModelParams } | null, now: number): boolean {
+export function keepDue(
+  mark: KeptMark | null,
+  snap: { epoch: number; params: ModelParams } | null,
+  now: number,
+): boolean {
   if (!mark) return true;
   if (snap && (snap.epoch !== mark.epoch || !sameParams(snap.params, mark.params))) return true;
   return now - mark.at >= KEEP_EVERY_MS;

@@ -18,7 +18,11 @@ export interface WatchdogLimits {
   minTicks: number;
 }
 
-export const WATCHDOG_LIMITS: Readonly<WatchdogLimits> = Object.freeze({ quietMs: 6000, busyQuietMs: 120_000, minTicks: 3 });
+export const WATCHDOG_LIMITS: Readonly<WatchdogLimits> = Object.freeze({
+  quietMs: 6000,
+  busyQuietMs: 120_000,
+  minTicks: 3,
+});
 
 export class Watchdog {
   private lastHeard: number;

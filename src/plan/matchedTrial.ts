@@ -2,7 +2,10 @@ import type { ModelParams } from '../../lib/model/params';
 
 /** True when two complete parameter records are the same run setup. */
 export function sameParams(a: ModelParams, b: ModelParams): boolean {
-  return (Object.keys(a) as (keyof ModelParams)[]).every((k) => a[k] === b[k]) && Object.keys(b).length === Object.keys(a).length;
+  return (
+    (Object.keys(a) as (keyof ModelParams)[]).every((k) => a[k] === b[k]) &&
+    Object.keys(b).length === Object.keys(a).length
+  );
 }
 
 /**
@@ -20,7 +23,10 @@ export interface TrialTrack {
   epoch: number | null;
 }
 
-export function trialPhase(t: TrialTrack, snap: { epoch: number; params: ModelParams; time: number; playing: boolean }): { phase: TrialPhase; epoch: number | null } {
+export function trialPhase(
+  t: TrialTrack,
+  snap: { epoch: number; params: ModelParams; time: number; playing: boolean },
+): { phase: TrialPhase; epoch: number | null } {
   if (t.epoch === null) {
     if (snap.epoch > t.after && sameParams(snap.params, t.params)) return { phase: 'running', epoch: snap.epoch };
     return { phase: snap.epoch > t.after ? 'replaced' : 'starting', epoch: null };

@@ -1,10 +1,33 @@
 import type { PlanInput, UnitSystem } from '../../lib/plan/planInput';
 
 /** What a plan field measures, for its unit. */
-export type FieldDimension = 'length' | 'time' | 'velocity' | 'injection' | 'beta' | 'rate' | 'acceleration' | 'degrees' | 'fraction' | 'none';
+export type FieldDimension =
+  'length' | 'time' | 'velocity' | 'injection' | 'beta' | 'rate' | 'acceleration' | 'degrees' | 'fraction' | 'none';
 
-const PHYSICAL: Record<FieldDimension, string> = { length: 'm', time: 's', velocity: 'm/s', injection: 'W/kg = m²/s³', beta: '1/(m·s)', rate: '1/s', acceleration: 'm/s²', degrees: '°', fraction: 'of k_f', none: '' };
-const MODEL: Record<FieldDimension, string> = { length: 'L', time: 'T', velocity: 'L/T', injection: 'L²/T³', beta: '1/(L·T)', rate: '1/T', acceleration: 'L/T²', degrees: '°', fraction: 'of k_f', none: '' };
+const PHYSICAL: Record<FieldDimension, string> = {
+  length: 'm',
+  time: 's',
+  velocity: 'm/s',
+  injection: 'W/kg = m²/s³',
+  beta: '1/(m·s)',
+  rate: '1/s',
+  acceleration: 'm/s²',
+  degrees: '°',
+  fraction: 'of k_f',
+  none: '',
+};
+const MODEL: Record<FieldDimension, string> = {
+  length: 'L',
+  time: 'T',
+  velocity: 'L/T',
+  injection: 'L²/T³',
+  beta: '1/(L·T)',
+  rate: '1/T',
+  acceleration: 'L/T²',
+  degrees: '°',
+  fraction: 'of k_f',
+  none: '',
+};
 
 export function fieldUnit(d: FieldDimension, units: UnitSystem): string {
   return (units === 'physical' ? PHYSICAL : MODEL)[d];
@@ -23,10 +46,23 @@ export interface PlanFieldSpec {
 /** The numeric fields of each choice, by the part of the input they belong to. */
 export const CHOICE_FIELDS: Record<string, Record<string, PlanFieldSpec[]>> = {
   rotation: {
-    planet: [{ path: 'rotation.latitudeDeg', label: 'latitude φ', dim: 'degrees', hint: 'planetocentric, on a spherical planet; f = 2Ω sin φ, β = 2Ω cos φ/R' }],
+    planet: [
+      {
+        path: 'rotation.latitudeDeg',
+        label: 'latitude φ',
+        dim: 'degrees',
+        hint: 'planetocentric, on a spherical planet; f = 2Ω sin φ, β = 2Ω cos φ/R',
+      },
+    ],
     beta: [
       { path: 'rotation.beta', label: 'β', dim: 'beta' },
-      { path: 'rotation.f', label: 'f (optional)', dim: 'rate', hint: 'needed only for a layer deformation radius', optional: true },
+      {
+        path: 'rotation.f',
+        label: 'f (optional)',
+        dim: 'rate',
+        hint: 'needed only for a layer deformation radius',
+        optional: true,
+      },
     ],
   },
   deformation: {
@@ -57,7 +93,12 @@ export const COMMON_FIELDS: PlanFieldSpec[] = [
   { path: 'forcing.halfWidth', label: 'annulus half-width δk/k_f', dim: 'fraction' },
   { path: 'domain.Lx', label: 'domain length Lx', dim: 'length' },
   { path: 'domain.Ly', label: 'domain width Ly (across the jets)', dim: 'length' },
-  { path: 'hyperviscosity.gridDampingTime', label: 'damping time at the grid scale τ', dim: 'time', hint: 'ν = 1/(τ k_max^{2p})' },
+  {
+    path: 'hyperviscosity.gridDampingTime',
+    label: 'damping time at the grid scale τ',
+    dim: 'time',
+    hint: 'ν = 1/(τ k_max^{2p})',
+  },
   { path: 'runLength', label: 'run length', dim: 'time' },
 ];
 
@@ -111,7 +152,9 @@ export function freshChoice(key: ChoiceKey, kind: string, input: PlanInput): unk
 
 /** The value at a dotted path. */
 export function getPath(input: unknown, path: string): unknown {
-  return path.split('.').reduce<unknown>((o, k) => (o && typeof o === 'object' ? (o as Record<string, unknown>)[k] : undefined), input);
+  return path
+    .split('.')
+    .reduce<unknown>((o, k) => (o && typeof o === 'object' ? (o as Record<string, unknown>)[k] : undefined), input);
 }
 
 /** A copy of the input with the value at `path` replaced (the objects on the way copied, the rest shared). */

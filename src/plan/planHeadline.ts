@@ -16,9 +16,23 @@ export interface HeadlineRow {
 }
 
 export function headlineRows(p: PlanPredictions): HeadlineRow[] {
-  const row = (key: keyof RunSummary, label: string, id: keyof PlanPredictions): HeadlineRow => ({ key, label, quantity: p[id].quantity, predicted: p[id].value, formula: p[id].formula, reference: p[id].reference });
+  const row = (key: keyof RunSummary, label: string, id: keyof PlanPredictions): HeadlineRow => ({
+    key,
+    label,
+    quantity: p[id].quantity,
+    predicted: p[id].value,
+    formula: p[id].formula,
+    reference: p[id].reference,
+  });
   return [
-    { key: 'regime', label: 'regime', quantity: 'ratio', predicted: p.regime.text, formula: p.regime.formula, reference: p.regime.reference },
+    {
+      key: 'regime',
+      label: 'regime',
+      quantity: 'ratio',
+      predicted: p.regime.text,
+      formula: p.regime.formula,
+      reference: p.regime.reference,
+    },
     row('jet_count', 'jets in the domain', 'jetsRhines'),
     row('jet_spacing', 'jet spacing', 'jetSpacingRhines'),
     row('u_rms', 'rms velocity U', 'U'),

@@ -28,7 +28,11 @@ export const IMPORT_LIMITS: Readonly<Record<ImportKind, ImportLimit>> = {
   runFile: { what: 'run files', maxBytes: 16 * MiB },
   planFile: { what: 'plan files', maxBytes: 1 * MiB },
   sweepResults: { what: 'sweep results', maxBytes: 20 * MiB },
-  userData: { what: 'NetCDF files', maxBytes: 256 * MiB, elsewhere: "the command line's `stria analyze` reads larger ones record by record" },
+  userData: {
+    what: 'NetCDF files',
+    maxBytes: 256 * MiB,
+    elsewhere: "the command line's `stria analyze` reads larger ones record by record",
+  },
 };
 
 /** A limit in words: "16 MiB" (limits are whole mebibytes). */

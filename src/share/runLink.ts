@@ -39,7 +39,13 @@ export function decodeRunLink(hash: string, budget: MemoryBudget = appMemoryBudg
   const q = new URLSearchParams(text);
   const version = q.get('v');
   if (version !== String(LINK_VERSION)) {
-    return { kind: 'bad', message: version === null ? 'the link has no version (v=…)' : `link version ${version} is not one this Stria reads (${LINK_VERSION})` };
+    return {
+      kind: 'bad',
+      message:
+        version === null
+          ? 'the link has no version (v=…)'
+          : `link version ${version} is not one this Stria reads (${LINK_VERSION})`,
+    };
   }
   const input: Record<string, unknown> = {};
   const problems: string[] = [];

@@ -26,12 +26,14 @@ export function parseResults(name: string, text: string): { rows: TableRow[]; re
   }
   if (name.endsWith('.json')) {
     const data: unknown = JSON.parse(text);
-    if (!Array.isArray(data) || !data.every((r) => r && typeof r === 'object' && !Array.isArray(r))) throw new RangeError(`${name}: expected an array of rows (table.json)`);
+    if (!Array.isArray(data) || !data.every((r) => r && typeof r === 'object' && !Array.isArray(r)))
+      throw new RangeError(`${name}: expected an array of rows (table.json)`);
     return { rows: data as TableRow[], records: null };
   }
   if (name.endsWith('.csv')) {
     const t = parseCsv(text);
-    if (!t.header.includes('status')) throw new RangeError(`${name}: no "status" column: not a sweep table (table.csv)`);
+    if (!t.header.includes('status'))
+      throw new RangeError(`${name}: no "status" column: not a sweep table (table.csv)`);
     const rows = t.rows.map((r) => Object.fromEntries(t.header.map((h, i) => [h, csvValue(r[i])])) as TableRow);
     return { rows, records: null };
   }

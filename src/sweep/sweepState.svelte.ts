@@ -62,7 +62,9 @@ class SweepState {
           this.show(tableRows(this.records), title, options);
         },
       });
-      this.message = cancelled ? { text: `Stopped after ${this.records.length} of ${jobs.length} runs.`, bad: false } : { text: `Finished ${jobs.length} runs.`, bad: false };
+      this.message = cancelled
+        ? { text: `Stopped after ${this.records.length} of ${jobs.length} runs.`, bad: false }
+        : { text: `Finished ${jobs.length} runs.`, bad: false };
     } catch (e) {
       this.message = { text: `The sweep failed: ${e instanceof Error ? e.message : String(e)}`, bad: true };
     } finally {

@@ -38,10 +38,20 @@ export class BudgetChartData {
       return out;
     };
     const t = col(0, c.time);
-    const rates = (base: number, b: BudgetColumns): ChartColumns => [t, col(base, b.injection), col(base + 1, b.drag), col(base + 2, b.hyper), col(base + 3, b.largeScale), col(base + 4, b.tendency)];
+    const rates = (base: number, b: BudgetColumns): ChartColumns => [
+      t,
+      col(base, b.injection),
+      col(base + 1, b.drag),
+      col(base + 2, b.hyper),
+      col(base + 3, b.largeScale),
+      col(base + 4, b.tendency),
+    ];
     this.residualE.length = this.residualZ.length = n;
     let residualMax = 0;
-    for (const [b, out] of [[c.energy, this.residualE], [c.enstrophy, this.residualZ]] as const) {
+    for (const [b, out] of [
+      [c.energy, this.residualE],
+      [c.enstrophy, this.residualZ],
+    ] as const) {
       fillResidual(b, n, out);
       for (const r of out) if (r !== null && r > residualMax) residualMax = r;
     }
@@ -62,7 +72,12 @@ export class BudgetChartData {
  */
 export function fillResidual(b: BudgetColumns, n: number, out: (number | null)[]): void {
   for (let i = 0; i < n; i++) {
-    const scale = Math.max(Math.abs(b.injection[i]), Math.abs(b.drag[i]), Math.abs(b.hyper[i]), Math.abs(b.largeScale[i]));
+    const scale = Math.max(
+      Math.abs(b.injection[i]),
+      Math.abs(b.drag[i]),
+      Math.abs(b.hyper[i]),
+      Math.abs(b.largeScale[i]),
+    );
     const r = b.transferMax[i] / scale;
     out[i] = Number.isFinite(r) && r > 0 ? r : null;
   }

@@ -12,7 +12,14 @@ export const SERIES_COLOURS = {
 const timeAxis: uPlot.Axis = { label: 't [T]', labelSize: 18, size: 36 };
 
 function line(label: string, stroke: string, dash?: number[]): uPlot.Series {
-  return { label, stroke, width: 1.5, dash, points: { show: false }, value: (_u, v) => (v == null ? '—' : v.toPrecision(4)) };
+  return {
+    label,
+    stroke,
+    width: 1.5,
+    dash,
+    points: { show: false },
+    value: (_u, v) => (v == null ? '—' : v.toPrecision(4)),
+  };
 }
 
 /** A y tick label; log axes hand over null for the ticks they leave unlabelled. */
@@ -30,7 +37,12 @@ function valueAxis(label: string, distr?: uPlot.Scale.Distr): { axis: uPlot.Axis
 }
 
 /** Options of a chart of time series sharing one y axis. */
-function chart(title: string, yLabel: string, series: uPlot.Series[], distr?: uPlot.Scale.Distr): Omit<uPlot.Options, 'width' | 'height'> {
+function chart(
+  title: string,
+  yLabel: string,
+  series: uPlot.Series[],
+  distr?: uPlot.Scale.Distr,
+): Omit<uPlot.Options, 'width' | 'height'> {
   const y = valueAxis(yLabel, distr);
   return {
     title,
@@ -54,7 +66,10 @@ function rateSeries(symbol: string): uPlot.Series[] {
 }
 
 export const BUDGET_CHART_OPTIONS = {
-  energy: chart('Energy', 'E, KE [L²T⁻²]', [line('energy E', SERIES_COLOURS.ink), line('kinetic KE', SERIES_COLOURS.injection, [4, 3])]),
+  energy: chart('Energy', 'E, KE [L²T⁻²]', [
+    line('energy E', SERIES_COLOURS.ink),
+    line('kinetic KE', SERIES_COLOURS.injection, [4, 3]),
+  ]),
   energyRates: chart('Energy budget', 'rate [L²T⁻³]', rateSeries('E')),
   enstrophyRates: chart('Enstrophy budget', 'rate [T⁻³]', rateSeries('Z')),
   residual: chart(

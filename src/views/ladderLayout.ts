@@ -13,7 +13,8 @@ export function logAxisFor(ks: readonly number[], x0: number, x1: number): LogAx
   const finite = ks.filter((k) => Number.isFinite(k) && k > 0);
   const lo = finite.length ? Math.min(...finite) : 1;
   const hi = finite.length ? Math.max(...finite) : 10;
-  const snap = (x: number, dir: 'down' | 'up') => Math.pow(10, (dir === 'down' ? Math.floor : Math.ceil)(2 * Math.log10(x)) / 2);
+  const snap = (x: number, dir: 'down' | 'up') =>
+    Math.pow(10, (dir === 'down' ? Math.floor : Math.ceil)(2 * Math.log10(x)) / 2);
   let kMin = snap(lo / 1.2, 'down');
   let kMax = snap(hi * 1.2, 'up');
   if (kMax / kMin < 10) {
@@ -24,7 +25,9 @@ export function logAxisFor(ks: readonly number[], x0: number, x1: number): LogAx
 }
 
 export function xOf(axis: LogAxis, k: number): number {
-  return axis.x0 + ((Math.log(k) - Math.log(axis.kMin)) / (Math.log(axis.kMax) - Math.log(axis.kMin))) * (axis.x1 - axis.x0);
+  return (
+    axis.x0 + ((Math.log(k) - Math.log(axis.kMin)) / (Math.log(axis.kMax) - Math.log(axis.kMin))) * (axis.x1 - axis.x0)
+  );
 }
 
 /** Ticks of the axis: every 1, 2 and 5 × 10ⁿ inside it; `major` marks the powers of ten. */

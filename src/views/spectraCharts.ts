@@ -5,7 +5,15 @@ import type { ModelParams } from '../../lib/model/params';
 import type { SpectraPayload } from '../../workers/diagnosticsApi';
 import type { ChartMark } from '../components/chartMarks';
 
-export const SPECTRA_COLOURS = { total: '#1b1b1b', zonal: '#b12938', residual: '#1f5f9f', reference: '#777', fit: '#c8641e', mark: '#444', band: 'rgba(31, 95, 159, 0.08)' } as const;
+export const SPECTRA_COLOURS = {
+  total: '#1b1b1b',
+  zonal: '#b12938',
+  residual: '#1f5f9f',
+  reference: '#777',
+  fit: '#c8641e',
+  mark: '#444',
+  band: 'rgba(31, 95, 159, 0.08)',
+} as const;
 
 /** Shell sum → density: E(k_s)/dk, the form the reference spectra are written in; zero (empty shell) as a gap. */
 const density = (E: Float64Array, dk: number) => Array.from(E, (e) => (e > 0 ? e / dk : null));
@@ -20,9 +28,20 @@ export interface SpectraFigure {
 /** The wavenumbers marked on the spectra: k_f (with its annulus), k_β from ε, k_R from the measured U_rms. */
 export function spectraMarks(p: ModelParams, Urms: number): ChartMark[] {
   const marks: ChartMark[] = [];
-  if (p.forcing !== 'none') marks.push({ span: [p.kf - p.dkf, p.kf + p.dkf], colour: SPECTRA_COLOURS.band }, { value: p.kf, label: 'k_f', colour: SPECTRA_COLOURS.mark });
-  if (p.beta > 0 && p.eps > 0) marks.push({ value: transitionalWavenumber(p.beta, p.eps), label: 'k_β', colour: SPECTRA_COLOURS.mark, dash: [4, 3] });
-  if (p.beta > 0 && Urms > 0) marks.push({ value: rhinesWavenumber(p.beta, Urms), label: 'k_R', colour: SPECTRA_COLOURS.mark, dash: [2, 3] });
+  if (p.forcing !== 'none')
+    marks.push(
+      { span: [p.kf - p.dkf, p.kf + p.dkf], colour: SPECTRA_COLOURS.band },
+      { value: p.kf, label: 'k_f', colour: SPECTRA_COLOURS.mark },
+    );
+  if (p.beta > 0 && p.eps > 0)
+    marks.push({
+      value: transitionalWavenumber(p.beta, p.eps),
+      label: 'k_β',
+      colour: SPECTRA_COLOURS.mark,
+      dash: [4, 3],
+    });
+  if (p.beta > 0 && Urms > 0)
+    marks.push({ value: rhinesWavenumber(p.beta, Urms), label: 'k_R', colour: SPECTRA_COLOURS.mark, dash: [2, 3] });
   return marks;
 }
 
@@ -39,17 +58,33 @@ export function spectraFigure(s: SpectraPayload, p: ModelParams, band: [number, 
   const zonal = k.map((x) => (p.beta > 0 && below(x) ? zonalSpectrum(x, p.beta) : null));
   const top = s.k[Math.max(0, s.completeShells - 1)];
   const i0 = k.findIndex((x, i) => x > p.kf + p.dkf && i < s.completeShells && (E[i] ?? 0) > 0);
-  const forward = k.map((x) => (i0 >= 0 && x >= k[i0] && x <= top ? (E[i0] as number) * Math.pow(x / k[i0], -3) : null));
+  const forward = k.map((x) =>
+    i0 >= 0 && x >= k[i0] && x <= top ? (E[i0] as number) * Math.pow(x / k[i0], -3) : null,
+  );
   let fit: PowerLawFit | null = null;
   let fitError: string | null = null;
   try {
-    fit = fitPowerLaw(s.k, s.E.map((e) => e / s.dk), band[0], band[1]);
+    fit = fitPowerLaw(
+      s.k,
+      s.E.map((e) => e / s.dk),
+      band[0],
+      band[1],
+    );
   } catch (e) {
     fitError = e instanceof Error ? e.message.replace(/^fitPowerLaw: /, '') : String(e);
   }
   const fitted = k.map((x) => (fit && x >= band[0] && x <= band[1] ? fit.prefactor * Math.pow(x, fit.slope) : null));
   return {
-    data: [k, E, density(s.EZonal, s.dk), density(s.EResidual, s.dk), inverse, forward, zonal, fitted] as uPlot.AlignedData,
+    data: [
+      k,
+      E,
+      density(s.EZonal, s.dk),
+      density(s.EResidual, s.dk),
+      inverse,
+      forward,
+      zonal,
+      fitted,
+    ] as uPlot.AlignedData,
     marks: spectraMarks(p, Urms),
     fit,
     fitError,
@@ -57,10 +92,19 @@ export function spectraFigure(s: SpectraPayload, p: ModelParams, band: [number, 
 }
 
 function series(label: string, stroke: string, width: number, dash?: number[]): uPlot.Series {
-  return { label, stroke, width, dash, points: { show: false }, spanGaps: false, value: (_u, v) => (v == null ? '—' : v.toExponential(2)) };
+  return {
+    label,
+    stroke,
+    width,
+    dash,
+    points: { show: false },
+    spanGaps: false,
+    value: (_u, v) => (v == null ? '—' : v.toExponential(2)),
+  };
 }
 
-const logTick = (t: number | null) => (t == null ? '' : t >= 0.01 && t < 1e4 ? String(Number(t.toPrecision(2))) : t.toExponential(0));
+const logTick = (t: number | null) =>
+  t == null ? '' : t >= 0.01 && t < 1e4 ? String(Number(t.toPrecision(2))) : t.toExponential(0);
 
 /**
  * Options of the log-log spectra chart (series in the order of `spectraFigure`'s columns). `compact`

@@ -6,7 +6,13 @@ import type { StaircaseMark } from '../../workers/diagnosticsApi';
  * points below edges[0] belong to it, one period down: its level − βLy (staircase.ts keeps levels on
  * the branch y ∈ [edges[i], edges[i] + width)). Without edges there is one step, the whole period.
  */
-export function staircaseProfile(y: ArrayLike<number>, fit: StaircaseMark, beta: number, Ly: number, out = new Float64Array(y.length)): Float64Array {
+export function staircaseProfile(
+  y: ArrayLike<number>,
+  fit: StaircaseMark,
+  beta: number,
+  Ly: number,
+  out = new Float64Array(y.length),
+): Float64Array {
   const { edges, levels } = fit;
   const n = edges.length;
   for (let j = 0; j < y.length; j++) {

@@ -5,13 +5,25 @@ import { profileChartOptions, profileSeries } from './profileChart';
 import { staircaseProfile } from './staircaseProfile';
 
 /** Colours of the Zonal view: the latest sample thin and grey, the time mean bold; jets in the eastward red of the field maps. */
-export const ZONAL_COLOURS = { latest: '#8c8c8c', mean: '#1b1b1b', conv: '#c8641e', stairs: '#1f5f9f', beta: '#7a7a7a', jet: 'rgba(177, 41, 56, 0.75)', edge: 'rgba(31, 95, 159, 0.7)' } as const;
+export const ZONAL_COLOURS = {
+  latest: '#8c8c8c',
+  mean: '#1b1b1b',
+  conv: '#c8641e',
+  stairs: '#1f5f9f',
+  beta: '#7a7a7a',
+  jet: 'rgba(177, 41, 56, 0.75)',
+  edge: 'rgba(31, 95, 159, 0.7)',
+} as const;
 
 export type ZonalChartId = 'ubar' | 'conv' | 'pv';
 
 /** The three profile charts of the Zonal view: options (built once per domain) and marks. */
 export class ZonalCharts {
-  readonly marks: Record<ZonalChartId, ChartMarks> = { ubar: new ChartMarks(), conv: new ChartMarks(), pv: new ChartMarks() };
+  readonly marks: Record<ZonalChartId, ChartMarks> = {
+    ubar: new ChartMarks(),
+    conv: new ChartMarks(),
+    pv: new ChartMarks(),
+  };
   readonly options: Record<ZonalChartId, Omit<uPlot.Options, 'width' | 'height'>>;
   private stairs = new Float64Array(0);
 
@@ -19,13 +31,30 @@ export class ZonalCharts {
     const c = ZONAL_COLOURS;
     const plug = (id: ZonalChartId) => [this.marks[id].plugin()];
     this.options = {
-      ubar: profileChartOptions('Zonal-mean zonal velocity ū', 'ū [L T⁻¹]', Ly, [profileSeries('latest sample', c.latest, 1), profileSeries('time mean', c.mean, 2)], plug('ubar')),
-      conv: profileChartOptions('Eddy momentum flux convergence', '−∂y(u′v′) [L T⁻²]', Ly, [{ ...profileSeries('latest sample', c.latest, 1), show: false }, profileSeries('time mean', c.conv, 2)], plug('conv')),
+      ubar: profileChartOptions(
+        'Zonal-mean zonal velocity ū',
+        'ū [L T⁻¹]',
+        Ly,
+        [profileSeries('latest sample', c.latest, 1), profileSeries('time mean', c.mean, 2)],
+        plug('ubar'),
+      ),
+      conv: profileChartOptions(
+        'Eddy momentum flux convergence',
+        '−∂y(u′v′) [L T⁻²]',
+        Ly,
+        [{ ...profileSeries('latest sample', c.latest, 1), show: false }, profileSeries('time mean', c.conv, 2)],
+        plug('conv'),
+      ),
       pv: profileChartOptions(
         'Total PV q̄ + βy and its staircase',
         'q̄ + βy [T⁻¹]',
         Ly,
-        [profileSeries('latest sample', c.latest, 1), profileSeries('time mean', c.mean, 2), profileSeries('fitted staircase', c.stairs, 1.5), profileSeries('βy (unmixed)', c.beta, 1, [4, 4])],
+        [
+          profileSeries('latest sample', c.latest, 1),
+          profileSeries('time mean', c.mean, 2),
+          profileSeries('fitted staircase', c.stairs, 1.5),
+          profileSeries('βy (unmixed)', c.beta, 1, [4, 4]),
+        ],
         plug('pv'),
       ),
     };
@@ -36,7 +65,11 @@ export class ZonalCharts {
     const jets = z.jets.map((j) => ({ value: j.y, colour: ZONAL_COLOURS.jet, dash: [5, 3] }));
     this.marks.ubar.marks = jets;
     this.marks.conv.marks = jets;
-    this.marks.pv.marks = (z.staircase?.edges ?? []).map((e) => ({ value: e, colour: ZONAL_COLOURS.edge, dash: [2, 3] }));
+    this.marks.pv.marks = (z.staircase?.edges ?? []).map((e) => ({
+      value: e,
+      colour: ZONAL_COLOURS.edge,
+      dash: [2, 3],
+    }));
     const n = z.y.length;
     if (this.stairs.length !== n) this.stairs = new Float64Array(n);
     const stairs = z.staircase ? staircaseProfile(z.y, z.staircase, z.beta, z.Ly, this.stairs) : null;

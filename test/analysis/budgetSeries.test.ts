@@ -41,7 +41,10 @@ describe('BudgetSeries bookkeeping', () => {
     expect(series.stride).toBe(16);
     const c = series.columns();
     expect(c.time.length).toBe(series.length);
-    let steps = 0, dur = 0, int = 0, tmax = 0;
+    let steps = 0,
+      dur = 0,
+      int = 0,
+      tmax = 0;
     for (let i = 0; i < c.time.length; i++) {
       steps += c.steps[i];
       dur += c.duration[i];
@@ -115,7 +118,25 @@ describe('BudgetSeries of a forced run', () => {
   // order-4 hyperviscosity at the grid scale, β = 5; 3850 steps at CFL 0.5, about 1.5 s. Mean from
   // t = 4 to 80 (measured: ⟨E⟩ = 0.491 ± 0.009 against ε/(2μ) = 0.5; ⟨loss⟩ = 1.006 ± 0.019 against
   // ε = 1; ε_ν/ε = 2.4%; U_rms = 0.991 against (ε/μ)^½ = 1; worst per-step residual 2.8e-16).
-  const base = { nx: 32, ny: 32, beta: 5, kd: 0, mu: 1, nu: 2 / Math.pow(10, 8), nu_order: 4, mu_ls: 0, k_ls: 0, forcing: 'stochastic', kf: 5, dkf: 1.5, eps: 1, cfl: 0.5, dt: 0.05, seed: 7, init_energy: 0 };
+  const base = {
+    nx: 32,
+    ny: 32,
+    beta: 5,
+    kd: 0,
+    mu: 1,
+    nu: 2 / Math.pow(10, 8),
+    nu_order: 4,
+    mu_ls: 0,
+    k_ls: 0,
+    forcing: 'stochastic',
+    kf: 5,
+    dkf: 1.5,
+    eps: 1,
+    cfl: 0.5,
+    dt: 0.05,
+    seed: 7,
+    init_energy: 0,
+  };
 
   it('closes the budget to round-off at every step and balances ε = 2μ⟨E⟩ + ε_ν in the mean', () => {
     const { model, series, worst } = run(base, 80);

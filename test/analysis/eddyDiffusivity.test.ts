@@ -59,7 +59,9 @@ describe('eddy diffusivity', () => {
     expect(r.Dmean).toBeNull();
     expect(r.Dfit).toBeNull();
     expect(r.Lmix).toBeNull();
-    expect(() => eddyDiffusivity(new Float64Array(n), new Float64Array(n - 1), new Float64Array(n))).toThrow(RangeError);
+    expect(() => eddyDiffusivity(new Float64Array(n), new Float64Array(n - 1), new Float64Array(n))).toThrow(
+      RangeError,
+    );
   });
 
   // Why no flux-weighted bulk −⟨v′q′⟩/⟨∂y q̄⟩: the domain mean of v′q′ = −∂y(u′v′) vanishes on any

@@ -9,12 +9,17 @@ const y = Float64Array.from({ length: ny }, (_, j) => (j * Ly) / ny);
 /** A Hovmöller record of ū(y, t) sampled at times t_k = k·dt. */
 function record(u: (y: number, t: number) => number, nt: number, dt: number, cap = 1024): HovmollerRecord {
   const h = new HovmollerAccumulator(ny, Ly, cap);
-  for (let k = 0; k < nt; k++) h.add(k * dt, y.map((s) => u(s, k * dt)));
+  for (let k = 0; k < nt; k++)
+    h.add(
+      k * dt,
+      y.map((s) => u(s, k * dt)),
+    );
   return h.snapshot();
 }
 
 /** Periodic Gaussian jet. */
-const jet = (s: number, y0: number, w: number) => [-Ly, 0, Ly].reduce((a, img) => a + Math.exp(-((s - y0 - img) ** 2) / (2 * w * w)), 0);
+const jet = (s: number, y0: number, w: number) =>
+  [-Ly, 0, Ly].reduce((a, img) => a + Math.exp(-((s - y0 - img) ** 2) / (2 * w * w)), 0);
 
 /** Two jets at 2 ∓ sep/2 with sep shrinking at 0.1 per unit time from 1.2, and a fixed jet at 5. */
 const merging = (s: number, t: number) => {
@@ -93,7 +98,8 @@ describe('jet tracking', () => {
 
   it('tells a jet that fades from one that merges, and one that emerges from a split', () => {
     // A jet at 4 dies out in amplitude by t = 5 and another grows at 1 from t = 5: far from the jet at 2.5.
-    const u = (s: number, t: number) => jet(s, 2.5, 0.2) + Math.max(1 - t / 5, 0) * jet(s, 4.5, 0.2) + Math.max(t / 5 - 1, 0) * jet(s, 0.5, 0.2);
+    const u = (s: number, t: number) =>
+      jet(s, 2.5, 0.2) + Math.max(1 - t / 5, 0) * jet(s, 4.5, 0.2) + Math.max(t / 5 - 1, 0) * jet(s, 0.5, 0.2);
     const r = trackJets(record(u, 100, 0.1));
     expect(r.mergers).toEqual([]);
     expect(r.splits).toEqual([]);

@@ -61,7 +61,7 @@ describe('jet finding', () => {
       // the parabola then moves at most dy/2 [derived].
       const bound = Math.acos(1 - 2 * a - (k * dy) ** 2 / 8) / k + dy / 2;
       r.jets.forEach((jet, i) => {
-        const d = Math.abs(((jet.y - 0.4 - (i * Ly) / 3 + Ly / 2) % Ly + Ly) % Ly - Ly / 2);
+        const d = Math.abs(((((jet.y - 0.4 - (i * Ly) / 3 + Ly / 2) % Ly) + Ly) % Ly) - Ly / 2);
         expect(d).toBeLessThan(bound);
       });
       // Without the criterion the same profile shows dozens of maxima.
@@ -104,7 +104,7 @@ describe('jet finding', () => {
     expect(jet.minSouth).toBe(jet.minNorth);
     // Half-way between the peak and the baseline: FWHM = 2√(2 ln 2)·w [derived]; the baseline carries
     // the far Gaussian tail, exp(−(Ly/2)²/2w²) ≈ 1e-107: negligible.
-    expect(Math.abs(jet.width - 2 * Math.sqrt(2 * Math.LN2) * w)).toBeLessThan(0.5 * (dy * dy) / w);
+    expect(Math.abs(jet.width - 2 * Math.sqrt(2 * Math.LN2) * w)).toBeLessThan((0.5 * (dy * dy)) / w);
     expect(jet.ySouth).toBeLessThan(jet.y);
     expect(jet.yNorth).toBeGreaterThan(jet.y);
     expect(r.spacings).toEqual([Ly]);
@@ -169,7 +169,8 @@ describe('jet finding', () => {
     const [k, A, y0] = [3, 0.7, 0.5];
     const r = finder.find(y.map((s) => Math.cos(k * (s - y0))));
     const upvp = y.map((s) => A * Math.sin(k * (s - y0)));
-    for (const jet of r.jets) expect(Math.abs(finder.coreConvergence(jet, upvp) + (2 * A * k) / Math.PI)).toBeLessThan(2 * dy * dy * A * k * k);
+    for (const jet of r.jets)
+      expect(Math.abs(finder.coreConvergence(jet, upvp) + (2 * A * k) / Math.PI)).toBeLessThan(2 * dy * dy * A * k * k);
   });
 
   it('refuses a profile of the wrong length', () => {

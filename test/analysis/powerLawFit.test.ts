@@ -27,7 +27,15 @@ function seededNormal(seed: number): () => number {
 }
 
 /** E = A k^α e^{σξ} on n log-spaced k in [k0, k1], ξ from `gauss`. */
-function noisyPowerLaw(alpha: number, A: number, sigma: number, n: number, k0: number, k1: number, gauss: () => number) {
+function noisyPowerLaw(
+  alpha: number,
+  A: number,
+  sigma: number,
+  n: number,
+  k0: number,
+  k1: number,
+  gauss: () => number,
+) {
   const k = new Float64Array(n);
   const E = new Float64Array(n);
   for (let i = 0; i < n; i++) {
@@ -106,7 +114,9 @@ describe('reference lines', () => {
   it('enstrophy cascade E ∝ η^{2/3} k^{−3} [published] Kraichnan, Phys. Fluids 10, 1417 (1967); Batchelor 1969', () => {
     expect(Math.abs(enstrophyCascadeSpectrum(2, 8, 1.5) / ((1.5 * 4) / 8) - 1)).toBeLessThan(1e-14);
     // The form: doubling k divides by 8; multiplying η by 8 multiplies by 4.
-    expect(Math.abs(enstrophyCascadeSpectrum(6, 0.3, 1) / enstrophyCascadeSpectrum(3, 0.3, 1) - 1 / 8)).toBeLessThan(1e-15);
+    expect(Math.abs(enstrophyCascadeSpectrum(6, 0.3, 1) / enstrophyCascadeSpectrum(3, 0.3, 1) - 1 / 8)).toBeLessThan(
+      1e-15,
+    );
     expect(Math.abs(enstrophyCascadeSpectrum(3, 2.4, 1) / enstrophyCascadeSpectrum(3, 0.3, 1) - 4)).toBeLessThan(1e-14);
   });
 

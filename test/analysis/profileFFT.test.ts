@@ -14,7 +14,9 @@ describe('ProfileFFT', () => {
   it('differentiates a trigonometric polynomial exactly (to round-off)', () => {
     const p = new ProfileFFT(ny, Ly);
     const f = sample((s) => 0.3 + Math.sin(k(1) * s + 0.2) - 2 * Math.cos(k(7) * s) + 0.5 * Math.sin(k(15) * s));
-    const df = sample((s) => k(1) * Math.cos(k(1) * s + 0.2) + 2 * k(7) * Math.sin(k(7) * s) + 0.5 * k(15) * Math.cos(k(15) * s));
+    const df = sample(
+      (s) => k(1) * Math.cos(k(1) * s + 0.2) + 2 * k(7) * Math.sin(k(7) * s) + 0.5 * k(15) * Math.cos(k(15) * s),
+    );
     const out = new Float64Array(ny);
     p.derivative(f, out);
     expect(maxAbsDiff(out, df)).toBeLessThan(roundOff(maxAbs(df)));
@@ -31,7 +33,12 @@ describe('ProfileFFT', () => {
     const p = new ProfileFFT(ny, Ly);
     const f = sample((s) => Math.cos(k(2) * s) + Math.sin(k(9) * s));
     p.truncate(f, f, 5);
-    expect(maxAbsDiff(f, sample((s) => Math.cos(k(2) * s)))).toBeLessThan(roundOff(2));
+    expect(
+      maxAbsDiff(
+        f,
+        sample((s) => Math.cos(k(2) * s)),
+      ),
+    ).toBeLessThan(roundOff(2));
   });
 
   it('smooths by the Gaussian factor exp(−½(kσ)²) per mode', () => {

@@ -86,6 +86,7 @@ describe('the total PV from ū alone', () => {
     const [n, dy, kd, U] = [20, 0.5, 2, 0.3];
     const q = qtotFromUbar(new Float64Array(n).fill(U), dy, false, 1, kd);
     // q = β y + k_d² U y + const: the slope between midpoints is β + k_d²U.
-    for (let j = 1; j < q.values.length; j++) expect((q.values[j] - q.values[j - 1]) / dy).toBeCloseTo(1 + kd * kd * U, 12);
+    for (let j = 1; j < q.values.length; j++)
+      expect((q.values[j] - q.values[j - 1]) / dy).toBeCloseTo(1 + kd * kd * U, 12);
   });
 });

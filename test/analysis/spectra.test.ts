@@ -23,7 +23,9 @@ function randomWaves(count: number, seed: number, nx: number, ny: number): Wave[
 
 /** ψ, u = −ψ_y and v = ψ_x of the waves at (x, y), from the analytic derivatives. */
 function evalWaves(waves: Wave[], Lx: number, Ly: number, x: number, y: number): [number, number, number] {
-  let psi = 0, u = 0, v = 0;
+  let psi = 0,
+    u = 0,
+    v = 0;
   for (const w of waves) {
     const kx = (2 * Math.PI * w.mx) / Lx;
     const ky = (2 * Math.PI * w.my) / Ly;
@@ -59,7 +61,10 @@ describe('SpectraPlan', () => {
     const kd = 0.5;
     const plan = new SpectraPlan(grid, kd);
     const a = 0.3;
-    const psiHat = spectrumOf(p, sampleGrid(p, (x, y) => a * Math.cos(2 * x - 3 * y + 0.4)));
+    const psiHat = spectrumOf(
+      p,
+      sampleGrid(p, (x, y) => a * Math.cos(2 * x - 3 * y + 0.4)),
+    );
     const s = plan.compute(pvOf(grid, psiHat, kd));
     // |k| = √13 ≈ 3.606 → shell 3 (k = 4); ½⟨|∇ψ|² + k_d²ψ²⟩ = a²(13 + k_d²)/4.
     const expected = (a * a * (13 + kd * kd)) / 4;
@@ -82,7 +87,10 @@ describe('SpectraPlan', () => {
     const grid = new Grid(p);
     const plan = new SpectraPlan(grid, 0);
     expect(plan.dk).toBe(0.5);
-    const psiHat = spectrumOf(p, sampleGrid(p, (_x, y) => Math.cos(1.5 * y)));
+    const psiHat = spectrumOf(
+      p,
+      sampleGrid(p, (_x, y) => Math.cos(1.5 * y)),
+    );
     const s = plan.compute(pvOf(grid, psiHat, 0));
     // ky = 1.5 = 3 dk → shell 2; energy ½⟨u²⟩ = 1.5²/4.
     expect(Math.abs(s.EZonal[2] / (2.25 / 4) - 1)).toBeLessThan(1e-14);
@@ -127,7 +135,8 @@ describe('SpectraPlan', () => {
       let eGrid = 0;
       let eZonalGrid = 0;
       for (let j = 0; j < p.ny; j++) {
-        let uBar = 0, psiBar = 0;
+        let uBar = 0,
+          psiBar = 0;
         for (let i = 0; i < p.nx; i++) {
           const [ps, u, v] = evalWaves(waves, p.Lx, p.Ly, (i * p.Lx) / p.nx, (j * p.Ly) / p.ny);
           psi[j * p.nx + i] = ps;
@@ -154,7 +163,8 @@ describe('SpectraPlan', () => {
     const grid = new Grid(p);
     const plan = new SpectraPlan(grid, 1.1, { extent: 'stored' });
     const q = randomArray(grid.size, 3);
-    let mean = 0, sq = 0;
+    let mean = 0,
+      sq = 0;
     for (const x of q) {
       mean += x / grid.size;
       sq += (x * x) / grid.size;

@@ -16,7 +16,8 @@ function eddyToMeanInGridSpace(f: GridFields): number {
   const uBar = new Float64Array(ny);
   const uv = new Float64Array(2 * ny); // complex interleaved, for the DFT
   for (let j = 0; j < ny; j++) {
-    let su = 0, sv = 0;
+    let su = 0,
+      sv = 0;
     for (let i = 0; i < nx; i++) {
       su += f.u[j * nx + i];
       sv += f.v[j * nx + i];
@@ -99,7 +100,8 @@ describe('SpectralFluxPlan', () => {
       expect(Math.abs((after.Z[s] - before.Z[s]) / (2 * h) - f.TZ[s])).toBeLessThan(1e-6 * scaleZ);
       expect(Math.abs((after.EZonal[s] - before.EZonal[s]) / (2 * h) - f.TEZonal[s])).toBeLessThan(1e-6 * scaleE);
     }
-    let zonalBefore = 0, zonalAfter = 0;
+    let zonalBefore = 0,
+      zonalAfter = 0;
     for (let s = 0; s < spectra.nShells; s++) {
       zonalBefore += before.EZonal[s];
       zonalAfter += after.EZonal[s];
@@ -129,7 +131,24 @@ describe('SpectralFluxPlan', () => {
   // 8.5; Π_Z ≈ 50–84 from 10.5 to 20.5, with ε = 1, η ≈ 100; about 2–3 s).
   it('shows an inverse energy flux below k_f and a forward enstrophy flux above it in a forced run', () => {
     const [nx, kf, dkf] = [64, 10, 1];
-    const model = new Model({ nx, ny: nx, beta: 10, kd: 0, mu: 0.1, nu: 4 / Math.pow(21, 8), nu_order: 4, mu_ls: 0, forcing: 'stochastic', kf, dkf, eps: 1, cfl: 0.5, dt: 0.02, seed: 3, init_energy: 0 });
+    const model = new Model({
+      nx,
+      ny: nx,
+      beta: 10,
+      kd: 0,
+      mu: 0.1,
+      nu: 4 / Math.pow(21, 8),
+      nu_order: 4,
+      mu_ls: 0,
+      forcing: 'stochastic',
+      kf,
+      dkf,
+      eps: 1,
+      cfl: 0.5,
+      dt: 0.02,
+      seed: 3,
+      init_energy: 0,
+    });
     const snap = new SnapshotPlan(model.params);
     const plan = new SpectralFluxPlan(snap);
     const out = plan.createOutput();
@@ -148,7 +167,8 @@ describe('SpectralFluxPlan', () => {
       }
     }
     const kMax = snap.grid.kMaxKept;
-    let below = 0, above = 0;
+    let below = 0,
+      above = 0;
     for (let s = 0; s < n; s++) {
       const k = out.kEdge[s];
       if (k < kf - dkf) {

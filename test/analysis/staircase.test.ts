@@ -64,7 +64,7 @@ describe('PV staircase fit', () => {
       expect(Math.abs(jet.width / (L * (1 - Math.SQRT1_2)) - 1)).toBeLessThan(rel);
     }
     const urms = Math.sqrt(u.reduce((a, v) => a + v * v, 0) / ny);
-    expect(Math.abs(urms / (beta * L * L / Math.sqrt(720)) - 1)).toBeLessThan(rel);
+    expect(Math.abs(urms / ((beta * L * L) / Math.sqrt(720)) - 1)).toBeLessThan(rel);
     expect(Math.abs(staircaseSpacing(beta, urms) / L - 1)).toBeLessThan(rel);
     const umax = jets.jets[0].speed;
     expect(Math.abs(L / Math.sqrt((2 * umax) / beta) / Math.sqrt(6) - 1)).toBeLessThan(rel);
@@ -77,7 +77,8 @@ describe('PV staircase fit', () => {
     expect(fit.edges).toEqual([]);
     expect(fit.widths).toEqual([Ly]);
     expect(Math.abs(fit.index)).toBeLessThan(1e-13);
-    for (const edges of [[1], [0.5, 2.2, 5], [0.1, 0.2, 3.3, 3.31, 6]]) expect(Math.abs(staircaseIndex(qtot, beta, Ly, edges).index)).toBeLessThan(1e-13);
+    for (const edges of [[1], [0.5, 2.2, 5], [0.1, 0.2, 3.3, 3.31, 6]])
+      expect(Math.abs(staircaseIndex(qtot, beta, Ly, edges).index)).toBeLessThan(1e-13);
   });
 
   it('measures the fraction of the rise at the edges: S = α for α·staircase + (1 − α)·βy', () => {
@@ -101,12 +102,19 @@ describe('PV staircase fit', () => {
       const fit = new StaircaseFitter(ny, Ly, beta).fit(q);
       expect(fit.edges.length).toBe(steps);
       // R = β²Σ(y − Ȳ_s)² over the fitted steps; the noise keeps N − n degrees of freedom [derived].
-      const ref = 1 - staircaseIndex(Float64Array.from({ length: ny }, (_, j) => (beta * j * Ly) / ny), beta, Ly, fit.edges).rho;
+      const ref =
+        1 -
+        staircaseIndex(
+          Float64Array.from({ length: ny }, (_, j) => (beta * j * Ly) / ny),
+          beta,
+          Ly,
+          fit.edges,
+        ).rho;
       expect(Math.abs(ref)).toBeLessThan(1e-13);
       const R = fit.widths.reduce((acc, w) => acc + (beta * beta * w * w * (w / (Ly / ny))) / 12, 0);
-      const rhoPred = Math.sqrt(((a * a) / 3) * (ny - steps) / R);
+      const rhoPred = Math.sqrt((((a * a) / 3) * (ny - steps)) / R);
       // Sampling spread of a mean of N squared uniform deviates: relative std 0.894/√N in ρ², half in ρ.
-      expect(Math.abs(fit.rho / rhoPred - 1)).toBeLessThan(4 * 0.45 / Math.sqrt(ny - steps) + 2 * (Ly / ny) / L);
+      expect(Math.abs(fit.rho / rhoPred - 1)).toBeLessThan((4 * 0.45) / Math.sqrt(ny - steps) + (2 * (Ly / ny)) / L);
       // The bias is ≈ 2√3·σ/(βL) and does not depend on the grid: here 1 − S < 0.2 for a ≤ 0.05βL.
       expect(1 - fit.index).toBeLessThan(0.2);
     }
@@ -124,7 +132,7 @@ describe('PV staircase fit', () => {
     // One step of width Ly, R = β²Σ(y − ȳ)² ≈ β²N·Ly²/12: ρ² = 1 + 2Σβ(y − ȳ)n/R + Σn′²/R, so
     // S ≈ −Σβ(y − ȳ)n/R − σ²N/(2R), the first term of standard deviation σ/√R [derived]: within 3σ/√R.
     const R = (beta * beta * ny * Ly * Ly) / 12;
-    expect(Math.abs(fit.index)).toBeLessThan(3 * sigma / Math.sqrt(R) + (sigma * sigma * ny) / (2 * R));
+    expect(Math.abs(fit.index)).toBeLessThan((3 * sigma) / Math.sqrt(R) + (sigma * sigma * ny) / (2 * R));
   });
 
   it('keeps βy with strong grid noise near 0 even when the noise fakes edges', () => {
@@ -139,7 +147,9 @@ describe('PV staircase fit', () => {
     // c of standard deviation σ/√R, R = β²Σ(y − Ȳ_s)² over the steps found [derived]; 3 standard
     // deviations for c and half again for the sampling spread of the noise variance.
     const R = fit.widths.reduce((acc, w) => acc + (beta * beta * w * w * (w / dy)) / 12, 0);
-    expect(Math.abs(fit.index)).toBeLessThan(3 * sigma / Math.sqrt(R) + (sigma * sigma * (ny - fit.edges.length)) / (2 * R) * 1.5);
+    expect(Math.abs(fit.index)).toBeLessThan(
+      (3 * sigma) / Math.sqrt(R) + ((sigma * sigma * (ny - fit.edges.length)) / (2 * R)) * 1.5,
+    );
   });
 
   it('is robust to resolution: a smooth staircase gives the same index on 128 to 1024 points', () => {

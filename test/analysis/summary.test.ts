@@ -5,7 +5,12 @@ import { SUMMARY_KEYS, summarize } from '../../lib/analysis/summary';
 import { Model } from '../../lib/model/model';
 
 /** Run a model, recording every step and sampling every `every` time units after `from`. */
-function monitored(params: Record<string, unknown>, until: number, every: number, window?: { kind: 'since'; tStart: number }) {
+function monitored(
+  params: Record<string, unknown>,
+  until: number,
+  every: number,
+  window?: { kind: 'since'; tStart: number },
+) {
   const model = new Model(params);
   const mon = new RunMonitor(model.params, window ? { window } : {});
   let next = 0;
@@ -24,7 +29,20 @@ describe('run summary', () => {
   // [derived] from the energy equation (CHECKS: budgets and forcing).
   it('holds the stable keys and reproduces the drag balance of a short strongly damped run', () => {
     const { summary } = monitored(
-      { nx: 32, ny: 32, beta: 4, mu: 1, eps: 1, kf: 5, dkf: 1, nu: 1e-9, nu_order: 4, dt: 0.02, cfl: 0.5, forcing: 'stochastic' },
+      {
+        nx: 32,
+        ny: 32,
+        beta: 4,
+        mu: 1,
+        eps: 1,
+        kf: 5,
+        dkf: 1,
+        nu: 1e-9,
+        nu_order: 4,
+        dt: 0.02,
+        cfl: 0.5,
+        forcing: 'stochastic',
+      },
       60,
       0.25,
       { kind: 'since', tStart: 5 },
@@ -64,7 +82,22 @@ describe('run summary', () => {
   // diagnostics' own integration run).
   it('finds the jets of a zonostrophic run and a staircase above the plain gradient', () => {
     const { summary } = monitored(
-      { nx: 32, ny: 64, Lx: Math.PI, Ly: 2 * Math.PI, beta: 10, kf: 12, dkf: 1.5, eps: 0.04, mu: 0.03, nu: 1e-10, nu_order: 4, cfl: 0.8, dt: 0.05, seed: 3 },
+      {
+        nx: 32,
+        ny: 64,
+        Lx: Math.PI,
+        Ly: 2 * Math.PI,
+        beta: 10,
+        kf: 12,
+        dkf: 1.5,
+        eps: 0.04,
+        mu: 0.03,
+        nu: 1e-10,
+        nu_order: 4,
+        cfl: 0.8,
+        dt: 0.05,
+        seed: 3,
+      },
       120,
       0.5,
       { kind: 'since', tStart: 60 },

@@ -5,7 +5,10 @@ import { seededSigned } from '../support/random';
 
 /** Profiles a(t)_j = t + j and b(t)_j = t² − j, so every mean is known in closed form. */
 function sample(t: number, n: number): { a: Float64Array; b: Float64Array } {
-  return { a: Float64Array.from({ length: n }, (_, j) => t + j), b: Float64Array.from({ length: n }, (_, j) => t * t - j) };
+  return {
+    a: Float64Array.from({ length: n }, (_, j) => t + j),
+    b: Float64Array.from({ length: n }, (_, j) => t * t - j),
+  };
 }
 
 function meanOf(ts: number[], n: number): { a: Float64Array; b: Float64Array } {

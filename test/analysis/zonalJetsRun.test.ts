@@ -69,7 +69,8 @@ describe('a spun-up jet run, measured', () => {
     const late = new ProfileTimeMean(names, ny, { kind: 'since', tStart: T_SPIN });
     const early = new ProfileTimeMean(names, ny, { kind: 'last', span: 8 });
     const hov = new HovmollerAccumulator(ny, Ly, 256);
-    const mean = () => Object.fromEntries(names.map((n) => [n, new Float64Array(ny)])) as Record<(typeof names)[number], Float64Array>;
+    const mean = () =>
+      Object.fromEntries(names.map((n) => [n, new Float64Array(ny)])) as Record<(typeof names)[number], Float64Array>;
     const earlyMean = mean();
     let fields: GridFields | undefined;
     let next = SAMPLE;

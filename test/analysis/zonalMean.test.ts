@@ -8,7 +8,13 @@ import { randomGridFields } from '../support/randomFields';
 const ROUND_OFF = 1e-13;
 
 /** Fields of ψ = a cos(kx + ly + φ) + b sin(m y + χ), all exact, on an nx × ny grid. */
-function planeWaveFields(nx: number, ny: number, Lx: number, Ly: number, kd: number): { f: GridFields; c: Record<string, number> } {
+function planeWaveFields(
+  nx: number,
+  ny: number,
+  Lx: number,
+  Ly: number,
+  kd: number,
+): { f: GridFields; c: Record<string, number> } {
   const a = 0.7;
   const b = 1.3;
   const k = (2 * Math.PI * 2) / Lx;
@@ -16,7 +22,17 @@ function planeWaveFields(nx: number, ny: number, Lx: number, Ly: number, kd: num
   const m = (2 * Math.PI * 1) / Ly;
   const [phi, chi] = [0.4, -1.1];
   const n = nx * ny;
-  const f: GridFields = { nx, ny, Lx, Ly, u: new Float64Array(n), v: new Float64Array(n), q: new Float64Array(n), zeta: new Float64Array(n), psi: new Float64Array(n) };
+  const f: GridFields = {
+    nx,
+    ny,
+    Lx,
+    Ly,
+    u: new Float64Array(n),
+    v: new Float64Array(n),
+    q: new Float64Array(n),
+    zeta: new Float64Array(n),
+    psi: new Float64Array(n),
+  };
   for (let j = 0; j < ny; j++) {
     for (let i = 0; i < nx; i++) {
       const x = (i * Lx) / nx;
@@ -52,7 +68,9 @@ describe('zonal means and eddy fluxes', () => {
       const qb = -b * (m * m + kd * kd) * Math.sin(m * y + chi);
       expect(Math.abs(z.qbar[j] - qb)).toBeLessThan(ROUND_OFF * sQ);
       expect(Math.abs(z.qtot[j] - (qb + beta * y))).toBeLessThan(ROUND_OFF * sQ);
-      expect(Math.abs(z.dqdy[j] - (beta - b * (m * m + kd * kd) * m * Math.cos(m * y + chi)))).toBeLessThan(ROUND_OFF * sQ * m);
+      expect(Math.abs(z.dqdy[j] - (beta - b * (m * m + kd * kd) * m * Math.cos(m * y + chi)))).toBeLessThan(
+        ROUND_OFF * sQ * m,
+      );
       // u′ = a l sin θ, v′ = −a k sin θ: u′v′ = −a²kl/2, EKE = a²(k² + l²)/4; a single wave carries no PV flux.
       expect(Math.abs(z.upvp[j] + (a * a * k * l) / 2)).toBeLessThan(ROUND_OFF * sFlux);
       expect(Math.abs(z.eke[j] - (a * a * (k * k + l * l)) / 4)).toBeLessThan(ROUND_OFF * sFlux);

@@ -29,13 +29,32 @@ async function run(argv: string[]): Promise<{ code: number; out: string; err: st
 function jetFile(kind: 'nc3' | 'nc4'): string {
   const [nx, ny, nt, Ly, beta] = [8, 64, 4, 4e6, 2e-11];
   const dy = Ly / ny;
-  const u = Array.from({ length: nt * ny * nx }, (_, k) => staircaseProfile(Math.floor(k / nx) % ny * dy, Ly / 4, beta, 2 * dy).u);
+  const u = Array.from(
+    { length: nt * ny * nx },
+    (_, k) => staircaseProfile((Math.floor(k / nx) % ny) * dy, Ly / 4, beta, 2 * dy).u,
+  );
   const text = cdl({
-    dims: [{ name: 't', size: 'unlimited' }, { name: 'y', size: ny }, { name: 'x', size: nx }],
+    dims: [
+      { name: 't', size: 'unlimited' },
+      { name: 'y', size: ny },
+      { name: 'x', size: nx },
+    ],
     vars: [
       { name: 't', type: 'double', dims: ['t'], attrs: { units: 's' }, data: [0, 100, 200, 300] },
-      { name: 'y', type: 'double', dims: ['y'], attrs: { units: 'm' }, data: Array.from({ length: ny }, (_, j) => j * dy) },
-      { name: 'x', type: 'double', dims: ['x'], attrs: { units: 'm' }, data: Array.from({ length: nx }, (_, i) => i * 1e5) },
+      {
+        name: 'y',
+        type: 'double',
+        dims: ['y'],
+        attrs: { units: 'm' },
+        data: Array.from({ length: ny }, (_, j) => j * dy),
+      },
+      {
+        name: 'x',
+        type: 'double',
+        dims: ['x'],
+        attrs: { units: 'm' },
+        data: Array.from({ length: nx }, (_, i) => i * 1e5),
+      },
       { name: 'U', type: 'double', dims: ['t', 'y', 'x'], attrs: { units: 'm s-1' }, data: u },
       { name: 'W', type: 'double', dims: ['t', 'y', 'x'], attrs: { units: 'm s-1' }, data: u.map(() => 0) },
     ],
@@ -77,45 +96,74 @@ describe('stria analyze', () => {
     writeFileSync(text, 'these are not data\n');
     const r = await run([text]);
     expect(r.code).toBe(1);
-    expect(r.err).toBe(`stria analyze: ${text}: not a NetCDF file: it starts with bytes 74 68 65 73, neither "CDF" (NetCDF-3) nor the HDF5 signature (netCDF-4)\n`);
+    expect(r.err).toBe(
+      `stria analyze: ${text}: not a NetCDF file: it starts with bytes 74 68 65 73, neither "CDF" (NetCDF-3) nor the HDF5 signature (netCDF-4)\n`,
+    );
     const gone = await run([join(dir, 'absent.nc')]);
     expect(gone.code).toBe(1);
     expect(gone.err).toMatch(/cannot open .*absent\.nc: ENOENT/);
   });
 
-  it.runIf(runNcgen)('analyses a file from disk with a mapping, a window and parameters, as text and as JSON', async () => {
-    for (const kind of ['nc3', 'nc4'] as const) {
-      const path = jetFile(kind);
-      const text = await run([path, '--map', 'u=U,v=W', '--beta', '2e-11', '--eps', '1e-6', '--mu', '1e-6', '--records', '1:3', '--periodic', 'xy']);
-      expect(text.code).toBe(0);
-      expect(text.out).toContain('u     ← "U" (by the mapping u=U');
-      expect(text.out).toContain('jets: 4 eastward jets');
-      expect(text.out).toContain('records 1 to 2 of 4 (2), time 100 to 200 s');
-      expect(text.out).toMatch(/Measured beside the planner\n {2}quantity +measured +predicted +ratio +unit\n/);
-      const json = await run([path, '--map', 'u=U,v=W', '--beta', '2e-11', '--records', '-2:', '--json']);
-      expect(json.code).toBe(0);
-      const r = JSON.parse(json.out);
-      expect(r.analysis.jets.count).toBe(4);
-      expect(r.analysis.window).toMatchObject({ start: 2, end: 4, count: 2 });
-      expect(r.parameters.beta).toEqual({ value: 2e-11, source: 'given' });
-      expect(r.comparison.missing).toBe('no planner predictions: give ε, μ');
-      expect(Math.abs(r.analysis.staircase.index - 1)).toBeLessThan(1e-2);
-    }
-  });
+  it.runIf(runNcgen)(
+    'analyses a file from disk with a mapping, a window and parameters, as text and as JSON',
+    async () => {
+      for (const kind of ['nc3', 'nc4'] as const) {
+        const path = jetFile(kind);
+        const text = await run([
+          path,
+          '--map',
+          'u=U,v=W',
+          '--beta',
+          '2e-11',
+          '--eps',
+          '1e-6',
+          '--mu',
+          '1e-6',
+          '--records',
+          '1:3',
+          '--periodic',
+          'xy',
+        ]);
+        expect(text.code).toBe(0);
+        expect(text.out).toContain('u     ← "U" (by the mapping u=U');
+        expect(text.out).toContain('jets: 4 eastward jets');
+        expect(text.out).toContain('records 1 to 2 of 4 (2), time 100 to 200 s');
+        expect(text.out).toMatch(/Measured beside the planner\n {2}quantity +measured +predicted +ratio +unit\n/);
+        const json = await run([path, '--map', 'u=U,v=W', '--beta', '2e-11', '--records', '-2:', '--json']);
+        expect(json.code).toBe(0);
+        const r = JSON.parse(json.out);
+        expect(r.analysis.jets.count).toBe(4);
+        expect(r.analysis.window).toMatchObject({ start: 2, end: 4, count: 2 });
+        expect(r.parameters.beta).toEqual({ value: 2e-11, source: 'given' });
+        expect(r.comparison.missing).toBe('no planner predictions: give ε, μ');
+        expect(Math.abs(r.analysis.staircase.index - 1)).toBeLessThan(1e-2);
+      }
+    },
+  );
 
   it.runIf(runNcgen)('names a missing variable with exit code 1', async () => {
     const r = await run([jetFile('nc4'), '--map', 'zeta=VORT']);
     expect(r.code).toBe(1);
-    expect(r.err).toContain('missing variable: the mapping names "VORT" for zeta, but the file has "t", "y", "x", "U", "W"');
+    expect(r.err).toContain(
+      'missing variable: the mapping names "VORT" for zeta, but the file has "t", "y", "x", "U", "W"',
+    );
   });
 
-  it.runIf(runNcgen)('runs as a command of the dispatcher\'s list, writing to the streams it is given', async () => {
+  it.runIf(runNcgen)("runs as a command of the dispatcher's list, writing to the streams it is given", async () => {
     expect(analyzeCmd).toMatchObject({ name: 'analyze', usage: 'stria analyze FILE [options]' });
     let out = '';
     let err = '';
-    const io = { out: { write: (s: string) => ((out += s), true) }, err: { write: (s: string) => ((err += s), true) }, argv: [], interrupted: () => false };
+    const io = {
+      out: { write: (s: string) => ((out += s), true) },
+      err: { write: (s: string) => ((err += s), true) },
+      argv: [],
+      interrupted: () => false,
+    };
     const path = jetFile('nc3');
-    const code = await analyzeCmd.run(parseArgs([path, '--map', 'u=U', '--json'], analyzeCmd.options, 'analyze'), io as never);
+    const code = await analyzeCmd.run(
+      parseArgs([path, '--map', 'u=U', '--json'], analyzeCmd.options, 'analyze'),
+      io as never,
+    );
     expect(code).toBe(0);
     expect(err).toBe('');
     expect(JSON.parse(out).file.fields.u.variable).toBe('U');

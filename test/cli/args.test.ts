@@ -25,7 +25,11 @@ const usage = (argv: string[]) => {
 
 describe('option parsing', () => {
   it('reads each kind, both spellings, positionals and --', () => {
-    const a = parseArgs(['f.json', '--steps', '10', '--until=2.5', '--json', '--set', 'a=1', '--set=b=2', '--out', 'd', '--', '--x'], specs, 'run');
+    const a = parseArgs(
+      ['f.json', '--steps', '10', '--until=2.5', '--json', '--set', 'a=1', '--set=b=2', '--out', 'd', '--', '--x'],
+      specs,
+      'run',
+    );
     expect(a.options).toEqual({ steps: 10, until: 2.5, json: true, set: ['a=1', 'b=2'], out: 'd' });
     expect(a.positionals).toEqual(['f.json', '--x']);
     expect(parseArgs(['-h'], specs, 'run').options.help).toBe(true);
@@ -59,18 +63,31 @@ describe('option parsing', () => {
   };
 
   it('takes the next word as the value even when it starts with a dash', () => {
-    expect(parseArgs(['--until', '-3', '--set', 'beta=-1', '--set', '-x'], specs, 'run').options).toEqual({ until: -3, set: ['beta=-1', '-x'] });
-    expect(parseArgs(['--lat0', '-45', '--records', '-20:'], labelled, 'run').options).toEqual({ lat0: -45, records: '-20:' });
+    expect(parseArgs(['--until', '-3', '--set', 'beta=-1', '--set', '-x'], specs, 'run').options).toEqual({
+      until: -3,
+      set: ['beta=-1', '-x'],
+    });
+    expect(parseArgs(['--lat0', '-45', '--records', '-20:'], labelled, 'run').options).toEqual({
+      lat0: -45,
+      records: '-20:',
+    });
     expect(parseArgs(['--out', '--json'], specs, 'run')).toEqual({ options: { out: '--json' }, positionals: [] });
     expect(parseArgs(['--out', '-h'], specs, 'run')).toEqual({ options: { out: '-h' }, positionals: [] });
     // "--" taken as a value does not end the options.
-    expect(parseArgs(['--out', '--', '--json', 'f'], specs, 'run')).toEqual({ options: { out: '--', json: true }, positionals: ['f'] });
+    expect(parseArgs(['--out', '--', '--json', 'f'], specs, 'run')).toEqual({
+      options: { out: '--', json: true },
+      positionals: ['f'],
+    });
     expect(refusal(['--steps', '--'])).toBe('option --steps needs a positive whole number, got "--"');
     expect(refusal(['--until', '-x'])).toBe('option --until needs a number, got "-x"');
   });
 
   it('splits --name=value at the first =, and an empty value is a value', () => {
-    expect(parseArgs(['--until=-3', '--set=a=b=c', '--out='], specs, 'run').options).toEqual({ until: -3, set: ['a=b=c'], out: '' });
+    expect(parseArgs(['--until=-3', '--set=a=b=c', '--out='], specs, 'run').options).toEqual({
+      until: -3,
+      set: ['a=b=c'],
+      out: '',
+    });
     expect(refusal(['--steps='])).toBe('option --steps needs a positive whole number, got ""');
     expect(refusal(['--json='])).toBe('option --json takes no value, got ""');
     expect(refusal(['--help=x'])).toBe('option --help takes no value, got "x"');
@@ -105,11 +122,17 @@ describe('option parsing', () => {
   });
 
   it('ends the options at --, after which every word is a positional', () => {
-    expect(parseArgs(['a', '--json', 'b', '--', '-h', '--', '--steps', '-x'], specs, 'run')).toEqual({ options: { json: true }, positionals: ['a', 'b', '-h', '--', '--steps', '-x'] });
+    expect(parseArgs(['a', '--json', 'b', '--', '-h', '--', '--steps', '-x'], specs, 'run')).toEqual({
+      options: { json: true },
+      positionals: ['a', 'b', '-h', '--', '--steps', '-x'],
+    });
   });
 
   it('lets flags and lists repeat but not other options, and reports the first mistake in the line', () => {
-    expect(parseArgs(['--json', '--json', '--set', 'a=1', '--set', 'a=2'], specs, 'run').options).toEqual({ json: true, set: ['a=1', 'a=2'] });
+    expect(parseArgs(['--json', '--json', '--set', 'a=1', '--set', 'a=2'], specs, 'run').options).toEqual({
+      json: true,
+      set: ['a=1', 'a=2'],
+    });
     expect(refusal(['--out', 'a', '--out=b'])).toBe('option --out is given twice');
     expect(refusal(['--steps', 'x', '--steps', '2'])).toBe('option --steps needs a positive whole number, got "x"');
     expect(refusal(['--steps', '2', '--steps', 'x'])).toBe('option --steps is given twice');
@@ -122,11 +145,24 @@ describe('option parsing', () => {
     const call = async (argv: string[]) => {
       let out = '';
       let err = '';
-      const io = { out: { write: (s: string) => ((out += s), true) }, err: { write: (s: string) => ((err += s), true) }, argv, interrupted: () => false };
+      const io = {
+        out: { write: (s: string) => ((out += s), true) },
+        err: { write: (s: string) => ((err += s), true) },
+        argv,
+        interrupted: () => false,
+      };
       return { code: await main(argv, io as never), out, err };
     };
-    expect(await call(['run', '--steps', '5', '-s'])).toEqual({ code: 2, out: '', err: 'stria run: error: unknown option -s: options are long, such as --help (see stria run --help)\n' });
-    expect(await call(['run', '--until'])).toEqual({ code: 2, out: '', err: 'stria run: error: option --until needs a value (T)\n' });
+    expect(await call(['run', '--steps', '5', '-s'])).toEqual({
+      code: 2,
+      out: '',
+      err: 'stria run: error: unknown option -s: options are long, such as --help (see stria run --help)\n',
+    });
+    expect(await call(['run', '--until'])).toEqual({
+      code: 2,
+      out: '',
+      err: 'stria run: error: option --until needs a value (T)\n',
+    });
     expect(await call(['run', '--stpes', '3', '-h'])).toMatchObject({ code: 2, out: '' });
     expect(await call(['run', '--set', 'beta=-1', '-h'])).toEqual({ code: 0, out: commandHelp(runCommand), err: '' });
   });
@@ -142,7 +178,12 @@ describe('option parsing', () => {
   });
 
   it('reads --set values as the parameter types, later values winning', () => {
-    expect(parseSets(['beta=20', 'Lx=2pi', 'force_zonal=false', 'forcing=steady', 'beta=30'])).toEqual({ beta: 30, Lx: 2 * Math.PI, force_zonal: false, forcing: 'steady' });
+    expect(parseSets(['beta=20', 'Lx=2pi', 'force_zonal=false', 'forcing=steady', 'beta=30'])).toEqual({
+      beta: 30,
+      Lx: 2 * Math.PI,
+      force_zonal: false,
+      forcing: 'steady',
+    });
     expect(() => parseSets(['force_zonal=no'])).toThrow(/force_zonal needs true or false/);
     expect(() => parseSets(['beta'])).toThrow(/expected key=value/);
   });

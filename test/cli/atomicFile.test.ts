@@ -19,7 +19,9 @@ describe('atomic replacement of a file', () => {
   it('sweeps the temporaries of dead processes only', () => {
     const path = join(dir, 'sweep.json');
     // A pid that has surely ended: a child that has run and exited.
-    const dead = spawnSync(process.execPath, ['-e', 'process.stdout.write(String(process.pid))'], { encoding: 'utf8' }).stdout;
+    const dead = spawnSync(process.execPath, ['-e', 'process.stdout.write(String(process.pid))'], {
+      encoding: 'utf8',
+    }).stdout;
     writeFileSync(temporaryName(path, Number(dead)), 'half a checkpoint');
     writeFileSync(temporaryName(path, process.pid), 'mine');
     writeFileSync(join(dir, '.sweep.json.notapid.tmp'), 'not ours');

@@ -10,7 +10,32 @@ const dir = scratchDir('blowup');
 // 32², fixed step (cfl = 0), white forcing at ε = 0.2 against weak drag: the flow spins up until
 // dt = 0.05 is too long for it. Found by running it: CFL 1.526 > 1.5 at step 259 (t = 12.95), while
 // with dt = 0.025 the CFL number stays below 0.9 for 3000 steps.
-const SPINUP = ['--set', 'nx=32', '--set', 'ny=32', '--set', 'nu_order=4', '--set', 'force_zonal=true', '--set', 'kf=8', '--set', 'dkf=1.5', '--set', 'beta=10', '--set', 'mu=0.05', '--set', 'nu=1e-8', '--set', 'cfl=0', '--set', 'eps=0.2', '--set', 'dt=0.05'];
+const SPINUP = [
+  '--set',
+  'nx=32',
+  '--set',
+  'ny=32',
+  '--set',
+  'nu_order=4',
+  '--set',
+  'force_zonal=true',
+  '--set',
+  'kf=8',
+  '--set',
+  'dkf=1.5',
+  '--set',
+  'beta=10',
+  '--set',
+  'mu=0.05',
+  '--set',
+  'nu=1e-8',
+  '--set',
+  'cfl=0',
+  '--set',
+  'eps=0.2',
+  '--set',
+  'dt=0.05',
+];
 // An energetic start (init_energy = 1, max|u| ≈ 3.8) with dt = 0.5: CFL 17.6 at once; three halvings
 // leave 2.2, still past the limit.
 const FAR_TOO_LONG = [...SPINUP, '--set', 'init_energy=1', '--set', 'dt=0.5'];
@@ -28,20 +53,45 @@ describe('stria run on a blow-up', () => {
     expect(out.retries).toEqual([]);
     expect(out.steps).toBe(259);
     expect(Number.isFinite(out.energy)).toBe(true);
-    expect(r.stderr).toMatch(/error: blew up at t = 12\.95\d*, step 259: CFL number above 1\.5 \(dt = 0\.05000, CFL = 1\.5\d+, max\|u\| = [\d.]+, max\|v\| = [\d.]+\)/);
+    expect(r.stderr).toMatch(
+      /error: blew up at t = 12\.95\d*, step 259: CFL number above 1\.5 \(dt = 0\.05000, CFL = 1\.5\d+, max\|u\| = [\d.]+, max\|v\| = [\d.]+\)/,
+    );
   });
 
   it('retries from the last checkpoint with half the step, recovers, and records the retry', () => {
     const zonal = join(dir, 'retry-zonal.nc');
     const ck = join(dir, 'retry-ck.json');
-    const r = stria(['run', ...SPINUP, '--until', '25', '--on-blowup', 'retry', '--checkpoint-every', '100', '--zonal', zonal, '--sample-every', '0.5', '--checkpoint', ck, '--json']);
+    const r = stria([
+      'run',
+      ...SPINUP,
+      '--until',
+      '25',
+      '--on-blowup',
+      'retry',
+      '--checkpoint-every',
+      '100',
+      '--zonal',
+      zonal,
+      '--sample-every',
+      '0.5',
+      '--checkpoint',
+      ck,
+      '--json',
+    ]);
     expect(r.status, r.stderr).toBe(0);
     const out = JSON.parse(r.stdout);
     expect(out.blow_up).toBeNull();
     expect(out.retries).toHaveLength(1);
-    expect(out.retries[0]).toMatchObject({ attempt: 1, restarted_at: { steps: 200 }, dt: { from: 0.05, to: 0.025 }, blow_up: { steps: 259 } });
+    expect(out.retries[0]).toMatchObject({
+      attempt: 1,
+      restarted_at: { steps: 200 },
+      dt: { from: 0.05, to: 0.025 },
+      blow_up: { steps: 259 },
+    });
     expect(out.time).toBeGreaterThanOrEqual(25);
-    expect(r.stderr).toMatch(/retry 1 of 3 from the checkpoint at t = 10\.0+, step 200, with dt = 0\.02500 \(was 0\.05000\)/);
+    expect(r.stderr).toMatch(
+      /retry 1 of 3 from the checkpoint at t = 10\.0+, step 200, with dt = 0\.02500 \(was 0\.05000\)/,
+    );
     expect(r.stderr).toMatch(/recovered after 1 retry/);
     // The zonal means were rolled back with the run: one record per 0.5, times strictly increasing.
     const z = readNetcdf(readFileSync(zonal));
@@ -65,7 +115,17 @@ describe('stria run on a blow-up', () => {
     expect(out.blow_up.cfl).toBeCloseTo(17.65 / 8, 2);
     expect(r.stderr.match(/retry \d of 3/g)).toHaveLength(3);
     expect(r.stderr).toMatch(/no retries left \(3 made\)/);
-    const one = stria(['run', ...FAR_TOO_LONG, '--steps', '100', '--on-blowup', 'retry', '--max-retries', '1', '--json']);
+    const one = stria([
+      'run',
+      ...FAR_TOO_LONG,
+      '--steps',
+      '100',
+      '--on-blowup',
+      'retry',
+      '--max-retries',
+      '1',
+      '--json',
+    ]);
     expect(one.status).toBe(1);
     expect(JSON.parse(one.stdout).retries).toHaveLength(1);
   });

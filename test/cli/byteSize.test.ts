@@ -9,6 +9,7 @@ describe('sizes in bytes', () => {
     expect(parseByteSize('2GB')).toBe(2e9);
     expect(parseByteSize('1e3kB')).toBe(1e6);
     expect(parseByteSize('4096')).toBe(4096);
-    for (const bad of ['', 'GiB', '2 gigs', '-1GiB', '0', '2G', '1EiB', '1,5MiB', 'NaN']) expect(parseByteSize(bad), bad).toBeNaN();
+    for (const bad of ['', 'GiB', '2 gigs', '-1GiB', '0', '2G', '1EiB', '1,5MiB', 'NaN'])
+      expect(parseByteSize(bad), bad).toBeNaN();
   });
 });

@@ -25,7 +25,20 @@ describe('stria run checkpoints', () => {
     ['until-steady', ['--set', 'mu=0.5', '--set', 'eps=0.5', '--until-steady', '--steady-tol', '0.1'], 3],
   ] as const) {
     it(`resumes an interrupted run bit for bit (${name}): state checksum, summary and NetCDF records`, async () => {
-      const cmd = (tag: string) => ['run', ...TINY_SETS, ...length, '--sample-every', '0.25', '--zonal', at(`${name}-${tag}-z.nc`), '--snapshots', at(`${name}-${tag}-s.nc`), '--every', '40', '--json'];
+      const cmd = (tag: string) => [
+        'run',
+        ...TINY_SETS,
+        ...length,
+        '--sample-every',
+        '0.25',
+        '--zonal',
+        at(`${name}-${tag}-z.nc`),
+        '--snapshots',
+        at(`${name}-${tag}-s.nc`),
+        '--every',
+        '40',
+        '--json',
+      ];
       const whole = await striaHere([...cmd('whole'), '--save', at(`${name}-whole.json`)]);
       expect(whole.status, whole.stderr).toBe(0);
       const ck = at(`${name}-ck.json`);
@@ -48,7 +61,9 @@ describe('stria run checkpoints', () => {
 
   it('refuses to resume a different run, or a damaged checkpoint, naming what differs', async () => {
     const ck = at('refuse-ck.json');
-    expect((await striaHere(['run', ...TINY_SETS, '--steps', '60', '--checkpoint', ck, '--checkpoint-every', '20'])).status).toBe(0);
+    expect(
+      (await striaHere(['run', ...TINY_SETS, '--steps', '60', '--checkpoint', ck, '--checkpoint-every', '20'])).status,
+    ).toBe(0);
     const other = await striaHere(['run', ...TINY_SETS, '--set', 'beta=12', '--steps', '60', '--resume', ck]);
     expect(other.status).toBe(2);
     expect(other.stderr).toMatch(/the checkpoint is of another run \(beta = 12 here, 10 in the checkpoint\)/);

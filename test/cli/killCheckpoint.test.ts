@@ -23,7 +23,26 @@ const dir = scratchDir('kill');
 const at = (name: string) => join(dir, name);
 const KILLS = 20;
 const SEED = 20261;
-const RUN = ['run', '--set', 'nx=256', '--set', 'ny=256', '--set', 'kf=24', '--set', 'dkf=2', '--set', 'init_energy=0.5', '--set', 'dt=0.005', '--steps', '60', '--sample-every', '0.01', '--json'];
+const RUN = [
+  'run',
+  '--set',
+  'nx=256',
+  '--set',
+  'ny=256',
+  '--set',
+  'kf=24',
+  '--set',
+  'dkf=2',
+  '--set',
+  'init_energy=0.5',
+  '--set',
+  'dt=0.005',
+  '--steps',
+  '60',
+  '--sample-every',
+  '0.01',
+  '--json',
+];
 const outputs = (tag: string) => ['--zonal', at(`${tag}-z.nc`), '--snapshots', at(`${tag}-s.nc`), '--every', '10'];
 const KILLED = [...RUN, ...outputs('killed'), '--checkpoint', at('ck.json'), '--checkpoint-every', '2'];
 
@@ -33,7 +52,8 @@ function checkedRecords(path: string): number {
   const times = Array.from(nc.readVariable('time'));
   expect(times.length).toBe(nc.numRecords);
   times.slice(1).forEach((t, k) => expect(t).toBeGreaterThan(times[k]));
-  for (const v of nc.variables) expect(Array.from(nc.readVariable(v.name)).every(Number.isFinite), `${path}: ${v.name}`).toBe(true);
+  for (const v of nc.variables)
+    expect(Array.from(nc.readVariable(v.name)).every(Number.isFinite), `${path}: ${v.name}`).toBe(true);
   return nc.numRecords;
 }
 
@@ -68,7 +88,14 @@ describe('checkpoints and NetCDF files under kill -9', () => {
         const nth = 1 + Math.floor(1.5 * (next() + 1)); // the first, second or third write of this life
         let created = 0;
         const watcher = watch(dir, (event, name) => {
-          if (event === 'rename' && name && name.startsWith('.ck.json.') && name.endsWith('.tmp') && existsSync(join(dir, name))) created++;
+          if (
+            event === 'rename' &&
+            name &&
+            name.startsWith('.ck.json.') &&
+            name.endsWith('.tmp') &&
+            existsSync(join(dir, name))
+          )
+            created++;
         });
         const started = Date.now();
         while (!exited && created < nth && Date.now() - started < 30_000) await sleep(1);
@@ -98,7 +125,18 @@ describe('checkpoints and NetCDF files under kill -9', () => {
     expect(tally.maxStep).toBeGreaterThan(0);
 
     // Finish from the last checkpoint (checkpoints rarer now: their cadence is not part of the run).
-    const finished = stria([...RUN, ...outputs('killed'), '--checkpoint', at('ck.json'), '--checkpoint-every', '1000', '--resume', at('ck.json'), '--save', at('killed.json')]);
+    const finished = stria([
+      ...RUN,
+      ...outputs('killed'),
+      '--checkpoint',
+      at('ck.json'),
+      '--checkpoint-every',
+      '1000',
+      '--resume',
+      at('ck.json'),
+      '--save',
+      at('killed.json'),
+    ]);
     expect(finished.status, finished.stderr).toBe(0);
     const reference = await whole.done;
     expect(reference.status, reference.stderr).toBe(0);

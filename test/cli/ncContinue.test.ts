@@ -11,7 +11,11 @@ const dir = scratchDir('nc-continue');
 const params = validateParams({ nx: 32, ny: 32, kf: 8, dkf: 1.5 });
 const run = { params, striaVersion: '0.1.0', createdAt: '2026-01-01T00:00:00Z', command: 'stria run' };
 const profile = (c: number) => Float64Array.from({ length: 32 }, (_, j) => c + j / 7);
-const frame = (r: number) => ({ time: r + 0.5, steps: 10 * r, fields: { ubar: profile(r), qbar: profile(1), upvp: profile(2), vpqp: profile(3), eke: profile(4) } });
+const frame = (r: number) => ({
+  time: r + 0.5,
+  steps: 10 * r,
+  fields: { ubar: profile(r), qbar: profile(1), upvp: profile(2), vpqp: profile(3), eke: profile(4) },
+});
 
 describe('continuing a NetCDF file from a checkpoint', () => {
   it('keeps the first records, drops the rest and any cut-off tail, and grows on as one file', () => {
@@ -39,8 +43,12 @@ describe('continuing a NetCDF file from a checkpoint', () => {
     f.append(frame(2));
     f.close();
     expect(Array.from(readNetcdf(readFileSync(path)).readVariable('time'))).toEqual([0.5, 1.5, 2.5]);
-    expect(() => NcRecordFile.continue(path, ZONAL_MEAN_FILE, { ...run, command: 'stria run --other' }, 2)).toThrow(/its header differs from the one this run writes/);
-    expect(() => NcRecordFile.continue(path, ZONAL_MEAN_FILE, run, 4)).toThrow(/it holds 3 records, but 4 were written before the checkpoint/);
+    expect(() => NcRecordFile.continue(path, ZONAL_MEAN_FILE, { ...run, command: 'stria run --other' }, 2)).toThrow(
+      /its header differs from the one this run writes/,
+    );
+    expect(() => NcRecordFile.continue(path, ZONAL_MEAN_FILE, run, 4)).toThrow(
+      /it holds 3 records, but 4 were written before the checkpoint/,
+    );
     // Record 2's time set back before record 1's: not a record this run could have written.
     const nc = readNetcdf(readFileSync(path));
     const { offset } = nc.slabRange('time', 2);
@@ -48,7 +56,11 @@ describe('continuing a NetCDF file from a checkpoint', () => {
     new DataView(bytes.buffer, bytes.byteOffset).setFloat64(offset, 1.0, false);
     writeFileSync(join(dir, 'backwards.nc'), bytes);
     expect(statSync(join(dir, 'backwards.nc')).size).toBe(bytes.length);
-    expect(() => NcRecordFile.continue(join(dir, 'backwards.nc'), ZONAL_MEAN_FILE, run, 3)).toThrow(/backwards\.nc: record 2: .*does not increase/);
-    expect(() => NcRecordFile.continue(join(dir, 'missing.nc'), ZONAL_MEAN_FILE, run, 0)).toThrow(/cannot continue .*missing\.nc: ENOENT/);
+    expect(() => NcRecordFile.continue(join(dir, 'backwards.nc'), ZONAL_MEAN_FILE, run, 3)).toThrow(
+      /backwards\.nc: record 2: .*does not increase/,
+    );
+    expect(() => NcRecordFile.continue(join(dir, 'missing.nc'), ZONAL_MEAN_FILE, run, 0)).toThrow(
+      /cannot continue .*missing\.nc: ENOENT/,
+    );
   });
 });

@@ -28,7 +28,8 @@ describe('stria plan', () => {
     const r = stria(['plan', '--preset', 'jupiter', '--json']);
     expect(r.status, r.stderr).toBe(0);
     const p = JSON.parse(r.stdout);
-    for (const k of ['regime', 'jet_count', 'u_rms', 'k_rhines', 'k_beta', 'zonostrophy_index', 'jet_spacing']) expect(p).toHaveProperty(k);
+    for (const k of ['regime', 'jet_count', 'u_rms', 'k_rhines', 'k_beta', 'zonostrophy_index', 'jet_spacing'])
+      expect(p).toHaveProperty(k);
     expect(p.u_rms).toBe(40); // the preset's target U
     expect(p.zonostrophy_index).toBeCloseTo(p.k_beta / p.k_rhines, 12);
     expect(p.jet_count).toBeCloseTo(1e8 / p.jet_spacing, 9); // Ly / L_jet
@@ -61,7 +62,25 @@ describe('stria plan', () => {
 
   it('builds a plan from --set paths and names a refused field', () => {
     const sets = (o: Record<string, string | number>) => Object.entries(o).flatMap(([k, v]) => ['--set', `${k}=${v}`]);
-    const all = { units: 'model', 'rotation.kind': 'beta', 'rotation.beta': 10, 'deformation.kind': 'none', 'drive.kind': 'injection', 'drive.eps': 0.05, dragTime: 20, 'forcing.wavelength': 0.785, 'forcing.halfWidth': 0.2, 'domain.Lx': '2pi', 'domain.Ly': '2pi', 'grid.kind': 'points', 'grid.nx': 32, 'grid.ny': 32, 'hyperviscosity.order': 4, 'hyperviscosity.gridDampingTime': 2, runLength: 20 };
+    const all = {
+      units: 'model',
+      'rotation.kind': 'beta',
+      'rotation.beta': 10,
+      'deformation.kind': 'none',
+      'drive.kind': 'injection',
+      'drive.eps': 0.05,
+      dragTime: 20,
+      'forcing.wavelength': 0.785,
+      'forcing.halfWidth': 0.2,
+      'domain.Lx': '2pi',
+      'domain.Ly': '2pi',
+      'grid.kind': 'points',
+      'grid.nx': 32,
+      'grid.ny': 32,
+      'hyperviscosity.order': 4,
+      'hyperviscosity.gridDampingTime': 2,
+      runLength: 20,
+    };
     const ok = stria(['plan', ...sets(all), '--json']);
     expect(ok.status, ok.stderr).toBe(0);
     expect(JSON.parse(ok.stdout).k_beta).toBeCloseTo(Math.pow(1000 / 0.05, 0.2), 12);
@@ -69,8 +88,19 @@ describe('stria plan', () => {
     expect(bad.status).toBe(2);
     expect(bad.stderr).toMatch(/grid\.nx: must be a power of two .*\(from --set grid\.nx\)/);
     // Switching the drive's kind clears its old fields.
-    const velocity = stria(['plan', '--preset', 'jupiter', '--set', 'drive.kind=velocity', '--set', 'drive.U=20', '--json']);
+    const velocity = stria([
+      'plan',
+      '--preset',
+      'jupiter',
+      '--set',
+      'drive.kind=velocity',
+      '--set',
+      'drive.U=20',
+      '--json',
+    ]);
     expect(JSON.parse(velocity.stdout).u_rms).toBe(20);
-    expect(stria(['plan', '--preset', 'jupiter', '--report', join(dir, 'x.pdf')]).stderr).toMatch(/--report .*\.md or \.html/);
+    expect(stria(['plan', '--preset', 'jupiter', '--report', join(dir, 'x.pdf')]).stderr).toMatch(
+      /--report .*\.md or \.html/,
+    );
   });
 });

@@ -24,20 +24,62 @@ describe('stria run', () => {
   it('layers the parameters: defaults, preset, file, then --set', async () => {
     const file = join(dir, 'params.json');
     writeFileSync(file, JSON.stringify({ ...TINY, beta: 3, seed: 9 }));
-    const r = await striaHere(['run', file, '--set', 'beta=7', '--steps', '4', '--json', '--save', join(dir, 'layered.json')]);
+    const r = await striaHere([
+      'run',
+      file,
+      '--set',
+      'beta=7',
+      '--steps',
+      '4',
+      '--json',
+      '--save',
+      join(dir, 'layered.json'),
+    ]);
     expect(r.status, r.stderr).toBe(0);
     expect(JSON.parse(r.stdout).steps).toBe(4);
     const saved = JSON.parse(readFileSync(join(dir, 'layered.json'), 'utf8')).params;
     expect(saved).toMatchObject({ ...TINY, beta: 7, seed: 9 });
-    const preset = await striaHere(['run', '--preset', 'few-jets', '--set', 'nx=32', '--set', 'ny=32', '--set', 'kf=8', '--steps', '2', '--save', join(dir, 'preset.json')]);
+    const preset = await striaHere([
+      'run',
+      '--preset',
+      'few-jets',
+      '--set',
+      'nx=32',
+      '--set',
+      'ny=32',
+      '--set',
+      'kf=8',
+      '--steps',
+      '2',
+      '--save',
+      join(dir, 'preset.json'),
+    ]);
     expect(preset.status, preset.stderr).toBe(0);
-    expect(JSON.parse(readFileSync(join(dir, 'preset.json'), 'utf8')).params).toMatchObject({ beta: 18, nu_order: 8, nx: 32, kf: 8 });
+    expect(JSON.parse(readFileSync(join(dir, 'preset.json'), 'utf8')).params).toMatchObject({
+      beta: 18,
+      nu_order: 8,
+      nx: 32,
+      kf: 8,
+    });
   });
 
   it('writes snapshots and zonal means that read back, and ncdump lists their variables', () => {
     const snaps = join(dir, 'snaps.nc');
     const zonal = join(dir, 'zonal.nc');
-    const r = stria(['run', ...TINY_SETS, '--steps', '100', '--snapshots', snaps, '--every', '20', '--zonal', zonal, '--sample-every', '0.5']);
+    const r = stria([
+      'run',
+      ...TINY_SETS,
+      '--steps',
+      '100',
+      '--snapshots',
+      snaps,
+      '--every',
+      '20',
+      '--zonal',
+      zonal,
+      '--sample-every',
+      '0.5',
+    ]);
     expect(r.status, r.stderr).toBe(0);
     expect(r.stderr).toMatch(/5 snapshot records/);
     const s = readNetcdf(readFileSync(snaps));
@@ -59,10 +101,12 @@ describe('stria run', () => {
     }
     const header = spawnSync('ncdump', ['-h', snaps], { encoding: 'utf8' });
     expect(header.status, header.stderr).toBe(0);
-    for (const v of ['x', 'y', 'time', 'step', 'q', 'zeta', 'psi', 'u', 'v']) expect(header.stdout).toMatch(new RegExp(`\\b(double|int) ${v}\\(`));
+    for (const v of ['x', 'y', 'time', 'step', 'q', 'zeta', 'psi', 'u', 'v'])
+      expect(header.stdout).toMatch(new RegExp(`\\b(double|int) ${v}\\(`));
     expect(header.stdout).toMatch(/time = UNLIMITED ; \/\/ \(5 currently\)/);
     const zh = spawnSync('ncdump', ['-h', zonal], { encoding: 'utf8' });
-    for (const v of ['ubar', 'qbar', 'upvp', 'vpqp', 'eke']) expect(zh.stdout).toMatch(new RegExp(`double ${v}\\(time, y\\)`));
+    for (const v of ['ubar', 'qbar', 'upvp', 'vpqp', 'eke'])
+      expect(zh.stdout).toMatch(new RegExp(`double ${v}\\(time, y\\)`));
   });
 
   it('resumes a saved run bit for bit', () => {
@@ -78,7 +122,18 @@ describe('stria run', () => {
   });
 
   it('stops at the steady state under strong drag and says so', () => {
-    const r = stria(['run', ...TINY_SETS, '--set', 'mu=0.5', '--set', 'eps=0.5', '--until-steady', '--steady-tol', '0.1', '--json']);
+    const r = stria([
+      'run',
+      ...TINY_SETS,
+      '--set',
+      'mu=0.5',
+      '--set',
+      'eps=0.5',
+      '--until-steady',
+      '--steady-tol',
+      '0.1',
+      '--json',
+    ]);
     expect(r.status, r.stderr).toBe(0);
     expect(r.stderr).toMatch(/steady at t = /);
     expect(JSON.parse(r.stdout).time).toBeLessThan(20); // the cap is 20 windows of 1/(2μ) = 1

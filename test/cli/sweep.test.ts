@@ -23,12 +23,12 @@ const spec = join(dir, 'spec.json');
 writeFileSync(spec, JSON.stringify(SPEC, null, 2));
 
 const records = (d: string): SweepRecord[] =>
-  readFileSync(join(d, 'runs.jsonl'), 'utf8')
-    .split('\n')
-    .filter(Boolean)
-    .map(parseSweepRecord);
+  readFileSync(join(d, 'runs.jsonl'), 'utf8').split('\n').filter(Boolean).map(parseSweepRecord);
 const byId = (rs: SweepRecord[]) => new Map(rs.map((r) => [r.id, resultKey(r)]));
-const withoutWall = (d: string) => (JSON.parse(readFileSync(join(d, 'table.json'), 'utf8')) as Record<string, unknown>[]).map(({ wall_seconds: _, ...rest }) => rest);
+const withoutWall = (d: string) =>
+  (JSON.parse(readFileSync(join(d, 'table.json'), 'utf8')) as Record<string, unknown>[]).map(
+    ({ wall_seconds: _, ...rest }) => rest,
+  );
 
 let reference: SweepRecord[];
 
@@ -42,11 +42,19 @@ describe('stria sweep', () => {
   it('runs every point and seed once and writes the table and the fits', () => {
     expect(reference).toHaveLength(4);
     expect(new Set(reference.map((r) => r.id)).size).toBe(4);
-    expect(reference.map((r) => [r.point.beta, r.seed]).sort()).toEqual([[20, 1], [20, 2], [5, 1], [5, 2]]);
-    for (const r of reference) expect(r).toMatchObject({ status: 'done', stopped: 'until', plan: { average: 10, sampleEvery: 0.5 } });
+    expect(reference.map((r) => [r.point.beta, r.seed]).sort()).toEqual([
+      [20, 1],
+      [20, 2],
+      [5, 1],
+      [5, 2],
+    ]);
+    for (const r of reference)
+      expect(r).toMatchObject({ status: 'done', stopped: 'until', plan: { average: 10, sampleEvery: 0.5 } });
     const csv = parseCsv(readFileSync(join(dir, 'all', 'table.csv'), 'utf8'));
     expect(csv.header.slice(0, 7)).toEqual(['id', 'index', 'beta', 'replica', 'seed', 'status', 'stopped']);
-    expect(csv.header).toEqual(expect.arrayContaining(['u_rms', 'jet_spacing', 'k_rhines', 'rhines_length', 'balance_velocity', 'wall_seconds']));
+    expect(csv.header).toEqual(
+      expect.arrayContaining(['u_rms', 'jet_spacing', 'k_rhines', 'rhines_length', 'balance_velocity', 'wall_seconds']),
+    );
     expect(csv.rows.map((row) => row[1])).toEqual(['0', '1', '2', '3']);
     const fits = JSON.parse(readFileSync(join(dir, 'all', 'fits.json'), 'utf8'));
     expect(fits.fit_options).toEqual({ resamples: 300, seed: 7 });
@@ -94,10 +102,20 @@ describe('stria sweep', () => {
   });
 
   it('gives, sharded and merged, the same runs bit for bit as unsharded', async () => {
-    const shards = [0, 1].map((i) => striaAsync(['sweep', spec, '--out', join(dir, `shard${i}`), '--shard', `${i}/2`, '--jobs', '1']));
+    const shards = [0, 1].map((i) =>
+      striaAsync(['sweep', spec, '--out', join(dir, `shard${i}`), '--shard', `${i}/2`, '--jobs', '1']),
+    );
     for (const s of shards) expect((await s.done).status).toBe(0);
-    expect(records(join(dir, 'shard0')).map((r) => r.index).sort()).toEqual([0, 2]);
-    expect(records(join(dir, 'shard1')).map((r) => r.index).sort()).toEqual([1, 3]);
+    expect(
+      records(join(dir, 'shard0'))
+        .map((r) => r.index)
+        .sort(),
+    ).toEqual([0, 2]);
+    expect(
+      records(join(dir, 'shard1'))
+        .map((r) => r.index)
+        .sort(),
+    ).toEqual([1, 3]);
     const merged = join(dir, 'merged');
     const m = stria(['merge', join(dir, 'shard0'), join(dir, 'shard1'), '--out', merged]);
     expect(m.status, m.stderr).toBe(0);
@@ -128,7 +146,9 @@ describe('stria sweep', () => {
     const r = stria(['sweep', bad]);
     expect(r.status).toBe(2);
     expect(r.stderr).toMatch(/bad\.json: vary\.0\.logRange\.count: count: must be ≥ 2/);
-    expect((await striaHere(['sweep', spec, '--shard', '2/2'])).stderr).toMatch(/--shard "2\/2": the shard index counts from 0/);
+    expect((await striaHere(['sweep', spec, '--shard', '2/2'])).stderr).toMatch(
+      /--shard "2\/2": the shard index counts from 0/,
+    );
     expect((await striaHere(['sweep', spec, '--jobs', '0'])).stderr).toMatch(/--jobs needs a positive whole number/);
     expect((await striaHere(['merge', join(dir, 'all')])).stderr).toMatch(/--out DIR is required/);
     expect((await striaHere(['sweep'])).status).toBe(2);

@@ -17,28 +17,56 @@ const restricted = '@typescript-eslint/no-restricted-imports';
 
 describe('the import-boundary rule', () => {
   it('keeps lib/ free of the app, the worker and the command line', async () => {
-    expect(await problems('lib/analysis/x.ts', "import { a } from '../../src/main';\nexport const b = a;\n")).toContain(restricted);
-    expect(await problems('lib/model/x.ts', "import { a } from '../../workers/simulationApi';\nexport const b = a;\n")).toContain(restricted);
-    expect(await problems('lib/plan/x.ts', "import { a } from '../../cli/main';\nexport const b = a;\n")).toContain(restricted);
+    expect(await problems('lib/analysis/x.ts', "import { a } from '../../src/main';\nexport const b = a;\n")).toContain(
+      restricted,
+    );
+    expect(
+      await problems('lib/model/x.ts', "import { a } from '../../workers/simulationApi';\nexport const b = a;\n"),
+    ).toContain(restricted);
+    expect(await problems('lib/plan/x.ts', "import { a } from '../../cli/main';\nexport const b = a;\n")).toContain(
+      restricted,
+    );
   });
 
   it('keeps lib/io to formats: no analysis, plan, userfile, run or sweep at run time', async () => {
     for (const layer of ['analysis/scales', 'plan/units', 'userfile/analyzeFile', 'run/runPlan', 'sweep/sweepSpec'])
-      expect(await problems('lib/io/x.ts', `import { a } from '../${layer}';\nexport const b = a;\n`)).toContain(restricted);
+      expect(await problems('lib/io/x.ts', `import { a } from '../${layer}';\nexport const b = a;\n`)).toContain(
+        restricted,
+      );
     // A type names the shape a writer writes; it vanishes at run time.
-    expect(await problems('lib/io/x.ts', "import type { ZonalMeans } from '../analysis/zonalMean';\nexport type Z = ZonalMeans;\n")).toEqual([]);
+    expect(
+      await problems(
+        'lib/io/x.ts',
+        "import type { ZonalMeans } from '../analysis/zonalMean';\nexport type Z = ZonalMeans;\n",
+      ),
+    ).toEqual([]);
   });
 
   it('keeps the stepper out of lib/analysis and the model arrays out of lib/plan', async () => {
-    expect(await problems('lib/analysis/x.ts', "import { Stepper } from '../model/stepper';\nexport const s = Stepper;\n")).toContain(restricted);
-    expect(await problems('lib/analysis/x.ts', "import { Model } from '../model/model';\nexport const m = Model;\n")).toContain(restricted);
-    expect(await problems('lib/plan/x.ts', "import { Grid } from '../model/fields';\nexport const g = Grid;\n")).toContain(restricted);
-    expect(await problems('lib/plan/x.ts', "import { DEFAULT_PARAMS } from '../model/params';\nexport const p = DEFAULT_PARAMS;\n")).toEqual([]);
+    expect(
+      await problems('lib/analysis/x.ts', "import { Stepper } from '../model/stepper';\nexport const s = Stepper;\n"),
+    ).toContain(restricted);
+    expect(
+      await problems('lib/analysis/x.ts', "import { Model } from '../model/model';\nexport const m = Model;\n"),
+    ).toContain(restricted);
+    expect(
+      await problems('lib/plan/x.ts', "import { Grid } from '../model/fields';\nexport const g = Grid;\n"),
+    ).toContain(restricted);
+    expect(
+      await problems(
+        'lib/plan/x.ts',
+        "import { DEFAULT_PARAMS } from '../model/params';\nexport const p = DEFAULT_PARAMS;\n",
+      ),
+    ).toEqual([]);
   });
 
   it('keeps lib/model at the bottom', async () => {
-    expect(await problems('lib/model/x.ts', "import { a } from '../analysis/scales';\nexport const b = a;\n")).toContain(restricted);
-    expect(await problems('lib/model/x.ts', "import { InputError } from '../inputError';\nexport const e = InputError;\n")).toEqual([]);
+    expect(
+      await problems('lib/model/x.ts', "import { a } from '../analysis/scales';\nexport const b = a;\n"),
+    ).toContain(restricted);
+    expect(
+      await problems('lib/model/x.ts', "import { InputError } from '../inputError';\nexport const e = InputError;\n"),
+    ).toEqual([]);
   });
 });
 

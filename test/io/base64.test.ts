@@ -24,14 +24,23 @@ describe('base64', () => {
 
   it('matches the RFC 4648 test vectors and round-trips every length', () => {
     // [published] RFC 4648 §10.
-    const vectors: [string, string][] = [['', ''], ['f', 'Zg=='], ['fo', 'Zm8='], ['foo', 'Zm9v'], ['foob', 'Zm9vYg=='], ['fooba', 'Zm9vYmE='], ['foobar', 'Zm9vYmFy']];
+    const vectors: [string, string][] = [
+      ['', ''],
+      ['f', 'Zg=='],
+      ['fo', 'Zm8='],
+      ['foo', 'Zm9v'],
+      ['foob', 'Zm9vYg=='],
+      ['fooba', 'Zm9vYmE='],
+      ['foobar', 'Zm9vYmFy'],
+    ];
     for (const [plain, coded] of vectors) {
       const b = new TextEncoder().encode(plain);
       expect(encodeBase64(b)).toBe(coded);
       expect(Array.from(decodeBase64(coded))).toEqual(Array.from(b));
     }
     const all = Uint8Array.from({ length: 300 }, (_, i) => (i * 89 + 7) & 255);
-    for (let n = 0; n <= all.length; n += 37) expect(Array.from(decodeBase64(encodeBase64(all.subarray(0, n))))).toEqual(Array.from(all.subarray(0, n)));
+    for (let n = 0; n <= all.length; n += 37)
+      expect(Array.from(decodeBase64(encodeBase64(all.subarray(0, n))))).toEqual(Array.from(all.subarray(0, n)));
   });
 
   it("writes the text of Node's codec and reads it back, at every size around its buffer", () => {

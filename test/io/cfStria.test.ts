@@ -8,17 +8,27 @@ import { DEFAULT_PARAMS } from '../../lib/model/params';
 
 // The data contract: CF Conventions 1.8 attribute names (long_name, units, axis, standard_name;
 // sections 2.3, 3.1, 3.3, 4), and agreement with docs/file-formats.md, which scripts rely on.
-const run: StriaRunInfo = { params: { ...DEFAULT_PARAMS, nx: 64, ny: 32, Lx: 4 * Math.PI }, striaVersion: '0.1.0', createdAt: '2025-01-31T12:00:00Z' };
+const run: StriaRunInfo = {
+  params: { ...DEFAULT_PARAMS, nx: 64, ny: 32, Lx: 4 * Math.PI },
+  striaVersion: '0.1.0',
+  createdAt: '2025-01-31T12:00:00Z',
+};
 const attr = (v: NcVariable, name: string) => v.attributes?.find((a: NcAttribute) => a.name === name)?.value;
 const doc = readFileSync(join(__dirname, '../../docs/file-formats.md'), 'utf8');
 
 /** Rows of the variable table in the doc section of a file kind: name → cells. */
 function docTable(kind: string): Map<string, string[]> {
   const section = doc.slice(doc.indexOf(`\`stria_file_kind = "${kind}"\``));
-  const table = section.slice(section.indexOf('| Variable |'), section.indexOf('\n\n', section.indexOf('| Variable |')));
+  const table = section.slice(
+    section.indexOf('| Variable |'),
+    section.indexOf('\n\n', section.indexOf('| Variable |')),
+  );
   const rows = new Map<string, string[]>();
   for (const line of table.split('\n').slice(2)) {
-    const cells = line.split('|').slice(1, -1).map((c) => c.trim());
+    const cells = line
+      .split('|')
+      .slice(1, -1)
+      .map((c) => c.trim());
     rows.set(cells[0].replace(/`/g, ''), cells);
   }
   return rows;
@@ -33,9 +43,13 @@ describe.each([
   it('holds the contract variables, with time unlimited and fields (time, …spatial)', () => {
     expect(schema.variables.map((v) => v.name)).toEqual(names);
     expect(schema.dimensions[0]).toEqual({ name: 'time', unlimited: true });
-    for (const f of spec.fields) expect(schema.variables.find((v) => v.name === f.name)!.dimensions).toEqual(['time', ...spec.spatial]);
+    for (const f of spec.fields)
+      expect(schema.variables.find((v) => v.name === f.name)!.dimensions).toEqual(['time', ...spec.spatial]);
     expect(schema.format).toBe('cdf2');
-    expect(striaFileSchema(spec, run, { format: 'cdf1', precision: 'float' }).variables.filter((v) => v.type === 'float').length).toBe(spec.fields.length);
+    expect(
+      striaFileSchema(spec, run, { format: 'cdf1', precision: 'float' }).variables.filter((v) => v.type === 'float')
+        .length,
+    ).toBe(spec.fields.length);
   });
 
   it('gives every variable long_name and units, and the coordinates axis; time has no axis (CF 4.4)', () => {
@@ -49,12 +63,19 @@ describe.each([
     expect(attr(byName.time, 'axis')).toBeUndefined();
     if (byName.x) {
       expect(attr(byName.x, 'axis')).toBe('X');
-      expect(Array.from(byName.x.data as Float64Array)).toEqual(Array.from({ length: 64 }, (_, i) => (i * 4 * Math.PI) / 64));
+      expect(Array.from(byName.x.data as Float64Array)).toEqual(
+        Array.from({ length: 64 }, (_, i) => (i * 4 * Math.PI) / 64),
+      );
     }
   });
 
   it('uses CF-recommended names (letters, digits, underscores; unique ignoring case; CF 2.3)', () => {
-    const all = [...schema.variables.map((v) => v.name), ...schema.dimensions.map((d) => d.name), ...schema.attributes!.map((a) => a.name), ...schema.variables.flatMap((v) => v.attributes!.map((a) => a.name))];
+    const all = [
+      ...schema.variables.map((v) => v.name),
+      ...schema.dimensions.map((d) => d.name),
+      ...schema.attributes!.map((a) => a.name),
+      ...schema.variables.flatMap((v) => v.attributes!.map((a) => a.name)),
+    ];
     for (const n of all) expect(n, n).toMatch(/^[A-Za-z][A-Za-z0-9_]*$/);
     expect(new Set(schema.variables.map((v) => v.name.toLowerCase())).size).toBe(schema.variables.length);
   });
@@ -78,7 +99,13 @@ describe('physical units', () => {
   it('writes SI units and converts the coordinates', () => {
     const s = striaFileSchema(SNAPSHOT_FILE, { ...run, units });
     const byName = Object.fromEntries(s.variables.map((v) => [v.name, v]));
-    expect(['x', 'time', 'q', 'psi', 'u'].map((n) => attr(byName[n], 'units'))).toEqual(['m', 's', 's-1', 'm2 s-1', 'm s-1']);
+    expect(['x', 'time', 'q', 'psi', 'u'].map((n) => attr(byName[n], 'units'))).toEqual([
+      'm',
+      's',
+      's-1',
+      'm2 s-1',
+      'm s-1',
+    ]);
     expect((byName.y.data as Float64Array)[1]).toBeCloseTo((DEFAULT_PARAMS.Ly * 1e5) / 32, 6);
     expect(attr(byName.u, 'standard_name')).toBeUndefined(); // no medium, no standard name
   });
@@ -93,11 +120,14 @@ describe('physical units', () => {
         const expected = row ? row.split('|')[medium === 'atmosphere' ? 2 : 3].trim().replace(/`/g, '') : '—';
         expect(attr(v, 'standard_name') ?? '—', `${medium} ${v.name}`).toBe(expected);
       }
-      for (const v of striaFileSchema(ZONAL_MEAN_FILE, { ...run, units: { ...units, medium } }).variables) expect(attr(v, 'standard_name')).toBeUndefined();
+      for (const v of striaFileSchema(ZONAL_MEAN_FILE, { ...run, units: { ...units, medium } }).variables)
+        expect(attr(v, 'standard_name')).toBeUndefined();
     }
   });
 
   it('refuses an unknown precision', () => {
-    expect(() => striaFileSchema(SNAPSHOT_FILE, run, { precision: 'half' as never })).toThrow(/precision must be 'double' or 'float'/);
+    expect(() => striaFileSchema(SNAPSHOT_FILE, run, { precision: 'half' as never })).toThrow(
+      /precision must be 'double' or 'float'/,
+    );
   });
 });

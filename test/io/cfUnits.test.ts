@@ -23,9 +23,15 @@ describe('cfUnits', () => {
   });
 
   it('refuses unit systems that cannot convert', () => {
-    expect(() => checkUnitSystem({ kind: 'physical', metresPerLength: 0, secondsPerTime: 1 })).toThrow(/units.metresPerLength must be a finite number > 0/);
-    expect(() => checkUnitSystem({ kind: 'physical', metresPerLength: 1, secondsPerTime: Infinity })).toThrow(/units.secondsPerTime/);
-    expect(() => checkUnitSystem({ ...phys, medium: 'mantle' as never })).toThrow(/units.medium must be 'atmosphere' or 'ocean'/);
+    expect(() => checkUnitSystem({ kind: 'physical', metresPerLength: 0, secondsPerTime: 1 })).toThrow(
+      /units.metresPerLength must be a finite number > 0/,
+    );
+    expect(() => checkUnitSystem({ kind: 'physical', metresPerLength: 1, secondsPerTime: Infinity })).toThrow(
+      /units.secondsPerTime/,
+    );
+    expect(() => checkUnitSystem({ ...phys, medium: 'mantle' as never })).toThrow(
+      /units.medium must be 'atmosphere' or 'ocean'/,
+    );
     expect(() => checkUnitSystem({ kind: 'si' } as never)).toThrow(/units.kind must be 'model' or 'physical'/);
   });
 });

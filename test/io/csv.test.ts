@@ -10,20 +10,44 @@ describe('CSV writing', () => {
       { name: 'y', values: [0, -0, NaN, 0.1, -Infinity] },
       { name: 'label, unit', values: ['a,b', 'say "hi"', 'two\r\nlines', '', ' spaced '] },
     ]);
-    expect(text).toBe('y,"label, unit"\r\n0,"a,b"\r\n-0,"say ""hi"""\r\n,"two\r\nlines"\r\n0.1,\r\n-Infinity, spaced \r\n');
-    expect(Array.from(encodeCsv([{ name: 'ψ', values: [1] }]))).toEqual(Array.from(new TextEncoder().encode('ψ\r\n1\r\n')));
+    expect(text).toBe(
+      'y,"label, unit"\r\n0,"a,b"\r\n-0,"say ""hi"""\r\n,"two\r\nlines"\r\n0.1,\r\n-Infinity, spaced \r\n',
+    );
+    expect(Array.from(encodeCsv([{ name: 'ψ', values: [1] }]))).toEqual(
+      Array.from(new TextEncoder().encode('ψ\r\n1\r\n')),
+    );
   });
 
   it('writes numbers in the shortest form that reads back to the same double', () => {
-    const cases: [number, string][] = [[0.1, '0.1'], [1 / 3, '0.3333333333333333'], [1e-7, '1e-7'], [1e21, '1e+21'], [5e-324, '5e-324'], [2 ** 53, '9007199254740992'], [-0, '-0'], [NaN, ''], [Infinity, 'Infinity']];
+    const cases: [number, string][] = [
+      [0.1, '0.1'],
+      [1 / 3, '0.3333333333333333'],
+      [1e-7, '1e-7'],
+      [1e21, '1e+21'],
+      [5e-324, '5e-324'],
+      [2 ** 53, '9007199254740992'],
+      [-0, '-0'],
+      [NaN, ''],
+      [Infinity, 'Infinity'],
+    ];
     for (const [x, s] of cases) expect(formatCsvNumber(x)).toBe(s);
   });
 
   it('refuses columns that do not make a table', () => {
     expect(() => formatCsv([])).toThrow(/no columns/);
-    expect(() => formatCsv([{ name: 'a', values: [1] }, { name: 'a', values: [2] }])).toThrow(/column "a" is given twice/);
+    expect(() =>
+      formatCsv([
+        { name: 'a', values: [1] },
+        { name: 'a', values: [2] },
+      ]),
+    ).toThrow(/column "a" is given twice/);
     expect(() => formatCsv([{ name: '', values: [1] }])).toThrow(/non-empty name/);
-    expect(() => formatCsv([{ name: 'a', values: [1, 2] }, { name: 'b', values: [1] }])).toThrow(/column "b" has 1 values, column "a" has 2/);
+    expect(() =>
+      formatCsv([
+        { name: 'a', values: [1, 2] },
+        { name: 'b', values: [1] },
+      ]),
+    ).toThrow(/column "b" has 1 values, column "a" has 2/);
   });
 });
 
@@ -42,7 +66,12 @@ describe('CSV round trip', () => {
     const field = fc.string({ unit: fc.constantFrom('a', 'ζ', ',', '"', '\r', '\n', ' ', 'x') });
     fc.assert(
       fc.property(fc.array(fc.tuple(field, field), { minLength: 1, maxLength: 20 }), (rows) => {
-        const t = parseCsv(formatCsv([{ name: 'a', values: rows.map((r) => r[0]) }, { name: 'b,"c"', values: rows.map((r) => r[1]) }]));
+        const t = parseCsv(
+          formatCsv([
+            { name: 'a', values: rows.map((r) => r[0]) },
+            { name: 'b,"c"', values: rows.map((r) => r[1]) },
+          ]),
+        );
         return t.header.join('|') === 'a|b,"c"' && JSON.stringify(t.rows) === JSON.stringify(rows);
       }),
       { seed: 4180, numRuns: 300 },
@@ -57,7 +86,13 @@ describe('CSV round trip', () => {
 
 describe('CSV parsing', () => {
   it('accepts LF line ends, a missing final line end, a byte-order mark, a trailing empty field', () => {
-    expect(parseCsv('\ufeffa,b\n1,2\n3,4')).toEqual({ header: ['a', 'b'], rows: [['1', '2'], ['3', '4']] });
+    expect(parseCsv('\ufeffa,b\n1,2\n3,4')).toEqual({
+      header: ['a', 'b'],
+      rows: [
+        ['1', '2'],
+        ['3', '4'],
+      ],
+    });
     expect(parseCsv('a,b\r\n1,')).toEqual({ header: ['a', 'b'], rows: [['1', '']] });
     expect(parseCsv(new TextEncoder().encode('ψ\r\n"x"\r\n'))).toEqual({ header: ['ψ'], rows: [['x']] });
     // A mark before UTF-8 bytes is dropped once, as from a string; malformed bytes become U+FFFD.
@@ -76,8 +111,14 @@ describe('CSV parsing', () => {
 
   it('reads numbers strictly', () => {
     expect([parseCsvNumber(''), parseCsvNumber('NaN')]).toEqual([NaN, NaN]);
-    expect([parseCsvNumber('-Infinity'), parseCsvNumber('1e+21'), parseCsvNumber('.5'), parseCsvNumber('-0')]).toEqual([-Infinity, 1e21, 0.5, -0]);
-    for (const bad of ['0x10', ' 1', '1,0', 'inf', '1e', 'one']) expect(() => parseCsvNumber(bad), bad).toThrow(/is not a number/);
+    expect([parseCsvNumber('-Infinity'), parseCsvNumber('1e+21'), parseCsvNumber('.5'), parseCsvNumber('-0')]).toEqual([
+      -Infinity,
+      1e21,
+      0.5,
+      -0,
+    ]);
+    for (const bad of ['0x10', ' 1', '1,0', 'inf', '1e', 'one'])
+      expect(() => parseCsvNumber(bad), bad).toThrow(/is not a number/);
     const t = parseCsv('a\r\nx\r\n');
     expect(() => csvNumberColumn(t, 'b')).toThrow(/CSV has no column "b" \(it has "a"\)/);
     expect(() => csvNumberColumn(t, 'a')).toThrow(/column "a", row 1: "x" is not a number/);

@@ -60,7 +60,12 @@ describe('textDigest', () => {
 
   it('changes with one code unit, a cut or an order swap', () => {
     const text = 'stria checkpoint 0123456789 '.repeat(40);
-    const seen = new Set([textDigest(text), textDigest(text.slice(0, -1)), textDigest(text.slice(1)), textDigest(`${text.slice(0, 100)}X${text.slice(101)}`)]);
+    const seen = new Set([
+      textDigest(text),
+      textDigest(text.slice(0, -1)),
+      textDigest(text.slice(1)),
+      textDigest(`${text.slice(0, 100)}X${text.slice(101)}`),
+    ]);
     seen.add(textDigest(text.slice(0, 10) + text[11] + text[10] + text.slice(12)));
     expect(seen.size).toBe(5);
   });

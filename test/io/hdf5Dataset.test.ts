@@ -13,15 +13,55 @@ import { ncgen, runNcgen } from './ncgenTool';
  * Specification: contiguous, compact, chunked with edge chunks, deflate + shuffle, fletcher32,
  * big-endian, dense attribute storage.
  */
-function file(nt: number, ny: number, nx: number, storage: Record<string, string | number | number[]>, extra: CdlVariable[] = []): CdlFile {
+function file(
+  nt: number,
+  ny: number,
+  nx: number,
+  storage: Record<string, string | number | number[]>,
+  extra: CdlVariable[] = [],
+): CdlFile {
   return {
-    dims: [{ name: 'time', size: nt }, { name: 'y', size: ny }, { name: 'x', size: nx }],
+    dims: [
+      { name: 'time', size: nt },
+      { name: 'y', size: ny },
+      { name: 'x', size: nx },
+    ],
     vars: [
-      { name: 'time', type: 'double', dims: ['time'], attrs: { units: 'days since 2000-01-01' }, data: Array.from({ length: nt }, (_, t) => t / 4) },
-      { name: 'y', type: 'double', dims: ['y'], attrs: { units: 'degrees_north' }, data: Array.from({ length: ny }, (_, j) => -30 + 2.5 * j) },
-      { name: 'x', type: 'float', dims: ['x'], attrs: { units: 'degrees_east' }, data: Array.from({ length: nx }, (_, i) => 5 * i) },
-      { name: 'u', type: 'float', dims: ['time', 'y', 'x'], attrs: { units: 'm s-1', _FillValue: -999, ...storage }, data: Array.from({ length: nt * ny * nx }, (_, k) => Math.sin(k) * 30) },
-      { name: 'w', type: 'double', dims: ['y', 'x'], attrs: { long_name: 'a fixed field' }, data: Array.from({ length: ny * nx }, (_, k) => k / 7) },
+      {
+        name: 'time',
+        type: 'double',
+        dims: ['time'],
+        attrs: { units: 'days since 2000-01-01' },
+        data: Array.from({ length: nt }, (_, t) => t / 4),
+      },
+      {
+        name: 'y',
+        type: 'double',
+        dims: ['y'],
+        attrs: { units: 'degrees_north' },
+        data: Array.from({ length: ny }, (_, j) => -30 + 2.5 * j),
+      },
+      {
+        name: 'x',
+        type: 'float',
+        dims: ['x'],
+        attrs: { units: 'degrees_east' },
+        data: Array.from({ length: nx }, (_, i) => 5 * i),
+      },
+      {
+        name: 'u',
+        type: 'float',
+        dims: ['time', 'y', 'x'],
+        attrs: { units: 'm s-1', _FillValue: -999, ...storage },
+        data: Array.from({ length: nt * ny * nx }, (_, k) => Math.sin(k) * 30),
+      },
+      {
+        name: 'w',
+        type: 'double',
+        dims: ['y', 'x'],
+        attrs: { long_name: 'a fixed field' },
+        data: Array.from({ length: ny * nx }, (_, k) => k / 7),
+      },
       ...extra,
     ],
     globals: { title: 'netCDF-4 test', history: 'made by the test' },
@@ -42,7 +82,14 @@ describe.runIf(runNcgen)('netCDF-4 (HDF5) through the dataset interface (files w
     it(`reads the same values as the NetCDF-3 file: ${name}`, () => {
       const text = cdl(file(5, 7, 9, storage));
       const h5 = openDataset(memorySource(ncgen(text, 'nc4')));
-      const nc3 = openDataset(memorySource(ncgen(text.replace(/^\s+u:_(Storage|ChunkSizes|DeflateLevel|Shuffle|Fletcher32|Endianness) = .*$/gm, ''), 'nc3')));
+      const nc3 = openDataset(
+        memorySource(
+          ncgen(
+            text.replace(/^\s+u:_(Storage|ChunkSizes|DeflateLevel|Shuffle|Fletcher32|Endianness) = .*$/gm, ''),
+            'nc3',
+          ),
+        ),
+      );
       expect(h5.format).toBe('netcdf4');
       expect(h5.dimensions).toEqual(nc3.dimensions);
       expect(h5.variables.map((v) => v.name)).toEqual(nc3.variables.map((v) => v.name));
@@ -57,7 +104,9 @@ describe.runIf(runNcgen)('netCDF-4 (HDF5) through the dataset interface (files w
   }
 
   it('reads compact storage and an unlimited dimension', () => {
-    const f = file(2, 3, 4, {}, [{ name: 'c', type: 'int', dims: ['x'], attrs: { _Storage: 'compact' }, data: [7, -8, 9, 10] }]);
+    const f = file(2, 3, 4, {}, [
+      { name: 'c', type: 'int', dims: ['x'], attrs: { _Storage: 'compact' }, data: [7, -8, 9, 10] },
+    ]);
     f.dims[0].size = 'unlimited';
     const r = openDataset(memorySource(ncgen(cdl(f), 'nc4')));
     expect(r.dimensions[0]).toEqual({ name: 'time', size: 2, unlimited: true });
@@ -66,8 +115,11 @@ describe.runIf(runNcgen)('netCDF-4 (HDF5) through the dataset interface (files w
 
   it('reads attributes in dense storage, which jsfive alone drops, in creation order', () => {
     const attrs: Record<string, string | number> = { units: 'm s-1', standard_name: 'eastward_wind' };
-    for (let k = 0; k < 70; k++) attrs[`note${String(k).padStart(2, '0')}`] = k % 2 ? k + 0.25 : 'text '.repeat((k % 9) + 1) + k;
-    const f = file(1, 3, 4, {}, [{ name: 'rich', type: 'float', dims: ['y', 'x'], attrs, data: Array.from({ length: 12 }, (_, k) => k) }]);
+    for (let k = 0; k < 70; k++)
+      attrs[`note${String(k).padStart(2, '0')}`] = k % 2 ? k + 0.25 : 'text '.repeat((k % 9) + 1) + k;
+    const f = file(1, 3, 4, {}, [
+      { name: 'rich', type: 'float', dims: ['y', 'x'], attrs, data: Array.from({ length: 12 }, (_, k) => k) },
+    ]);
     const bytes = ncgen(cdl(f), 'nc4');
     // jsfive's own view of the variable: no attributes at all (HDF5 keeps more than 8 in a heap).
     const h = new File(bytes.slice().buffer);
@@ -82,7 +134,12 @@ describe.runIf(runNcgen)('netCDF-4 (HDF5) through the dataset interface (files w
   it('decodes only the chunks of the record read, dropping them after use', () => {
     const [nt, ny, nx] = [6, 16, 20];
     const meter = new AllocationMeter();
-    const r = openDataset(memorySource(ncgen(cdl(file(nt, ny, nx, { _ChunkSizes: [1, 8, 10], _DeflateLevel: 1, _Shuffle: 'true' })), 'nc4')), { meter });
+    const r = openDataset(
+      memorySource(
+        ncgen(cdl(file(nt, ny, nx, { _ChunkSizes: [1, 8, 10], _DeflateLevel: 1, _Shuffle: 'true' })), 'nc4'),
+      ),
+      { meter },
+    );
     r.readRecord('u', 4);
     meter.endRecord();
     // Four chunks of 8·10 floats: per chunk the stored bytes, the inflated and the unshuffled
@@ -93,7 +150,10 @@ describe.runIf(runNcgen)('netCDF-4 (HDF5) through the dataset interface (files w
   });
 
   it('lists subgroups it does not read', () => {
-    const text = cdl(file(1, 2, 2, {})).replace(/}\n$/, 'group: extra {\n  variables:\n    int k ;\n  data:\n    k = 1 ;\n}\n}\n');
+    const text = cdl(file(1, 2, 2, {})).replace(
+      /}\n$/,
+      'group: extra {\n  variables:\n    int k ;\n  data:\n    k = 1 ;\n}\n}\n',
+    );
     const r = openDataset(memorySource(ncgen(text, 'nc4')));
     expect(r.notes).toContain('the group "extra" was not read: only the root group of a netCDF-4 file is');
   });
@@ -101,7 +161,9 @@ describe.runIf(runNcgen)('netCDF-4 (HDF5) through the dataset interface (files w
   it('refuses a truncated file with the size its superblock states', () => {
     const bytes = ncgen(cdl(file(2, 3, 4, {})), 'nc4');
     expect(() => openDataset(memorySource(bytes.subarray(0, bytes.length - 100)))).toThrow(
-      new RegExp(`truncated HDF5 file: its superblock says the file is ${bytes.length} bytes long, but it has ${bytes.length - 100}`),
+      new RegExp(
+        `truncated HDF5 file: its superblock says the file is ${bytes.length} bytes long, but it has ${bytes.length - 100}`,
+      ),
     );
     expect(() => openDataset(memorySource(bytes.subarray(0, 20)))).toThrow(/truncated HDF5 file/);
   });
@@ -110,7 +172,9 @@ describe.runIf(runNcgen)('netCDF-4 (HDF5) through the dataset interface (files w
     const bytes = ncgen(cdl(file(2, 7, 9, STORAGE['deflate + shuffle'])), 'nc4');
     // Rewrite the deflate filter's id (1) in u's filter pipeline message (type 0x000B, version 2:
     // per filter a 2-byte id, then flags and client data) to 32015, a registered plug-in's id.
-    const u = new File(bytes.slice().buffer).get('u') as unknown as { _dataobjects: { find_msg_type(t: number): Map<string, number>[] } };
+    const u = new File(bytes.slice().buffer).get('u') as unknown as {
+      _dataobjects: { find_msg_type(t: number): Map<string, number>[] };
+    };
     let p = (u._dataobjects.find_msg_type(0x000b)[0].get('offset_to_message') as number) + 2;
     const view = new DataView(bytes.buffer, bytes.byteOffset);
     for (let f = 0; f < 2; f++) {
@@ -118,6 +182,8 @@ describe.runIf(runNcgen)('netCDF-4 (HDF5) through the dataset interface (files w
       p += 6 + 4 * view.getUint16(p + 4, true);
     }
     const r = openDataset(memorySource(bytes));
-    expect(() => r.readRecord('u', 0)).toThrow('"u" is compressed with filter id 32015 (a registered plug-in filter), which the HDF5 reader (jsfive) cannot decode; it decodes deflate, shuffle and fletcher32 only');
+    expect(() => r.readRecord('u', 0)).toThrow(
+      '"u" is compressed with filter id 32015 (a registered plug-in filter), which the HDF5 reader (jsfive) cannot decode; it decodes deflate, shuffle and fletcher32 only',
+    );
   });
 });

@@ -18,20 +18,32 @@ function dumpedValues(cdl: string, name: string): string[] {
   const data = cdl.slice(cdl.indexOf('\ndata:'));
   const m = new RegExp(`\\n ${name} =\\s*([^;]*);`).exec(data);
   if (!m) throw new Error(`ncdump shows no data for ${name}:\n${cdl}`);
-  return m[1].split(',').map((s) => s.trim()).filter((s) => s !== '');
+  return m[1]
+    .split(',')
+    .map((s) => s.trim())
+    .filter((s) => s !== '');
 }
 /** ncdump suffixes float values with "f" (e.g. "NaNf"); the rest is a JS number literal. */
 const asNumber = (s: string) => Number(s.replace(/f$/, ''));
 
 const tiny: NcFile = {
-  dimensions: [{ name: 'time', unlimited: true }, { name: 'x', size: 3 }, { name: 'len', size: 5 }],
+  dimensions: [
+    { name: 'time', unlimited: true },
+    { name: 'x', size: 3 },
+    { name: 'len', size: 5 },
+  ],
   attributes: [ncText('Conventions', 'CF-1.8'), ncText('note', 'odd length')],
   variables: [
     { name: 'label', type: 'char', dimensions: ['len'], data: 'ζeta' }, // 5 bytes of UTF-8
     { name: 'x', type: 'double', dimensions: ['x'], data: [0, 1 / 3, 2 / 3] },
     { name: 's', type: 'short', dimensions: ['time', 'x'], data: [1, -2, 3, 32767, -32768, 0] },
     { name: 'b', type: 'byte', dimensions: ['time'], data: [-128, 127] },
-    { name: 'q', type: 'double', dimensions: ['time', 'x'], data: [0, -0, 5e-324, 1.7976931348623157e308, 1 / 3, -Infinity] },
+    {
+      name: 'q',
+      type: 'double',
+      dimensions: ['time', 'x'],
+      data: [0, -0, 5e-324, 1.7976931348623157e308, 1 / 3, -Infinity],
+    },
   ],
 };
 
@@ -55,9 +67,22 @@ describe('ncdump reads what we write', () => {
 
   run(title('reads a single short record variable of odd length (packed records, no padding)'), () => {
     const s = [1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 13, 14, 15];
-    const bytes = encodeNetcdf3({ format: 'cdf1', dimensions: [{ name: 't', unlimited: true }, { name: 'n', size: 3 }], variables: [{ name: 's', type: 'short', dimensions: ['t', 'n'], data: s }] });
+    const bytes = encodeNetcdf3({
+      format: 'cdf1',
+      dimensions: [
+        { name: 't', unlimited: true },
+        { name: 'n', size: 3 },
+      ],
+      variables: [{ name: 's', type: 'short', dimensions: ['t', 'n'], data: s }],
+    });
     expect(dumpedValues(ncdump(['-v', 's'], bytes), 's').map(asNumber)).toEqual(s);
-    const c = encodeNetcdf3({ dimensions: [{ name: 't', unlimited: true }, { name: 'n', size: 3 }], variables: [{ name: 'c', type: 'char', dimensions: ['t', 'n'], data: 'abcdefg' + 'hi' }] });
+    const c = encodeNetcdf3({
+      dimensions: [
+        { name: 't', unlimited: true },
+        { name: 'n', size: 3 },
+      ],
+      variables: [{ name: 'c', type: 'char', dimensions: ['t', 'n'], data: 'abcdefg' + 'hi' }],
+    });
     expect(dumpedValues(ncdump(['-v', 'c'], c), 'c')).toEqual(['"abc"', '"def"', '"ghi"']);
   });
 
@@ -68,12 +93,19 @@ describe('ncdump reads what we write', () => {
     const info = { params, striaVersion: '0.1.0', createdAt: '2025-01-31T12:00:00Z' };
     const cdl = ncdump(['-h'], encodeSnapshotFile(info, [frame]));
     expect(cdl).toContain(':Conventions = "CF-1.8" ;');
-    for (const v of ['x(x)', 'y(y)', 'time(time)', 'step(time)']) expect(cdl).toMatch(new RegExp(`\\t(double|int) ${v.replace(/[()]/g, '\\$&')} ;`));
+    for (const v of ['x(x)', 'y(y)', 'time(time)', 'step(time)'])
+      expect(cdl).toMatch(new RegExp(`\\t(double|int) ${v.replace(/[()]/g, '\\$&')} ;`));
     for (const field of SNAPSHOT_FIELDS) expect(cdl).toContain(`\tdouble ${field.name}(time, y, x) ;`);
     expect(cdl).toContain(':stria_seed = 1. ;');
 
     const z = new Float64Array(32);
-    const zonal = ncdump(['-h'], encodeZonalMeanFile(info, [{ time: 0, steps: 0, fields: { ubar: z, qbar: z, upvp: z, vpqp: z, eke: z } }], { precision: 'float', format: 'cdf1' }));
+    const zonal = ncdump(
+      ['-h'],
+      encodeZonalMeanFile(info, [{ time: 0, steps: 0, fields: { ubar: z, qbar: z, upvp: z, vpqp: z, eke: z } }], {
+        precision: 'float',
+        format: 'cdf1',
+      }),
+    );
     expect(zonal).toContain(':Conventions = "CF-1.8" ;');
     for (const field of ZONAL_MEAN_FIELDS) expect(zonal).toContain(`\tfloat ${field.name}(time, y) ;`);
   });

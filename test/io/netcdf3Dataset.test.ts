@@ -11,13 +11,47 @@ function sample(nt: number, ny: number, nx: number): { file: CdlFile; values: nu
   return {
     values,
     file: {
-      dims: [{ name: 'time', size: 'unlimited' }, { name: 'y', size: ny }, { name: 'x', size: nx }],
+      dims: [
+        { name: 'time', size: 'unlimited' },
+        { name: 'y', size: ny },
+        { name: 'x', size: nx },
+      ],
       vars: [
-        { name: 'time', type: 'double', dims: ['time'], attrs: { units: 's' }, data: Array.from({ length: nt }, (_, t) => 10 * t) },
-        { name: 'y', type: 'double', dims: ['y'], attrs: { units: 'km' }, data: Array.from({ length: ny }, (_, j) => j) },
-        { name: 'x', type: 'double', dims: ['x'], attrs: { units: 'km' }, data: Array.from({ length: nx }, (_, i) => 2 * i) },
-        { name: 'u', type: 'float', dims: ['time', 'y', 'x'], attrs: { units: 'm s-1', _FillValue: -999, long_name: 'zonal "wind"' }, data: values },
-        { name: 'h', type: 'short', dims: ['y', 'x'], attrs: { scale_factor: 0.5 }, data: Array.from({ length: ny * nx }, (_, k) => k - 3) },
+        {
+          name: 'time',
+          type: 'double',
+          dims: ['time'],
+          attrs: { units: 's' },
+          data: Array.from({ length: nt }, (_, t) => 10 * t),
+        },
+        {
+          name: 'y',
+          type: 'double',
+          dims: ['y'],
+          attrs: { units: 'km' },
+          data: Array.from({ length: ny }, (_, j) => j),
+        },
+        {
+          name: 'x',
+          type: 'double',
+          dims: ['x'],
+          attrs: { units: 'km' },
+          data: Array.from({ length: nx }, (_, i) => 2 * i),
+        },
+        {
+          name: 'u',
+          type: 'float',
+          dims: ['time', 'y', 'x'],
+          attrs: { units: 'm s-1', _FillValue: -999, long_name: 'zonal "wind"' },
+          data: values,
+        },
+        {
+          name: 'h',
+          type: 'short',
+          dims: ['y', 'x'],
+          attrs: { scale_factor: 0.5 },
+          data: Array.from({ length: ny * nx }, (_, k) => k - 3),
+        },
       ],
       globals: { title: 'test file', answer: 42.5 },
     },
@@ -92,7 +126,9 @@ describe.runIf(runNcgen)('NetCDF-3 through the dataset interface (files written 
   it('refuses a truncated file, naming the record that does not fit', () => {
     const { file } = sample(3, 4, 5);
     const bytes = ncgen(cdl(file), 'nc3');
-    expect(() => openDataset(memorySource(bytes.subarray(0, bytes.length - 10)))).toThrow(/truncated NetCDF file: record 2 of "(u|time)" ends at byte \d+ but the file has \d+ bytes/);
+    expect(() => openDataset(memorySource(bytes.subarray(0, bytes.length - 10)))).toThrow(
+      /truncated NetCDF file: record 2 of "(u|time)" ends at byte \d+ but the file has \d+ bytes/,
+    );
     expect(() => openDataset(memorySource(bytes.subarray(0, 40)))).toThrow(/truncated or corrupt NetCDF file/);
   });
 
@@ -106,7 +142,9 @@ describe.runIf(runNcgen)('NetCDF-3 through the dataset interface (files written 
 describe('format sniffing', () => {
   it('refuses what is not NetCDF, saying what it starts with', () => {
     const text = new TextEncoder().encode('hello, world');
-    expect(() => sniffFormat(text, text.length)).toThrow('not a NetCDF file: it starts with bytes 68 65 6c 6c, neither "CDF" (NetCDF-3) nor the HDF5 signature (netCDF-4)');
+    expect(() => sniffFormat(text, text.length)).toThrow(
+      'not a NetCDF file: it starts with bytes 68 65 6c 6c, neither "CDF" (NetCDF-3) nor the HDF5 signature (netCDF-4)',
+    );
     expect(() => sniffFormat(new Uint8Array(0), 0)).toThrow('not a NetCDF file: the file is empty');
     expect(() => sniffFormat(new Uint8Array([0x43, 0x44, 0x46, 5]), 4)).toThrow(/CDF-5/);
     expect(sniffFormat(new Uint8Array([0x43, 0x44, 0x46, 2]), 4)).toBe('netcdf3');

@@ -18,7 +18,10 @@ const [NC_CHAR, NC_SHORT, NC_INT] = [u32(2), u32(3), u32(4)];
 describe('NetCDF-3 header and data layout, byte for byte', () => {
   // dims time (unlimited), x = 3; global title = "ab"; s(x) short; v(time) int with 2 records.
   const file = {
-    dimensions: [{ name: 'time', unlimited: true }, { name: 'x', size: 3 }],
+    dimensions: [
+      { name: 'time', unlimited: true },
+      { name: 'x', size: 3 },
+    ],
     attributes: [ncText('title', 'ab')],
     variables: [
       { name: 's', type: 'short' as const, dimensions: ['x'], data: [1, 2, 3] },
@@ -32,17 +35,49 @@ describe('NetCDF-3 header and data layout, byte for byte', () => {
     const sBegin = headerSize;
     const vBegin = headerSize + 8; // s: 3 shorts = 6 bytes, vsize 8
     return [
-      ...chars('CDF'), version,
+      ...chars('CDF'),
+      version,
       ...u32(2), // numrecs
-      ...NC_DIMENSION, ...u32(2), ...name('time'), ...u32(0), ...name('x'), ...u32(3),
-      ...NC_ATTRIBUTE, ...u32(1), ...name('title'), ...NC_CHAR, ...u32(2), ...padded(chars('ab')),
-      ...NC_VARIABLE, ...u32(2),
-      ...name('s'), ...u32(1), ...u32(1), ...ABSENT, ...NC_SHORT, ...u32(8), ...begin(sBegin),
-      ...name('v'), ...u32(1), ...u32(0), ...ABSENT, ...NC_INT, ...u32(4), ...begin(vBegin),
+      ...NC_DIMENSION,
+      ...u32(2),
+      ...name('time'),
+      ...u32(0),
+      ...name('x'),
+      ...u32(3),
+      ...NC_ATTRIBUTE,
+      ...u32(1),
+      ...name('title'),
+      ...NC_CHAR,
+      ...u32(2),
+      ...padded(chars('ab')),
+      ...NC_VARIABLE,
+      ...u32(2),
+      ...name('s'),
+      ...u32(1),
+      ...u32(1),
+      ...ABSENT,
+      ...NC_SHORT,
+      ...u32(8),
+      ...begin(sBegin),
+      ...name('v'),
+      ...u32(1),
+      ...u32(0),
+      ...ABSENT,
+      ...NC_INT,
+      ...u32(4),
+      ...begin(vBegin),
       // s, padded to four bytes with the short fill value −32767 (0x8001): data padding uses fill
-      0, 1, 0, 2, 0, 3, 0x80, 0x01,
+      0,
+      1,
+      0,
+      2,
+      0,
+      3,
+      0x80,
+      0x01,
       // the records: one int each
-      ...u32(7), ...u32(0xffffffff),
+      ...u32(7),
+      ...u32(0xffffffff),
     ];
   }
 
@@ -55,14 +90,36 @@ describe('NetCDF-3 header and data layout, byte for byte', () => {
   });
 
   it('writes ABSENT lists for a file with nothing in it', () => {
-    expect(Array.from(encodeNetcdf3({ dimensions: [], variables: [] }))).toEqual([...chars('CDF'), 2, ...u32(0), ...ABSENT, ...ABSENT, ...ABSENT]);
+    expect(Array.from(encodeNetcdf3({ dimensions: [], variables: [] }))).toEqual([
+      ...chars('CDF'),
+      2,
+      ...u32(0),
+      ...ABSENT,
+      ...ABSENT,
+      ...ABSENT,
+    ]);
   });
 
   it('pads names and text with zero bytes and encodes them as UTF-8', () => {
     const b = encodeNetcdf3({ format: 'cdf1', dimensions: [], attributes: [ncText('é', 'ψ!')], variables: [] });
     expect(Array.from(b)).toEqual([
-      ...chars('CDF'), 1, ...u32(0), ...ABSENT,
-      ...NC_ATTRIBUTE, ...u32(1), ...u32(2), 0xc3, 0xa9, 0, 0, ...NC_CHAR, ...u32(3), 0xcf, 0x88, 0x21, 0,
+      ...chars('CDF'),
+      1,
+      ...u32(0),
+      ...ABSENT,
+      ...NC_ATTRIBUTE,
+      ...u32(1),
+      ...u32(2),
+      0xc3,
+      0xa9,
+      0,
+      0,
+      ...NC_CHAR,
+      ...u32(3),
+      0xcf,
+      0x88,
+      0x21,
+      0,
       ...ABSENT,
     ]);
   });

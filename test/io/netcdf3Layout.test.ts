@@ -9,12 +9,18 @@ const plan = (file: NcFile) => {
   const valid = validateNetcdf3(file, 'records');
   return { valid, layout: planLayout(valid) };
 };
-const dims = [{ name: 'time', unlimited: true }, { name: 'n', size: 5 }];
+const dims = [
+  { name: 'time', unlimited: true },
+  { name: 'n', size: 5 },
+];
 const recordVar = (name: string, type: NcType) => ({ name, type, dimensions: ['time', 'n'] });
 
 describe('NetCDF-3 layout', () => {
   it('sums the padded vsizes of the record variables into the record size', () => {
-    const { valid, layout } = plan({ dimensions: dims, variables: [recordVar('a', 'short'), recordVar('b', 'byte'), recordVar('c', 'double')] });
+    const { valid, layout } = plan({
+      dimensions: dims,
+      variables: [recordVar('a', 'short'), recordVar('b', 'byte'), recordVar('c', 'double')],
+    });
     expect(valid.variables.map((v) => v.vsize)).toEqual([12, 8, 40]); // 10 → 12, 5 → 8, 40
     expect(layout.recsize).toBe(60);
     expect(layout.begins).toEqual([layout.recordStart, layout.recordStart + 12, layout.recordStart + 20]);
@@ -22,7 +28,12 @@ describe('NetCDF-3 layout', () => {
   });
 
   it('packs records without padding when there is exactly one record variable', () => {
-    for (const [type, slab] of [['short', 10], ['byte', 5], ['char', 5], ['int', 20]] as const) {
+    for (const [type, slab] of [
+      ['short', 10],
+      ['byte', 5],
+      ['char', 5],
+      ['int', 20],
+    ] as const) {
       const { valid, layout } = plan({ dimensions: dims, variables: [recordVar('a', type)] });
       expect(layout.recsize, type).toBe(slab);
       expect(valid.variables[0].vsize, type).toBe(Math.ceil(slab / 4) * 4); // vsize stays padded

@@ -4,7 +4,19 @@ import { checkNetcdfName, netcdfNameProblem, netcdfTextBytes } from '../../lib/i
 // The name grammar and "Note on names" of the NetCDF classic format specification.
 describe('NetCDF names', () => {
   it('accepts what the grammar allows', () => {
-    for (const ok of ['q', 'zeta', 'stria_nu_order', '_FillValue', '2d', 'x.y@z+w-v', 'a b', 'Tmax!', 'ψ', 'température', 'x'.repeat(256)]) {
+    for (const ok of [
+      'q',
+      'zeta',
+      'stria_nu_order',
+      '_FillValue',
+      '2d',
+      'x.y@z+w-v',
+      'a b',
+      'Tmax!',
+      'ψ',
+      'température',
+      'x'.repeat(256),
+    ]) {
       expect(netcdfNameProblem(ok), ok).toBeNull();
     }
   });
@@ -35,10 +47,16 @@ describe('NetCDF names', () => {
   // UTF-8 examples of RFC 3629 §7 [published]; names are stored as UTF-8 (the specification's "Note on names").
   it('stores names and text as UTF-8, and refuses a lone surrogate, which has none', () => {
     expect(Array.from(netcdfTextBytes('A\u2262\u0391.'))).toEqual([0x41, 0xe2, 0x89, 0xa2, 0xce, 0x91, 0x2e]);
-    expect(Array.from(netcdfTextBytes('\u65e5\u672c\u8a9e'))).toEqual([0xe6, 0x97, 0xa5, 0xe6, 0x9c, 0xac, 0xe8, 0xaa, 0x9e]);
+    expect(Array.from(netcdfTextBytes('\u65e5\u672c\u8a9e'))).toEqual([
+      0xe6, 0x97, 0xa5, 0xe6, 0x9c, 0xac, 0xe8, 0xaa, 0x9e,
+    ]);
     expect(Array.from(netcdfTextBytes('\u{233b4}'))).toEqual([0xf0, 0xa3, 0x8e, 0xb4]);
-    expect(netcdfNameProblem('a\ud800')).toBe('not valid Unicode (lone surrogate at position 1: not encodable as UTF-8)');
-    expect(() => netcdfTextBytes('ab\udc00')).toThrow(new RangeError('lone surrogate at position 2: not encodable as UTF-8'));
+    expect(netcdfNameProblem('a\ud800')).toBe(
+      'not valid Unicode (lone surrogate at position 1: not encodable as UTF-8)',
+    );
+    expect(() => netcdfTextBytes('ab\udc00')).toThrow(
+      new RangeError('lone surrogate at position 2: not encodable as UTF-8'),
+    );
     expect(() => netcdfTextBytes('\ud800\ud800\udc00')).toThrow(/position 0/);
   });
 });

@@ -32,7 +32,9 @@ describe('NetCDF-3 values', () => {
 
   it('refuses values the type cannot hold, naming the index', () => {
     const v = new DataView(new ArrayBuffer(64));
-    expect(() => writeValues(v, 0, 'int', [1, 2.5], 0, 2, 'variable "n"')).toThrow(/variable "n"\[1\] = 2.5 does not fit type int/);
+    expect(() => writeValues(v, 0, 'int', [1, 2.5], 0, 2, 'variable "n"')).toThrow(
+      /variable "n"\[1\] = 2.5 does not fit type int/,
+    );
     expect(() => writeValues(v, 0, 'int', [NaN], 0, 1, 'n')).toThrow(/NaN does not fit type int/);
     expect(() => writeValues(v, 0, 'short', [32768], 0, 1, 'n')).toThrow(/does not fit type short/);
     expect(() => writeValues(v, 0, 'byte', [-129], 0, 1, 'n')).toThrow(/does not fit type byte/);

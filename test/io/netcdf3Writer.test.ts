@@ -16,7 +16,12 @@ function sample(): NcFile {
   const q = randomArray(nt * ny * nx, 7);
   q.set(SPECIALS);
   return {
-    dimensions: [{ name: 'time', unlimited: true }, { name: 'y', size: ny }, { name: 'x', size: nx }, { name: 'len5', size: 5 }],
+    dimensions: [
+      { name: 'time', unlimited: true },
+      { name: 'y', size: ny },
+      { name: 'x', size: nx },
+      { name: 'len5', size: 5 },
+    ],
     attributes: [
       ncText('Conventions', 'CF-1.8'),
       ncText('odd', 'abcde'),
@@ -30,7 +35,13 @@ function sample(): NcFile {
     variables: [
       { name: 'label', type: 'char', dimensions: ['len5'], data: 'Stria' },
       { name: 'bytes', type: 'byte', dimensions: ['len5'], data: [-128, -1, 0, 1, 127] },
-      { name: 'x', type: 'double', dimensions: ['x'], data: [0, 0.25, 0.5, 0.75], attributes: [ncText('units', '1'), ncText('axis', 'X')] },
+      {
+        name: 'x',
+        type: 'double',
+        dimensions: ['x'],
+        data: [0, 0.25, 0.5, 0.75],
+        attributes: [ncText('units', '1'), ncText('axis', 'X')],
+      },
       { name: 'y', type: 'float', dimensions: ['y'], data: [0, 1 / 3, 2 / 3] },
       { name: 'time', type: 'double', dimensions: ['time'], data: [0, 0.5, 1] },
       { name: 'step', type: 'int', dimensions: ['time'], data: [0, 100, 2147483647] },
@@ -45,7 +56,8 @@ const flat = (v: unknown): number[] => (Array.isArray(v) ? v.flatMap(flat) : [v 
 
 function expectSameValues(actual: ArrayLike<number>, expected: ArrayLike<number>): void {
   expect(actual.length).toBe(expected.length);
-  for (let i = 0; i < expected.length; i++) if (!Object.is(actual[i], expected[i])) expect.fail(`value ${i}: ${actual[i]} !== ${expected[i]}`);
+  for (let i = 0; i < expected.length; i++)
+    if (!Object.is(actual[i], expected[i])) expect.fail(`value ${i}: ${actual[i]} !== ${expected[i]}`);
 }
 
 describe('NetCDF-3 writer, read back by netcdfjs', () => {
@@ -54,7 +66,12 @@ describe('NetCDF-3 writer, read back by netcdfjs', () => {
       const file = { ...sample(), format };
       const r = new NetCDFReader(encodeNetcdf3(file));
       expect(r.version).toBe(format === 'cdf1' ? 'classic format' : '64-bit offset format');
-      expect(r.dimensions).toEqual([{ name: 'time', size: 0 }, { name: 'y', size: 3 }, { name: 'x', size: 4 }, { name: 'len5', size: 5 }]);
+      expect(r.dimensions).toEqual([
+        { name: 'time', size: 0 },
+        { name: 'y', size: 3 },
+        { name: 'x', size: 4 },
+        { name: 'len5', size: 5 },
+      ]);
       expect(r.recordDimension.length).toBe(3);
       expect(r.recordDimension.name).toBe('time');
 
@@ -68,17 +85,28 @@ describe('NetCDF-3 writer, read back by netcdfjs', () => {
       expect(g.f).toEqual({ name: 'f', type: 'float', value: Math.fround(0.1) });
 
       const x = r.variables.find((v) => v.name === 'x')!;
-      expect((x.attributes as { name: string; value: unknown }[]).map((a) => [a.name, a.value])).toEqual([['units', '1'], ['axis', 'X']]);
+      expect((x.attributes as { name: string; value: unknown }[]).map((a) => [a.name, a.value])).toEqual([
+        ['units', '1'],
+        ['axis', 'X'],
+      ]);
       expect(r.variables.map((v) => [v.name, v.type, v.record])).toEqual([
-        ['label', 'char', false], ['bytes', 'byte', false], ['x', 'double', false], ['y', 'float', false],
-        ['time', 'double', true], ['step', 'int', true], ['q', 'double', true], ['qf', 'float', true],
+        ['label', 'char', false],
+        ['bytes', 'byte', false],
+        ['x', 'double', false],
+        ['y', 'float', false],
+        ['time', 'double', true],
+        ['step', 'int', true],
+        ['q', 'double', true],
+        ['qf', 'float', true],
       ]);
 
       const data = Object.fromEntries(file.variables.map((v) => [v.name, v.data]));
       expect(r.getDataVariableAsString('label')).toBe('Stria');
       // netcdfjs reads bytes unsigned and reads the whole vsize, so the padding shows: the byte fill
       // value −127, as the specification asks of data padding.
-      expect(flat(r.getDataVariable('bytes')).map((b) => (b << 24) >> 24)).toEqual([-128, -1, 0, 1, 127, -127, -127, -127]);
+      expect(flat(r.getDataVariable('bytes')).map((b) => (b << 24) >> 24)).toEqual([
+        -128, -1, 0, 1, 127, -127, -127, -127,
+      ]);
       expectSameValues(flat(r.getDataVariable('x')), data.x as number[]);
       expectSameValues(flat(r.getDataVariable('y')), Float32Array.from(data.y as number[]));
       expectSameValues(flat(r.getDataVariable('time')), data.time as number[]);
@@ -90,13 +118,26 @@ describe('NetCDF-3 writer, read back by netcdfjs', () => {
 
   it('writes a single record variable (packed records) that netcdfjs reads', () => {
     const v = randomArray(5 * 7, 3);
-    const r = new NetCDFReader(encodeNetcdf3({ dimensions: [{ name: 't', unlimited: true }, { name: 'n', size: 7 }], variables: [{ name: 'v', type: 'double', dimensions: ['t', 'n'], data: v }] }));
+    const r = new NetCDFReader(
+      encodeNetcdf3({
+        dimensions: [
+          { name: 't', unlimited: true },
+          { name: 'n', size: 7 },
+        ],
+        variables: [{ name: 'v', type: 'double', dimensions: ['t', 'n'], data: v }],
+      }),
+    );
     expect(r.recordDimension.length).toBe(5);
     expectSameValues(flat(r.getDataVariable('v')), v);
   });
 
   it('writes a file with an unlimited dimension and no records', () => {
-    const r = new NetCDFReader(encodeNetcdf3({ dimensions: [{ name: 't', unlimited: true }], variables: [{ name: 'v', type: 'int', dimensions: ['t'], data: [] }] }));
+    const r = new NetCDFReader(
+      encodeNetcdf3({
+        dimensions: [{ name: 't', unlimited: true }],
+        variables: [{ name: 'v', type: 'int', dimensions: ['t'], data: [] }],
+      }),
+    );
     expect(r.recordDimension.length).toBe(0);
     expect(r.variables[0].record).toBe(true);
   });
@@ -104,7 +145,10 @@ describe('NetCDF-3 writer, read back by netcdfjs', () => {
 
 describe('Netcdf3RecordWriter', () => {
   const file = sample();
-  const recordless: NcFile = { ...file, variables: file.variables.map((v) => (v.dimensions[0] === 'time' ? { ...v, data: undefined } : v)) };
+  const recordless: NcFile = {
+    ...file,
+    variables: file.variables.map((v) => (v.dimensions[0] === 'time' ? { ...v, data: undefined } : v)),
+  };
   const slab = (name: string, r: number) => {
     const v = file.variables.find((x) => x.name === name)!;
     const n = name === 'time' || name === 'step' ? 1 : 12;
@@ -119,7 +163,12 @@ describe('Netcdf3RecordWriter', () => {
     expect(head.length).toBe(w.layout.recordStart);
     out.set(head);
     for (let r = 0; r < 3; r++) {
-      const bytes = w.appendRecord({ time: slab('time', r), step: slab('step', r), q: slab('q', r), qf: slab('qf', r) });
+      const bytes = w.appendRecord({
+        time: slab('time', r),
+        step: slab('step', r),
+        q: slab('q', r),
+        qf: slab('qf', r),
+      });
       expect(bytes.length).toBe(w.layout.recsize);
       out.set(bytes, w.recordOffset(r));
       out.set(w.numrecsField(), NUMRECS_OFFSET);

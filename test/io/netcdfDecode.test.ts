@@ -5,7 +5,9 @@ import { decodeSlab } from '../../lib/io/netcdfDecode';
 describe('decodeSlab', () => {
   const b = (...x: number[]) => new Uint8Array(x);
   it('decodes each type from big-endian bytes', () => {
-    expect(Array.from(decodeSlab('double', b(0x3f, 0xf0, 0, 0, 0, 0, 0, 0, 0xc0, 0, 0, 0, 0, 0, 0, 0)))).toEqual([1, -2]);
+    expect(Array.from(decodeSlab('double', b(0x3f, 0xf0, 0, 0, 0, 0, 0, 0, 0xc0, 0, 0, 0, 0, 0, 0, 0)))).toEqual([
+      1, -2,
+    ]);
     expect(Array.from(decodeSlab('float', b(0x3f, 0x80, 0, 0)))).toEqual([1]);
     expect(Array.from(decodeSlab('int', b(0x80, 0, 0, 1, 0, 0, 0, 2)))).toEqual([-2147483647, 2]);
     expect(Array.from(decodeSlab('short', b(0x80, 0x01, 0x12, 0x34)))).toEqual([-32767, 0x1234]);

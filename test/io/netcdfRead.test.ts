@@ -11,13 +11,33 @@ const ny = 3;
 const nx = 5;
 const q = randomArray(nt * ny * nx, 11);
 const file: NcFile = {
-  dimensions: [{ name: 'time', unlimited: true }, { name: 'y', size: ny }, { name: 'x', size: nx }],
-  attributes: [ncText('Conventions', 'CF-1.8'), ncText('équation', 'ζ = ∇²ψ'), { name: 'flags', type: 'byte', value: [-1, 5] }, { name: 'one', type: 'short', value: -3 }],
+  dimensions: [
+    { name: 'time', unlimited: true },
+    { name: 'y', size: ny },
+    { name: 'x', size: nx },
+  ],
+  attributes: [
+    ncText('Conventions', 'CF-1.8'),
+    ncText('équation', 'ζ = ∇²ψ'),
+    { name: 'flags', type: 'byte', value: [-1, 5] },
+    { name: 'one', type: 'short', value: -3 },
+  ],
   variables: [
-    { name: 'x', type: 'double', dimensions: ['x'], data: [0, 1, 2, 3, 4], attributes: [ncText('units', '1'), ncDouble('scale', [1, 2])] },
+    {
+      name: 'x',
+      type: 'double',
+      dimensions: ['x'],
+      data: [0, 1, 2, 3, 4],
+      attributes: [ncText('units', '1'), ncDouble('scale', [1, 2])],
+    },
     { name: 'time', type: 'double', dimensions: ['time'], data: [0, 1, 2, 3] },
     { name: 'q', type: 'double', dimensions: ['time', 'y', 'x'], data: q },
-    { name: 'n', type: 'short', dimensions: ['time', 'y'], data: Int16Array.from({ length: nt * ny }, (_, i) => i - 6) },
+    {
+      name: 'n',
+      type: 'short',
+      dimensions: ['time', 'y'],
+      data: Int16Array.from({ length: nt * ny }, (_, i) => i - 6),
+    },
     { name: 'qf', type: 'float', dimensions: ['time', 'y', 'x'], data: Float32Array.from(q) },
   ],
 };
@@ -31,7 +51,11 @@ describe('readNetcdf', () => {
   it('gives dimensions, attributes and variables with their shapes', () => {
     expect(f.format).toBe('cdf2');
     expect(f.numRecords).toBe(nt);
-    expect(f.dimensions).toEqual([{ name: 'time', size: nt, unlimited: true }, { name: 'y', size: ny, unlimited: false }, { name: 'x', size: nx, unlimited: false }]);
+    expect(f.dimensions).toEqual([
+      { name: 'time', size: nt, unlimited: true },
+      { name: 'y', size: ny, unlimited: false },
+      { name: 'x', size: nx, unlimited: false },
+    ]);
     expect(f.attributes).toEqual({ Conventions: 'CF-1.8', équation: 'ζ = ∇²ψ', flags: [-1, 5], one: -3 });
     expect(f.variables.map((v) => [v.name, v.type, v.dimensions.join(','), v.shape.join('x'), v.isRecord])).toEqual([
       ['x', 'double', 'x', '5', false],
@@ -58,10 +82,26 @@ describe('readNetcdf', () => {
 
   it('reads packed records of a single short or char record variable', () => {
     const s = Int16Array.from([1, 2, 3, 4, 5, 6, 7, 8, 9]);
-    const g = readNetcdf(encodeNetcdf3({ dimensions: [{ name: 't', unlimited: true }, { name: 'n', size: 3 }], variables: [{ name: 's', type: 'short', dimensions: ['t', 'n'], data: s }] }));
+    const g = readNetcdf(
+      encodeNetcdf3({
+        dimensions: [
+          { name: 't', unlimited: true },
+          { name: 'n', size: 3 },
+        ],
+        variables: [{ name: 's', type: 'short', dimensions: ['t', 'n'], data: s }],
+      }),
+    );
     expect(g.recordSize).toBe(6);
     expect(Array.from(g.readRecord('s', 2))).toEqual([7, 8, 9]);
-    const c = readNetcdf(encodeNetcdf3({ dimensions: [{ name: 't', unlimited: true }, { name: 'n', size: 3 }], variables: [{ name: 'c', type: 'char', dimensions: ['t', 'n'], data: 'abcdefghi' }] }));
+    const c = readNetcdf(
+      encodeNetcdf3({
+        dimensions: [
+          { name: 't', unlimited: true },
+          { name: 'n', size: 3 },
+        ],
+        variables: [{ name: 'c', type: 'char', dimensions: ['t', 'n'], data: 'abcdefghi' }],
+      }),
+    );
     expect(String.fromCharCode(...c.readRecord('c', 1))).toBe('def');
   });
 
@@ -70,7 +110,9 @@ describe('readNetcdf', () => {
     const { offset, byteLength } = head.slabRange('q', 3);
     const rec = decodeSlab('double', bytes.slice(offset, offset + byteLength));
     expect(Array.from(rec)).toEqual(Array.from(q.subarray(3 * ny * nx)));
-    expect(() => head.readRecord('q', 3)).toThrow(/truncated NetCDF file: record 3 of "q" ends at byte \d+ but the file has \d+ bytes/);
+    expect(() => head.readRecord('q', 3)).toThrow(
+      /truncated NetCDF file: record 3 of "q" ends at byte \d+ but the file has \d+ bytes/,
+    );
   });
 
   it('infers the record count of a streaming file (numrecs = 2³²−1) from its length', () => {
@@ -83,8 +125,12 @@ describe('readNetcdf', () => {
 
 describe('readNetcdf refuses', () => {
   it('bytes that are not NetCDF-3', () => {
-    expect(() => readNetcdf(new TextEncoder().encode('x,y\r\n1,2\r\n'))).toThrow(/not a NetCDF file: it does not start with "CDF"/);
-    expect(() => readNetcdf(new Uint8Array([0x89, 0x48, 0x44, 0x46, 0x0d, 0x0a, 0x1a, 0x0a]))).toThrow(/HDF5 \(NetCDF-4\)/);
+    expect(() => readNetcdf(new TextEncoder().encode('x,y\r\n1,2\r\n'))).toThrow(
+      /not a NetCDF file: it does not start with "CDF"/,
+    );
+    expect(() => readNetcdf(new Uint8Array([0x89, 0x48, 0x44, 0x46, 0x0d, 0x0a, 0x1a, 0x0a]))).toThrow(
+      /HDF5 \(NetCDF-4\)/,
+    );
     const cdf5 = bytes.slice();
     cdf5[3] = 5;
     expect(() => readNetcdf(cdf5)).toThrow(/CDF-5 .* not supported/);
@@ -95,7 +141,9 @@ describe('readNetcdf refuses', () => {
     for (const cut of [10, 40, 200, headerSize - 1, headerSize]) {
       expect(() => readNetcdf(bytes.slice(0, cut)), `cut at ${cut}`).toThrow(/truncated/);
     }
-    expect(() => readNetcdf(bytes.slice(0, bytes.length - 1))).toThrow(/truncated NetCDF file: record 3 of "qf" ends at byte \d+ but the file has \d+ bytes/);
+    expect(() => readNetcdf(bytes.slice(0, bytes.length - 1))).toThrow(
+      /truncated NetCDF file: record 3 of "qf" ends at byte \d+ but the file has \d+ bytes/,
+    );
   });
 
   it('a missing variable or record, naming what there is', () => {

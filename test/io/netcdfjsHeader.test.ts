@@ -3,7 +3,8 @@ import { attributesOf, utf8FromNetcdfjs } from '../../lib/io/netcdfjsHeader';
 
 // netcdfjs 4 turns each header byte b into String.fromCharCode(signed b); the NetCDF classic format
 // specification stores names as UTF-8 and reads byte values as signed.
-const asNetcdfjs = (s: string) => Array.from(new TextEncoder().encode(s), (b) => String.fromCharCode((b << 24) >> 24)).join('');
+const asNetcdfjs = (s: string) =>
+  Array.from(new TextEncoder().encode(s), (b) => String.fromCharCode((b << 24) >> 24)).join('');
 
 describe('netcdfjs header repair', () => {
   it('recovers UTF-8 names and text', () => {

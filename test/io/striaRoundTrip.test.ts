@@ -42,11 +42,18 @@ function direct(qs: Float64Array[]) {
   const plan = new SnapshotPlan(params);
   const zm = new ZonalMeanPlan(plan.grid, { beta: params.beta });
   const n = qs.length;
-  const mean = (k: 'ubar' | 'qtot') => qs.map((q) => zm.compute(plan.gridFields(q))[k].slice()).reduce((s, p) => s.map((x, j) => x + p[j] / n), new Float64Array(params.ny));
+  const mean = (k: 'ubar' | 'qtot') =>
+    qs
+      .map((q) => zm.compute(plan.gridFields(q))[k].slice())
+      .reduce((s, p) => s.map((x, j) => x + p[j] / n), new Float64Array(params.ny));
   const spectra = SpectraPlan.forSnapshots(plan);
-  const E = qs.map((q) => spectra.compute(q).E.slice()).reduce((s, p) => s.map((x, j) => x + p[j] / n), new Float64Array(spectra.nShells));
+  const E = qs
+    .map((q) => spectra.compute(q).E.slice())
+    .reduce((s, p) => s.map((x, j) => x + p[j] / n), new Float64Array(spectra.nShells));
   const flux = new SpectralFluxPlan(plan);
-  const PiE = qs.map((q) => flux.compute(q).PiE.slice()).reduce((s, p) => s.map((x, j) => x + p[j] / n), new Float64Array(spectra.nShells));
+  const PiE = qs
+    .map((q) => flux.compute(q).PiE.slice())
+    .reduce((s, p) => s.map((x, j) => x + p[j] / n), new Float64Array(spectra.nShells));
   let s2 = 0;
   for (const q of qs) {
     const f = plan.gridFields(q);
@@ -54,7 +61,15 @@ function direct(qs: Float64Array[]) {
   }
   const ubar = mean('ubar');
   const qtot = mean('qtot');
-  return { ubar, qtot, jets: new JetFinder(params.ny, params.Ly).find(ubar), stairs: new StaircaseFitter(params.ny, params.Ly, params.beta).fit(qtot), E, PiE, urms: Math.sqrt(s2 / (n * params.nx * params.ny)) };
+  return {
+    ubar,
+    qtot,
+    jets: new JetFinder(params.ny, params.Ly).find(ubar),
+    stairs: new StaircaseFitter(params.ny, params.Ly, params.beta).fit(qtot),
+    E,
+    PiE,
+    urms: Math.sqrt(s2 / (n * params.nx * params.ny)),
+  };
 }
 
 describe('a Stria-written file round-trips to the diagnostics of its model states', () => {
@@ -63,7 +78,10 @@ describe('a Stria-written file round-trips to the diagnostics of its model state
   const plan = new SnapshotPlan(params);
   const frames = qs.map((q, k) => snapshotFrame(0.5 * k, 10 * k, plan.gridFields(q)));
 
-  for (const units of [{ kind: 'model' }, { kind: 'physical', metresPerLength: 2e5, secondsPerTime: 5e4 }] as UnitSystem[]) {
+  for (const units of [
+    { kind: 'model' },
+    { kind: 'physical', metresPerLength: 2e5, secondsPerTime: 5e4 },
+  ] as UnitSystem[]) {
     it(`in ${units.kind} units`, () => {
       const run: StriaRunInfo = { params, striaVersion: '0.1.0', createdAt: '2025-02-01T00:00:00Z', units };
       const r = analyzeFile(memorySource(encodeStriaFile(SNAPSHOT_FILE, run, frames)));
@@ -72,7 +90,13 @@ describe('a Stria-written file round-trips to the diagnostics of its model state
       // The file's own parameters, converted: β in 1/(L·T), k_d in 1/L.
       expect(r.parameters.beta!.value).toBeCloseTo(params.beta / (l * t), 12 + Math.log10(l * t));
       expect(r.parameters.kd!.source).toBe("the file's stria_kd attribute (a Stria run)");
-      expect(r.file.fields).toMatchObject({ u: { variable: 'u' }, v: { variable: 'v' }, q: { variable: 'q' }, zeta: { variable: 'zeta' }, psi: { variable: 'psi' } });
+      expect(r.file.fields).toMatchObject({
+        u: { variable: 'u' },
+        v: { variable: 'v' },
+        q: { variable: 'q' },
+        zeta: { variable: 'zeta' },
+        psi: { variable: 'psi' },
+      });
       expect(a.grid).toMatchObject({ periodicX: true, periodicY: true });
       const speed = l / t;
       (a.profiles.ubar as number[]).forEach((u, j) => expect(Math.abs(u / speed - d.ubar[j])).toBeLessThan(1e-13));
@@ -88,7 +112,9 @@ describe('a Stria-written file round-trips to the diagnostics of its model state
       const eUnit = speed * speed;
       spec.E.forEach((e, s) => expect(Math.abs(e / eUnit - d.E[s])).toBeLessThan(1e-12 * Math.max(...d.E)));
       const pUnit = eUnit / t;
-      spec.PiE!.forEach((p, s) => expect(Math.abs(p / pUnit - d.PiE[s])).toBeLessThan(1e-10 * Math.max(...d.PiE.map(Math.abs))));
+      spec.PiE!.forEach((p, s) =>
+        expect(Math.abs(p / pUnit - d.PiE[s])).toBeLessThan(1e-10 * Math.max(...d.PiE.map(Math.abs))),
+      );
     });
   }
 });

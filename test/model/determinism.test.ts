@@ -2,7 +2,18 @@ import { describe, expect, it } from 'vitest';
 import { Model } from '../../lib/model/model';
 import type { ModelParams } from '../../lib/model/params';
 
-const forced: Partial<ModelParams> = { nx: 64, ny: 64, kf: 12, dkf: 2, eps: 0.05, mu: 0.02, beta: 5, nu: 1e-12, nu_order: 4, dt: 0.02 };
+const forced: Partial<ModelParams> = {
+  nx: 64,
+  ny: 64,
+  kf: 12,
+  dkf: 2,
+  eps: 0.05,
+  mu: 0.02,
+  beta: 5,
+  nu: 1e-12,
+  nu_order: 4,
+  dt: 0.02,
+};
 
 function bitsEqual(a: Float64Array, b: Float64Array): boolean {
   if (a.length !== b.length) return false;

@@ -22,7 +22,12 @@ describe('dissipation', () => {
     const [mu, kd] = [0.5, 3];
     const model = new Model({ ...QUIET, nx: 32, ny: 32, mu, kd, dt: 0.05 });
     const p = model.params;
-    model.setState(spectrumOf(p, sampleGrid(p, (x) => Math.cos(2 * x))));
+    model.setState(
+      spectrumOf(
+        p,
+        sampleGrid(p, (x) => Math.cos(2 * x)),
+      ),
+    );
     const a0 = Math.hypot(model.qHat[4], model.qHat[5]);
     model.step(40);
     const a1 = Math.hypot(model.qHat[4], model.qHat[5]);
@@ -37,7 +42,12 @@ describe('dissipation', () => {
       const nu = 0.3 / Math.pow(k * k, order);
       const model = new Model({ ...QUIET, nx: 32, ny: 32, nu, nu_order: order, dt: 0.1 });
       const p = model.params;
-      model.setState(spectrumOf(p, sampleGrid(p, (_x, y) => Math.sin(k * y))));
+      model.setState(
+        spectrumOf(
+          p,
+          sampleGrid(p, (_x, y) => Math.sin(k * y)),
+        ),
+      );
       const idx = 2 * k * model.grid.nkx;
       const a0 = Math.hypot(model.qHat[idx], model.qHat[idx + 1]);
       model.step(30);
@@ -49,7 +59,12 @@ describe('dissipation', () => {
   it('large-scale drag acts below its cutoff only', () => {
     const model = new Model({ ...QUIET, nx: 32, ny: 32, mu_ls: 0.7, k_ls: 2.5, dt: 0.1 });
     const p = model.params;
-    model.setState(spectrumOf(p, sampleGrid(p, (x) => Math.cos(2 * x) + Math.cos(3 * x))));
+    model.setState(
+      spectrumOf(
+        p,
+        sampleGrid(p, (x) => Math.cos(2 * x) + Math.cos(3 * x)),
+      ),
+    );
     model.step(10);
     const low = Math.hypot(model.qHat[4], model.qHat[5]);
     const high = Math.hypot(model.qHat[6], model.qHat[7]);
@@ -71,7 +86,11 @@ describe('conservation in the unforced inviscid run', () => {
       const a = energyEnstrophy(model);
       model.step(Math.round(2 / dt));
       const b = energyEnstrophy(model);
-      return { e: Math.abs(b.energy / a.energy - 1), z: Math.abs(b.enstrophy / a.enstrophy - 1), cfl: model.report.cfl };
+      return {
+        e: Math.abs(b.energy / a.energy - 1),
+        z: Math.abs(b.enstrophy / a.enstrophy - 1),
+        cfl: model.report.cfl,
+      };
     };
     const coarse = drift(0.005);
     const fine = drift(0.0025);

@@ -92,7 +92,18 @@ describe('stochastic forcing', () => {
 describe('steady forcing', () => {
   it('reaches the linear drag balance E = ε/(2μ) on a single shell', () => {
     const mu = 0.5;
-    const model = new Model({ ...QUIET, nx: 32, ny: 32, forcing: 'steady', kf: 5, dkf: 0.01, eps: 0.2, mu, dt: 0.05, force_zonal: true });
+    const model = new Model({
+      ...QUIET,
+      nx: 32,
+      ny: 32,
+      forcing: 'steady',
+      kf: 5,
+      dkf: 0.01,
+      eps: 0.2,
+      mu,
+      dt: 0.05,
+      force_zonal: true,
+    });
     expect(model.forcedModes).toBe(6); // (5,0), (0,5), (3,±4), (4,±3): the |k| = 5 modes of the half plane
     model.step(800); // t = 40 = 20/μ: transients below e^{−20}
     const r = model.step(1);

@@ -1,6 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { BatchFFT, lastStageInPlace } from '../../lib/model/batchFFT';
-import { lastStageProducts, lastStageToBlock, lastStageToTendency, lastStageToWorkGrid, velocitiesFirstStageY } from '../../lib/model/fusedStages';
+import {
+  lastStageProducts,
+  lastStageToBlock,
+  lastStageToTendency,
+  lastStageToWorkGrid,
+  velocitiesFirstStageY,
+} from '../../lib/model/fusedStages';
 import { Grid } from '../../lib/model/grid';
 import { randomArray } from '../support/random';
 
@@ -26,8 +32,10 @@ describe('fused last stages equal the last stage followed by the pass, bit for b
       const ref = new Float64Array(2 * nx * ny);
       for (let kx = 0; kx <= top; kx++) {
         for (let y = 0; y < ny; y++) {
-          const ar = R[2 * (y * cols + kx)], ai = R[2 * (y * cols + kx) + 1];
-          const br = R[2 * (y * cols + top + 1 + kx)], bi = R[2 * (y * cols + top + 1 + kx) + 1];
+          const ar = R[2 * (y * cols + kx)],
+            ai = R[2 * (y * cols + kx) + 1];
+          const br = R[2 * (y * cols + top + 1 + kx)],
+            bi = R[2 * (y * cols + top + 1 + kx) + 1];
           ref[2 * (kx * ny + y)] = ar - bi;
           ref[2 * (kx * ny + y) + 1] = ai + br;
           if (kx > 0 && kx < nx / 2) {
@@ -50,8 +58,10 @@ describe('fused last stages equal the last stage followed by the pass, bit for b
       for (let k = 0; k <= top; k++) {
         const m = k === 0 ? 0 : nx - k;
         for (let y = 0; y < ny; y++) {
-          const yr = Y[2 * (k * ny + y)], yi = Y[2 * (k * ny + y) + 1];
-          const zr = Y[2 * (m * ny + y)], zi = Y[2 * (m * ny + y) + 1];
+          const yr = Y[2 * (k * ny + y)],
+            yi = Y[2 * (k * ny + y) + 1];
+          const zr = Y[2 * (m * ny + y)],
+            zi = Y[2 * (m * ny + y) + 1];
           const d = 2 * (y * cols + k);
           const db = d + 2 * (top + 1);
           ref[d] = 0.5 * (yr + zr);
@@ -109,7 +119,12 @@ describe('fused last stages equal the last stage followed by the pass, bit for b
     expect(Array.from(out)).toEqual(Array.from(ref));
   });
 
-  for (const [nx, ny] of [[32, 32], [16, 64], [32, 128], [8, 8]]) {
+  for (const [nx, ny] of [
+    [32, 32],
+    [16, 64],
+    [32, 128],
+    [8, 8],
+  ]) {
     it(`velocities into the first backward y stage at ${nx}×${ny}: the block as packed, then the whole y transform`, () => {
       const grid = new Grid({ nx, ny, Lx: 2 * Math.PI, Ly: 3 });
       const { nkx, Kx, kx, ky } = grid;

@@ -7,10 +7,16 @@ import { QUIET, randomKeptState, sampleGrid, spectrumOf } from '../support/model
 type Wave = { a: number; kx: number; ky: number; phi: number };
 
 /** ψ = Σ a cos(kx x + ky y + φ) and the exact J(ψ, q) of it, q = ∇²ψ − kd²ψ, from the derivatives. */
-function analyticJacobian(waves: Wave[], kd: number): { psi: (x: number, y: number) => number; J: (x: number, y: number) => number } {
+function analyticJacobian(
+  waves: Wave[],
+  kd: number,
+): { psi: (x: number, y: number) => number; J: (x: number, y: number) => number } {
   const psi = (x: number, y: number) => waves.reduce((s, w) => s + w.a * Math.cos(w.kx * x + w.ky * y + w.phi), 0);
   const J = (x: number, y: number) => {
-    let px = 0, py = 0, qx = 0, qy = 0;
+    let px = 0,
+      py = 0,
+      qx = 0,
+      qy = 0;
     for (const w of waves) {
       const s = Math.sin(w.kx * x + w.ky * y + w.phi);
       const K2 = w.kx * w.kx + w.ky * w.ky + kd * kd;
@@ -76,7 +82,10 @@ describe('NonlinearTerm', () => {
       const q = model.qHat;
       const g = model.grid;
       const inv = model.linear.invK2;
-      let dE = 0, dZ = 0, scaleE = 0, scaleZ = 0;
+      let dE = 0,
+        dZ = 0,
+        scaleE = 0,
+        scaleZ = 0;
       for (let jy = 0; jy < g.ny; jy++) {
         for (let ix = 0; ix < g.nkx; ix++) {
           const m = jy * g.nkx + ix;

@@ -1,6 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import { piFixed, reduceHugeArgument } from '../../lib/model/hugeArgument';
-import { fixedToPair, LOG_DENOMINATOR, LOG_FIRST, LOG_HI, LOG_LAST, LOG_LO, twiceArtanhFixed } from '../../lib/model/logTable';
+import {
+  fixedToPair,
+  LOG_DENOMINATOR,
+  LOG_FIRST,
+  LOG_HI,
+  LOG_LAST,
+  LOG_LO,
+  twiceArtanhFixed,
+} from '../../lib/model/logTable';
 import { expPortable, logPortable } from '../../lib/model/portableMath';
 import { cisPortable, cisTurnsPortable, PIO2_PARTS } from '../../lib/model/portableTrig';
 
@@ -49,7 +57,8 @@ describe('the model uses them, never Math’s', () => {
   it('lib/model calls no implementation-approximated Math function and no ** (ECMA-262 leaves their last bits open)', async () => {
     const { readdirSync, readFileSync } = await import('node:fs');
     const dir = new URL('../../lib/model/', import.meta.url);
-    const forbidden = /\bMath\.(exp|expm1|log|log1p|log2|log10|sin|cos|tan|asin|acos|atan|atan2|sinh|cosh|tanh|asinh|acosh|atanh|pow|cbrt|hypot)\b|[\w)\]]\s*\*\*\s*[\w(]/;
+    const forbidden =
+      /\bMath\.(exp|expm1|log|log1p|log2|log10|sin|cos|tan|asin|acos|atan|atan2|sinh|cosh|tanh|asinh|acosh|atanh|pow|cbrt|hypot)\b|[\w)\]]\s*\*\*\s*[\w(]/;
     const hits: string[] = [];
     for (const name of readdirSync(dir).filter((n) => n.endsWith('.ts'))) {
       readFileSync(new URL(name, dir), 'utf8')
@@ -62,8 +71,10 @@ describe('the model uses them, never Math’s', () => {
     }
     expect(hits).toEqual([]);
     // The pattern finds what it is for.
-    for (const code of ['const h = Math.exp(x);', 'Math.hypot(a, b)', 'const y = x ** 2;', 'f(2) ** k']) expect(forbidden.test(code), code).toBe(true);
-    for (const code of ['Math.sqrt(x)', 'Math.round(x)', 'Math.floor(x)', 'Math.PI * 2', 'Math.abs(x)']) expect(forbidden.test(code), code).toBe(false);
+    for (const code of ['const h = Math.exp(x);', 'Math.hypot(a, b)', 'const y = x ** 2;', 'f(2) ** k'])
+      expect(forbidden.test(code), code).toBe(true);
+    for (const code of ['Math.sqrt(x)', 'Math.round(x)', 'Math.floor(x)', 'Math.PI * 2', 'Math.abs(x)'])
+      expect(forbidden.test(code), code).toBe(false);
   });
 });
 
@@ -71,7 +82,26 @@ describe('the digits the functions are built from', () => {
   it('π by Machin’s formula has the published hexadecimal digits', () => {
     // [published] π = 3.243F6A88 85A308D3 13198A2E 03707344 … (hexadecimal; the same words open
     // Blowfish's P-array, Schneier 1994, which is made of them).
-    const words = ['243f6a88', '85a308d3', '13198a2e', '03707344', 'a4093822', '299f31d0', '082efa98', 'ec4e6c89', '452821e6', '38d01377', 'be5466cf', '34e90c6c', 'c0ac29b7', 'c97c50dd', '3f84d5b5', 'b5470917', '9216d5d9', '8979fb1b'];
+    const words = [
+      '243f6a88',
+      '85a308d3',
+      '13198a2e',
+      '03707344',
+      'a4093822',
+      '299f31d0',
+      '082efa98',
+      'ec4e6c89',
+      '452821e6',
+      '38d01377',
+      'be5466cf',
+      '34e90c6c',
+      'c0ac29b7',
+      'c97c50dd',
+      '3f84d5b5',
+      'b5470917',
+      '9216d5d9',
+      '8979fb1b',
+    ];
     const pi = piFixed(32 * words.length + 8) >> 8n;
     expect(pi.toString(16)).toBe(`3${words.join('')}`);
   });
@@ -102,7 +132,8 @@ describe('the digits the functions are built from', () => {
     expect(hi).toBe(0.6931471805599453);
     const d = LOG_HI[LOG_LAST - LOG_FIRST] - LOG_HI[0] - hi + (LOG_LO[LOG_LAST - LOG_FIRST] - LOG_LO[0] - lo);
     expect(Math.abs(d)).toBeLessThan(1e-30);
-    for (let j = LOG_FIRST; j <= LOG_LAST; j++) expect(ulps(LOG_HI[j - LOG_FIRST], Math.log(j / LOG_DENOMINATOR)), `j = ${j}`).toBeLessThanOrEqual(1);
+    for (let j = LOG_FIRST; j <= LOG_LAST; j++)
+      expect(ulps(LOG_HI[j - LOG_FIRST], Math.log(j / LOG_DENOMINATOR)), `j = ${j}`).toBeLessThanOrEqual(1);
     expect(LOG_HI[LOG_DENOMINATOR - LOG_FIRST]).toBe(0);
   });
 });
@@ -145,8 +176,14 @@ describe('exp, log, cos and sin', () => {
   it('cos and sin agree with Math.cos and Math.sin to 1 ulp up to 2²⁵ and to 2 ulp beyond', () => {
     const r = stream(13);
     for (const span of [Math.PI / 2, 20, 2e6, 6e7]) {
-      expect(worst(50_000, () => (r() - 0.5) * span, cos, Math.cos), `cos, span ${span}`).toBeLessThanOrEqual(1);
-      expect(worst(50_000, () => (r() - 0.5) * span, sin, Math.sin), `sin, span ${span}`).toBeLessThanOrEqual(1);
+      expect(
+        worst(50_000, () => (r() - 0.5) * span, cos, Math.cos),
+        `cos, span ${span}`,
+      ).toBeLessThanOrEqual(1);
+      expect(
+        worst(50_000, () => (r() - 0.5) * span, sin, Math.sin),
+        `sin, span ${span}`,
+      ).toBeLessThanOrEqual(1);
     }
     // Huge arguments: the bits of 2/π (hugeArgument.ts), a product rounded twice.
     const huge = () => (r() < 0.5 ? -1 : 1) * Math.exp(17.4 + r() * 690);

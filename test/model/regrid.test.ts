@@ -20,7 +20,8 @@ describe('regridSpectrum', () => {
     const a = coarse.field('q');
     const b = fineModel.field('q');
     let worst = 0;
-    for (let j = 0; j < 64; j++) for (let i = 0; i < 32; i++) worst = Math.max(worst, Math.abs(a[j * 32 + i] - b[2 * j * 128 + 4 * i]));
+    for (let j = 0; j < 64; j++)
+      for (let i = 0; i < 32; i++) worst = Math.max(worst, Math.abs(a[j * 32 + i] - b[2 * j * 128 + 4 * i]));
     expect(worst).toBeLessThan(1e-12);
   });
 

@@ -100,12 +100,17 @@ describe('linear Rossby waves in the model', () => {
       const model = new Model({ ...QUIET, nx: 256, ny: 256, Lx: L, Ly: L, beta, kd, dt: 0.5 });
       const sigma = 9;
       const [x0, y0] = [L / 2, L / 2];
-      setPsi(model, (x, y) => 1e-6 * Math.exp(-((x - x0) ** 2 + (y - y0) ** 2) / (2 * sigma * sigma)) * Math.cos(kx * x + ky * y));
+      setPsi(
+        model,
+        (x, y) => 1e-6 * Math.exp(-((x - x0) ** 2 + (y - y0) ** 2) / (2 * sigma * sigma)) * Math.cos(kx * x + ky * y),
+      );
       const centroid = () => {
         const u = model.field('u');
         const v = model.field('v');
         const psi = model.field('psi');
-        let sx = 0, sy = 0, s = 0;
+        let sx = 0,
+          sy = 0,
+          s = 0;
         const nx = model.grid.nx;
         for (let j = 0; j < model.grid.ny; j++) {
           for (let i = 0; i < nx; i++) {
@@ -120,7 +125,9 @@ describe('linear Rossby waves in the model', () => {
       };
       // Spectrally weighted group velocity of the initial packet, E_k = ½ w K²|ψ̂|² = ½ w |q̂|²/K².
       const g = model.grid;
-      let wx = 0, wy = 0, wsum = 0;
+      let wx = 0,
+        wy = 0,
+        wsum = 0;
       for (let jy = 0; jy < g.ny; jy++) {
         for (let ix = 0; ix < g.nkx; ix++) {
           const m = jy * g.nkx + ix;

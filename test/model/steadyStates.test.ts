@@ -34,7 +34,12 @@ describe('steady states of the unforced, inviscid, β = 0 model', () => {
   const cases: Array<{ name: string; kd: number; psi: (x: number, y: number) => number }> = [
     { name: 'a single Fourier mode', kd: 0, psi: (x, y) => Math.cos(3 * x + 2 * y + 0.4) },
     { name: 'a single Fourier mode, k_d = 2', kd: 2, psi: (x, y) => Math.sin(x - 4 * y) },
-    { name: 'four modes on the |k| = 5 shell', kd: 0.5, psi: (x, y) => Math.cos(5 * x) + 0.7 * Math.sin(3 * x + 4 * y) - 0.4 * Math.cos(4 * x - 3 * y + 1) + 0.2 * Math.sin(5 * y) },
+    {
+      name: 'four modes on the |k| = 5 shell',
+      kd: 0.5,
+      psi: (x, y) =>
+        Math.cos(5 * x) + 0.7 * Math.sin(3 * x + 4 * y) - 0.4 * Math.cos(4 * x - 3 * y + 1) + 0.2 * Math.sin(5 * y),
+    },
   ];
   for (const c of cases) {
     it(`has zero tendency for ${c.name} and keeps it over a short run`, () => {

@@ -28,7 +28,11 @@ describe('validateParams', () => {
     ['a size that is not a power of two', { nx: 100 }, /nx = 100: must be a power of two from 32 to 1024/],
     ['a size too large', { ny: 2048 }, /ny = 2048: must be a power of two/],
     ['a size too small', { nx: 16 }, /nx = 16/],
-    ['k_f beyond the dealiased range', { nx: 64, ny: 64, kf: 22, dkf: 1 }, /kf = 22: .*beyond the dealiased range: needs k_f \+ δk ≤ 21/],
+    [
+      'k_f beyond the dealiased range',
+      { nx: 64, ny: 64, kf: 22, dkf: 1 },
+      /kf = 22: .*beyond the dealiased range: needs k_f \+ δk ≤ 21/,
+    ],
     ['an annulus below the smallest wavenumber', { kf: 1, dkf: 1 }, /dkf = 1: .*k_f − δk ≥ 1/],
     ['a zero time step', { dt: 0 }, /dt = 0: .*> 0/],
     ['a fractional hyperviscosity order', { nu_order: 2.5 }, /nu_order = 2\.5: must be an integer from 1 to 8/],

@@ -12,7 +12,15 @@ describe('analysePlan', () => {
     expect(a.checks).toHaveLength(8);
     expect(a.cost.steps).toBe(a.predictions.stepsPlanned.value);
     expect(a.cost.memory.arrays.find((x) => x.name === 'annulus modes and mirrors')?.elements).toBe(
-      2 * annulusModeCount({ nx: a.plan.nx, ny: a.plan.ny, Lx: a.plan.Lx, Ly: a.plan.Ly, kf: a.plan.kf, dkf: a.plan.dkf }),
+      2 *
+        annulusModeCount({
+          nx: a.plan.nx,
+          ny: a.plan.ny,
+          Lx: a.plan.Lx,
+          Ly: a.plan.Ly,
+          kf: a.plan.kf,
+          dkf: a.plan.dkf,
+        }),
     );
     expect(a.matched?.withinTarget).toBe(true);
     expect(a.matchedChecks).toHaveLength(8);
@@ -26,6 +34,8 @@ describe('analysePlan', () => {
   });
 
   it('throws only for an invalid input', () => {
-    expect(() => analysePlan({ ...goodModelPlan(), dragTime: 0 })).toThrow(expect.objectContaining({ source: 'plan input' }));
+    expect(() => analysePlan({ ...goodModelPlan(), dragTime: 0 })).toThrow(
+      expect.objectContaining({ source: 'plan input' }),
+    );
   });
 });

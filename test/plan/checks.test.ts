@@ -19,7 +19,16 @@ const grid = (text: string | null) => {
   if (!m) throw new Error(`no grid in "${text}"`);
   return { kind: 'points', nx: Number(m[1]), ny: Number(m[2]) };
 };
-const ALL: CheckId[] = ['scaleSeparation', 'jetCount', 'forcingNearGrid', 'frictionDominated', 'runLength', 'arrestInDomain', 'forcingAnnulus', 'deformation'];
+const ALL: CheckId[] = [
+  'scaleSeparation',
+  'jetCount',
+  'forcingNearGrid',
+  'frictionDominated',
+  'runLength',
+  'arrestInDomain',
+  'forcingAnnulus',
+  'deformation',
+];
 
 describe('plan checks', () => {
   it('stay quiet on a good plan, each with its numbers and thresholds', () => {
@@ -41,8 +50,12 @@ describe('plan checks', () => {
     expect(warn.message).toMatch(/jets too close to the forcing scale/);
     expect(warn.numbers[1].value).toBeCloseTo(2, 12);
     const lambda = numberAfter(warn.fix, 'shorten the forcing wavelength to at most');
-    expect(check({ forcing: { wavelength: lambda, halfWidth: 0.05 }, grid: grid(warn.fix) }, 'scaleSeparation').severity).toBe('ok');
-    expect(check({ forcing: { wavelength: (2 * Math.PI) / 4, halfWidth: 0.05 } }, 'scaleSeparation').severity).toBe('error');
+    expect(
+      check({ forcing: { wavelength: lambda, halfWidth: 0.05 }, grid: grid(warn.fix) }, 'scaleSeparation').severity,
+    ).toBe('ok');
+    expect(check({ forcing: { wavelength: (2 * Math.PI) / 4, halfWidth: 0.05 } }, 'scaleSeparation').severity).toBe(
+      'error',
+    );
   });
 
   it('scale separation: forcing too near the dissipation scale, and dissipation below the grid', () => {
@@ -66,7 +79,10 @@ describe('plan checks', () => {
     expect(warn.message).toMatch(/only 2 jets/);
     const LyNew = numberAfter(warn.fix, 'enlarge Ly to at least');
     const nyNew = numberAfter(warn.fix, 'with ny =');
-    expect(check({ domain: { Lx: 2 * Math.PI, Ly: LyNew }, grid: { kind: 'points', nx: 512, ny: nyNew } }, 'jetCount').severity).toBe('ok');
+    expect(
+      check({ domain: { Lx: 2 * Math.PI, Ly: LyNew }, grid: { kind: 'points', nx: 512, ny: nyNew } }, 'jetCount')
+        .severity,
+    ).toBe('ok');
     expect(check({ domain: { Lx: 2 * Math.PI, Ly: 1 } }, 'jetCount').severity).toBe('error');
   });
 
@@ -77,8 +93,12 @@ describe('plan checks', () => {
     expect(warn.numbers[0].value).toBeGreaterThan(THRESHOLDS.maxForcingDamping);
     expect(check({ ...over, grid: grid(warn.fix) }, 'forcingNearGrid').severity).toBe('ok');
     const tau = numberAfter(warn.fix, 'lengthen the grid-scale damping time to at least');
-    expect(check({ ...over, hyperviscosity: { order: 4, gridDampingTime: tau } }, 'forcingNearGrid').severity).toBe('ok');
-    expect(check({ ...over, hyperviscosity: { order: 4, gridDampingTime: 0.01 } }, 'forcingNearGrid').severity).toBe('error');
+    expect(check({ ...over, hyperviscosity: { order: 4, gridDampingTime: tau } }, 'forcingNearGrid').severity).toBe(
+      'ok',
+    );
+    expect(check({ ...over, hyperviscosity: { order: 4, gridDampingTime: 0.01 } }, 'forcingNearGrid').severity).toBe(
+      'error',
+    );
   });
 
   // R_β < 1.5 friction-dominated (Sukoriansky et al. 2007; Galperin et al. 2010 [memory for the thresholds]).
@@ -92,14 +112,20 @@ describe('plan checks', () => {
     expect(after.R_beta.value).toBeGreaterThanOrEqual(THRESHOLDS.zonostrophic);
     expect(after.R_beta.value).toBeLessThan(THRESHOLDS.zonostrophic * (1 + 1e-3));
     const eps = numberAfter(warn.fix, 'or raise ε to');
-    expect(predictPlan(resolvePlan(goodModelPlan({ ...byEps, drive: { kind: 'injection', eps } }))).R_beta.value).toBeGreaterThanOrEqual(THRESHOLDS.zonostrophic);
+    expect(
+      predictPlan(resolvePlan(goodModelPlan({ ...byEps, drive: { kind: 'injection', eps } }))).R_beta.value,
+    ).toBeGreaterThanOrEqual(THRESHOLDS.zonostrophic);
     const byU = { rotation: { kind: 'beta', beta: 1 }, drive: { kind: 'velocity', U: 0.1 }, dragTime: 1 };
     const warnU = check(byU, 'frictionDominated');
     expect(warnU.severity).toBe('warning');
     const dragU = numberAfter(warnU.fix, 'lengthen the drag time 1/μ to');
-    expect(predictPlan(resolvePlan(goodModelPlan({ ...byU, dragTime: dragU }))).R_beta.value).toBeGreaterThanOrEqual(THRESHOLDS.zonostrophic);
+    expect(predictPlan(resolvePlan(goodModelPlan({ ...byU, dragTime: dragU }))).R_beta.value).toBeGreaterThanOrEqual(
+      THRESHOLDS.zonostrophic,
+    );
     const U = numberAfter(warnU.fix, 'raise the target U to');
-    expect(predictPlan(resolvePlan(goodModelPlan({ ...byU, drive: { kind: 'velocity', U } }))).R_beta.value).toBeGreaterThanOrEqual(THRESHOLDS.zonostrophic);
+    expect(
+      predictPlan(resolvePlan(goodModelPlan({ ...byU, drive: { kind: 'velocity', U } }))).R_beta.value,
+    ).toBeGreaterThanOrEqual(THRESHOLDS.zonostrophic);
   });
 
   it('run length: shorter than the steady-state time warns; the length it names passes', () => {
@@ -114,7 +140,10 @@ describe('plan checks', () => {
     expect(err.severity).toBe('error');
     expect(err.numbers[0].value).toBeCloseTo(5 / 6, 12);
     // ε = 1, β = 0.5: k_β = 0.125^{1/5} ≈ 0.66 < 1 = 2π/Ly; μ = 25: U = 0.2, k_R ≈ 1.12 > 1.
-    const warn = check({ rotation: { kind: 'beta', beta: 0.5 }, drive: { kind: 'injection', eps: 1 }, dragTime: 1 / 25 }, 'arrestInDomain');
+    const warn = check(
+      { rotation: { kind: 'beta', beta: 0.5 }, drive: { kind: 'injection', eps: 1 }, dragTime: 1 / 25 },
+      'arrestInDomain',
+    );
     expect(warn.severity).toBe('warning');
     expect(warn.fix).toMatch(/enlarge Ly to at least/);
   });

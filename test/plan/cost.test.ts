@@ -2,7 +2,16 @@ import { describe, expect, it } from 'vitest';
 import { Model } from '../../lib/model/model';
 import { DEFAULT_PARAMS } from '../../lib/model/params';
 import measured from '../../lib/plan/measuredStep.json';
-import { annulusModeCount, flopsPerStep, forcedModesForCost, MEASURED_STEP, modelMemory, parseMeasuredStep, runCost, stepSeconds } from '../../lib/plan/cost';
+import {
+  annulusModeCount,
+  flopsPerStep,
+  forcedModesForCost,
+  MEASURED_STEP,
+  modelMemory,
+  parseMeasuredStep,
+  runCost,
+  stepSeconds,
+} from '../../lib/plan/cost';
 
 /** Bytes of every typed array reachable from an object (each buffer once). */
 function typedArrayBytes(root: unknown): number {

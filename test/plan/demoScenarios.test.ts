@@ -1,5 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { rhinesWavenumber, steadyZonostrophyIndex, transitionalWavenumber, balanceVelocity } from '../../lib/analysis/scales';
+import {
+  rhinesWavenumber,
+  steadyZonostrophyIndex,
+  transitionalWavenumber,
+  balanceVelocity,
+} from '../../lib/analysis/scales';
 import { keptRadius, validateParams } from '../../lib/model/validateParams';
 import { DEFAULT_PARAMS } from '../../lib/model/params';
 import { DEFAULT_SCENARIO_ID, DEMO_SCENARIOS, scenarioById } from '../../lib/plan/demoScenarios';

@@ -13,11 +13,16 @@ const matched = (over: Record<string, unknown>, opts = {}) => {
   const plan = resolvePlan(goodModelPlan(over));
   return { plan, pred: predictPlan(plan), m: matchedRun(plan, predictPlan(plan), opts) };
 };
-const ratio = (m: ReturnType<typeof matchedRun>, id: string) => m.ratios.find((r) => r.id === id) as (typeof m.ratios)[number];
+const ratio = (m: ReturnType<typeof matchedRun>, id: string) =>
+  m.ratios.find((r) => r.id === id) as (typeof m.ratios)[number];
 
 // A plan that is already cheap: 256², k_R = 5 (5 jets in 2π), k_f = 21.25 (k_f/k_R = 4.25),
 // k_max = 85 (k_max/k_f = 4), run of 5 drag times.
-const cheap = { grid: { kind: 'points', nx: 256, ny: 256 }, forcing: { wavelength: (2 * Math.PI) / 21.25, halfWidth: 0.05 }, runLength: 250 };
+const cheap = {
+  grid: { kind: 'points', nx: 256, ny: 256 },
+  forcing: { wavelength: (2 * Math.PI) / 21.25, halfWidth: 0.05 },
+  runLength: 250,
+};
 
 describe('matched run', () => {
   it('keeps every ratio exactly when the planned run itself fits the target', () => {
@@ -51,7 +56,17 @@ describe('matched run', () => {
     for (const target of [1, 600, 2000]) {
       const { m } = matched({}, { targetWallSeconds: target });
       for (const c of checkPlan(m.plan, m.predictions)) {
-        if (['scaleSeparation', 'jetCount', 'forcingNearGrid', 'forcingAnnulus', 'frictionDominated', 'arrestInDomain'].includes(c.id)) expect(c.severity, `${target} s, ${c.id}: ${c.message}`).toBe('ok');
+        if (
+          [
+            'scaleSeparation',
+            'jetCount',
+            'forcingNearGrid',
+            'forcingAnnulus',
+            'frictionDominated',
+            'arrestInDomain',
+          ].includes(c.id)
+        )
+          expect(c.severity, `${target} s, ${c.id}: ${c.message}`).toBe('ok');
       }
     }
   });
@@ -59,7 +74,12 @@ describe('matched run', () => {
   it('lets the jet count give once k_f/k_R is at its floor, and reports it', () => {
     // 20 jets in a 4π × 4π domain at 1024², squeezed onto a few minutes' grid.
     const { m } = matched(
-      { rotation: { kind: 'beta', beta: 200 }, domain: { Lx: 4 * Math.PI, Ly: 4 * Math.PI }, grid: { kind: 'points', nx: 1024, ny: 1024 }, forcing: { wavelength: (2 * Math.PI) / 60, halfWidth: 0.05 } },
+      {
+        rotation: { kind: 'beta', beta: 200 },
+        domain: { Lx: 4 * Math.PI, Ly: 4 * Math.PI },
+        grid: { kind: 'points', nx: 1024, ny: 1024 },
+        forcing: { wavelength: (2 * Math.PI) / 60, halfWidth: 0.05 },
+      },
       { targetWallSeconds: 120 },
     );
     expect(['jetsPerDomain', 'kmaxOverKf']).toContain(m.gives);
@@ -72,8 +92,16 @@ describe('matched run', () => {
   });
 
   it('keeps the secondary ratios: deformation, grid damping over turnover, aspect', () => {
-    const { m } = matched({ deformation: { kind: 'radius', Ld: 0.5 }, domain: { Lx: 4 * Math.PI, Ly: 2 * Math.PI }, grid: { kind: 'points', nx: 1024, ny: 512 } }, { targetWallSeconds: 120 });
-    for (const id of ['kdOverKR', 'gridDampingOverTurnover', 'aspect', 'RBeta']) expect(ratio(m, id).kept, id).toBe(true);
+    const { m } = matched(
+      {
+        deformation: { kind: 'radius', Ld: 0.5 },
+        domain: { Lx: 4 * Math.PI, Ly: 2 * Math.PI },
+        grid: { kind: 'points', nx: 1024, ny: 512 },
+      },
+      { targetWallSeconds: 120 },
+    );
+    for (const id of ['kdOverKR', 'gridDampingOverTurnover', 'aspect', 'RBeta'])
+      expect(ratio(m, id).kept, id).toBe(true);
     expect(m.params.nx / m.params.ny).toBe(2);
   });
 
@@ -86,7 +114,10 @@ describe('matched run', () => {
   });
 
   it('widens an annulus too thin for the matched grid and says so', () => {
-    const { m } = matched({ forcing: { wavelength: (2 * Math.PI) / 40, halfWidth: 0.001 } }, { targetWallSeconds: 120 });
+    const { m } = matched(
+      { forcing: { wavelength: (2 * Math.PI) / 40, halfWidth: 0.001 } },
+      { targetWallSeconds: 120 },
+    );
     const w = ratio(m, 'annulusHalfWidth');
     expect(w.kept).toBe(false);
     expect(w.why).toMatch(/widened/);
@@ -106,7 +137,12 @@ describe('matched run', () => {
   });
 
   it('refuses a plan whose aspect no model grid can hold', () => {
-    const plan = resolvePlan(goodModelPlan({ domain: { Lx: 2048 * 2 * Math.PI, Ly: 2 * Math.PI }, grid: { kind: 'points', nx: 65536, ny: 32 } }));
+    const plan = resolvePlan(
+      goodModelPlan({
+        domain: { Lx: 2048 * 2 * Math.PI, Ly: 2 * Math.PI },
+        grid: { kind: 'points', nx: 65536, ny: 32 },
+      }),
+    );
     expect(() => matchedRun(plan)).toThrow(RangeError);
   });
 });

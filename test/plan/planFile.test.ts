@@ -22,10 +22,23 @@ describe('plan file', () => {
   it('round-trips plans with arbitrary valid numbers (seeded property)', () => {
     const positive = fc.double({ min: 1e-12, max: 1e12, noNaN: true });
     fc.assert(
-      fc.property(positive, positive, positive, fc.double({ min: 1e-6, max: 0.999, noNaN: true }), fc.integer({ min: 1, max: 8 }), (beta, drag, lambda, hw, order) => {
-        const input = { ...good, rotation: { kind: 'beta' as const, beta }, dragTime: drag, forcing: { wavelength: lambda, halfWidth: hw }, hyperviscosity: { order, gridDampingTime: drag } };
-        expect(parsePlanFile(serializePlanFile(input)).input).toEqual(input);
-      }),
+      fc.property(
+        positive,
+        positive,
+        positive,
+        fc.double({ min: 1e-6, max: 0.999, noNaN: true }),
+        fc.integer({ min: 1, max: 8 }),
+        (beta, drag, lambda, hw, order) => {
+          const input = {
+            ...good,
+            rotation: { kind: 'beta' as const, beta },
+            dragTime: drag,
+            forcing: { wavelength: lambda, halfWidth: hw },
+            hyperviscosity: { order, gridDampingTime: drag },
+          };
+          expect(parsePlanFile(serializePlanFile(input)).input).toEqual(input);
+        },
+      ),
       { seed: 7, numRuns: 200 },
     );
   });
@@ -34,7 +47,9 @@ describe('plan file', () => {
     const file = JSON.parse(serializePlanFile(good));
     for (const version of [2, 0, '1', null]) {
       expect(() => parsePlanFile({ ...file, version })).toThrow(expect.objectContaining({ source: 'plan file' }));
-      expect(() => parsePlanFile({ ...file, version })).toThrow(`plan file version ${JSON.stringify(version)} is not known to this Stria, which reads version 1 only`);
+      expect(() => parsePlanFile({ ...file, version })).toThrow(
+        `plan file version ${JSON.stringify(version)} is not known to this Stria, which reads version 1 only`,
+      );
     }
   });
 
@@ -43,7 +58,9 @@ describe('plan file', () => {
     expect(() => parsePlanFile('[1]')).toThrow(/expected a JSON object/);
     expect(() => parsePlanFile({ format: 'other', version: 1 })).toThrow(/not a Stria plan file: format is "other"/);
     const file = JSON.parse(serializePlanFile(good));
-    expect(() => parsePlanFile({ ...file, input: { ...file.input, dragTime: -2 } })).toThrow(/input\.dragTime: out of range \(drag damping time/);
+    expect(() => parsePlanFile({ ...file, input: { ...file.input, dragTime: -2 } })).toThrow(
+      /input\.dragTime: out of range \(drag damping time/,
+    );
     expect(() => parsePlanFile({ ...file, savedAt: 'yesterday' })).toThrow(/savedAt/);
     expect(() => parsePlanFile({ ...file, extra: true })).toThrow(/plan file refused: extra/);
   });

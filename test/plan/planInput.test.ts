@@ -37,17 +37,49 @@ describe('plan input validation', () => {
 
   // Each refusal names the field, the value and the allowed range.
   const bad: Array<[string, Record<string, unknown>, RegExp]> = [
-    ['a negative drag time', { dragTime: -1 }, /^dragTime = -1: out of range \(drag damping time 1\/μ: a finite number > 0\)$/],
+    [
+      'a negative drag time',
+      { dragTime: -1 },
+      /^dragTime = -1: out of range \(drag damping time 1\/μ: a finite number > 0\)$/,
+    ],
     ['an infinite run length', { runLength: Infinity }, /runLength = Infinity: out of range/],
-    ['NaN injection', { drive: { kind: 'injection', eps: NaN } }, /drive\.eps = NaN: energy injection rate ε: a finite number > 0/],
-    ['a latitude at the pole', { rotation: { kind: 'planet', planet: 'earth', latitudeDeg: 90 } }, /rotation\.latitudeDeg = 90: .*> -90 and < 90/],
-    ['an unknown planet', { rotation: { kind: 'planet', planet: 'mars', latitudeDeg: 10 } }, /rotation\.planet = "mars": must be one of "earth", "jupiter"/],
+    [
+      'NaN injection',
+      { drive: { kind: 'injection', eps: NaN } },
+      /drive\.eps = NaN: energy injection rate ε: a finite number > 0/,
+    ],
+    [
+      'a latitude at the pole',
+      { rotation: { kind: 'planet', planet: 'earth', latitudeDeg: 90 } },
+      /rotation\.latitudeDeg = 90: .*> -90 and < 90/,
+    ],
+    [
+      'an unknown planet',
+      { rotation: { kind: 'planet', planet: 'mars', latitudeDeg: 10 } },
+      /rotation\.planet = "mars": must be one of "earth", "jupiter"/,
+    ],
     ['an unknown rotation kind', { rotation: { kind: 'spin' } }, /rotation\.kind = "spin": must be one of/],
-    ['a grid size not a power of two', { grid: { kind: 'points', nx: 100, ny: 64 } }, /grid\.nx = 100: must be a power of two from 32 to 65536/],
+    [
+      'a grid size not a power of two',
+      { grid: { kind: 'points', nx: 100, ny: 64 } },
+      /grid\.nx = 100: must be a power of two from 32 to 65536/,
+    ],
     ['a grid size too large', { grid: { kind: 'points', nx: 131072, ny: 64 } }, /grid\.nx = 131072/],
-    ['a spacing needing too many points', { grid: { kind: 'spacing', dx: 100, dy: 5e4 } }, /grid\.dx = 100: needs 262144 points .* more than 65536/],
-    ['an annulus half-width of 1', { forcing: { wavelength: 5e5, halfWidth: 1 } }, /forcing\.halfWidth = 1: .*> 0 and < 1/],
-    ['a fractional hyperviscosity order', { hyperviscosity: { order: 2.5, gridDampingTime: 1 } }, /hyperviscosity\.order = 2\.5: must be an integer from 1 to 8/],
+    [
+      'a spacing needing too many points',
+      { grid: { kind: 'spacing', dx: 100, dy: 5e4 } },
+      /grid\.dx = 100: needs 262144 points .* more than 65536/,
+    ],
+    [
+      'an annulus half-width of 1',
+      { forcing: { wavelength: 5e5, halfWidth: 1 } },
+      /forcing\.halfWidth = 1: .*> 0 and < 1/,
+    ],
+    [
+      'a fractional hyperviscosity order',
+      { hyperviscosity: { order: 2.5, gridDampingTime: 1 } },
+      /hyperviscosity\.order = 2\.5: must be an integer from 1 to 8/,
+    ],
     ['a CFL number too large', { cfl: 2 }, /cfl = 2: out of range \(CFL number: > 0 and ≤ 1\.2\)/],
     ['an unknown Rhines convention', { rhines: 'L' }, /rhines = "L": must be one of "kR", "sqrtUbeta"/],
     ['a string for a number', { dragTime: '1e6' }, /dragTime = "1e6"/],
@@ -65,21 +97,56 @@ describe('plan input validation', () => {
   });
 
   it('refuses a planet in model units and a layer without f', () => {
-    expect(refusal({ ...goodModelPlan(), rotation: { kind: 'planet', planet: 'earth', latitudeDeg: 30 } }).message).toMatch(/rotation\.kind = "planet": a planet gives f and β in SI units/);
-    expect(refusal(goodModelPlan({ deformation: { kind: 'layer', H: 1, gPrime: 1 } })).message).toMatch(/deformation\.kind = "layer": L_d = √\(g′H\)\/\|f\| needs f ≠ 0/);
-    expect(refusal({ ...physical, rotation: { kind: 'planet', planet: 'earth', latitudeDeg: 0 } }).message).toMatch(/needs f ≠ 0/);
-    expect(() => validatePlanInput(goodModelPlan({ rotation: { kind: 'beta', beta: 50, f: 2 }, deformation: { kind: 'layer', H: 1, gPrime: 1 } }))).not.toThrow();
+    expect(
+      refusal({ ...goodModelPlan(), rotation: { kind: 'planet', planet: 'earth', latitudeDeg: 30 } }).message,
+    ).toMatch(/rotation\.kind = "planet": a planet gives f and β in SI units/);
+    expect(refusal(goodModelPlan({ deformation: { kind: 'layer', H: 1, gPrime: 1 } })).message).toMatch(
+      /deformation\.kind = "layer": L_d = √\(g′H\)\/\|f\| needs f ≠ 0/,
+    );
+    expect(refusal({ ...physical, rotation: { kind: 'planet', planet: 'earth', latitudeDeg: 0 } }).message).toMatch(
+      /needs f ≠ 0/,
+    );
+    expect(() =>
+      validatePlanInput(
+        goodModelPlan({ rotation: { kind: 'beta', beta: 50, f: 2 }, deformation: { kind: 'layer', H: 1, gPrime: 1 } }),
+      ),
+    ).not.toThrow();
   });
 
   // Every field a fine double, but predictions that leave the doubles: refused at the field that
   // makes them so, never passed on as NaN or ∞ (found by test/reliability/boundaries/planInput.ts).
   it.each([
-    ['a subnormal drag time', { dragTime: 5e-324 }, 'dragTime', /^dragTime = 5e-324: out of range: .*non-finite predictions k_R = Infinity, k_fric = Infinity/],
-    ['a subnormal β', { rotation: { kind: 'beta', beta: 5e-324 } }, 'rotation.beta', /rotation\.beta = 5e-324: .*L_R = Infinity/],
-    ['a subnormal β with a huge drag time (R_β = 0·∞)', { rotation: { kind: 'beta', beta: 5e-324 }, dragTime: 2.6e117 }, 'rotation.beta', /R_β = NaN/],
-    ['a huge injection rate', { drive: { kind: 'injection', eps: 1e300 } }, 'drive.eps', /drive\.eps = 1e\+300: .*R_β = Infinity/],
+    [
+      'a subnormal drag time',
+      { dragTime: 5e-324 },
+      'dragTime',
+      /^dragTime = 5e-324: out of range: .*non-finite predictions k_R = Infinity, k_fric = Infinity/,
+    ],
+    [
+      'a subnormal β',
+      { rotation: { kind: 'beta', beta: 5e-324 } },
+      'rotation.beta',
+      /rotation\.beta = 5e-324: .*L_R = Infinity/,
+    ],
+    [
+      'a subnormal β with a huge drag time (R_β = 0·∞)',
+      { rotation: { kind: 'beta', beta: 5e-324 }, dragTime: 2.6e117 },
+      'rotation.beta',
+      /R_β = NaN/,
+    ],
+    [
+      'a huge injection rate',
+      { drive: { kind: 'injection', eps: 1e300 } },
+      'drive.eps',
+      /drive\.eps = 1e\+300: .*R_β = Infinity/,
+    ],
     ['a subnormal target velocity', { drive: { kind: 'velocity', U: 1e-300 } }, 'drive.U', /k_β = Infinity/],
-    ['a tiny forcing wavelength', { forcing: { wavelength: 1e-300, halfWidth: 0.05 } }, 'forcing.wavelength', /η = Infinity/],
+    [
+      'a tiny forcing wavelength',
+      { forcing: { wavelength: 1e-300, halfWidth: 0.05 } },
+      'forcing.wavelength',
+      /η = Infinity/,
+    ],
   ])('refuses %s, whose predictions would not be finite', (_, change, field, message) => {
     const e = refusal(goodModelPlan(change));
     expect(e.issues.map((i) => i.field)).toEqual([field]);

@@ -15,14 +15,18 @@ describe('plan presets', () => {
       const planet = p.input.rotation.kind === 'planet' ? PLANETS[p.input.rotation.planet] : null;
       expect(p.real.join(' ')).toContain(planet?.id === 'earth' ? '7.292115e-5' : '7.1492e7');
       // Everything but the rotation is invented for the demo, and says so.
-      for (const k of Object.keys(p.input)) if (!['units', 'title', 'rotation'].includes(k)) expect(p.madeUp, `${p.id}.${k}`).toContain(k);
+      for (const k of Object.keys(p.input))
+        if (!['units', 'title', 'rotation'].includes(k)) expect(p.madeUp, `${p.id}.${k}`).toContain(k);
     }
   });
 
   it('give plans worth looking at: no errors, a zonostrophic regime and a matched run', () => {
     for (const p of PLAN_PRESETS) {
       const a = analysePlan(p.input);
-      expect(a.checks.filter((c) => c.severity === 'error'), p.id).toEqual([]);
+      expect(
+        a.checks.filter((c) => c.severity === 'error'),
+        p.id,
+      ).toEqual([]);
       expect(a.predictions.R_beta.value, p.id).toBeGreaterThanOrEqual(1.5);
       expect(a.predictions.jetsRhines.value, p.id).toBeGreaterThanOrEqual(3);
       expect(a.matched, p.id).not.toBeNull();

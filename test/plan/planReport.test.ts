@@ -7,12 +7,35 @@ import { escapeHtml } from '../../lib/plan/reportDocument';
 import { goodModelPlan } from './quoted';
 
 const ocean = analysePlan(PLAN_PRESETS[1].input);
-const text = (a: typeof ocean) => planReportBlocks(a).flatMap((b) => (b.type === 'table' ? [...b.head, ...b.rows.flat()] : b.type === 'list' ? b.items : b.type === 'figure' ? [b.caption] : [b.text]));
+const text = (a: typeof ocean) =>
+  planReportBlocks(a).flatMap((b) =>
+    b.type === 'table'
+      ? [...b.head, ...b.rows.flat()]
+      : b.type === 'list'
+        ? b.items
+        : b.type === 'figure'
+          ? [b.caption]
+          : [b.text],
+  );
 
 describe('plan report', () => {
   it('holds every input, prediction (formula and source), check (with fix), the cost and the matched run', () => {
     const all = text(ocean).join('\n');
-    for (const field of ['rotation.latitudeDeg', 'deformation.Ld', 'drive.U', 'dragTime', 'forcing.wavelength', 'forcing.halfWidth', 'domain.Lx', 'grid.nx', 'hyperviscosity.gridDampingTime', 'runLength', 'cfl', 'rhines']) expect(all).toContain(field);
+    for (const field of [
+      'rotation.latitudeDeg',
+      'deformation.Ld',
+      'drive.U',
+      'dragTime',
+      'forcing.wavelength',
+      'forcing.halfWidth',
+      'domain.Lx',
+      'grid.nx',
+      'hyperviscosity.gridDampingTime',
+      'runLength',
+      'cfl',
+      'rhines',
+    ])
+      expect(all).toContain(field);
     for (const p of Object.values(ocean.predictions)) {
       expect(all).toContain(p.label);
       expect(all).toContain(p.formula);
@@ -44,7 +67,16 @@ describe('plan report', () => {
 
   it('renders Markdown with the same sections and the figure as a data URI', () => {
     const md = planReportMarkdown(ocean);
-    for (const h of ['## Inputs as entered', '## Inputs as derived', '## Model units', '## Predictions', '## Checks', '## Matched cheap run', '## Scale ladder']) expect(md).toContain(h);
+    for (const h of [
+      '## Inputs as entered',
+      '## Inputs as derived',
+      '## Model units',
+      '## Predictions',
+      '## Checks',
+      '## Matched cheap run',
+      '## Scale ladder',
+    ])
+      expect(md).toContain(h);
     expect(md).toMatch(/Cost with Stria/);
     expect(md).toMatch(/!\[[^\]]*\]\(data:image\/svg\+xml;charset=utf-8,%3Csvg/);
     expect(md).not.toMatch(/<svg|<script/);
@@ -53,7 +85,12 @@ describe('plan report', () => {
   it('says when a plan is in model units and when no matched run exists', () => {
     const model = text(analysePlan(goodModelPlan())).join('\n');
     expect(model).toMatch(/The plan is in model units; no scaling applies/);
-    const unmatched = analysePlan(goodModelPlan({ domain: { Lx: 2048 * 2 * Math.PI, Ly: 2 * Math.PI }, grid: { kind: 'points', nx: 65536, ny: 32 } }));
+    const unmatched = analysePlan(
+      goodModelPlan({
+        domain: { Lx: 2048 * 2 * Math.PI, Ly: 2 * Math.PI },
+        grid: { kind: 'points', nx: 65536, ny: 32 },
+      }),
+    );
     expect(unmatched.matched).toBeNull();
     expect(text(unmatched).join('\n')).toMatch(/No matched run: no grid can hold a matched run/);
   });

@@ -1,5 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { JUPITER_SYSTEM_III_DEG_PER_DAY, omegaFromRotationRate, PLANETS, SECONDS_PER_DAY } from '../../lib/plan/planets';
+import {
+  JUPITER_SYSTEM_III_DEG_PER_DAY,
+  omegaFromRotationRate,
+  PLANETS,
+  SECONDS_PER_DAY,
+} from '../../lib/plan/planets';
 import { expectQuoted } from './quoted';
 
 describe('planets', () => {
@@ -33,6 +38,7 @@ describe('planets', () => {
   });
 
   it('says the planet is a sphere with planetocentric latitude [practice]', () => {
-    for (const p of Object.values(PLANETS)) expect(p.sources.shape).toMatch(/spherical planet, planetocentric latitude \[practice\]/);
+    for (const p of Object.values(PLANETS))
+      expect(p.sources.shape).toMatch(/spherical planet, planetocentric latitude \[practice\]/);
   });
 });

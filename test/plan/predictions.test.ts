@@ -13,7 +13,11 @@ describe('predictions', () => {
   // [published] Vallis & Maltrud, J. Phys. Oceanogr. 23, 1346 (1993); R_β [published] Sukoriansky,
   // Dikovskaya & Galperin, J. Atmos. Sci. 64, 3312 (2007); regime thresholds [memory] Galperin et al. 2010.
   it('reproduces the worked example of the zonostrophy index', () => {
-    const p = predictPlan(resolvePlan(goodModelPlan({ rotation: { kind: 'beta', beta: 10 }, drive: { kind: 'injection', eps: 1e-3 }, dragTime: 1e3 })));
+    const p = predictPlan(
+      resolvePlan(
+        goodModelPlan({ rotation: { kind: 'beta', beta: 10 }, drive: { kind: 'injection', eps: 1e-3 }, dragTime: 1e3 }),
+      ),
+    );
     expect(p.U.value).toBe(1);
     expectQuoted(p.kBeta.value, '15.8489');
     expectQuoted(p.kR.value, '2.23607');
@@ -69,7 +73,9 @@ describe('predictions', () => {
   it('places the dissipation wavenumber by the hyperviscous balance', () => {
     const plan = resolvePlan(goodModelPlan());
     const p = predictPlan(plan);
-    expect(rel(p.kNu.value, plan.kMax * Math.pow(Math.cbrt(p.eta.value) * plan.gridDampingTime, 1 / 8))).toBeLessThan(1e-13);
+    expect(rel(p.kNu.value, plan.kMax * Math.pow(Math.cbrt(p.eta.value) * plan.gridDampingTime, 1 / 8))).toBeLessThan(
+      1e-13,
+    );
   });
 
   // CFL number as the model defines it, dt·(max|u|/dx + max|v|/dy) (lib/model/stepper.ts) [practice].

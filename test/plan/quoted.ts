@@ -10,7 +10,9 @@ export function expectQuoted(actual: number, quoted: string, units = 1): void {
   const decimals = (m[3] ?? '').length;
   const exponent = m[4] ? Number(m[4]) : 0;
   const halfUlp = 0.5 * units * Math.pow(10, exponent - decimals);
-  expect(Math.abs(actual - Number(quoted)), `${actual} vs quoted ${quoted} (± ${halfUlp})`).toBeLessThanOrEqual(halfUlp);
+  expect(Math.abs(actual - Number(quoted)), `${actual} vs quoted ${quoted} (± ${halfUlp})`).toBeLessThanOrEqual(
+    halfUlp,
+  );
 }
 
 /** A plan input of the test's own (not a source's), good on every check; override parts as needed. */

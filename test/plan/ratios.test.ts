@@ -37,6 +37,7 @@ describe('plan ratios', () => {
     const b = planRatios(scaled, predictPlan(scaled));
     expect(a.kdOverKR).toBe(0);
     expect(b.kdOverKR).toBe(0);
-    for (const k of Object.keys(a) as Array<keyof typeof a>) if (k !== 'kdOverKR') expect(rel(b[k], a[k]), k).toBeLessThan(1e-13);
+    for (const k of Object.keys(a) as Array<keyof typeof a>)
+      if (k !== 'kdOverKR') expect(rel(b[k], a[k]), k).toBeLessThan(1e-13);
   });
 });

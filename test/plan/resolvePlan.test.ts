@@ -68,7 +68,9 @@ describe('resolvePlan', () => {
 
   it('says how the derived inputs were obtained', () => {
     const d = resolvePlan(earth()).derivations.join(' | ');
-    expect(d).toMatch(/f = 2Ω sin φ and β = 2Ω cos φ\/R for Earth \(Ω = 7\.292115e-5 rad\/s, R = 6\.3710087714e6 m\) at φ = 45°/);
+    expect(d).toMatch(
+      /f = 2Ω sin φ and β = 2Ω cos φ\/R for Earth \(Ω = 7\.292115e-5 rad\/s, R = 6\.3710087714e6 m\) at φ = 45°/,
+    );
     expect(d).toMatch(/L_d = √\(g′H\)\/\|f\|/);
     expect(d).toMatch(/ε = μU²/);
     expect(d).toMatch(/smallest powers of two/);

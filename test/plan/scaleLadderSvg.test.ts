@@ -11,10 +11,15 @@ const of = (over: Record<string, unknown> = {}) => {
 
 describe('scale ladder', () => {
   it('marks every wavenumber of the plan, in increasing k, at k = 2π/L for lengths', () => {
-    const { plan, pred } = of({ deformation: { kind: 'radius', Ld: 0.25 }, domain: { Lx: 4 * Math.PI, Ly: 2 * Math.PI } });
+    const { plan, pred } = of({
+      deformation: { kind: 'radius', Ld: 0.25 },
+      domain: { Lx: 4 * Math.PI, Ly: 2 * Math.PI },
+    });
     const marks = ladderMarks(plan, pred);
     const byId = Object.fromEntries(marks.map((m) => [m.id, m.k]));
-    expect(Object.keys(byId).sort()).toEqual(['domainX', 'domainY', 'kBeta', 'kFric', 'kMax', 'kNu', 'kd', 'kf', 'rhines', 'staircase'].sort());
+    expect(Object.keys(byId).sort()).toEqual(
+      ['domainX', 'domainY', 'kBeta', 'kFric', 'kMax', 'kNu', 'kd', 'kf', 'rhines', 'staircase'].sort(),
+    );
     expect(byId.domainY).toBe(1);
     expect(byId.domainX).toBe(0.5);
     expect(byId.rhines).toBeCloseTo(pred.kR.value, 12); // the k_R convention's length is 2π/k_R

@@ -3,12 +3,29 @@ import { describe, expect, it } from 'vitest';
 import { balanceVelocity, steadyZonostrophyIndex } from '../../lib/analysis/scales';
 import { validateParams } from '../../lib/model/validateParams';
 import { resolvePlan } from '../../lib/plan/resolvePlan';
-import { DIM, hyperviscosityDimension, IDENTITY_SCALING, planModelParams, planScaling, toModel, toPhysical, unitOf } from '../../lib/plan/units';
+import {
+  DIM,
+  hyperviscosityDimension,
+  IDENTITY_SCALING,
+  planModelParams,
+  planScaling,
+  toModel,
+  toPhysical,
+  unitOf,
+} from '../../lib/plan/units';
 import { goodModelPlan } from './quoted';
 
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
-const scaling = fc.record({ length: fc.double({ min: 1e-3, max: 1e9, noNaN: true }), time: fc.double({ min: 1e-3, max: 1e9, noNaN: true }) });
-const dims = fc.constantFrom(...Object.values(DIM), hyperviscosityDimension(1), hyperviscosityDimension(4), hyperviscosityDimension(8));
+const scaling = fc.record({
+  length: fc.double({ min: 1e-3, max: 1e9, noNaN: true }),
+  time: fc.double({ min: 1e-3, max: 1e9, noNaN: true }),
+});
+const dims = fc.constantFrom(
+  ...Object.values(DIM),
+  hyperviscosityDimension(1),
+  hyperviscosityDimension(4),
+  hyperviscosityDimension(8),
+);
 
 const earthPlan = () =>
   resolvePlan({
@@ -59,10 +76,17 @@ describe('units', () => {
     const plan = earthPlan();
     const mp = planModelParams(plan, 1e-3);
     // R_β, k_f/k_d, k_f·Ly, and the grid-scale damping ν k_max^{2p} over μ are unit-free.
-    expect(rel(steadyZonostrophyIndex(mp.beta, mp.eps, mp.mu), steadyZonostrophyIndex(plan.beta, plan.eps, plan.mu))).toBeLessThan(1e-14);
+    expect(
+      rel(steadyZonostrophyIndex(mp.beta, mp.eps, mp.mu), steadyZonostrophyIndex(plan.beta, plan.eps, plan.mu)),
+    ).toBeLessThan(1e-14);
     expect(rel(mp.kf / mp.kd, plan.kf / plan.kd)).toBeLessThan(1e-14);
     expect(rel(mp.kf * mp.Ly, plan.kf * plan.Ly)).toBeLessThan(1e-14);
-    expect(rel((mp.nu * Math.pow(2 * Math.PI * Math.floor(256 / 3) / mp.Ly, 8)) / mp.mu, (plan.nu * Math.pow(plan.kMax, 8)) / plan.mu)).toBeLessThan(1e-12);
+    expect(
+      rel(
+        (mp.nu * Math.pow((2 * Math.PI * Math.floor(256 / 3)) / mp.Ly, 8)) / mp.mu,
+        (plan.nu * Math.pow(plan.kMax, 8)) / plan.mu,
+      ),
+    ).toBeLessThan(1e-12);
     expect(mp.nu_order).toBe(4);
     expect(mp.forcing).toBe('stochastic');
   });

@@ -26,7 +26,10 @@ describe.concurrent('input boundaries under random and malformed inputs', () => 
 afterAll(() => {
   const lines = BOUNDARY_RUNS.filter((b) => results.has(b.id)).map((b) => {
     const r = results.get(b.id)!;
-    const tally = Object.entries(r.tally).sort().map(([k, n]) => `${k} ${n}`).join(', ');
+    const tally = Object.entries(r.tally)
+      .sort()
+      .map(([k, n]) => `${k} ${n}`)
+      .join(', ');
     return `${b.id.padEnd(15)} ${String(r.numRuns).padStart(5)} cases  ${r.seconds.toFixed(1).padStart(5)} s  ${tally}`;
   });
   if (lines.length) console.log(`boundary cases (seeded):\n${lines.join('\n')}`);

@@ -62,7 +62,14 @@ describe('no markup or code from strings in the app', () => {
     ];
     for (const s of samples) expect(findInjection(s), s).toHaveLength(1);
     // Words that only look alike are not uses.
-    for (const s of ['retrieval(x)', 'x.evaluate(y)', 'typeof f === "function"', 'setTimeout(() => tick(), 10)', 'el.textContent = name', 'myFunction(x)']) {
+    for (const s of [
+      'retrieval(x)',
+      'x.evaluate(y)',
+      'typeof f === "function"',
+      'setTimeout(() => tick(), 10)',
+      'el.textContent = name',
+      'myFunction(x)',
+    ]) {
       expect(findInjection(s), s).toEqual([]);
     }
   });
@@ -70,7 +77,9 @@ describe('no markup or code from strings in the app', () => {
   it(`appears nowhere in ${SCANNED.join('/, ')}/`, () => {
     const files = SCANNED.flatMap((d) => sourceFiles(join(ROOT, d)));
     expect(files.length).toBeGreaterThan(100);
-    const hits = files.flatMap((f) => findInjection(readFileSync(f, 'utf8')).map((h) => `${relative(ROOT, f)}:${h.line}: ${h.why}`));
+    const hits = files.flatMap((f) =>
+      findInjection(readFileSync(f, 'utf8')).map((h) => `${relative(ROOT, f)}:${h.line}: ${h.why}`),
+    );
     expect(hits).toEqual([]);
   });
 });

@@ -9,7 +9,9 @@ describe('monitored run', () => {
   it('stops by its rule, samples at equal intervals and summarises the window', () => {
     const model = new Model(params);
     const times: number[] = [];
-    const run = new MonitoredRun(model, resolveRunPlan(model.params, { until: 10, average: 4, sampleEvery: 0.5 }), { onSample: (t) => times.push(t) });
+    const run = new MonitoredRun(model, resolveRunPlan(model.params, { until: 10, average: 4, sampleEvery: 0.5 }), {
+      onSample: (t) => times.push(t),
+    });
     run.advance();
     expect(run.stopped).toBe('until');
     expect(model.time).toBeGreaterThanOrEqual(10);

@@ -5,7 +5,19 @@ import { MonitoredRun, type MonitoredRunState } from '../../lib/run/monitoredRun
 import { resolveRunPlan, type RunLengthRequest } from '../../lib/run/runPlan';
 import { stateFromJson, stateToJson } from '../../lib/run/stateJson';
 
-const params = { nx: 32, ny: 32, kf: 8, dkf: 1.5, beta: 10, mu: 0.5, eps: 0.5, nu: 1e-8, dt: 0.05, cfl: 0.8, init_energy: 0.2 };
+const params = {
+  nx: 32,
+  ny: 32,
+  kf: 8,
+  dkf: 1.5,
+  beta: 10,
+  mu: 0.5,
+  eps: 0.5,
+  nu: 1e-8,
+  dt: 0.05,
+  cfl: 0.8,
+  init_energy: 0.2,
+};
 const request: RunLengthRequest = { untilSteady: true, steadyTolerance: 0.02, sampleEvery: 0.1, average: 2 };
 const planOf = (m: Model) => resolveRunPlan(m.params, request);
 
@@ -17,7 +29,8 @@ function straight(): { summary: string; q: number[]; steps: number } {
   return { summary: JSON.stringify(run.summary()), q: Array.from(m.qHat), steps: m.steps };
 }
 
-const viaJson = (s: MonitoredRunState) => stateFromJson(JSON.parse(JSON.stringify(stateToJson(s as never)))) as unknown as MonitoredRunState;
+const viaJson = (s: MonitoredRunState) =>
+  stateFromJson(JSON.parse(JSON.stringify(stateToJson(s as never)))) as unknown as MonitoredRunState;
 
 describe('the measurement of a run, saved and restored', () => {
   const whole = straight();
@@ -60,7 +73,9 @@ describe('the measurement of a run, saved and restored', () => {
     b.advance(5);
     const before = JSON.stringify(stateToJson(b.saveState() as never));
     expect(() => b.restoreState(a.saveState())).toThrow(expect.objectContaining({ source: 'state' }));
-    expect(() => b.restoreState(a.saveState())).toThrow(/monitor\.(hovmoller|means|budget)\.\w+: holds \d+ values, the object \d+/);
+    expect(() => b.restoreState(a.saveState())).toThrow(
+      /monitor\.(hovmoller|means|budget)\.\w+: holds \d+ values, the object \d+/,
+    );
     expect(JSON.stringify(stateToJson(b.saveState() as never))).toBe(before);
     const steps = new MonitoredRun(new Model(params), resolveRunPlan(small.params, { steps: 10 }));
     expect(() => steps.restoreState(a.saveState())).toThrow(/a run with a steady criterion/);
@@ -70,7 +85,14 @@ describe('the measurement of a run, saved and restored', () => {
     class Plan {
       scratch = new Float64Array(4);
     }
-    const acc = { count: 3, sums: new Float64Array([1, 2]), tags: ['a'], window: { span: 2 }, tLast: -Infinity, plan: new Plan() };
+    const acc = {
+      count: 3,
+      sums: new Float64Array([1, 2]),
+      tags: ['a'],
+      window: { span: 2 },
+      tLast: -Infinity,
+      plan: new Plan(),
+    };
     expect(() => captureState(acc)).toThrow(/\(state\)\.plan: holds a Plan, which is not plain data/);
     const s = captureState(acc, ['plan']);
     acc.count = 9;

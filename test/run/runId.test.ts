@@ -21,7 +21,13 @@ describe('run ids', () => {
     const p = { ...DEFAULT_PARAMS };
     const id = runId(p, plan);
     expect(id).toMatch(/^r[0-9a-f]{16}$/);
-    expect(runId(Object.fromEntries(Object.entries(p).reverse()) as typeof p, { sampleEvery: 0.5, average: 5, stop: { time: 10, kind: 'until' } })).toBe(id);
+    expect(
+      runId(Object.fromEntries(Object.entries(p).reverse()) as typeof p, {
+        sampleEvery: 0.5,
+        average: 5,
+        stop: { time: 10, kind: 'until' },
+      }),
+    ).toBe(id);
     expect(runId({ ...p, seed: 2 }, plan)).not.toBe(id);
     expect(runId({ ...p, beta: 10 + 1e-12 }, plan)).not.toBe(id);
     expect(runId(p, { ...plan, average: 4 })).not.toBe(id);

@@ -4,7 +4,13 @@ import { Model } from '../../lib/model/model';
 import { modelMemory, forcedModesForCost } from '../../lib/plan/cost';
 import { MonitoredRun } from '../../lib/run/monitoredRun';
 import { resolveRunPlan } from '../../lib/run/runPlan';
-import { accumulatorBytes, checkMemoryBudget, estimateRunMemory, formatBytes, MemoryBudgetError } from '../../lib/run/runMemory';
+import {
+  accumulatorBytes,
+  checkMemoryBudget,
+  estimateRunMemory,
+  formatBytes,
+  MemoryBudgetError,
+} from '../../lib/run/runMemory';
 import { stateBytes } from '../../lib/run/dataState';
 import { reachableArrayBytes } from '../support/reachableBytes';
 import { striaHere } from '../cli/support/stria';
@@ -32,7 +38,10 @@ describe('memory estimate of a measured run', () => {
       const plan = new SnapshotPlan(model.params);
       const fields = plan.gridFields(model.qHat);
       const recordBytes = 5 * 8 * nx * ny + 12;
-      expect(est.items[2]).toEqual({ what: 'snapshot file', bytes: reachableArrayBytes(plan, fields).bytes + recordBytes });
+      expect(est.items[2]).toEqual({
+        what: 'snapshot file',
+        bytes: reachableArrayBytes(plan, fields).bytes + recordBytes,
+      });
     }
   });
 
@@ -42,18 +51,36 @@ describe('memory estimate of a measured run', () => {
     const s = run.saveState();
     const acc = stateBytes(s.monitor.budget) + stateBytes(s.monitor.hovmoller) + stateBytes(s.monitor.means);
     expect(accumulatorBytes(64)).toBe(acc);
-    expect(estimateRunMemory(model.params, { retry: true }).items.find((i) => i.what === 'retry checkpoint')!.bytes).toBe(acc + 8 * model.qHat.length);
+    expect(
+      estimateRunMemory(model.params, { retry: true }).items.find((i) => i.what === 'retry checkpoint')!.bytes,
+    ).toBe(acc + 8 * model.qHat.length);
   });
 
   it('refuses a run over its budget with the estimate, in the library and in stria run', async () => {
     const est = estimateRunMemory({ nx: 1024, ny: 1024, Lx: 2 * Math.PI, Ly: 2 * Math.PI, kf: 24, dkf: 2 });
     expect(est.bytesPerPoint).toBeGreaterThan(157); // the model alone is ≈ 157 B a point
     expect(() => checkMemoryBudget(est, 2 ** 28)).toThrow(MemoryBudgetError);
-    expect(() => checkMemoryBudget(est, 2 ** 28)).toThrow(new RegExp(`a 1024 × 1024 run needs about ${formatBytes(est.totalBytes)} \\(model .* MiB, measurement .* MiB\\), more than the memory budget of 256 MiB`));
+    expect(() => checkMemoryBudget(est, 2 ** 28)).toThrow(
+      new RegExp(
+        `a 1024 × 1024 run needs about ${formatBytes(est.totalBytes)} \\(model .* MiB, measurement .* MiB\\), more than the memory budget of 256 MiB`,
+      ),
+    );
     expect(checkMemoryBudget(est, 2 ** 31)).toBe(est);
-    const r = await striaHere(['run', '--set', 'nx=1024', '--set', 'ny=1024', '--steps', '1', '--memory-budget', '256MiB']);
+    const r = await striaHere([
+      'run',
+      '--set',
+      'nx=1024',
+      '--set',
+      'ny=1024',
+      '--steps',
+      '1',
+      '--memory-budget',
+      '256MiB',
+    ]);
     expect(r.status).toBe(2);
-    expect(r.stderr).toMatch(/nx = 1024, ny = 1024: this run needs about [\d.]+ MiB \(model [\d.]+ MiB, measurement [\d.]+ MiB, runtime 128 MiB\), more than the memory budget of 256 MiB; give a smaller grid/);
+    expect(r.stderr).toMatch(
+      /nx = 1024, ny = 1024: this run needs about [\d.]+ MiB \(model [\d.]+ MiB, measurement [\d.]+ MiB, runtime 128 MiB\), more than the memory budget of 256 MiB; give a smaller grid/,
+    );
     const bad = await striaHere(['run', '--steps', '1', '--memory-budget', '2 gigs']);
     expect(bad.status).toBe(2);
     expect(bad.stderr).toMatch(/--memory-budget 2 gigs: needs a size/);

@@ -17,9 +17,18 @@ function refused(req: Parameters<typeof resolveRunPlan>[1], start = 0): string {
 
 describe('run plans', () => {
   it('fill the stated defaults', () => {
-    expect(resolveRunPlan(p, { steps: 100 })).toEqual({ stop: { kind: 'steps', steps: 100 }, average: 50, sampleEvery: 0.1 });
+    expect(resolveRunPlan(p, { steps: 100 })).toEqual({
+      stop: { kind: 'steps', steps: 100 },
+      average: 50,
+      sampleEvery: 0.1,
+    });
     expect(resolveRunPlan(p, { until: 20 }, 5).average).toBe(15); // the default window fits the run
-    expect(resolveRunPlan(p, { untilSteady: true }, 10).stop).toEqual({ kind: 'steady', window: 25, tolerance: 0.05, maxTime: 510 });
+    expect(resolveRunPlan(p, { untilSteady: true }, 10).stop).toEqual({
+      kind: 'steady',
+      window: 25,
+      tolerance: 0.05,
+      maxTime: 510,
+    });
   });
 
   it('refuse what cannot be run, naming the field', () => {

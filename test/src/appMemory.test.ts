@@ -3,7 +3,15 @@ import { SIZE_MAX, SIZE_MIN } from '../../lib/model/params';
 import { validateParams } from '../../lib/model/validateParams';
 import { DEMO_SCENARIOS } from '../../lib/plan/demoScenarios';
 import { estimateRunMemory } from '../../lib/run/runMemory';
-import { APP_BUDGET_CAP, APP_BUDGET_FLOOR, APP_RUNTIME_BYTES, appMemoryBudget, estimateAppMemory, memoryRefusal, roughBytes } from '../../src/appMemory';
+import {
+  APP_BUDGET_CAP,
+  APP_BUDGET_FLOOR,
+  APP_RUNTIME_BYTES,
+  appMemoryBudget,
+  estimateAppMemory,
+  memoryRefusal,
+  roughBytes,
+} from '../../src/appMemory';
 import { viewDiagnosticsBytes } from '../../workers/diagnosticsMemory';
 
 const MiB = 1024 ** 2;
@@ -46,7 +54,9 @@ describe('the memory of a run in the app', () => {
     expect(estimateAppMemory(grid(512, 256), grid(32, 32)).items[6].what).toBe('exporting a snapshot');
     const big = estimateAppMemory(grid(512, 512), grid(512, 512));
     expect(big.items[6].what).toBe('the 512 × 512 run it replaces');
-    expect(big.items[6].bytes).toBe(big.items[0].bytes + big.items[1].bytes + big.items[2].bytes + big.items[3].bytes / 3);
+    expect(big.items[6].bytes).toBe(
+      big.items[0].bytes + big.items[1].bytes + big.items[2].bytes + big.items[3].bytes / 3,
+    );
   });
 
   it('grows with the grid', () => {
@@ -62,7 +72,8 @@ describe('the memory of a run in the app', () => {
     const cap = appMemoryBudget(8);
     expect(memoryRefusal(grid(SIZE_MAX, SIZE_MAX), grid(SIZE_MAX, SIZE_MAX), cap)).toBeNull();
     const floor = appMemoryBudget(0.25);
-    for (const s of DEMO_SCENARIOS) expect(memoryRefusal(validateParams(s.params), validateParams(s.params), floor), s.id).toBeNull();
+    for (const s of DEMO_SCENARIOS)
+      expect(memoryRefusal(validateParams(s.params), validateParams(s.params), floor), s.id).toBeNull();
   });
 
   it('refuses what exceeds the budget with the estimate and the budget', () => {
@@ -70,11 +81,15 @@ describe('the memory of a run in the app', () => {
     const p = grid(1024, 1024);
     const total = estimateAppMemory(p).totalBytes;
     expect(total).toBeGreaterThan(512 * MiB);
-    expect(memoryRefusal(p, null, two)).toBe(`1024 × 1024 needs ≈ ${roughBytes(total)}; the app's budget is 512 MiB (a quarter of this device's 2 GiB)`);
+    expect(memoryRefusal(p, null, two)).toBe(
+      `1024 × 1024 needs ≈ ${roughBytes(total)}; the app's budget is 512 MiB (a quarter of this device's 2 GiB)`,
+    );
     expect(memoryRefusal(p, null, two)).toMatch(/^1024 × 1024 needs ≈ 6\d\d MiB;/);
     // With the run it replaces, when that is the larger moment.
     const replacing = grid(1024, 512);
-    expect(memoryRefusal(p, replacing, two)).toBe(`1024 × 1024 needs ≈ ${roughBytes(estimateAppMemory(p, replacing).totalBytes)} with the 1024 × 512 run it replaces; the app's budget is 512 MiB (a quarter of this device's 2 GiB)`);
+    expect(memoryRefusal(p, replacing, two)).toBe(
+      `1024 × 1024 needs ≈ ${roughBytes(estimateAppMemory(p, replacing).totalBytes)} with the 1024 × 512 run it replaces; the app's budget is 512 MiB (a quarter of this device's 2 GiB)`,
+    );
     expect(memoryRefusal(p, null, { bytes: total - 1, reason: '' })).toMatch(/; the app's budget is [\d.]+ MiB$/);
     expect(memoryRefusal(p, null, { bytes: total, reason: '' })).toBeNull();
   });

@@ -51,7 +51,10 @@ describe('run scales', () => {
   it('places the Rhines rung by the chosen convention: length L_R at k = 2π/L_R', () => {
     const kR = k(scaleLadder(P, emptyReport(), 'kR').predicted, 'rhines') ?? NaN;
     // (U/β)^½ → 2π(β/U)^½ = 2π√2 k_R; π/k_R → 2k_R; 2π(U/β)^½ → √2 k_R.
-    expect(k(scaleLadder(P, emptyReport(), 'sqrtUbeta').predicted, 'rhines')).toBeCloseTo(2 * Math.PI * Math.SQRT2 * kR, 10);
+    expect(k(scaleLadder(P, emptyReport(), 'sqrtUbeta').predicted, 'rhines')).toBeCloseTo(
+      2 * Math.PI * Math.SQRT2 * kR,
+      10,
+    );
     expect(k(scaleLadder(P, emptyReport(), 'piOverKR').predicted, 'rhines')).toBeCloseTo(2 * kR, 10);
     expect(k(scaleLadder(P, emptyReport(), 'twoPiSqrtUbeta').predicted, 'rhines')).toBeCloseTo(Math.SQRT2 * kR, 10);
   });

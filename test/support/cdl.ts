@@ -32,13 +32,15 @@ export function cdl(f: CdlFile): string {
   lines.push('variables:');
   for (const v of f.vars) {
     lines.push(`  ${v.type} ${v.name}${v.dims.length ? `(${v.dims.join(', ')})` : ''} ;`);
-    for (const [k, a] of Object.entries(v.attrs ?? {})) lines.push(`    ${v.name}:${k} = ${attr(a, TYPED.has(k) ? v.type : INT_SPECIAL.has(k) ? 'int' : 'double')} ;`);
+    for (const [k, a] of Object.entries(v.attrs ?? {}))
+      lines.push(`    ${v.name}:${k} = ${attr(a, TYPED.has(k) ? v.type : INT_SPECIAL.has(k) ? 'int' : 'double')} ;`);
   }
   for (const [k, a] of Object.entries(f.globals ?? {})) lines.push(`  :${k} = ${attr(a, 'double')} ;`);
   const withData = f.vars.filter((v) => v.data && v.data.length);
   if (withData.length) {
     lines.push('data:');
-    for (const v of withData) lines.push(`  ${v.name} = ${Array.from(v.data as ArrayLike<number | null>, value).join(', ')} ;`);
+    for (const v of withData)
+      lines.push(`  ${v.name} = ${Array.from(v.data as ArrayLike<number | null>, value).join(', ')} ;`);
   }
   lines.push('}');
   return lines.join('\n') + '\n';
@@ -47,7 +49,9 @@ export function cdl(f: CdlFile): string {
 function attr(a: string | number | number[], type: CdlType): string {
   if (typeof a === 'string') return `"${a.replace(/\\/g, '\\\\').replace(/"/g, '\\"')}"`;
   const list = Array.isArray(a) ? a : [a];
-  return list.map((x) => (type === 'double' ? double(x) : `${type === 'float' ? double(x) : String(x)}${SUFFIX[type]}`)).join(', ');
+  return list
+    .map((x) => (type === 'double' ? double(x) : `${type === 'float' ? double(x) : String(x)}${SUFFIX[type]}`))
+    .join(', ');
 }
 
 /** A double literal CDL reads as a double: always with a decimal point or exponent. */

@@ -4,7 +4,12 @@
  *   ū = (β/2)(η² − L²/12),   ζ̄ = −∂yū = −βη,   q̄ + βy = β·(step centre) (PV mixed on the step),
  * periodic in L, eastward jets (cusps) at the step edges. `edge0` places the first edge.
  */
-export function staircaseProfile(y: number, L: number, beta: number, edge0: number): { u: number; zeta: number; centre: number } {
+export function staircaseProfile(
+  y: number,
+  L: number,
+  beta: number,
+  edge0: number,
+): { u: number; zeta: number; centre: number } {
   const k = Math.floor((y - edge0) / L + 1e-12);
   const centre = edge0 + (k + 0.5) * L;
   const eta = y - centre;

@@ -17,9 +17,13 @@ export const QUIET: Partial<ModelParams> = {
 };
 
 /** Sample a function of (x, y) on the grid of the given parameters. */
-export function sampleGrid(p: Pick<ModelParams, 'nx' | 'ny' | 'Lx' | 'Ly'>, f: (x: number, y: number) => number): Float64Array {
+export function sampleGrid(
+  p: Pick<ModelParams, 'nx' | 'ny' | 'Lx' | 'Ly'>,
+  f: (x: number, y: number) => number,
+): Float64Array {
   const out = new Float64Array(p.nx * p.ny);
-  for (let j = 0; j < p.ny; j++) for (let i = 0; i < p.nx; i++) out[j * p.nx + i] = f((i * p.Lx) / p.nx, (j * p.Ly) / p.ny);
+  for (let j = 0; j < p.ny; j++)
+    for (let i = 0; i < p.nx; i++) out[j * p.nx + i] = f((i * p.Lx) / p.nx, (j * p.Ly) / p.ny);
   return out;
 }
 

@@ -31,8 +31,16 @@ describe('sweep records', () => {
       { name: 'b', records: [rerun, records[0]] },
     ]);
     expect(joined.map((r) => r.id)).toEqual(records.map((r) => r.id));
-    const changed: SweepRecord = { ...records[1], summary: { ...records[1].summary, energy: records[1].summary.energy! * (1 + 2 ** -52) } };
-    expect(() => joinRecords([{ name: 'a', records: [records[1]] }, { name: 'b', records: [changed] }])).toThrow(new RegExp(`${records[1].id} differs between a and b: summary.energy`));
+    const changed: SweepRecord = {
+      ...records[1],
+      summary: { ...records[1].summary, energy: records[1].summary.energy! * (1 + 2 ** -52) },
+    };
+    expect(() =>
+      joinRecords([
+        { name: 'a', records: [records[1]] },
+        { name: 'b', records: [changed] },
+      ]),
+    ).toThrow(new RegExp(`${records[1].id} differs between a and b: summary.energy`));
   });
 
   it('give table rows with the fit scales, and fits that say why they cannot be made', () => {

@@ -23,9 +23,21 @@ describe('sweep spec', () => {
     expect(refusedField({ ...good, vary: [{ param: 'beta' }] })).toBe('vary.0');
     expect(refusedField({ ...good, vary: [{ param: 'betta', values: [1] }] })).toBe('vary.0.param');
     expect(refusedField({ ...good, vary: [{ param: 'seed', values: [1, 2] }] })).toBe('vary.0.param');
-    expect(refusedField({ ...good, vary: [{ param: 'beta', logRange: { from: 1, to: 10, count: 1 } }] })).toBe('vary.0.logRange.count');
-    expect(refusedField({ ...good, vary: [{ param: 'forcing', logRange: { from: 1, to: 10, count: 3 } }] })).toBe('vary.0.logRange');
-    expect(refusedField({ ...good, vary: [{ param: 'beta', values: [1] }, { param: 'beta', values: [2] }] })).toBe('vary.1.param');
+    expect(refusedField({ ...good, vary: [{ param: 'beta', logRange: { from: 1, to: 10, count: 1 } }] })).toBe(
+      'vary.0.logRange.count',
+    );
+    expect(refusedField({ ...good, vary: [{ param: 'forcing', logRange: { from: 1, to: 10, count: 3 } }] })).toBe(
+      'vary.0.logRange',
+    );
+    expect(
+      refusedField({
+        ...good,
+        vary: [
+          { param: 'beta', values: [1] },
+          { param: 'beta', values: [2] },
+        ],
+      }),
+    ).toBe('vary.1.param');
     expect(refusedField({ ...good, length: {} })).toBe('length');
     expect(refusedField({ ...good, length: { steps: 10, until: 3 } })).toBe('length');
     expect(refusedField({ ...good, length: { steps: 1.5 } })).toBe('length.steps');
@@ -48,7 +60,13 @@ describe('sweep spec', () => {
   });
 
   it('expands every combination times the replicas, with deterministic distinct ids', () => {
-    const spec = parseSweepSpec({ ...good, vary: [{ param: 'beta', values: [5, 20] }, { param: 'mu', logRange: { from: 0.05, to: 0.2, count: 3 } }] });
+    const spec = parseSweepSpec({
+      ...good,
+      vary: [
+        { param: 'beta', values: [5, 20] },
+        { param: 'mu', logRange: { from: 0.05, to: 0.2, count: 3 } },
+      ],
+    });
     const jobs = expandSweep(spec);
     expect(jobs).toHaveLength(2 * 3 * 2);
     expect(jobs.map((j) => j.index)).toEqual([...Array(12).keys()]);
@@ -64,7 +82,14 @@ describe('sweep spec', () => {
   });
 
   it('starts from a preset when asked, under the base', () => {
-    const jobs = expandSweep(parseSweepSpec({ preset: 'jets', base: { nx: 64, ny: 64, kf: 16 }, vary: [{ param: 'beta', values: [40] }], length: { steps: 10 } }));
+    const jobs = expandSweep(
+      parseSweepSpec({
+        preset: 'jets',
+        base: { nx: 64, ny: 64, kf: 16 },
+        vary: [{ param: 'beta', values: [40] }],
+        length: { steps: 10 },
+      }),
+    );
     expect(jobs[0].params).toMatchObject({ nx: 64, kf: 16, nu_order: 8, force_zonal: false, beta: 40 });
   });
 });

@@ -37,13 +37,35 @@ function staircaseFile(storage: Record<string, string | number | number[]> = {},
       }
     }
   }
-  const field = (name: string, sn: string | null, units: string, data: number[]): CdlVariable => ({ name, type: 'double', dims: ['time', 'y', 'x'], attrs: { ...(sn ? { standard_name: sn } : {}), units, ...storage }, data });
+  const field = (name: string, sn: string | null, units: string, data: number[]): CdlVariable => ({
+    name,
+    type: 'double',
+    dims: ['time', 'y', 'x'],
+    attrs: { ...(sn ? { standard_name: sn } : {}), units, ...storage },
+    data,
+  });
   return cdl({
-    dims: [{ name: 'time', size: 'unlimited' }, { name: 'y', size: ny }, { name: 'x', size: nx }],
+    dims: [
+      { name: 'time', size: 'unlimited' },
+      { name: 'y', size: ny },
+      { name: 'x', size: nx },
+    ],
     vars: [
       { name: 'time', type: 'double', dims: ['time'], attrs: { units: 'days since 2000-01-01' }, data: [0, 1, 2] },
-      { name: 'y', type: 'double', dims: ['y'], attrs: { units: 'km', axis: 'Y' }, data: Array.from({ length: ny }, (_, j) => (j * dy) / 1000) },
-      { name: 'x', type: 'double', dims: ['x'], attrs: { units: 'km', axis: 'X' }, data: Array.from({ length: nx }, (_, i) => (i * dx) / 1000) },
+      {
+        name: 'y',
+        type: 'double',
+        dims: ['y'],
+        attrs: { units: 'km', axis: 'Y' },
+        data: Array.from({ length: ny }, (_, j) => (j * dy) / 1000),
+      },
+      {
+        name: 'x',
+        type: 'double',
+        dims: ['x'],
+        attrs: { units: 'km', axis: 'X' },
+        data: Array.from({ length: nx }, (_, i) => (i * dx) / 1000),
+      },
       field('U', 'eastward_wind', 'm s-1', u),
       field('V', 'northward_wind', 'm s-1', v),
       ...(withZeta ? [field('vort', null, 's-1', z)] : []),
@@ -72,7 +94,10 @@ describe.runIf(runNcgen)('stria analyze, the library: files written by ncgen', (
     ['nc4', { _ChunkSizes: [1, 64, 32], _DeflateLevel: 1, _Shuffle: 'true' }, 'netCDF-4, deflate and chunks'],
   ] as [NcgenKind, Record<string, string | number | number[]>, string][]) {
     it(`recovers the ideal staircase: L, the jet count and spacing, index 1 (${label})`, () => {
-      const r = analyzeFile(memorySource(ncgen(staircaseFile(storage), kind)), { beta, domain: { x: Lx / 1000, y: Ly / 1000 } });
+      const r = analyzeFile(memorySource(ncgen(staircaseFile(storage), kind)), {
+        beta,
+        domain: { x: Lx / 1000, y: Ly / 1000 },
+      });
       expect(r.file.fields).toMatchObject({ u: { variable: 'U' }, v: { variable: 'V' }, zeta: { variable: 'vort' } });
       expect(r.analysis.qtot?.source).toMatch(/^zonal mean of the PV anomaly q \(q = ζ − k_d²ψ\)/);
       expectStaircase(r);
@@ -84,9 +109,18 @@ describe.runIf(runNcgen)('stria analyze, the library: files written by ncgen', (
     // Jets on grid rows this time: the total PV from ū alone is then exact at every midpoint.
     const u = Array.from({ length: nt * ny }, (_, k) => staircaseProfile((k % ny) * dy, L, beta, 5 * dy).u);
     const text = cdl({
-      dims: [{ name: 'time', size: 'unlimited' }, { name: 'y', size: ny }],
+      dims: [
+        { name: 'time', size: 'unlimited' },
+        { name: 'y', size: ny },
+      ],
       vars: [
-        { name: 'y', type: 'double', dims: ['y'], attrs: { units: 'm', modulo: Ly }, data: Array.from({ length: ny }, (_, j) => j * dy) },
+        {
+          name: 'y',
+          type: 'double',
+          dims: ['y'],
+          attrs: { units: 'm', modulo: Ly },
+          data: Array.from({ length: ny }, (_, j) => j * dy),
+        },
         { name: 'ubar', type: 'float', dims: ['time', 'y'], attrs: { units: 'm s-1' }, data: u },
       ],
     });
@@ -109,13 +143,25 @@ describe.runIf(runNcgen)('stria analyze, the library: files written by ncgen', (
     const lat = Array.from({ length: nlat }, (_, j) => 70 - 0.5 * j);
     const lon = Array.from({ length: nlon }, (_, i) => 5 * i);
     const u: number[] = [];
-    for (const phi of lat) for (const lam of lon) u.push(10 * Math.cos((2 * Math.PI * 5 * (phi - 20)) / 50 + 0.3) + Math.sin((3 * lam * Math.PI) / 180));
+    for (const phi of lat)
+      for (const lam of lon)
+        u.push(10 * Math.cos((2 * Math.PI * 5 * (phi - 20)) / 50 + 0.3) + Math.sin((3 * lam * Math.PI) / 180));
     const text = cdl({
-      dims: [{ name: 'time', size: 1 }, { name: 'lat', size: nlat }, { name: 'lon', size: nlon }],
+      dims: [
+        { name: 'time', size: 1 },
+        { name: 'lat', size: nlat },
+        { name: 'lon', size: nlon },
+      ],
       vars: [
         { name: 'lat', type: 'float', dims: ['lat'], attrs: { units: 'degrees_north' }, data: lat },
         { name: 'lon', type: 'float', dims: ['lon'], attrs: { units: 'degrees_east' }, data: lon },
-        { name: 'ua', type: 'float', dims: ['time', 'lat', 'lon'], attrs: { units: 'm s-1', standard_name: 'eastward_wind' }, data: u },
+        {
+          name: 'ua',
+          type: 'float',
+          dims: ['time', 'lat', 'lon'],
+          attrs: { units: 'm s-1', standard_name: 'eastward_wind' },
+          data: u,
+        },
       ],
     });
     const bytes = ncgen(text, 'nc4');
@@ -129,7 +175,9 @@ describe.runIf(runNcgen)('stria analyze, the library: files written by ncgen', (
     // Jets where the cosine peaks: φ = 20 + 10k − 0.3·10/(2π), inside (20°, 70°) for k = 0..4 (the
     // first is 0.48° from the southern edge, within the edge margin, so not counted).
     const R = 6_371_008.7714;
-    const want = [1, 2, 3, 4].map((k) => 20 + 10 * k - (0.3 * 50) / (2 * Math.PI * 5)).map((phi) => (R * (phi - 45) * Math.PI) / 180);
+    const want = [1, 2, 3, 4]
+      .map((k) => 20 + 10 * k - (0.3 * 50) / (2 * Math.PI * 5))
+      .map((phi) => (R * (phi - 45) * Math.PI) / 180);
     expect(a.jets!.count).toBe(4);
     a.jets!.jets.forEach((j, k) => expect(Math.abs(j.y - want[k])).toBeLessThan(0.5 * a.grid.dy));
     expect(Math.abs(a.jets!.meanSpacing! / ((R * 10 * Math.PI) / 180) - 1)).toBeLessThan(0.02);
@@ -140,19 +188,43 @@ describe.runIf(runNcgen)('stria analyze, the library: files written by ncgen', (
     const deg = analyzeFile(memorySource(bytes), {});
     expect(deg.analysis.grid.lengthUnit).toBe('degrees');
     expect(deg.analysis.jets!.count).toBe(4);
-    expect(deg.analysis.skipped.find((s) => s.diagnostic === 'Rhines scale, zonostrophy index')?.reason).toBe('the grid is in degrees: lengths need the tangent plane');
+    expect(deg.analysis.skipped.find((s) => s.diagnostic === 'Rhines scale, zonostrophy index')?.reason).toBe(
+      'the grid is in degrees: lengths need the tangent plane',
+    );
   });
 
   it('masks fill values and missing_value, counts them, and never averages them in', () => {
     const n = 16;
     const u: (number | null)[] = [];
-    for (let j = 0; j < n; j++) for (let i = 0; i < n; i++) u.push(j === 3 && i < 4 ? null : j === 5 && i === 7 ? -1e30 : j + i / 100);
+    for (let j = 0; j < n; j++)
+      for (let i = 0; i < n; i++) u.push(j === 3 && i < 4 ? null : j === 5 && i === 7 ? -1e30 : j + i / 100);
     const text = cdl({
-      dims: [{ name: 'y', size: n }, { name: 'x', size: n }],
+      dims: [
+        { name: 'y', size: n },
+        { name: 'x', size: n },
+      ],
       vars: [
-        { name: 'y', type: 'double', dims: ['y'], attrs: { units: 'km' }, data: Array.from({ length: n }, (_, j) => j) },
-        { name: 'x', type: 'double', dims: ['x'], attrs: { units: 'km' }, data: Array.from({ length: n }, (_, i) => i) },
-        { name: 'u', type: 'float', dims: ['y', 'x'], attrs: { units: 'm s-1', _FillValue: -999, missing_value: -1e30 }, data: u },
+        {
+          name: 'y',
+          type: 'double',
+          dims: ['y'],
+          attrs: { units: 'km' },
+          data: Array.from({ length: n }, (_, j) => j),
+        },
+        {
+          name: 'x',
+          type: 'double',
+          dims: ['x'],
+          attrs: { units: 'km' },
+          data: Array.from({ length: n }, (_, i) => i),
+        },
+        {
+          name: 'u',
+          type: 'float',
+          dims: ['y', 'x'],
+          attrs: { units: 'm s-1', _FillValue: -999, missing_value: -1e30 },
+          data: u,
+        },
       ],
     });
     for (const kind of ['nc3', 'nc4'] as const) {
@@ -160,32 +232,63 @@ describe.runIf(runNcgen)('stria analyze, the library: files written by ncgen', (
       expect(r.masking.u).toMatchObject({ total: n * n, fill: 5, nonFinite: 0, outOfRange: 0, masked: 5 });
       const ub = r.analysis.profiles.ubar as number[];
       const rowMean = (j: number, skip: (i: number) => boolean) => {
-        const xs = Array.from({ length: n }, (_, i) => i).filter((i) => !skip(i)).map((i) => Math.fround(j + i / 100));
+        const xs = Array.from({ length: n }, (_, i) => i)
+          .filter((i) => !skip(i))
+          .map((i) => Math.fround(j + i / 100));
         return xs.reduce((a, b) => a + b, 0) / xs.length;
       };
-      expect(ub[3]).toBeCloseTo(rowMean(3, (i) => i < 4), 12);
-      expect(ub[5]).toBeCloseTo(rowMean(5, (i) => i === 7), 12);
-      expect(fileAnalysisText(r)).toContain('u     5 of 256 (1.95%): 5 fill or missing_value, 0 NaN/Inf, 0 outside the valid range');
+      expect(ub[3]).toBeCloseTo(
+        rowMean(3, (i) => i < 4),
+        12,
+      );
+      expect(ub[5]).toBeCloseTo(
+        rowMean(5, (i) => i === 7),
+        12,
+      );
+      expect(fileAnalysisText(r)).toContain(
+        'u     5 of 256 (1.95%): 5 fill or missing_value, 0 NaN/Inf, 0 outside the valid range',
+      );
     }
   });
 
   it('refuses bad files with a message naming the problem', () => {
     const good = ncgen(staircaseFile({}, false), 'nc3');
     const good4 = ncgen(staircaseFile({}, false), 'nc4');
-    expect(() => analyzeFile(memorySource(new TextEncoder().encode('time,u\n0,1\n')))).toThrow(/^not a NetCDF file: it starts with bytes 74 69 6d 65/);
-    expect(() => analyzeFile(memorySource(good.subarray(0, good.length - 1000)))).toThrow(/^truncated NetCDF file: record 2 of "\w+" ends at byte \d+ but the file has \d+ bytes$/);
-    expect(() => analyzeFile(memorySource(good4.subarray(0, good4.length - 1000)))).toThrow(/^truncated HDF5 file: its superblock says the file is \d+ bytes long/);
-    expect(() => analyzeFile(memorySource(good), { map: { zeta: 'vorticity' } })).toThrow(/^missing variable: the mapping names "vorticity" for zeta, but the file has "time", "y", "x", "U", "V"$/);
-    const bare = cdl({ dims: [{ name: 'n', size: 3 }], vars: [{ name: 'temp', type: 'float', dims: ['n'], attrs: { units: 'K' }, data: [1, 2, 3] }] });
+    expect(() => analyzeFile(memorySource(new TextEncoder().encode('time,u\n0,1\n')))).toThrow(
+      /^not a NetCDF file: it starts with bytes 74 69 6d 65/,
+    );
+    expect(() => analyzeFile(memorySource(good.subarray(0, good.length - 1000)))).toThrow(
+      /^truncated NetCDF file: record 2 of "\w+" ends at byte \d+ but the file has \d+ bytes$/,
+    );
+    expect(() => analyzeFile(memorySource(good4.subarray(0, good4.length - 1000)))).toThrow(
+      /^truncated HDF5 file: its superblock says the file is \d+ bytes long/,
+    );
+    expect(() => analyzeFile(memorySource(good), { map: { zeta: 'vorticity' } })).toThrow(
+      /^missing variable: the mapping names "vorticity" for zeta, but the file has "time", "y", "x", "U", "V"$/,
+    );
+    const bare = cdl({
+      dims: [{ name: 'n', size: 3 }],
+      vars: [{ name: 'temp', type: 'float', dims: ['n'], attrs: { units: 'K' }, data: [1, 2, 3] }],
+    });
     expect(() => analyzeFile(memorySource(ncgen(bare, 'nc3')))).toThrow(/^missing variables: no field to analyse/);
-    const irregular = staircaseFile({}, false).replace(/^ {2}y = 0,.*;$/m, `  y = ${Array.from({ length: ny }, (_, j) => (j * dy) / 1000 + (j === 77 ? 20 : 0)).join(', ')} ;`);
-    expect(() => analyzeFile(memorySource(ncgen(irregular, 'nc4')))).toThrow('irregular grid: axis "y" is not regularly spaced — its worst deviation from a regular spacing of 62.5 is 20 at index 77 (32% of the spacing');
+    const irregular = staircaseFile({}, false).replace(
+      /^ {2}y = 0,.*;$/m,
+      `  y = ${Array.from({ length: ny }, (_, j) => (j * dy) / 1000 + (j === 77 ? 20 : 0)).join(', ')} ;`,
+    );
+    expect(() => analyzeFile(memorySource(ncgen(irregular, 'nc4')))).toThrow(
+      'irregular grid: axis "y" is not regularly spaced — its worst deviation from a regular spacing of 62.5 is 20 at index 77 (32% of the spacing',
+    );
   });
 
   it('keeps memory bounded: one record at a time, nothing retained per record, chunk buffers dropped', () => {
     const run = (text: string, kind: NcgenKind, records: string) => {
       const meter = new AllocationMeter();
-      const r = analyzeFile(memorySource(ncgen(text, kind)), { beta, domain: { x: Lx / 1000, y: Ly / 1000 }, records, meter });
+      const r = analyzeFile(memorySource(ncgen(text, kind)), {
+        beta,
+        domain: { x: Lx / 1000, y: Ly / 1000 },
+        records,
+        meter,
+      });
       return { meter, r };
     };
     const text = staircaseFile({ _ChunkSizes: [1, 32, 32], _DeflateLevel: 1 });

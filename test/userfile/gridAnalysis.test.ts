@@ -30,13 +30,17 @@ function fields(r: number, kd = 0): GridFields {
   return out;
 }
 
-describe('analysis of a user\'s records', () => {
-  it('gives Stria\'s own diagnostics for Stria-like fields: zonal means, jets, staircase, U_rms', () => {
+describe("analysis of a user's records", () => {
+  it("gives Stria's own diagnostics for Stria-like fields: zonal means, jets, staircase, U_rms", () => {
     const recs = [0, 1, 2].map((r) => fields(r));
-    const a = analyzeUserRecords(arraySource({ nx, ny, dx, dy }, ['u', 'v', 'q'], 3, (r) => recs[r]), { beta });
+    const a = analyzeUserRecords(
+      arraySource({ nx, ny, dx, dy }, ['u', 'v', 'q'], 3, (r) => recs[r]),
+      { beta },
+    );
     // Direct: ZonalMeanPlan per record, time mean, JetFinder and StaircaseFitter (summary.ts's route).
     const zm = new ZonalMeanPlan({ nx, ny, Lx, Ly }, { beta });
-    const mean = (k: 'ubar' | 'qtot' | 'upvp' | 'vpqp') => recs.map((f) => zm.compute(f)[k]).reduce((s, p) => s.map((x, j) => x + p[j] / 3), new Float64Array(ny));
+    const mean = (k: 'ubar' | 'qtot' | 'upvp' | 'vpqp') =>
+      recs.map((f) => zm.compute(f)[k]).reduce((s, p) => s.map((x, j) => x + p[j] / 3), new Float64Array(ny));
     expect(maxAbsDiff(a.profiles.ubar as number[], mean('ubar'))).toBeLessThan(1e-14);
     expect(maxAbsDiff(a.profiles.upvp as number[], mean('upvp'))).toBeLessThan(1e-14);
     expect(maxAbsDiff(a.profiles.vpqp as number[], mean('vpqp'))).toBeLessThan(1e-13);
@@ -60,11 +64,17 @@ describe('analysis of a user\'s records', () => {
     const kd = 2;
     const f = randomGridFields({ nx, ny, Lx, Ly, kd, maxIx: 8, maxM: 8, seed: 7 });
     const direct = new ZonalMeanPlan({ nx, ny, Lx, Ly }, { beta }).compute(f);
-    const a = analyzeUserRecords(arraySource({ nx, ny, dx, dy }, ['u', 'v'], 1, () => f), { beta, kd });
+    const a = analyzeUserRecords(
+      arraySource({ nx, ny, dx, dy }, ['u', 'v'], 1, () => f),
+      { beta, kd },
+    );
     expect(a.fields).toEqual({ u: 'file', v: 'file', zeta: 'uv', psi: 'inversion', q: 'zeta' });
     // v′q′ is blind to the mean of ψ, which the inversion cannot know.
     expect(maxAbsDiff(a.profiles.vpqp as number[], direct.vpqp)).toBeLessThan(1e-12);
-    const p = analyzeUserRecords(arraySource({ nx, ny, dx, dy }, ['psi'], 1, () => f), { beta, kd });
+    const p = analyzeUserRecords(
+      arraySource({ nx, ny, dx, dy }, ['psi'], 1, () => f),
+      { beta, kd },
+    );
     expect(p.fields).toEqual({ u: 'psi', v: 'psi', zeta: 'psi', psi: 'file', q: 'zeta' });
     expect(maxAbsDiff(p.profiles.ubar as number[], direct.ubar)).toBeLessThan(1e-12);
     // No PV or vorticity in the file: q̄ comes from ū by differences between rows, at the midpoints;
@@ -72,7 +82,10 @@ describe('analysis of a user\'s records', () => {
     // anomaly [derived: Taylor expansion of the centred difference], checked against the exact
     // profile interpolated to the midpoints.
     expect(p.qtot!.source).toMatch(/^from ū/);
-    const exact = new ProfileFFT(ny, Ly).evaluate(direct.qtot.map((q, j) => q - beta * j * dy), p.qtot!.y);
+    const exact = new ProfileFFT(ny, Ly).evaluate(
+      direct.qtot.map((q, j) => q - beta * j * dy),
+      p.qtot!.y,
+    );
     const anomaly = p.qtot!.values.map((q, j) => q - beta * p.qtot!.y[j]);
     const offset = anomaly[0] - exact[0]; // ψ̄ is known up to a constant, so q̄ up to k_d² times it
     const scale = Math.max(...exact.map(Math.abs));
@@ -84,49 +97,96 @@ describe('analysis of a user\'s records', () => {
     const u = f.u.slice();
     for (let i = 0; i < nx; i += 4) u[10 * nx + i] = NaN; // a quarter of row 10
     for (let i = 0; i < nx; i++) u[40 * nx + i] = NaN; // all of row 40
-    const a = analyzeUserRecords(arraySource({ nx, ny, dx, dy }, ['u', 'v'], 2, () => ({ u, v: f.v })), { beta });
+    const a = analyzeUserRecords(
+      arraySource({ nx, ny, dx, dy }, ['u', 'v'], 2, () => ({ u, v: f.v })),
+      { beta },
+    );
     let s = 0;
     for (let i = 0; i < nx; i++) if (i % 4) s += u[10 * nx + i];
     expect(a.profiles.ubar[10]).toBeCloseTo(s / (nx - nx / 4), 14);
     expect(a.profiles.ubar[40]).toBeNull();
     expect(a.jets).toBeNull();
-    expect(a.skipped).toContainEqual({ diagnostic: 'jets', reason: 'ū is invalid at rows inside the domain (first at row 40): too few valid points there' });
-    expect(a.skipped).toContainEqual({ diagnostic: 'spectra and spectral flux', reason: 'every record had missing values (2); spectra need complete fields' });
+    expect(a.skipped).toContainEqual({
+      diagnostic: 'jets',
+      reason: 'ū is invalid at rows inside the domain (first at row 40): too few valid points there',
+    });
+    expect(a.skipped).toContainEqual({
+      diagnostic: 'spectra and spectral flux',
+      reason: 'every record had missing values (2); spectra need complete fields',
+    });
   });
 
   it('cuts invalid rows off the edges of a bounded domain and works on what is left', () => {
     const f = fields(0);
     const u = f.u.slice();
     for (let i = 0; i < nx; i++) u[i] = u[(ny - 1) * nx + i] = NaN; // the polar rows, say
-    const a = analyzeUserRecords(arraySource({ nx, ny, dx, dy, periodicY: false }, ['u', 'v'], 1, () => ({ u, v: f.v })), { beta });
+    const a = analyzeUserRecords(
+      arraySource({ nx, ny, dx, dy, periodicY: false }, ['u', 'v'], 1, () => ({ u, v: f.v })),
+      { beta },
+    );
     expect(a.jets).not.toBeNull();
     expect(a.notes.some((n) => n.startsWith('ū is invalid on 2 rows at the edges'))).toBe(true);
-    expect(a.skipped).toContainEqual({ diagnostic: 'spectra and spectral flux', reason: 'the grid is not periodic in y: Fourier spectra of a bounded field would be dominated by its edges' });
+    expect(a.skipped).toContainEqual({
+      diagnostic: 'spectra and spectral flux',
+      reason: 'the grid is not periodic in y: Fourier spectra of a bounded field would be dominated by its edges',
+    });
   });
 
   it('skips with reasons what needs β, ε, lengths or a power-of-two grid', () => {
     const f = fields(0);
     const none = analyzeUserRecords(arraySource({ nx, ny, dx, dy }, ['u', 'v'], 1, () => f));
-    expect(none.skipped.map((s) => s.diagnostic)).toEqual(expect.arrayContaining(['PV staircase', 'Rhines scale, zonostrophy index']));
-    const noEps = analyzeUserRecords(arraySource({ nx, ny, dx, dy }, ['u', 'v'], 1, () => f), { beta });
+    expect(none.skipped.map((s) => s.diagnostic)).toEqual(
+      expect.arrayContaining(['PV staircase', 'Rhines scale, zonostrophy index']),
+    );
+    const noEps = analyzeUserRecords(
+      arraySource({ nx, ny, dx, dy }, ['u', 'v'], 1, () => f),
+      { beta },
+    );
     expect(noEps.scales.kRhines).not.toBeNull();
-    expect(noEps.skipped).toContainEqual({ diagnostic: 'zonostrophy index R_β', reason: 'needs the energy injection rate ε (files rarely carry it: give it)' });
-    const withEps = analyzeUserRecords(arraySource({ nx, ny, dx, dy }, ['u', 'v'], 1, () => f), { beta, eps: 1e-3 });
-    expect(withEps.scales.zonostrophyIndex).toBeCloseTo(Math.pow(beta ** 3 / 1e-3, 0.2) / (withEps.scales.kRhines as number), 12);
-    const deg = analyzeUserRecords(arraySource({ nx, ny, dx: 1, dy: 1, lengthUnit: 'degrees', periodicY: false }, ['u', 'v'], 1, () => f), { beta });
+    expect(noEps.skipped).toContainEqual({
+      diagnostic: 'zonostrophy index R_β',
+      reason: 'needs the energy injection rate ε (files rarely carry it: give it)',
+    });
+    const withEps = analyzeUserRecords(
+      arraySource({ nx, ny, dx, dy }, ['u', 'v'], 1, () => f),
+      { beta, eps: 1e-3 },
+    );
+    expect(withEps.scales.zonostrophyIndex).toBeCloseTo(
+      Math.pow(beta ** 3 / 1e-3, 0.2) / (withEps.scales.kRhines as number),
+      12,
+    );
+    const deg = analyzeUserRecords(
+      arraySource({ nx, ny, dx: 1, dy: 1, lengthUnit: 'degrees', periodicY: false }, ['u', 'v'], 1, () => f),
+      { beta },
+    );
     expect(deg.fields.zeta).toBeNull();
-    expect(deg.skipped.find((s) => s.diagnostic === 'spectra and spectral flux')?.reason).toMatch(/^the grid is in degrees/);
-    const odd = analyzeUserRecords(arraySource({ nx: 24, ny: 20, dx, dy }, ['u'], 1, () => ({ u: new Float64Array(480).map((_, k) => Math.cos((2 * Math.PI * Math.floor(k / 24)) / 20)) })), { beta });
-    expect(odd.skipped.find((s) => s.diagnostic === 'spectra and spectral flux')?.reason).toBe("the grid is 24 × 20: Stria's transforms need powers of two");
+    expect(deg.skipped.find((s) => s.diagnostic === 'spectra and spectral flux')?.reason).toMatch(
+      /^the grid is in degrees/,
+    );
+    const odd = analyzeUserRecords(
+      arraySource({ nx: 24, ny: 20, dx, dy }, ['u'], 1, () => ({
+        u: new Float64Array(480).map((_, k) => Math.cos((2 * Math.PI * Math.floor(k / 24)) / 20)),
+      })),
+      { beta },
+    );
+    expect(odd.skipped.find((s) => s.diagnostic === 'spectra and spectral flux')?.reason).toBe(
+      "the grid is 24 × 20: Stria's transforms need powers of two",
+    );
     expect(odd.jets?.count).toBe(1);
   });
 
   it('decides an unstated periodicity by the edge test on the first record', () => {
     const f = fields(0);
-    const a = analyzeUserRecords(arraySource({ nx, ny, dx, dy, periodicX: null, periodicY: null }, ['u', 'v'], 1, () => f), { beta });
+    const a = analyzeUserRecords(
+      arraySource({ nx, ny, dx, dy, periodicX: null, periodicY: null }, ['u', 'v'], 1, () => f),
+      { beta },
+    );
     expect(a.grid.periodicX && a.grid.periodicY).toBe(true);
     expect(a.notes.filter((n) => n.includes('periodic by the edge test')).length).toBe(2);
-    const forced = analyzeUserRecords(arraySource({ nx, ny, dx, dy, periodicX: null, periodicY: null }, ['u', 'v'], 1, () => f), { beta, periodic: { y: false } });
+    const forced = analyzeUserRecords(
+      arraySource({ nx, ny, dx, dy, periodicX: null, periodicY: null }, ['u', 'v'], 1, () => f),
+      { beta, periodic: { y: false } },
+    );
     expect(forced.grid.periodicY).toBe(false);
   });
 
@@ -148,7 +208,12 @@ describe('analysis of a user\'s records', () => {
     const N = 8 * nx * ny;
     const b = twelve.meter.byLabel;
     expect(b.get('fields')).toBe((3 + 1) * N); // u, v, ζ read; q derived (ζ from the file: no scratch)
-    expect((b.get('spectral plans') ?? 0) + (b.get('spectral scratch') ?? 0) + (b.get('spectral flux plan') ?? 0) + (b.get('spectra') ?? 0)).toBeLessThanOrEqual(32 * N);
+    expect(
+      (b.get('spectral plans') ?? 0) +
+        (b.get('spectral scratch') ?? 0) +
+        (b.get('spectral flux plan') ?? 0) +
+        (b.get('spectra') ?? 0),
+    ).toBeLessThanOrEqual(32 * N);
     expect((b.get('profiles') ?? 0) + (b.get('accumulators') ?? 0)).toBeLessThanOrEqual(16 * 8 * ny);
     expect(twelve.a.memory.retainedBytes).toBe(twelve.meter.retained);
   });
@@ -159,6 +224,8 @@ describe('analysis of a user\'s records', () => {
     const a = analyzeUserRecords(src, { beta, records: { start: 2, end: 4 } });
     expect(a.window).toMatchObject({ start: 2, end: 4, count: 2, timeStart: 20, timeEnd: 30 });
     expect(src.reads).toBe(2);
-    expect(() => analyzeUserRecords(src, { records: { start: 4, end: 6 } })).toThrow('records 4:6 are not a window of the 5 records of the file');
+    expect(() => analyzeUserRecords(src, { records: { start: 4, end: 6 } })).toThrow(
+      'records 4:6 are not a window of the 5 records of the file',
+    );
   });
 });

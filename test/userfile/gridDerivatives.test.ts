@@ -3,7 +3,8 @@ import { ddx, ddy, laplacian, profileDerivative } from '../../lib/userfile/gridD
 
 describe('finite differences on periodic and bounded grids', () => {
   const [nx, ny, dx, dy] = [12, 10, 0.5, 0.25];
-  const f = (g: (x: number, y: number) => number) => Float64Array.from({ length: nx * ny }, (_, k) => g((k % nx) * dx, Math.floor(k / nx) * dy));
+  const f = (g: (x: number, y: number) => number) =>
+    Float64Array.from({ length: nx * ny }, (_, k) => g((k % nx) * dx, Math.floor(k / nx) * dy));
 
   it('are exact for quadratics inside a bounded grid and for linear functions on its edges', () => {
     const grid = { nx, ny, dx, dy, periodicX: false, periodicY: false };
@@ -44,7 +45,9 @@ describe('finite differences on periodic and bounded grids', () => {
   it('differentiates profiles, centred and wrapped or one-sided, and propagates NaN', () => {
     const p = Float64Array.from([0, 1, 4, 9, 16]);
     expect(Array.from(profileDerivative(p, 1, false, new Float64Array(5)))).toEqual([1, 2, 4, 6, 7]);
-    expect(Array.from(profileDerivative(Float64Array.from([0, 1, 0, -1]), 1, true, new Float64Array(4)))).toEqual([1, 0, -1, 0]);
+    expect(Array.from(profileDerivative(Float64Array.from([0, 1, 0, -1]), 1, true, new Float64Array(4)))).toEqual([
+      1, 0, -1, 0,
+    ]);
     const grid = { nx: 3, ny: 1, dx: 1, dy: 1, periodicX: false, periodicY: false };
     expect(Array.from(ddx(grid, Float64Array.from([1, NaN, 3]), new Float64Array(3)))).toEqual([NaN, 1, NaN]);
   });

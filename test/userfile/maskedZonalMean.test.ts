@@ -15,7 +15,7 @@ describe('zonal means over valid points', () => {
     expect(z.ubar[0]).toBe(2);
     expect(z.vbar[0]).toBe(0.5);
     expect(z.upvp[0]).toBe(0);
-    expect(z.eke[0]).toBeCloseTo(0.5 * ((1 + 0.25) + (0 + 2.25) + (1 + 0.25)) / 3, 15);
+    expect(z.eke[0]).toBeCloseTo((0.5 * (1 + 0.25 + (0 + 2.25) + (1 + 0.25))) / 3, 15);
     expect(z.ubar[1]).toBeNaN(); // 1 valid point < minCount 2
     expect(z.upvp[1]).toBeNaN();
     expect(z.qbar[0]).toBeNaN(); // no q given
@@ -30,7 +30,8 @@ describe('zonal means over valid points', () => {
     const g = { nx, ny, Lx: 2, Ly: 3, u: f(), v: f(), q: f(), zeta: f(), psi: f() };
     const ref = new ZonalMeanPlan({ nx, ny, Lx: 2, Ly: 3 }, { beta: 0 }).compute(g);
     const z = new MaskedZonalMean(nx, ny, 1, new AllocationMeter()).compute(g.u, g.v, g.q);
-    for (const k of ['ubar', 'qbar', 'upvp', 'vpqp', 'eke'] as const) for (let j = 0; j < ny; j++) expect(Math.abs(z[k][j] - ref[k][j])).toBeLessThan(1e-15);
+    for (const k of ['ubar', 'qbar', 'upvp', 'vpqp', 'eke'] as const)
+      for (let j = 0; j < ny; j++) expect(Math.abs(z[k][j] - ref[k][j])).toBeLessThan(1e-15);
   });
 
   it('time-averages each row over the records where it was valid, and drops rows valid too rarely', () => {

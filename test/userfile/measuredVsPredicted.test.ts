@@ -9,10 +9,13 @@ const dy = Ly / ny;
 const L = Ly / 4;
 const u = Float64Array.from({ length: nx * ny }, (_, k) => staircaseProfile(Math.floor(k / nx) * dy, L, beta, 0.2).u);
 const analysis = (opts: { beta?: number; eps?: number; lengthUnit?: 'model' | 'm' | 'degrees' }) =>
-  analyzeUserRecords(arraySource({ nx, ny, dx: Ly / nx, dy, lengthUnit: opts.lengthUnit ?? 'model' }, ['u'], 1, () => ({ u })), { beta: opts.beta, eps: opts.eps });
+  analyzeUserRecords(
+    arraySource({ nx, ny, dx: Ly / nx, dy, lengthUnit: opts.lengthUnit ?? 'model' }, ['u'], 1, () => ({ u })),
+    { beta: opts.beta, eps: opts.eps },
+  );
 
 describe('measured values beside the planner', () => {
-  it('puts the planner\'s predictions for the same β, ε, μ beside the measurements', () => {
+  it("puts the planner's predictions for the same β, ε, μ beside the measurements", () => {
     const a = analysis({ beta, eps: 1e-3 });
     const c = measuredVsPredicted(a, { beta, eps: 1e-3, mu: 1e-3 });
     const row = (id: string) => c.rows.find((r) => r.id === id)!;
@@ -42,6 +45,8 @@ describe('measured values beside the planner', () => {
     expect(c.rows.every((r) => r.id === 'spacingFromU' || r.predicted === null)).toBe(true);
     expect(c.rows.find((r) => r.id === 'spacingFromU')!.predicted).not.toBeNull();
     const deg = measuredVsPredicted(analysis({ beta, lengthUnit: 'degrees' }), { beta, eps: 1, mu: 1 });
-    expect(deg.missing).toBe('no planner predictions: the grid is in degrees (give a planet to map it onto the tangent plane)');
+    expect(deg.missing).toBe(
+      'no planner predictions: the grid is in degrees (give a planet to map it onto the tangent plane)',
+    );
   });
 });

@@ -14,7 +14,9 @@ describe('record windows a:b', () => {
 
   it('refuses windows that are malformed or select nothing', () => {
     expect(() => parseRecordWindow('a:b', 10)).toThrow('records "a:b": write a:b');
-    expect(() => parseRecordWindow('5:5', 10)).toThrow('records "5:5" select nothing of the file\'s 10 records (0 to 9)');
+    expect(() => parseRecordWindow('5:5', 10)).toThrow(
+      'records "5:5" select nothing of the file\'s 10 records (0 to 9)',
+    );
     expect(() => parseRecordWindow('8:12', 10)).toThrow(/select nothing/);
     expect(() => parseRecordWindow('', 10)).toThrow(/write a:b/);
   });

@@ -11,7 +11,7 @@ import { spectrumOf } from '../support/modelFixtures';
 
 const spec = { nx: 64, ny: 32, Lx: 3, Ly: 2, kd: 1.5, maxIx: 20, maxM: 10, seed: 11 };
 
-describe('spectral operations on a user\'s doubly periodic field', () => {
+describe("spectral operations on a user's doubly periodic field", () => {
   const f = randomGridFields(spec);
   const plan = new UserSpectralPlan(spec, spec.kd, new AllocationMeter());
   const n = spec.nx * spec.ny;
@@ -19,10 +19,20 @@ describe('spectral operations on a user\'s doubly periodic field', () => {
   it('differentiate and invert exactly: u = −ψ_y, v = ψ_x, ζ = ∇²ψ, ψ = ∇⁻²ζ', () => {
     const out = new Float64Array(n);
     expect(maxAbsDiff(plan.ddx(f.psi, out), f.v)).toBeLessThan(1e-12 * maxAbs(f.v));
-    expect(maxAbsDiff(plan.ddy(f.psi, out).map((x) => -x), f.u)).toBeLessThan(1e-12 * maxAbs(f.u));
+    expect(
+      maxAbsDiff(
+        plan.ddy(f.psi, out).map((x) => -x),
+        f.u,
+      ),
+    ).toBeLessThan(1e-12 * maxAbs(f.u));
     expect(maxAbsDiff(plan.laplacian(f.psi, out), f.zeta)).toBeLessThan(1e-12 * maxAbs(f.zeta));
     const mean = f.psi.reduce((a, b) => a + b, 0) / n;
-    expect(maxAbsDiff(plan.invertLaplacian(f.zeta, out), f.psi.map((p) => p - mean))).toBeLessThan(1e-12 * maxAbs(f.psi));
+    expect(
+      maxAbsDiff(
+        plan.invertLaplacian(f.zeta, out),
+        f.psi.map((p) => p - mean),
+      ),
+    ).toBeLessThan(1e-12 * maxAbs(f.psi));
   });
 
   it('give the spectra of spectra.ts, which sum to the domain-mean energy (Parseval)', () => {
@@ -34,15 +44,27 @@ describe('spectral operations on a user\'s doubly periodic field', () => {
     let e = 0;
     for (let k = 0; k < n; k++) e += 0.5 * (f.u[k] ** 2 + f.v[k] ** 2 + spec.kd ** 2 * (f.psi[k] - mean) ** 2);
     expect(Math.abs(sp.energy / (e / n) - 1)).toBeLessThan(1e-12);
-    const ke = plan.kineticSpectrum(f.u, f.v, new Float64Array(plan.spectra.nShells), new Float64Array(plan.spectra.nShells));
+    const ke = plan.kineticSpectrum(
+      f.u,
+      f.v,
+      new Float64Array(plan.spectra.nShells),
+      new Float64Array(plan.spectra.nShells),
+    );
     let k2 = 0;
     for (let k = 0; k < n; k++) k2 += 0.5 * (f.u[k] ** 2 + f.v[k] ** 2);
     expect(Math.abs(ke.reduce((a, b) => a + b, 0) / (k2 / n) - 1)).toBeLessThan(1e-12);
   });
 
-  it('give the model\'s own spectral flux, whose transfers sum to zero', () => {
+  it("give the model's own spectral flux, whose transfers sum to zero", () => {
     const { flux, keptEnergyFraction } = plan.pvFlux(f.q);
-    const snap = new SnapshotPlan({ ...DEFAULT_PARAMS, nx: spec.nx, ny: spec.ny, Lx: spec.Lx, Ly: spec.Ly, kd: spec.kd });
+    const snap = new SnapshotPlan({
+      ...DEFAULT_PARAMS,
+      nx: spec.nx,
+      ny: spec.ny,
+      Lx: spec.Lx,
+      Ly: spec.Ly,
+      kd: spec.kd,
+    });
     const ref = new SpectralFluxPlan(snap).compute(spectrumOf(spec, f.q));
     expect(maxAbsDiff(flux.PiE, ref.PiE)).toBe(0);
     // The truncated Jacobian conserves energy and enstrophy [published] Kraichnan, Phys. Fluids 10,

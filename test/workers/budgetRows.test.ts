@@ -9,7 +9,8 @@ function report(i: number, dt = 0.01): StepReport {
   r.dt = dt;
   r.kinetic = 1 + i;
   let k = 0;
-  for (const b of [r.energy, r.enstrophy]) for (const key of Object.keys(b) as (keyof typeof b)[]) b[key] = 100 * i + ++k;
+  for (const b of [r.energy, r.enstrophy])
+    for (const key of Object.keys(b) as (keyof typeof b)[]) b[key] = 100 * i + ++k;
   return r;
 }
 
@@ -29,7 +30,9 @@ describe('budget rows', () => {
     for (let i = 0; i < 10; i++) buf.push(report(i));
     const out = buf.take();
     expect(out.rows).toBe(10);
-    expect(Array.from({ length: 10 }, (_, i) => out.data[i * BUDGET_ROW_WIDTH + 2])).toEqual(Array.from({ length: 10 }, (_, i) => 1 + i));
+    expect(Array.from({ length: 10 }, (_, i) => out.data[i * BUDGET_ROW_WIDTH + 2])).toEqual(
+      Array.from({ length: 10 }, (_, i) => 1 + i),
+    );
     expect(buf.length).toBe(0);
   });
 
@@ -59,7 +62,10 @@ describe('budget rows', () => {
     expect(row(1).kinetic).toBeCloseTo((reports[2].kinetic + reports[3].kinetic) / 2, 12);
     expect(row(2).energy).toEqual(reports[4].energy);
     const total = [0, 1, 2].reduce((s, j) => s + row(j).dt, 0);
-    expect(total).toBeCloseTo(reports.reduce((s, r) => s + r.dt, 0), 15);
+    expect(total).toBeCloseTo(
+      reports.reduce((s, r) => s + r.dt, 0),
+      15,
+    );
   });
 
   it('refuses an odd row limit', () => {

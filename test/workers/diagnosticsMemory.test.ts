@@ -13,7 +13,7 @@ interface HostParts {
 }
 
 describe('memory of the views in the worker', () => {
-  it('counts every typed array the diagnostics of a host with every view shown hold beyond the run\'s measurement, exactly', async () => {
+  it("counts every typed array the diagnostics of a host with every view shown hold beyond the run's measurement, exactly", async () => {
     for (const [nx, ny, Lx, Ly] of [
       [32, 32, 2 * Math.PI, 2 * Math.PI],
       [64, 32, 4 * Math.PI, 2 * Math.PI],
@@ -22,7 +22,10 @@ describe('memory of the views in the worker', () => {
       [256, 128, 3, 5],
     ]) {
       const host = new SimulationHost();
-      await host.init({ nx, ny, Lx, Ly, kf: 6 * (2 * Math.PI) / Math.min(Lx, Ly), dkf: 1.5 * (2 * Math.PI) / Math.min(Lx, Ly) }, { sampleEvery: 0.01, spectralAverage: MAX_SPECTRAL_AVERAGE });
+      await host.init(
+        { nx, ny, Lx, Ly, kf: (6 * (2 * Math.PI)) / Math.min(Lx, Ly), dkf: (1.5 * (2 * Math.PI)) / Math.min(Lx, Ly) },
+        { sampleEvery: 0.01, spectralAverage: MAX_SPECTRAL_AVERAGE },
+      );
       await host.setDiagnostics({ zonal: true, hovmoller: true, spectra: true, spectra2d: true, flux: true });
       for (let i = 0; i < 3; i++) await host.stepOnce();
       const parts = host as unknown as HostParts;
@@ -30,7 +33,9 @@ describe('memory of the views in the worker', () => {
       const measurement = run.items[1].bytes;
       // The budget rows are counted at their largest; the host holds them as they are now.
       const rows = reachableArrayBytes(parts.rows).bytes;
-      expect(viewDiagnosticsBytes({ nx, ny, Lx, Ly }) - BUDGET_ROWS_MAX_BYTES + rows, `${nx}×${ny}`).toBe(reachableArrayBytes(parts.diagnostics, parts.rows).bytes - measurement);
+      expect(viewDiagnosticsBytes({ nx, ny, Lx, Ly }) - BUDGET_ROWS_MAX_BYTES + rows, `${nx}×${ny}`).toBe(
+        reachableArrayBytes(parts.diagnostics, parts.rows).bytes - measurement,
+      );
       await host.dispose();
     }
   });

@@ -51,7 +51,12 @@ describe('SimulationHost diagnostics', () => {
     host = new SimulationHost();
     await host.init(SMALL, { sampleEvery: EVERY });
     let s = await stepsThenSnapshot(host, 8, 0);
-    expect([s.diagnostics.zonal, s.diagnostics.spectra, s.diagnostics.flux, s.diagnostics.hovmoller]).toEqual([null, null, null, null]);
+    expect([s.diagnostics.zonal, s.diagnostics.spectra, s.diagnostics.flux, s.diagnostics.hovmoller]).toEqual([
+      null,
+      null,
+      null,
+      null,
+    ]);
     await host.setDiagnostics({ zonal: true, hovmoller: true, spectra: true, spectra2d: true, flux: true });
     s = await host.nextSnapshot({ after: s.version });
     const d = s.diagnostics;

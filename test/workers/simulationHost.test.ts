@@ -143,7 +143,12 @@ describe('SimulationHost', () => {
     }
     expect(blewAt).toBeGreaterThan(RESCUE_EVERY);
     expect(s.blowUp?.report).toMatchObject({ steps: blewAt, reason: expect.stringMatching(/CFL/) });
-    expect(s.blowUp?.restart).toEqual({ time: kept.time, steps: kept.steps, dt: { from: 0.05, to: 0.025 }, cfl: { from: 0, to: 0 } });
+    expect(s.blowUp?.restart).toEqual({
+      time: kept.time,
+      steps: kept.steps,
+      dt: { from: 0.05, to: 0.025 },
+      cfl: { from: 0, to: 0 },
+    });
     expect(s.blowUp?.refused).toBeNull();
     expect(s.steps).toBe(blewAt);
 
@@ -168,7 +173,11 @@ describe('SimulationHost', () => {
     await host.stepOnce();
     const s = await host.nextSnapshot({ after: 0 });
     expect(s.blowUp?.report.reason).toMatch(/collapsed/);
-    expect(s.blowUp?.restart).toMatchObject({ steps: 0, dt: { from: info.params.dt, to: info.params.dt / 2 }, cfl: { from: 0.015, to: 0.0075 } });
+    expect(s.blowUp?.restart).toMatchObject({
+      steps: 0,
+      dt: { from: info.params.dt, to: info.params.dt / 2 },
+      cfl: { from: 0.015, to: 0.0075 },
+    });
     expect(s.blowUp?.refused).toMatch(/cfl/);
     await expect(host.restartHalved()).rejects.toThrow(/cfl/);
   });

@@ -11,6 +11,11 @@ export async function striaInterrupted(args: readonly string[], afterLooks: numb
   let stderr = '';
   let looks = 0;
   const sink = (add: (s: string) => void) => new Writable({ write: (chunk, _enc, cb) => (add(String(chunk)), cb()) });
-  const status = await main(args, { out: sink((s) => (stdout += s)), err: sink((s) => (stderr += s)), argv: args, interrupted: () => ++looks >= afterLooks });
+  const status = await main(args, {
+    out: sink((s) => (stdout += s)),
+    err: sink((s) => (stderr += s)),
+    argv: args,
+    interrupted: () => ++looks >= afterLooks,
+  });
   return { status, stdout, stderr };
 }

@@ -18,7 +18,11 @@ export interface Result {
 }
 
 export function stria(args: readonly string[], cwd?: string): Result {
-  const r = spawnSync(process.execPath, [STRIA, ...args], { encoding: 'utf8', cwd, env: { ...process.env, STRIA_DEBUG: '' } });
+  const r = spawnSync(process.execPath, [STRIA, ...args], {
+    encoding: 'utf8',
+    cwd,
+    env: { ...process.env, STRIA_DEBUG: '' },
+  });
   if (r.error) throw r.error;
   return { status: r.status, stdout: r.stdout, stderr: r.stderr };
 }
@@ -45,7 +49,19 @@ export function scratchDir(name: string): string {
 }
 
 /** Tiny, fast parameters: 32 × 32, forcing at k = 8, strong drag (spin-up 1/(2μ) = 10). */
-export const TINY = { nx: 32, ny: 32, kf: 8, dkf: 1.5, beta: 10, mu: 0.05, eps: 0.05, nu: 1e-8, nu_order: 4, dt: 0.05, cfl: 0.8 };
+export const TINY = {
+  nx: 32,
+  ny: 32,
+  kf: 8,
+  dkf: 1.5,
+  beta: 10,
+  mu: 0.05,
+  eps: 0.05,
+  nu: 1e-8,
+  nu_order: 4,
+  dt: 0.05,
+  cfl: 0.8,
+};
 export const TINY_SETS = Object.entries(TINY).flatMap(([k, v]) => ['--set', `${k}=${v}`]);
 
 /**
@@ -58,6 +74,11 @@ export async function striaHere(args: readonly string[]): Promise<Result> {
   let stdout = '';
   let stderr = '';
   const sink = (add: (s: string) => void) => new Writable({ write: (chunk, _enc, cb) => (add(String(chunk)), cb()) });
-  const status = await main(args, { out: sink((s) => (stdout += s)), err: sink((s) => (stderr += s)), argv: args, interrupted: () => false });
+  const status = await main(args, {
+    out: sink((s) => (stdout += s)),
+    err: sink((s) => (stderr += s)),
+    argv: args,
+    interrupted: () => false,
+  });
   return { status, stdout, stderr };
 }

@@ -30,13 +30,21 @@ function checkpointOf(params: Record<string, unknown>, steps: number, until: num
     plan,
     origin: { time: 0, steps: 0 },
     retries: [],
-    outputs: { created_at: '2026-01-01T00:00:00Z', command: 'stria run', snapshots: null, zonal: { path: 'z.nc', records: 3 } },
+    outputs: {
+      created_at: '2026-01-01T00:00:00Z',
+      command: 'stria run',
+      snapshots: null,
+      zonal: { path: 'z.nc', records: 3 },
+    },
     measurement: run.saveState(),
   };
   return encodeCheckpointFile(model.checkpoint(), progress, new Date('2026-01-01T00:00:00Z'));
 }
 
-const FILES = [checkpointOf({ nx: 32, ny: 32, kf: 8, dkf: 1.5, dt: 0.01, init_energy: 1 }, 12, 1), checkpointOf({ nx: 32, ny: 32, kf: 6, dkf: 1, dt: 0.02, cfl: 0, mu: 0.1 }, 7, 2)];
+const FILES = [
+  checkpointOf({ nx: 32, ny: 32, kf: 8, dkf: 1.5, dt: 0.01, init_energy: 1 }, 12, 1),
+  checkpointOf({ nx: 32, ny: 32, kf: 6, dkf: 1, dt: 0.02, cfl: 0, mu: 0.1 }, 7, 2),
+];
 
 /** A checkpoint split once into its JSON without the measurement, and the measurement's JSON text. */
 interface Split {
@@ -69,7 +77,10 @@ function editAndSeal({ skeleton, measurement }: Split, edits: Parameters<typeof 
 
 const file = fc.constantFrom(...FILES);
 const inputs: fc.Arbitrary<string> = fc.oneof(
-  { weight: 1, arbitrary: fc.oneof(fc.string(), fc.json(), fc.constantFrom('', '{}', '{"progress":{}}', '{"progress":null}')) },
+  {
+    weight: 1,
+    arbitrary: fc.oneof(fc.string(), fc.json(), fc.constantFrom('', '{}', '{"progress":{}}', '{"progress":null}')),
+  },
   { weight: 3, arbitrary: fc.tuple(fc.constantFrom(...SPLITS), editsArbitrary(2)).map(([t, e]) => editAndSeal(t, e)) },
   { weight: 2, arbitrary: file.chain((t) => textDamage(t)) },
   { weight: 1, arbitrary: fc.constantFrom(...SPLITS).map((t) => editAndSeal(t, [])) },
@@ -82,8 +93,12 @@ export const boundary: Boundary<string> = {
     try {
       decoded = decodeCheckpointFile(text);
     } catch (e) {
-      if (!isInputError(e, 'checkpoint file')) throw new PropertyFailure(`decodeCheckpointFile threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}, not an InputError of source 'checkpoint file'`);
-      if (!e.field || !e.message.includes(e.field)) throw new PropertyFailure(`an InputError of source 'checkpoint file' names no field: ${e.message}`);
+      if (!isInputError(e, 'checkpoint file'))
+        throw new PropertyFailure(
+          `decodeCheckpointFile threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}, not an InputError of source 'checkpoint file'`,
+        );
+      if (!e.field || !e.message.includes(e.field))
+        throw new PropertyFailure(`an InputError of source 'checkpoint file' names no field: ${e.message}`);
       return e.field === 'progress.digest' ? 'rejected by the digest' : 'rejected';
     }
     const { checkpoint, progress } = decoded;
@@ -93,7 +108,8 @@ export const boundary: Boundary<string> = {
       try {
         run.restoreState(progress.measurement);
       } catch (e) {
-        if (!isInputError(e, 'state')) throw new PropertyFailure(`restoreState threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}`);
+        if (!isInputError(e, 'state'))
+          throw new PropertyFailure(`restoreState threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}`);
         answer = 'accepted, measurement refused';
       }
     }
@@ -102,11 +118,16 @@ export const boundary: Boundary<string> = {
     } catch (e) {
       if (e instanceof BlowUpError) return `${answer}, blew up`;
       if (e instanceof RangeError && /clock no longer advances/.test(e.message)) return `${answer}, clock stalls`;
-      throw new PropertyFailure(`accepted, then the run threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}`);
+      throw new PropertyFailure(
+        `accepted, then the run threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}`,
+      );
     }
     const q = run.model.qHat;
-    if (!q.every(Number.isFinite)) throw new PropertyFailure('accepted, then the state went non-finite without a BlowUpError');
-    for (const [k, x] of Object.entries(run.summary())) if (typeof x === 'number' && !Number.isFinite(x)) throw new PropertyFailure(`accepted, then the summary has ${k} = ${x}`);
+    if (!q.every(Number.isFinite))
+      throw new PropertyFailure('accepted, then the state went non-finite without a BlowUpError');
+    for (const [k, x] of Object.entries(run.summary()))
+      if (typeof x === 'number' && !Number.isFinite(x))
+        throw new PropertyFailure(`accepted, then the summary has ${k} = ${x}`);
     return answer;
   },
   preview: (t) => `${t.length} chars: ${t.slice(0, 160).replace(/\s+/g, ' ')}…`,

@@ -30,53 +30,76 @@ const fieldValue: Record<string, fc.Arbitrary<unknown>> = {
   force_zonal: fc.oneof(fc.boolean(), weirdValue),
   seed: fc.oneof(fc.integer({ min: -1, max: 2 ** 32 }), weirdValue),
 };
-const anyField = (k: string) => fieldValue[k] ?? fc.oneof(fc.double({ min: 0, max: 1e3, noNaN: true }), fc.double({ min: 0, max: 1e12, noNaN: true }), weirdValue);
+const anyField = (k: string) =>
+  fieldValue[k] ??
+  fc.oneof(fc.double({ min: 0, max: 1e3, noNaN: true }), fc.double({ min: 0, max: 1e12, noNaN: true }), weirdValue);
 
 const nearValid = fc
   .tuple(fc.subarray(KEYS, { minLength: 1, maxLength: 3 }), fc.array(fc.tuple(trickyKey, weirdValue), { maxLength: 1 }))
-  .chain(([keys, extra]) => fc.tuple(...keys.map((k) => anyField(k).map((x) => [k, x] as const))).map((entries) => ({ ...SMALL, ...Object.fromEntries(entries), ...Object.fromEntries(extra) })));
+  .chain(([keys, extra]) =>
+    fc
+      .tuple(...keys.map((k) => anyField(k).map((x) => [k, x] as const)))
+      .map((entries) => ({ ...SMALL, ...Object.fromEntries(entries), ...Object.fromEntries(extra) })),
+  );
 
-const fieldwise = fc.record(Object.fromEntries(KEYS.map((k) => [k, anyField(k)])), { requiredKeys: [] }).map((r) => ({ ...SMALL, ...r }));
+const fieldwise = fc
+  .record(Object.fromEntries(KEYS.map((k) => [k, anyField(k)])), { requiredKeys: [] })
+  .map((r) => ({ ...SMALL, ...r }));
 
 // In-range extremes, with the forcing off (no annulus rule) or on: where overflow would hide.
 const extreme = fc.constantFrom(0, 5e-324, 1e-300, 1e-12, 1e-3, 1, 1e3, 1e6, 1e12);
 const extremes = fc
-  .record({
-    Lx: extreme,
-    Ly: extreme,
-    beta: extreme,
-    kd: extreme,
-    mu: extreme,
-    nu: fc.constantFrom(0, 1e-300, 1, 1e12, 1e100, 1e300),
-    nu_order: fc.integer({ min: 1, max: 8 }),
-    eps: extreme,
-    dt: extreme,
-    cfl: fc.constantFrom(0, 1e-300, 0.5, 1.2),
-    init_energy: extreme,
-    forcing: fc.constantFrom('none', 'stochastic'),
-  }, { requiredKeys: [] })
+  .record(
+    {
+      Lx: extreme,
+      Ly: extreme,
+      beta: extreme,
+      kd: extreme,
+      mu: extreme,
+      nu: fc.constantFrom(0, 1e-300, 1, 1e12, 1e100, 1e300),
+      nu_order: fc.integer({ min: 1, max: 8 }),
+      eps: extreme,
+      dt: extreme,
+      cfl: fc.constantFrom(0, 1e-300, 0.5, 1.2),
+      init_energy: extreme,
+      forcing: fc.constantFrom('none', 'stochastic'),
+    },
+    { requiredKeys: [] },
+  )
   .map((r) => ({ ...SMALL, ...r }));
 
 export const boundary: Boundary<unknown> = {
-  arbitrary: fc.oneof({ weight: 1, arbitrary: fc.anything({ withBigInt: true, withNullPrototype: true, withSparseArray: true }) }, { weight: 4, arbitrary: nearValid }, { weight: 3, arbitrary: fieldwise }, { weight: 2, arbitrary: extremes }),
+  arbitrary: fc.oneof(
+    { weight: 1, arbitrary: fc.anything({ withBigInt: true, withNullPrototype: true, withSparseArray: true }) },
+    { weight: 4, arbitrary: nearValid },
+    { weight: 3, arbitrary: fieldwise },
+    { weight: 2, arbitrary: extremes },
+  ),
   check(input) {
     let p;
     try {
       p = validateParams(input);
     } catch (e) {
-      if (!isInputError(e, 'parameters')) throw new PropertyFailure(`validateParams threw ${e instanceof Error ? e.name : typeof e}, not an InputError of source 'parameters': ${String(e)}`);
+      if (!isInputError(e, 'parameters'))
+        throw new PropertyFailure(
+          `validateParams threw ${e instanceof Error ? e.name : typeof e}, not an InputError of source 'parameters': ${String(e)}`,
+        );
       if (e.issues.length === 0) throw new PropertyFailure('an InputError of source "parameters" with no issue');
       for (const i of e.issues) {
         if (typeof i.field !== 'string') throw new PropertyFailure(`an issue names no field: ${JSON.stringify(i)}`);
         // A key that is the empty text is named by its value, shown as "".
-        if (!e.message.includes(i.field === '' ? '""' : i.field)) throw new PropertyFailure(`the message does not name the field ${JSON.stringify(i.field)}: ${e.message}`);
+        if (!e.message.includes(i.field === '' ? '""' : i.field))
+          throw new PropertyFailure(`the message does not name the field ${JSON.stringify(i.field)}: ${e.message}`);
       }
       return 'rejected';
     }
-    if (Object.keys(p).sort().join() !== [...KEYS].sort().join()) throw new PropertyFailure(`accepted parameters with keys ${Object.keys(p).join(', ')}`);
-    for (const [k, x] of Object.entries(p)) if (typeof x === 'number' && !Number.isFinite(x)) throw new PropertyFailure(`accepted ${k} = ${x}`);
+    if (Object.keys(p).sort().join() !== [...KEYS].sort().join())
+      throw new PropertyFailure(`accepted parameters with keys ${Object.keys(p).join(', ')}`);
+    for (const [k, x] of Object.entries(p))
+      if (typeof x === 'number' && !Number.isFinite(x)) throw new PropertyFailure(`accepted ${k} = ${x}`);
     const mem = estimateRunMemory(p);
-    if (!(mem.totalBytes > 0 && Number.isFinite(mem.totalBytes))) throw new PropertyFailure(`memory estimate ${mem.totalBytes} for accepted parameters`);
+    if (!(mem.totalBytes > 0 && Number.isFinite(mem.totalBytes)))
+      throw new PropertyFailure(`memory estimate ${mem.totalBytes} for accepted parameters`);
     return stepsCleanly(p);
   },
 };

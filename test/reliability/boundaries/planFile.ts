@@ -17,7 +17,14 @@ const FILES = PLAN_SEEDS.map((input) => serializePlanFile(input as PlanInput, '2
 export const boundary: Boundary<unknown> = {
   arbitrary: fc.oneof(
     { weight: 1, arbitrary: fc.oneof(fc.string(), fc.json(), fc.anything()) },
-    { weight: 3, arbitrary: fc.tuple(fc.constantFrom(...FILES), editsArbitrary(2), fc.boolean()).map(([t, e, asText]) => (asText ? JSON.stringify(applyEdits(JSON.parse(t), e)) : applyEdits(JSON.parse(t), e))) },
+    {
+      weight: 3,
+      arbitrary: fc
+        .tuple(fc.constantFrom(...FILES), editsArbitrary(2), fc.boolean())
+        .map(([t, e, asText]) =>
+          asText ? JSON.stringify(applyEdits(JSON.parse(t), e)) : applyEdits(JSON.parse(t), e),
+        ),
+    },
     { weight: 2, arbitrary: fc.constantFrom(...FILES).chain((t) => textDamage(t)) },
   ),
   check(input) {
@@ -25,9 +32,14 @@ export const boundary: Boundary<unknown> = {
     try {
       file = parsePlanFile(input);
     } catch (e) {
-      if (!isInputError(e, 'plan file')) throw new PropertyFailure(`parsePlanFile threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}, not an InputError of source 'plan file'`);
-      if (!/plan file/i.test(e.message)) throw new PropertyFailure(`the refusal does not say what is wrong: ${e.message}`);
-      if (/input refused: /.test(e.message) && !/input\.[^:]*: /.test(e.message)) throw new PropertyFailure(`an input refusal names no field: ${e.message}`);
+      if (!isInputError(e, 'plan file'))
+        throw new PropertyFailure(
+          `parsePlanFile threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}, not an InputError of source 'plan file'`,
+        );
+      if (!/plan file/i.test(e.message))
+        throw new PropertyFailure(`the refusal does not say what is wrong: ${e.message}`);
+      if (/input refused: /.test(e.message) && !/input\.[^:]*: /.test(e.message))
+        throw new PropertyFailure(`an input refusal names no field: ${e.message}`);
       return 'rejected';
     }
     return analysesCleanly(file.input);

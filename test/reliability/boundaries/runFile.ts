@@ -53,12 +53,28 @@ function flipBits(text: string, flips: [number, number][]): string {
 
 const file = fc.constantFrom(...FILES);
 const inputs: fc.Arbitrary<string> = fc.oneof(
-  { weight: 1, arbitrary: fc.oneof(fc.string(), fc.json(), fc.constantFrom('', '{}', '[]', 'null', '{"format":"stria-run"}')) },
-  { weight: 3, arbitrary: fc.tuple(file, editsArbitrary(3)).map(([t, e]) => JSON.stringify(applyEdits(JSON.parse(t), e))) },
+  {
+    weight: 1,
+    arbitrary: fc.oneof(fc.string(), fc.json(), fc.constantFrom('', '{}', '[]', 'null', '{"format":"stria-run"}')),
+  },
+  {
+    weight: 3,
+    arbitrary: fc.tuple(file, editsArbitrary(3)).map(([t, e]) => JSON.stringify(applyEdits(JSON.parse(t), e))),
+  },
   { weight: 2, arbitrary: file.chain((t) => textDamage(t)) },
-  { weight: 2, arbitrary: fc.tuple(file, fc.array(fc.tuple(fc.nat(), fc.integer({ min: 0, max: 7 })), { minLength: 1, maxLength: 4 })).map(([t, f]) => flipBits(t, f)) },
+  {
+    weight: 2,
+    arbitrary: fc
+      .tuple(file, fc.array(fc.tuple(fc.nat(), fc.integer({ min: 0, max: 7 })), { minLength: 1, maxLength: 4 }))
+      .map(([t, f]) => flipBits(t, f)),
+  },
   { weight: 2, arbitrary: fc.tuple(file, stateField).map(([t, s]) => withState(t, s)) },
-  { weight: 1, arbitrary: fc.tuple(file, fc.constantFrom('time', 'steps', 'dt', 'rng', 'qHat'), weirdValue).map(([t, k, x]) => withState(t, { [k]: x })) },
+  {
+    weight: 1,
+    arbitrary: fc
+      .tuple(file, fc.constantFrom('time', 'steps', 'dt', 'rng', 'qHat'), weirdValue)
+      .map(([t, k, x]) => withState(t, { [k]: x })),
+  },
 );
 
 export const boundary: Boundary<string> = {
@@ -68,22 +84,29 @@ export const boundary: Boundary<string> = {
     try {
       cp = decodeRunFile(text);
     } catch (e) {
-      if (!isInputError(e, 'run file')) throw new PropertyFailure(`decodeRunFile threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}, not an InputError of source 'run file'`);
-      if (!e.field || !e.message.includes(e.field)) throw new PropertyFailure(`an InputError of source 'run file' names no field: ${e.message}`);
+      if (!isInputError(e, 'run file'))
+        throw new PropertyFailure(
+          `decodeRunFile threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}, not an InputError of source 'run file'`,
+        );
+      if (!e.field || !e.message.includes(e.field))
+        throw new PropertyFailure(`an InputError of source 'run file' names no field: ${e.message}`);
       return 'rejected';
     }
     let model: Model;
     try {
       model = Model.restore(cp);
     } catch (e) {
-      throw new PropertyFailure(`accepted, but Model.restore threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}`);
+      throw new PropertyFailure(
+        `accepted, but Model.restore threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}`,
+      );
     }
     const answer = stepsCleanly(cp.params, () => Model.restore(cp));
     const p = cp.params;
     if (answer === 'accepted' && p.forcing === 'stochastic' && p.eps >= 1e-100 && model.forcedModes > 0) {
       model.step();
       // A working stream injects about ε a step; a stuck one (all-zero state) only round-off.
-      if (Math.abs(model.report.energy.realizedInjection) < 1e-9 * p.eps) throw new PropertyFailure(`accepted a random state [${cp.rng.join(', ')}] that draws no forcing at all`);
+      if (Math.abs(model.report.energy.realizedInjection) < 1e-9 * p.eps)
+        throw new PropertyFailure(`accepted a random state [${cp.rng.join(', ')}] that draws no forcing at all`);
     }
     return answer;
   },

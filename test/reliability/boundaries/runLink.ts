@@ -13,13 +13,58 @@ import { stepsCleanly, trickyKey } from '../support/weird';
  */
 const base = { nx: 32, ny: 32, kf: 8, dkf: 1.5, dt: 0.01 };
 const valid = fc
-  .record({ beta: fc.double({ min: 0, max: 50, noNaN: true }), mu: fc.double({ min: 0, max: 1, noNaN: true }), seed: fc.nat(), eps: fc.double({ min: 0, max: 1, noNaN: true }), nx: fc.constantFrom(32, 64), init_energy: fc.constantFrom(0, 0.5) }, { requiredKeys: [] })
+  .record(
+    {
+      beta: fc.double({ min: 0, max: 50, noNaN: true }),
+      mu: fc.double({ min: 0, max: 1, noNaN: true }),
+      seed: fc.nat(),
+      eps: fc.double({ min: 0, max: 1, noNaN: true }),
+      nx: fc.constantFrom(32, 64),
+      init_energy: fc.constantFrom(0, 0.5),
+    },
+    { requiredKeys: [] },
+  )
   .map((r) => validateParams({ ...base, ...r }));
-const rawValue = fc.oneof(fc.constantFrom('', ' ', '1e999', 'NaN', 'Infinity', '-Infinity', '0x20', '1_0', '+5', '.5', '5.', '1e-400', 'true', 'false', 'TRUE', 'steady', '%', '%zz', '%E2%82', '&', '=', '#'), fc.string({ maxLength: 8 }), fc.double().map(String));
+const rawValue = fc.oneof(
+  fc.constantFrom(
+    '',
+    ' ',
+    '1e999',
+    'NaN',
+    'Infinity',
+    '-Infinity',
+    '0x20',
+    '1_0',
+    '+5',
+    '.5',
+    '5.',
+    '1e-400',
+    'true',
+    'false',
+    'TRUE',
+    'steady',
+    '%',
+    '%zz',
+    '%E2%82',
+    '&',
+    '=',
+    '#',
+  ),
+  fc.string({ maxLength: 8 }),
+  fc.double().map(String),
+);
 const key = fc.oneof(fc.constantFrom(...Object.keys(DEFAULT_PARAMS)), trickyKey, fc.constant('v'));
 const edit = fc.oneof(
-  fc.tuple(key, rawValue).map(([k, x]) => (q: URLSearchParams) => q.set(k, x)),
-  fc.tuple(key, rawValue).map(([k, x]) => (q: URLSearchParams) => q.append(k, x)),
+  fc.tuple(key, rawValue).map(
+    ([k, x]) =>
+      (q: URLSearchParams) =>
+        q.set(k, x),
+  ),
+  fc.tuple(key, rawValue).map(
+    ([k, x]) =>
+      (q: URLSearchParams) =>
+        q.append(k, x),
+  ),
   key.map((k) => (q: URLSearchParams) => q.delete(k)),
 );
 const link = fc.tuple(valid, fc.array(edit, { maxLength: 3 }), fc.boolean()).map(([p, edits, hash]) => {
@@ -34,7 +79,11 @@ const damaged = fc.tuple(valid, fc.nat(), fc.string({ maxLength: 3 })).map(([p, 
 });
 
 export const boundary: Boundary<string> = {
-  arbitrary: fc.oneof({ weight: 1, arbitrary: fc.string() }, { weight: 4, arbitrary: link }, { weight: 2, arbitrary: damaged }),
+  arbitrary: fc.oneof(
+    { weight: 1, arbitrary: fc.string() },
+    { weight: 4, arbitrary: link },
+    { weight: 2, arbitrary: damaged },
+  ),
   check(hash) {
     let r;
     try {
@@ -44,7 +93,8 @@ export const boundary: Boundary<string> = {
     }
     if (r.kind === 'none') return 'no run';
     if (r.kind === 'bad') {
-      if (typeof r.message !== 'string' || r.message.trim() === '') throw new PropertyFailure('a bad link with no message');
+      if (typeof r.message !== 'string' || r.message.trim() === '')
+        throw new PropertyFailure('a bad link with no message');
       return 'rejected';
     }
     const p: ModelParams = r.params;
@@ -52,15 +102,25 @@ export const boundary: Boundary<string> = {
     const q = new URLSearchParams(hash.startsWith('#') ? hash.slice(1) : hash);
     for (const [k, raw] of q) {
       if (k === 'v') continue;
-      if (!Object.hasOwn(DEFAULT_PARAMS, k)) throw new PropertyFailure(`accepted a link with the entry ${k}, which is not a parameter`);
+      if (!Object.hasOwn(DEFAULT_PARAMS, k))
+        throw new PropertyFailure(`accepted a link with the entry ${k}, which is not a parameter`);
       // Numbers are read in the decimal form the encoder writes; "0x20" and the like are refused.
-      if (typeof DEFAULT_PARAMS[k as keyof ModelParams] === 'number' && !/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(raw.trim())) {
+      if (
+        typeof DEFAULT_PARAMS[k as keyof ModelParams] === 'number' &&
+        !/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(raw.trim())
+      ) {
         throw new PropertyFailure(`accepted ${k}=${raw}, which is not a decimal number`);
       }
       const got = (p as unknown as Record<string, unknown>)[k];
       const last = q.getAll(k).at(-1)!;
-      const want = typeof DEFAULT_PARAMS[k as keyof ModelParams] === 'number' ? Number(last) : typeof DEFAULT_PARAMS[k as keyof ModelParams] === 'boolean' ? last === 'true' : last;
-      if (!Object.is(got, want) && raw === last) throw new PropertyFailure(`the link says ${k}=${raw}, the run has ${k} = ${String(got)}`);
+      const want =
+        typeof DEFAULT_PARAMS[k as keyof ModelParams] === 'number'
+          ? Number(last)
+          : typeof DEFAULT_PARAMS[k as keyof ModelParams] === 'boolean'
+            ? last === 'true'
+            : last;
+      if (!Object.is(got, want) && raw === last)
+        throw new PropertyFailure(`the link says ${k}=${raw}, the run has ${k} = ${String(got)}`);
     }
     if (p.nx * p.ny > 256 * 256) return 'accepted, large grid not stepped';
     return stepsCleanly(p);

@@ -20,12 +20,16 @@ export class PropertyFailure extends Error {
 }
 
 /** Run `f`; a throw is a clean rejection only when `isClean` says so, otherwise a property failure. */
-export function expectClean<R>(f: () => R, isClean: (e: unknown) => string | null): { ok: true; value: R } | { ok: false } {
+export function expectClean<R>(
+  f: () => R,
+  isClean: (e: unknown) => string | null,
+): { ok: true; value: R } | { ok: false } {
   try {
     return { ok: true, value: f() };
   } catch (e) {
     const problem = isClean(e);
-    if (problem !== null) throw new PropertyFailure(`${problem}: ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}`);
+    if (problem !== null)
+      throw new PropertyFailure(`${problem}: ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}`);
     return { ok: false };
   }
 }
@@ -37,7 +41,8 @@ export function previewValue(x: unknown, max = 400): string {
     s = JSON.stringify(x, (_k, v) => {
       if (typeof v === 'bigint') return `${v}n`;
       if (typeof v === 'number' && !Number.isFinite(v)) return String(v);
-      if (v instanceof Uint8Array) return `Uint8Array(${v.length}) ${Array.from(v.subarray(0, 24), (b) => b.toString(16).padStart(2, '0')).join('')}…`;
+      if (v instanceof Uint8Array)
+        return `Uint8Array(${v.length}) ${Array.from(v.subarray(0, 24), (b) => b.toString(16).padStart(2, '0')).join('')}…`;
       if (ArrayBuffer.isView(v)) return `${v.constructor.name}(${(v as unknown as { length: number }).length})`;
       if (typeof v === 'string' && v.length > 200) return `${v.slice(0, 200)}… (${v.length} chars)`;
       if (typeof v === 'symbol' || typeof v === 'function') return String(v);

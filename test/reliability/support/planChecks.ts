@@ -45,9 +45,15 @@ export function analysesCleanly(input: unknown): string {
   try {
     a = analysePlan(input);
   } catch (e) {
-    throw new PropertyFailure(`accepted, then analysePlan threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}`);
+    throw new PropertyFailure(
+      `accepted, then analysePlan threw ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}`,
+    );
   }
-  for (const [part, value] of [['predictions', a.predictions], ['cost', a.cost], ['plan', a.plan]] as const) {
+  for (const [part, value] of [
+    ['predictions', a.predictions],
+    ['cost', a.cost],
+    ['plan', a.plan],
+  ] as const) {
     const where = findNaN(value, part);
     if (where) throw new PropertyFailure(`accepted, then the analysis has NaN at ${where}`);
   }
@@ -61,7 +67,8 @@ export function analysesCleanly(input: unknown): string {
   try {
     p = validateParams(a.matched.params);
   } catch (e) {
-    if (isInputError(e, 'parameters')) throw new PropertyFailure(`accepted, then the matched run's parameters are refused by the model: ${e.message}`);
+    if (isInputError(e, 'parameters'))
+      throw new PropertyFailure(`accepted, then the matched run's parameters are refused by the model: ${e.message}`);
     throw e;
   }
   if (p.nx * p.ny > 128 * 128) return 'accepted';
@@ -70,9 +77,12 @@ export function analysesCleanly(input: unknown): string {
 
 /** An InputError of source 'plan input' is clean when it lists issues whose fields its message names. */
 export function cleanPlanInputError(e: unknown): string | null {
-  if (!isInputError(e, 'plan input')) return `threw ${e instanceof Error ? e.name : typeof e}, not an InputError of source 'plan input'`;
+  if (!isInputError(e, 'plan input'))
+    return `threw ${e instanceof Error ? e.name : typeof e}, not an InputError of source 'plan input'`;
   if (e.issues.length === 0) return 'an InputError of source "plan input" with no issue';
-  for (const i of e.issues) if (typeof i.field !== 'string' || !e.message.includes(i.field)) return `an issue's field ${JSON.stringify(i.field)} is not in the message`;
+  for (const i of e.issues)
+    if (typeof i.field !== 'string' || !e.message.includes(i.field))
+      return `an issue's field ${JSON.stringify(i.field)} is not in the message`;
   return null;
 }
 

@@ -32,7 +32,12 @@ parentPort!.postMessage({
   numRuns: result.numRuns,
   failed: result.failed,
   counterexample: result.counterexample ? (b.preview ?? previewValue)(result.counterexample[0]) : null,
-  error: result.errorInstance instanceof Error ? `${result.errorInstance.name}: ${result.errorInstance.message}` : result.failed ? String(result.errorInstance) : null,
+  error:
+    result.errorInstance instanceof Error
+      ? `${result.errorInstance.name}: ${result.errorInstance.message}`
+      : result.failed
+        ? String(result.errorInstance)
+        : null,
   seed: result.seed,
   path: result.counterexamplePath,
   tally,

@@ -20,7 +20,12 @@ const MAX_WORKERS = 2;
 let running = 0;
 const waiting: (() => void)[] = [];
 
-export async function runBoundary(moduleUrl: URL, numRuns: number, seed: number, caseLimitMs: number): Promise<BoundaryResult> {
+export async function runBoundary(
+  moduleUrl: URL,
+  numRuns: number,
+  seed: number,
+  caseLimitMs: number,
+): Promise<BoundaryResult> {
   if (running >= MAX_WORKERS) await new Promise<void>((resolve) => waiting.push(resolve));
   running++;
   try {
@@ -34,7 +39,9 @@ export async function runBoundary(moduleUrl: URL, numRuns: number, seed: number,
 function runInWorker(moduleUrl: URL, numRuns: number, seed: number, caseLimitMs: number): Promise<BoundaryResult> {
   const started = Date.now();
   return new Promise((resolve, reject) => {
-    const worker = new Worker(new URL('./propertyWorker.js', import.meta.url), { workerData: { module: moduleUrl.href, numRuns, seed } });
+    const worker = new Worker(new URL('./propertyWorker.js', import.meta.url), {
+      workerData: { module: moduleUrl.href, numRuns, seed },
+    });
     let current: { index: number; preview: string; at: number } | null = null;
     let finished = false;
     const watchdog = setInterval(() => {
@@ -43,19 +50,38 @@ function runInWorker(moduleUrl: URL, numRuns: number, seed: number, caseLimitMs:
         clearInterval(watchdog);
         const c = current;
         void worker.terminate().then(() =>
-          resolve({ numRuns: c.index, failed: true, counterexample: c.preview, error: null, hung: `case ${c.index} ran over ${caseLimitMs} ms: ${c.preview}`, tally: {}, seconds: (Date.now() - started) / 1000 }),
+          resolve({
+            numRuns: c.index,
+            failed: true,
+            counterexample: c.preview,
+            error: null,
+            hung: `case ${c.index} ran over ${caseLimitMs} ms: ${c.preview}`,
+            tally: {},
+            seconds: (Date.now() - started) / 1000,
+          }),
         );
       }
     }, 50);
-    worker.on('message', (m: { kind: string; index: number; preview: string } & Omit<BoundaryResult, 'hung' | 'seconds'>) => {
-      if (m.kind === 'case') current = { index: m.index, preview: m.preview, at: Date.now() };
-      else if (m.kind === 'done') {
-        finished = true;
-        clearInterval(watchdog);
-        void worker.terminate();
-        resolve({ numRuns: m.numRuns, failed: m.failed, counterexample: m.counterexample, error: m.error, hung: null, tally: m.tally, seconds: (Date.now() - started) / 1000 });
-      }
-    });
+    worker.on(
+      'message',
+      (m: { kind: string; index: number; preview: string } & Omit<BoundaryResult, 'hung' | 'seconds'>) => {
+        if (m.kind === 'case') current = { index: m.index, preview: m.preview, at: Date.now() };
+        else if (m.kind === 'done') {
+          finished = true;
+          clearInterval(watchdog);
+          void worker.terminate();
+          resolve({
+            numRuns: m.numRuns,
+            failed: m.failed,
+            counterexample: m.counterexample,
+            error: m.error,
+            hung: null,
+            tally: m.tally,
+            seconds: (Date.now() - started) / 1000,
+          });
+        }
+      },
+    );
     worker.on('error', (e) => {
       clearInterval(watchdog);
       if (!finished) reject(e);

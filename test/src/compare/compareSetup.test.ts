@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { COMPARE_PARAMS, compareRuns, DEFAULT_COMPARE, refusal, startingValues } from '../../../src/compare/compareSetup';
+import {
+  COMPARE_PARAMS,
+  compareRuns,
+  DEFAULT_COMPARE,
+  refusal,
+  startingValues,
+} from '../../../src/compare/compareSetup';
 
 describe('compareRuns', () => {
   it('differ in the chosen parameter alone, with the same seed', () => {

@@ -29,7 +29,8 @@ describe('divergingTable', () => {
       const [r, g, b] = rgba(table, i);
       return chroma(r, g, b).get('lab.l');
     };
-    for (let i = 0; i < TABLE_SIZE / 2; i++) expect(Math.abs(lightness(i) - lightness(TABLE_SIZE - 1 - i))).toBeLessThan(0.5);
+    for (let i = 0; i < TABLE_SIZE / 2; i++)
+      expect(Math.abs(lightness(i) - lightness(TABLE_SIZE - 1 - i))).toBeLessThan(0.5);
     for (let i = 1; i < TABLE_SIZE / 2; i++) expect(lightness(i)).toBeGreaterThan(lightness(i - 1));
     for (let i = TABLE_SIZE / 2 + 1; i < TABLE_SIZE; i++) expect(lightness(i)).toBeLessThan(lightness(i - 1));
   });

@@ -18,7 +18,9 @@ describe('paintHovmoller', () => {
   });
 
   it('refuses buffers of the wrong size', () => {
-    expect(() => paintHovmoller(new Float64Array(4), 2, 3, 1, divergingTable(), new Uint32Array(6))).toThrow(/expected 6/);
+    expect(() => paintHovmoller(new Float64Array(4), 2, 3, 1, divergingTable(), new Uint32Array(6))).toThrow(
+      /expected 6/,
+    );
   });
 });
 

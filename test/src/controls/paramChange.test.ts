@@ -1,7 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_PARAMS } from '../../../lib/model/params';
 import { appMemoryBudget, estimateAppMemory, roughBytes } from '../../../src/appMemory';
-import { describeIssues, formatNumber, memoryRefusalOf, parseNumber, refusalOf } from '../../../src/controls/paramChange';
+import {
+  describeIssues,
+  formatNumber,
+  memoryRefusalOf,
+  parseNumber,
+  refusalOf,
+} from '../../../src/controls/paramChange';
 
 describe('parameter entry', () => {
   it('reads plain and exponent numbers, and multiples of π', () => {
@@ -16,7 +22,8 @@ describe('parameter entry', () => {
   });
 
   it('refuses what is not a number', () => {
-    for (const t of ['', 'fast', '1,5', '0x10', '1e', 'Infinity', 'NaN', '1e999', '2ππ']) expect(parseNumber(t), t).toBeNull();
+    for (const t of ['', 'fast', '1,5', '0x10', '1e', 'Infinity', 'NaN', '1e999', '2ππ'])
+      expect(parseNumber(t), t).toBeNull();
   });
 
   it('shows exact multiples of π as such, anything else exactly', () => {
@@ -44,7 +51,13 @@ describe('parameter entry', () => {
     const at = { ...DEFAULT_PARAMS, nx: 1024, ny: 512 };
     const issues = memoryRefusalOf(at, { ny: 1024 }, two);
     const need = estimateAppMemory({ ...at, ny: 1024 }, at).totalBytes;
-    expect(issues).toEqual([{ field: 'ny', value: 1024, message: `1024 × 1024 needs ≈ ${roughBytes(need)} with the 1024 × 512 run it replaces; the app's budget is 512 MiB (a quarter of this device's 2 GiB)` }]);
+    expect(issues).toEqual([
+      {
+        field: 'ny',
+        value: 1024,
+        message: `1024 × 1024 needs ≈ ${roughBytes(need)} with the 1024 × 512 run it replaces; the app's budget is 512 MiB (a quarter of this device's 2 GiB)`,
+      },
+    ]);
     expect(describeIssues(issues ?? [], 'ny')).toMatch(/^1024 × 1024 needs ≈ \d+ MiB with the 1024 × 512 run/);
     // Smaller grids, changes that keep the model, and the same value pass; the cap takes 1024² too.
     expect(memoryRefusalOf(at, { ny: 256 }, two)).toBeNull();

@@ -35,7 +35,19 @@ describe('asSavedRun', () => {
   });
 
   it('reads anything else as nothing kept', () => {
-    for (const bad of [null, undefined, 'x', 3, {}, { ...good, tab: 1 }, { ...good, text: null }, { ...good, playing: 'yes' }, { ...good, time: Number.NaN }, { ...good, steps: '625' }, { ...good, savedAt: Infinity }]) {
+    for (const bad of [
+      null,
+      undefined,
+      'x',
+      3,
+      {},
+      { ...good, tab: 1 },
+      { ...good, text: null },
+      { ...good, playing: 'yes' },
+      { ...good, time: Number.NaN },
+      { ...good, steps: '625' },
+      { ...good, savedAt: Infinity },
+    ]) {
       expect(asSavedRun(bad)).toBeNull();
     }
   });

@@ -31,10 +31,18 @@ describe('KeptCheckpoint', () => {
     const cp = checkpointAt(3);
     let release: (c: Checkpoint) => void = () => undefined;
     let asked = 0;
-    const take = () => ((asked++, new Promise<Checkpoint>((r) => (release = r))));
-    const first = k.refresh(take, () => 5, () => 100);
+    const take = () => (asked++, new Promise<Checkpoint>((r) => (release = r)));
+    const first = k.refresh(
+      take,
+      () => 5,
+      () => 100,
+    );
     expect(k.due(null, 100)).toBe(false);
-    await k.refresh(take, () => 5, () => 100);
+    await k.refresh(
+      take,
+      () => 5,
+      () => 100,
+    );
     expect(asked).toBe(1);
     release(cp);
     await first;
@@ -47,7 +55,11 @@ describe('KeptCheckpoint', () => {
     const k = new KeptCheckpoint();
     const old = checkpointAt(3);
     let release: (c: Checkpoint) => void = () => undefined;
-    const pending = k.refresh(() => new Promise<Checkpoint>((r) => (release = r)), () => 1, () => 0);
+    const pending = k.refresh(
+      () => new Promise<Checkpoint>((r) => (release = r)),
+      () => 1,
+      () => 0,
+    );
     k.forget();
     expect(k.due(null, 0)).toBe(true);
     release(old);

@@ -14,7 +14,9 @@ describe('plan fields', () => {
       expect.unreachable();
     } catch (e) {
       const fields = (e as InputError).issues.map((i) => i.field);
-      const known = [...COMMON_FIELDS, ...Object.values(CHOICE_FIELDS).flatMap((c) => Object.values(c).flat())].map((f) => f.path);
+      const known = [...COMMON_FIELDS, ...Object.values(CHOICE_FIELDS).flatMap((c) => Object.values(c).flat())].map(
+        (f) => f.path,
+      );
       expect(fields.sort()).toEqual(['domain.Lx', 'forcing.halfWidth']);
       for (const f of fields) expect(known).toContain(f);
     }
@@ -29,12 +31,22 @@ describe('plan fields', () => {
 
   it('start every kind of every choice from a valid value, in both unit systems', () => {
     for (const units of ['physical', 'model'] as const) {
-      const start = units === 'physical' ? base : { ...base, units, rotation: { kind: 'beta' as const, beta: 10 }, domain: { Lx: 6.28, Ly: 6.28 }, forcing: { wavelength: 0.3, halfWidth: 0.1 } };
+      const start =
+        units === 'physical'
+          ? base
+          : {
+              ...base,
+              units,
+              rotation: { kind: 'beta' as const, beta: 10 },
+              domain: { Lx: 6.28, Ly: 6.28 },
+              forcing: { wavelength: 0.3, halfWidth: 0.1 },
+            };
       for (const [key, kinds] of Object.entries(KINDS)) {
         for (const { kind } of kinds) {
           if (units === 'model' && key === 'rotation' && kind === 'planet') continue;
           const input = setPath(start, key, freshChoice(key as keyof typeof KINDS, kind, start));
-          const withF = key === 'deformation' && kind === 'layer' && units === 'model' ? setPath(input, 'rotation.f', 1) : input;
+          const withF =
+            key === 'deformation' && kind === 'layer' && units === 'model' ? setPath(input, 'rotation.f', 1) : input;
           expect(() => validatePlanInput(withF), `${units} ${key}.${kind}`).not.toThrow();
         }
       }

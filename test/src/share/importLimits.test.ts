@@ -21,11 +21,19 @@ describe('sizes of the files the page reads', () => {
       const max = IMPORT_LIMITS[kind].maxBytes;
       expect(importRefusal(kind, { name: 'a', size: max }), kind).toBeNull();
       expect(importRefusal(kind, { name: 'a', size: 0 }), kind).toBeNull();
-      expect(importRefusal(kind, { name: 'big file', size: max + 1 }), kind).toMatch(new RegExp(`^big file is [\\d.]+ [KMG]iB; ${IMPORT_LIMITS[kind].what} up to ${limitText(kind)} are read here`));
+      expect(importRefusal(kind, { name: 'big file', size: max + 1 }), kind).toMatch(
+        new RegExp(`^big file is [\\d.]+ [KMG]iB; ${IMPORT_LIMITS[kind].what} up to ${limitText(kind)} are read here`),
+      );
     }
-    expect(importRefusal('runFile', { name: 'huge.json', size: 40 * MiB })).toBe('huge.json is 40.0 MiB; run files up to 16 MiB are read here');
-    expect(importRefusal('planFile', { name: 'p.json', size: 1.5 * MiB })).toBe('p.json is 1.50 MiB; plan files up to 1 MiB are read here');
-    expect(importRefusal('sweepResults', { name: 'runs.jsonl', size: 25 * MiB })).toBe('runs.jsonl is 25.0 MiB; sweep results up to 20 MiB are read here');
+    expect(importRefusal('runFile', { name: 'huge.json', size: 40 * MiB })).toBe(
+      'huge.json is 40.0 MiB; run files up to 16 MiB are read here',
+    );
+    expect(importRefusal('planFile', { name: 'p.json', size: 1.5 * MiB })).toBe(
+      'p.json is 1.50 MiB; plan files up to 1 MiB are read here',
+    );
+    expect(importRefusal('sweepResults', { name: 'runs.jsonl', size: 25 * MiB })).toBe(
+      'runs.jsonl is 25.0 MiB; sweep results up to 20 MiB are read here',
+    );
     expect(importRefusal('userData', { name: 'ocean.nc', size: 300 * MiB })).toBe(
       "ocean.nc is 300 MiB; NetCDF files up to 256 MiB are read here (the command line's `stria analyze` reads larger ones record by record)",
     );
@@ -35,7 +43,16 @@ describe('sizes of the files the page reads', () => {
     // Encode a 128² file, then scale its base64 state (RFC 4648: 4 characters per 3 bytes) to 1024².
     const at = (n: number) => ({ params: validateParams({ nx: n, ny: n }), S: n * (n / 2 + 1) });
     const small = at(128);
-    const cp: Checkpoint = { format: CHECKPOINT_FORMAT, version: CHECKPOINT_VERSION, params: small.params, time: 12.5, steps: 625, dt: 0.02, rng: [1, 2, 3, 4], qHat: new Float64Array(2 * small.S).fill(-1.2345678901234567e-3) };
+    const cp: Checkpoint = {
+      format: CHECKPOINT_FORMAT,
+      version: CHECKPOINT_VERSION,
+      params: small.params,
+      time: 12.5,
+      steps: 625,
+      dt: 0.02,
+      rng: [1, 2, 3, 4],
+      qHat: new Float64Array(2 * small.S).fill(-1.2345678901234567e-3),
+    };
     const text = encodeRunFile(cp);
     const base64 = (S: number) => 4 * Math.ceil((2 * S * 8) / 3);
     const rest = text.length - base64(small.S);

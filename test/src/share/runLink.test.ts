@@ -57,17 +57,35 @@ describe('run links', () => {
       expect(r, raw).toEqual({ kind: 'bad', message: `nx = “${raw}” is not a number in decimal notation` });
     }
     // What the encoder writes, and hand-written decimal forms, still read.
-    for (const [raw, x] of [['256', 256], ['+256', 256], ['256.', 256], ['2.56e2', 256], ['2.56E+2', 256]] as const) {
-      expect(decodeRunLink(`v=1&nx=${encodeURIComponent(raw)}`), raw).toEqual({ kind: 'run', params: validateParams({ nx: x }) });
+    for (const [raw, x] of [
+      ['256', 256],
+      ['+256', 256],
+      ['256.', 256],
+      ['2.56e2', 256],
+      ['2.56E+2', 256],
+    ] as const) {
+      expect(decodeRunLink(`v=1&nx=${encodeURIComponent(raw)}`), raw).toEqual({
+        kind: 'run',
+        params: validateParams({ nx: x }),
+      });
     }
-    expect(decodeRunLink(`v=1&nu=${encodeURIComponent('1e-15')}&mu=.05`)).toEqual({ kind: 'run', params: validateParams({ nu: 1e-15, mu: 0.05 }) });
+    expect(decodeRunLink(`v=1&nu=${encodeURIComponent('1e-15')}&mu=.05`)).toEqual({
+      kind: 'run',
+      params: validateParams({ nu: 1e-15, mu: 0.05 }),
+    });
   });
 
   it('refuse a run over the app memory budget with the estimate, and take it where it fits', () => {
     const hash = 'v=1&nx=1024&ny=1024';
     const need = roughBytes(estimateAppMemory(validateParams({ nx: 1024, ny: 1024 })).totalBytes);
-    expect(decodeRunLink(hash, appMemoryBudget(2))).toEqual({ kind: 'bad', message: `1024 × 1024 needs ≈ ${need}; the app's budget is 512 MiB (a quarter of this device's 2 GiB)` });
-    expect(decodeRunLink(hash, appMemoryBudget(4))).toEqual({ kind: 'run', params: validateParams({ nx: 1024, ny: 1024 }) });
+    expect(decodeRunLink(hash, appMemoryBudget(2))).toEqual({
+      kind: 'bad',
+      message: `1024 × 1024 needs ≈ ${need}; the app's budget is 512 MiB (a quarter of this device's 2 GiB)`,
+    });
+    expect(decodeRunLink(hash, appMemoryBudget(4))).toEqual({
+      kind: 'run',
+      params: validateParams({ nx: 1024, ny: 1024 }),
+    });
     // Without a device memory (Node here) the budget is the cap, 1 GiB.
     expect(decodeRunLink(hash).kind).toBe('run');
   });

@@ -3,8 +3,22 @@ import type { FitReport } from '../../../lib/sweep/sweepFits';
 import { scalingData } from '../../../src/sweep/scalingChart';
 
 const fit: FitReport = {
-  law: '', x: 'rhines_length', y: 'jet_spacing', n: 3, skipped: 0, exponent: 1, exponent_ci: [0.9, 1.1], prefactor: 2, prefactor_ci: [1.5, 2.5],
-  prefactor_at_exponent_1: 2, prefactor_at_exponent_1_ci: [1.8, 2.2], log_residual_rms: 0, level: 0.95, resamples: 10, degenerate_resamples: 0, error: null,
+  law: '',
+  x: 'rhines_length',
+  y: 'jet_spacing',
+  n: 3,
+  skipped: 0,
+  exponent: 1,
+  exponent_ci: [0.9, 1.1],
+  prefactor: 2,
+  prefactor_ci: [1.5, 2.5],
+  prefactor_at_exponent_1: 2,
+  prefactor_at_exponent_1_ci: [1.8, 2.2],
+  log_residual_rms: 0,
+  level: 0.95,
+  resamples: 10,
+  degenerate_resamples: 0,
+  error: null,
 };
 
 describe('scalingData', () => {

@@ -10,7 +10,12 @@ import { parseResults } from '../../../src/sweep/sweepResults';
 const clock = { seconds: () => 0, iso: () => '2026-01-01T00:00:00Z' };
 
 describe('parseResults', () => {
-  const spec = parseSweepSpec({ base: { nx: 32, ny: 32, kf: 6, dkf: 1 }, vary: [{ param: 'beta', values: [5, 10] }], length: { steps: 20 }, sampleEvery: 0.05 });
+  const spec = parseSweepSpec({
+    base: { nx: 32, ny: 32, kf: 6, dkf: 1 },
+    vary: [{ param: 'beta', values: [5, 10] }],
+    length: { steps: 20 },
+    sampleEvery: 0.05,
+  });
   const records = expandSweep(spec).map((j) => runSweepJob(j, clock));
   const rows = tableRows(records);
 

@@ -11,8 +11,24 @@ function series(n: number): BudgetSeries {
     r.dt = 0.1;
     r.time = 0.1 * (i + 1);
     r.kinetic = 0.5 + i;
-    Object.assign(r.energy, { value: 1 + i, injection: 2, drag: 3, hyper: 4, largeScale: 5, tendency: 6, transfer: 1e-16 });
-    Object.assign(r.enstrophy, { value: 10, injection: 20, drag: 30, hyper: 40, largeScale: 50, tendency: 60, transfer: 0 });
+    Object.assign(r.energy, {
+      value: 1 + i,
+      injection: 2,
+      drag: 3,
+      hyper: 4,
+      largeScale: 5,
+      tendency: 6,
+      transfer: 1e-16,
+    });
+    Object.assign(r.enstrophy, {
+      value: 10,
+      injection: 20,
+      drag: 30,
+      hyper: 40,
+      largeScale: 50,
+      tendency: 60,
+      transfer: 0,
+    });
     s.push(r);
   }
   return s;

@@ -11,7 +11,21 @@ function payload(slope: number, dk = 0.5): SpectraPayload {
   const n = 30;
   const k = Float64Array.from({ length: n }, (_, s) => (s + 1) * dk);
   const E = k.map((x, s) => (s === n - 1 ? 0 : Math.pow(x, slope) * dk));
-  return { k, E, EZonal: E.map((e) => e / 2), EResidual: E.map((e) => e / 2), dk, completeShells: n - 2, count: 1, tStart: 0, tEnd: 0, count2d: 0, kx2d: null, ky2d: null, E2d: null };
+  return {
+    k,
+    E,
+    EZonal: E.map((e) => e / 2),
+    EResidual: E.map((e) => e / 2),
+    dk,
+    completeShells: n - 2,
+    count: 1,
+    tStart: 0,
+    tEnd: 0,
+    count2d: 0,
+    kx2d: null,
+    ky2d: null,
+    E2d: null,
+  };
 }
 
 describe('spectraFigure', () => {
