@@ -1,3 +1,5 @@
+import type { JetVerdict } from '../lib/analysis/jetDetector';
+import type { RunSummary } from '../lib/analysis/summary';
 import type { WindowReport } from '../lib/analysis/timeMean';
 
 /**
@@ -56,10 +58,15 @@ export interface MonitorStatus {
   lastSample: number | null;
   /** The window the time means cover now (null before the first sample). */
   window: WindowReport | null;
-  /** Eastward jets of the time-mean ū over the window (jets.ts criterion), null before the first sample. */
+  /**
+   * Significant eastward jets of the time-mean ū over the window (jetDetector.ts), null before the
+   * first sample and while the window is too short to tell (= summary.jet_count).
+   */
   jetCount: number | null;
-  /** Sharpness index of the staircase fitted to the time-mean q̄ + βy (null when β = 0 or no sample yet). */
+  /** Sharpness index of the staircase of the time-mean q̄ + βy (null when β = 0 or no sample yet). */
   staircaseIndex: number | null;
+  /** The run summary over the same window (summary.ts): the numbers every view and file quotes. */
+  summary: RunSummary;
 }
 
 /** One jet of a profile, as drawn: position, peak speed, half-level edges (model units). */
@@ -72,12 +79,13 @@ export interface JetMark {
   coreForcing: number;
 }
 
-/** The fitted PV staircase of the time-mean q̄ + βy (staircase.ts), for drawing. */
+/** The PV staircase of the time-mean q̄ + βy (jetDetector.ts), for drawing. */
 export interface StaircaseMark {
   edges: number[];
   levels: number[];
   widths: number[];
   index: number;
+  indexStderr: number | null;
   rho: number;
 }
 
@@ -95,10 +103,13 @@ export interface ZonalPayload {
   meanQtot: Float64Array;
   meanConvUpvp: Float64Array;
   window: WindowReport;
-  /** Jets of the time mean, and of the instantaneous profile. */
+  /** Significant jets of the time mean (and the verdict and its reason), and of the instantaneous profile. */
   jets: JetMark[];
+  jetVerdict: JetVerdict;
+  jetReason: string;
   jetsNow: JetMark[];
   meanJetSpacing: number | null;
+  meanJetSpacingStderr: number | null;
   staircase: StaircaseMark | null;
 }
 

@@ -1,4 +1,3 @@
-import { MEAN_PROFILES } from '../lib/analysis/runMonitor';
 import type { ModelParams } from '../lib/model/params';
 import { BUDGET_ROW_WIDTH } from './budgetRows';
 import { MAX_SPECTRAL_AVERAGE } from './diagnosticsPublisher';
@@ -7,14 +6,13 @@ import { ZONAL_PROFILES, ZONAL_STORE_BYTES } from './zonalFrameStore';
 
 const D = 8;
 const I = 4;
-/** The views' time-mean window (runDiagnostics.ts) keeps this many bins. */
-const VIEW_MEAN_CAP = 256;
 /** Most rows the budget row buffer holds between two snapshots (budgetRows.ts default). */
 const BUDGET_ROWS_MAX = 1 << 14;
 
 /**
  * Bytes of the arrays the worker holds for the views beyond the run's own measurement (which
- * lib/run/runMemory.ts counts): the views' time means, the zonal-mean frames kept for export, the
+ * lib/run/runMemory.ts counts, the time means included: the views share the run's window), the
+ * zonal-mean frames kept for export, the
  * spectra and spectral flux plans with their outputs and running means (all views shown, averaged
  * over the most samples allowed, MAX_SPECTRAL_AVERAGE), and the budget rows at their largest.
  * Counted from the constructors of runDiagnostics.ts, zonalFrameStore.ts, spectralDiagnostics.ts,
@@ -27,8 +25,6 @@ export function viewDiagnosticsBytes(
 ): number {
   const { nx, ny, Lx, Ly } = p;
   const S = ny * (nx / 2 + 1);
-  // Time means of the views and the profiles they give.
-  const viewMean = D * (VIEW_MEAN_CAP * MEAN_PROFILES.length * ny + 3 * VIEW_MEAN_CAP) + D * MEAN_PROFILES.length * ny;
   // Zonal-mean frames: as many as fit in ZONAL_STORE_BYTES, even, 2 to 1024.
   const fit = Math.floor(ZONAL_STORE_BYTES / (D * ZONAL_PROFILES.length * ny + 16));
   const cap = Math.max(2, Math.min(1024, fit - (fit % 2)));
@@ -47,7 +43,7 @@ export function viewDiagnosticsBytes(
   // running means, the conversion series.
   const flux = D * (2 * S + 2) + D * 8 * shells + 2 * ring(shells) + 2 * D * CONVERSION_SAMPLES;
   const budgetRows = D * BUDGET_ROWS_MAX * BUDGET_ROW_WIDTH;
-  return viewMean + frames + spectraPlan + spectraOut + spectraMeans + flux + budgetRows;
+  return frames + spectraPlan + spectraOut + spectraMeans + flux + budgetRows;
 }
 
 /** The budget rows at their largest, included in viewDiagnosticsBytes (a test needs them apart). */

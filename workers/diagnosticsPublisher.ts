@@ -121,8 +121,13 @@ export class DiagnosticsPublisher {
   }
 
   private zonal(d: RunDiagnostics) {
-    if (!d.window || !d.meanJets || !d.latestJets || d.lastSample === null) return null;
+    const window = d.window;
+    if (!window || d.lastSample === null) return null;
+    const { structure, latest } = d.current();
+    if (!structure || !latest) return null;
     const { monitor: m } = d;
+    // The time means of the window are in m.mean (ū and total PV written by the detector's pass).
+    m.meanProfiles();
     return zonalPayload({
       y: m.zonal.y,
       Ly: d.params.Ly,
@@ -130,11 +135,11 @@ export class DiagnosticsPublisher {
       time: d.lastSample,
       latest: m.latest,
       mean: d.mean,
-      window: d.window,
-      meanJets: d.meanJets,
-      latestJets: d.latestJets,
-      staircase: d.staircase,
-      finder: m.jetFinder,
+      window,
+      jets: structure.jets,
+      latestJets: latest,
+      staircase: structure.staircase,
+      finder: m.detector.finder,
     });
   }
 }

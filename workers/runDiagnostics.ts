@@ -1,8 +1,8 @@
 import type { JetReport } from '../lib/analysis/jets';
-import { MEAN_PROFILES, RunMonitor, type MeanProfile } from '../lib/analysis/runMonitor';
-import type { StaircaseFit } from '../lib/analysis/staircase';
+import { successiveSpread } from '../lib/analysis/noiseReference';
+import { RunMonitor, type MeanProfile, type Structure } from '../lib/analysis/runMonitor';
 import { summarize, type RunSummary } from '../lib/analysis/summary';
-import { ProfileTimeMean, type WindowReport } from '../lib/analysis/timeMean';
+import type { TimeWindow, WindowReport } from '../lib/analysis/timeMean';
 import type { Model } from '../lib/model/model';
 import type { ModelParams } from '../lib/model/params';
 import type { MonitorStatus } from './diagnosticsApi';
@@ -31,23 +31,20 @@ export const DEFAULT_SPECTRAL_AVERAGE = 16;
 /**
  * What the worker measures of one run between two restarts: a RunMonitor fed every step and
  * sampled at t₀ + n·sampleEvery (the first step ending at or after each, as the command line does),
- * a time mean over the chosen window for the views (the monitor's own window, fixed at the start,
- * is the run summary's), the zonal-mean frames for export, and spectra and fluxes when asked for.
+ * whose time means over the chosen window serve the views, the readouts and the run summary alike
+ * (one window, one detector: the same numbers everywhere), the zonal-mean frames for export, and
+ * spectra and fluxes when asked for. The jets, staircase and summary are worked out at most once per
+ * sample, when first asked for.
  */
 export class RunDiagnostics {
   readonly monitor: RunMonitor;
   readonly frames: ZonalFrameStore;
   readonly spectral: SpectralDiagnostics;
   readonly since: number;
-  private viewMean: ProfileTimeMean<MeanProfile>;
-  readonly mean: Record<MeanProfile, Float64Array>;
   private taken = 0;
   private next: number;
-  /** Window, jets and staircase of the time mean at the last sample. */
-  window: WindowReport | null = null;
-  meanJets: JetReport | null = null;
-  latestJets: JetReport | null = null;
-  staircase: StaircaseFit | null = null;
+  private worked: { structure: Structure | null; latest: JetReport | null; summary: RunSummary } | null = null;
+  private model: { time: number; steps: number } = { time: 0, steps: 0 };
   lastSample: number | null = null;
 
   constructor(
@@ -56,52 +53,69 @@ export class RunDiagnostics {
     readonly sampling: Sampling,
   ) {
     this.since = start;
+    this.model = { time: start, steps: 0 };
     this.next = start + sampling.sampleEvery;
-    this.monitor = new RunMonitor(params, { window: { kind: 'last', span: sampling.meanSpan, cap: 256 } });
-    this.viewMean = this.newMean(sampling.meanSpan);
-    this.mean = Object.fromEntries(MEAN_PROFILES.map((k) => [k, new Float64Array(params.ny)])) as Record<
-      MeanProfile,
-      Float64Array
-    >;
+    this.monitor = new RunMonitor(params, { window: meanWindow(sampling.meanSpan), start });
     this.frames = new ZonalFrameStore(params.ny);
     this.spectral = new SpectralDiagnostics(this.monitor.snap, sampling.spectralAverage);
-  }
-
-  private newMean(span: number): ProfileTimeMean<MeanProfile> {
-    return new ProfileTimeMean(MEAN_PROFILES, this.params.ny, { kind: 'last', span, cap: 256 });
   }
 
   get samples(): number {
     return this.taken;
   }
 
+  /** The time-mean profiles of the window (as of the last `current()`). */
+  get mean(): Record<MeanProfile, Float64Array> {
+    return this.monitor.mean;
+  }
+
+  /** The window the time means cover, null before the first sample. */
+  get window(): WindowReport | null {
+    return this.taken > 0 && this.monitor.means.window.count > 0 ? this.monitor.means.window : null;
+  }
+
   /** Record the step just taken; returns true when it was also a sample time. */
   afterStep(model: Model, wants: { spectra: boolean; spectra2d: boolean; flux: boolean }): boolean {
     this.monitor.step(model.report);
+    this.model = { time: model.time, steps: model.steps };
     if (model.time < this.next) return false;
     this.taken++;
     this.next = this.since + (this.taken + 1) * this.sampling.sampleEvery;
     const t = model.time;
     const z = this.monitor.sample(model.qHat, t);
-    this.viewMean.add(t, z);
     this.frames.add(t, model.steps, z);
     this.lastSample = t;
-    this.window = this.viewMean.mean(this.mean);
-    this.meanJets = this.monitor.jetFinder.find(this.mean.ubar);
-    this.latestJets = this.monitor.jetFinder.find(z.ubar);
-    this.staircase = this.monitor.staircase ? this.monitor.staircase.fit(this.mean.qtot) : null;
+    this.worked = null;
     if (wants.spectra) this.spectral.addSpectra(model.qHat, t, wants.spectra2d);
     if (wants.flux) this.spectral.addFlux(model.qHat, t);
     return true;
   }
 
-  /** A new averaging window for the views; the time means start again from the next sample. */
+  /**
+   * Jets and staircase of the window's time means, the jets of the latest profile and the run
+   * summary, by the one detector (jetDetector.ts): worked out once per sample.
+   */
+  current(): { structure: Structure | null; latest: JetReport | null; summary: RunSummary } {
+    if (this.worked) return this.worked;
+    const m = this.monitor;
+    const structure = this.taken > 0 ? m.structure() : null;
+    let latest: JetReport | null = null;
+    if (this.taken > 0) {
+      // The latest profile against the eddy noise of one sample, as the Hovmöller tracks (jetTracking.ts).
+      const h = m.hovmoller.view();
+      const spread = successiveSpread(h.data, h.columns, m.params.ny);
+      latest = m.detector.finder.describe(m.latest.ubar, spread ? m.detector.jetsOfSample(m.latest.ubar, spread) : []);
+    }
+    const summary = summarize(m, this.model.time, this.model.steps, structure);
+    this.worked = { structure, latest, summary };
+    return this.worked;
+  }
+
+  /** A new averaging window for the views and the summary; the time means start again from the next sample. */
   setMeanSpan(span: number): void {
     this.sampling.meanSpan = span;
-    this.viewMean = this.newMean(span);
-    this.window = null;
-    this.meanJets = null;
-    this.staircase = null;
+    this.monitor.setWindow(meanWindow(span));
+    this.worked = null;
   }
 
   setSpectralAverage(n: number): void {
@@ -110,6 +124,7 @@ export class RunDiagnostics {
   }
 
   status(epoch: number): MonitorStatus {
+    const { summary } = this.current();
     return {
       epoch,
       since: this.since,
@@ -117,13 +132,20 @@ export class RunDiagnostics {
       samples: this.taken,
       lastSample: this.lastSample,
       window: this.window ? { ...this.window } : null,
-      jetCount: this.meanJets ? this.meanJets.count : null,
-      staircaseIndex: this.staircase ? this.staircase.index : null,
+      jetCount: summary.jet_count,
+      staircaseIndex: summary.staircase_index,
+      summary,
     };
   }
 
-  /** The run summary (summary.ts) over the monitor's window, at the model's time. */
+  /** The run summary (summary.ts) over the window, at the model's time. */
   summary(model: Model): RunSummary {
-    return summarize(this.monitor, model.time, model.steps);
+    this.model = { time: model.time, steps: model.steps };
+    this.worked = null;
+    return this.current().summary;
   }
+}
+
+function meanWindow(span: number): TimeWindow {
+  return { kind: 'last', span, cap: 256 };
 }

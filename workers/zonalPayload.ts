@@ -1,13 +1,13 @@
-import type { JetFinder, JetReport } from '../lib/analysis/jets';
+import type { DetectedJet, JetDetection, StaircaseDetection } from '../lib/analysis/jetDetector';
+import type { Jet, JetFinder, JetReport } from '../lib/analysis/jets';
 import type { MeanProfile } from '../lib/analysis/runMonitor';
-import type { StaircaseFit } from '../lib/analysis/staircase';
 import type { WindowReport } from '../lib/analysis/timeMean';
 import type { ZonalMeans } from '../lib/analysis/zonalMean';
 import type { JetMark, StaircaseMark, ZonalPayload } from './diagnosticsApi';
 
-/** The jets of a report as marks (positions wrapped into [0, Ly)), with the eddy forcing of each core from the u′v′ of the same profiles. */
-export function jetMarks(report: JetReport, finder: JetFinder, upvp: Float64Array): JetMark[] {
-  return report.jets.map((j) => ({
+/** Jets as marks (positions in [0, Ly)), with the eddy forcing of each core from the u′v′ of the same profiles. */
+export function jetMarks(jets: readonly (Jet | DetectedJet)[], finder: JetFinder, upvp: Float64Array): JetMark[] {
+  return jets.map((j) => ({
     y: j.y,
     speed: j.speed,
     ySouth: j.ySouth,
@@ -16,14 +16,15 @@ export function jetMarks(report: JetReport, finder: JetFinder, upvp: Float64Arra
   }));
 }
 
-export function staircaseMark(fit: StaircaseFit | null): StaircaseMark | null {
-  return fit
+export function staircaseMark(s: StaircaseDetection | null): StaircaseMark | null {
+  return s && s.index !== null && s.rho !== null
     ? {
-        edges: fit.edges.slice(),
-        levels: fit.levels.slice(),
-        widths: fit.widths.slice(),
-        index: fit.index,
-        rho: fit.rho,
+        edges: s.edges.slice(),
+        levels: s.levels.slice(),
+        widths: s.widths.slice(),
+        index: s.index,
+        indexStderr: s.indexStderr,
+        rho: s.rho,
       }
     : null;
 }
@@ -36,9 +37,9 @@ export interface ZonalPayloadInput {
   latest: ZonalMeans;
   mean: Record<MeanProfile, Float64Array>;
   window: WindowReport;
-  meanJets: JetReport;
+  jets: JetDetection;
   latestJets: JetReport;
-  staircase: StaircaseFit | null;
+  staircase: StaircaseDetection | null;
   finder: JetFinder;
 }
 
@@ -56,9 +57,12 @@ export function zonalPayload(z: ZonalPayloadInput): { payload: ZonalPayload; buf
     meanQtot: z.mean.qtot.slice(),
     meanConvUpvp: z.mean.convUpvp.slice(),
     window: { ...z.window },
-    jets: jetMarks(z.meanJets, z.finder, z.mean.upvp),
-    jetsNow: jetMarks(z.latestJets, z.finder, z.latest.upvp),
-    meanJetSpacing: z.meanJets.meanSpacing,
+    jets: jetMarks(z.jets.jets, z.finder, z.mean.upvp),
+    jetVerdict: z.jets.verdict,
+    jetReason: z.jets.reason,
+    jetsNow: jetMarks(z.latestJets.jets, z.finder, z.latest.upvp),
+    meanJetSpacing: z.jets.meanSpacing,
+    meanJetSpacingStderr: z.jets.spacingStderr,
     staircase: staircaseMark(z.staircase),
   };
   const { y, ubar, qtot, convUpvp, meanUbar, meanQtot, meanConvUpvp } = payload;

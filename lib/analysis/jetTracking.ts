@@ -1,5 +1,6 @@
 import type { HovmollerRecord } from './hovmoller';
-import { JetFinder, type JetOptions } from './jets';
+import { StructureDetector } from './jetDetector';
+import { successiveSpread } from './noiseReference';
 import { periodicDistance } from './periodicPeaks';
 
 /** One jet followed through a Hovmöller record (model units: t time, y length, speed length/time). */
@@ -28,7 +29,9 @@ export interface JetEvent {
   tracks: [number, number];
 }
 
-export interface JetTrackingOptions extends JetOptions {
+export interface JetTrackingOptions {
+  /** The detector of the record's grid (built if absent: jetDetector.ts, default false-alarm probability). */
+  detector?: StructureDetector;
   /** Largest move of a jet between successive columns (length); default a third of the mean jet spacing of the two columns. */
   maxJump?: number;
   /** Largest distance from a vanishing (appearing) jet to the jet it merged into (split from); default maxJump. */
@@ -42,23 +45,28 @@ export interface JetTracking {
 }
 
 /**
- * Follows the jets of each column of a Hovmöller record (found by `JetFinder` with the given
- * options) from column to column: pairs closer than maxJump (periodic distance) are matched
- * one-to-one, nearest first. A jet left unmatched whose nearest successor lies within eventRadius and
+ * Follows the jets of each column of a Hovmöller record from column to column. The jets of a column
+ * are those of the one detector (jetDetector.ts) for a single profile: maxima standing out of the
+ * record's own eddy noise (the scatter between successive columns, noiseReference.ts); a record of
+ * fewer than three columns has no noise estimate and no jets. Pairs of jets of successive columns
+ * closer than maxJump (periodic distance) are matched one-to-one, nearest first. A jet left unmatched whose nearest successor lies within eventRadius and
  * continues another track has merged into it; a new jet whose nearest predecessor lies within
  * eventRadius and continues into another jet has split off it. Columns must be sampled densely
  * enough that jets move less than maxJump between them.
  */
 export function trackJets(record: HovmollerRecord, options: JetTrackingOptions = {}): JetTracking {
   const { ny, Ly, columns, t, data } = record;
-  const finder = new JetFinder(ny, Ly, options);
+  const detector = options.detector ?? new StructureDetector({ points: ny, y0: 0, dy: Ly / ny, periodic: true });
+  const spread = successiveSpread(data, columns, ny);
   const tracks: JetTrack[] = [];
   const mergers: JetEvent[] = [];
   const splits: JetEvent[] = [];
   // Open tracks of the previous column, by jet: track id and position in [0, Ly).
   let prev: { id: number; y: number }[] = [];
   for (let c = 0; c < columns; c++) {
-    const jets = finder.find(data.subarray(c * ny, (c + 1) * ny)).jets;
+    const jets = spread
+      ? detector.jetsOfSample(data.subarray(c * ny, (c + 1) * ny), spread).map((p) => ({ y: p.y, speed: p.value }))
+      : [];
     const next: { id: number; y: number }[] = new Array(jets.length);
     if (c === 0) {
       jets.forEach((j, i) => (next[i] = { id: open(tracks, t[c], j.y, j.speed, 'record'), y: j.y }));

@@ -1,4 +1,4 @@
-import { findPeriodicPeaks, type PeakOptions } from './periodicPeaks';
+import { findPeriodicPeaks, type Peak, type PeakOptions } from './periodicPeaks';
 import { ProfileFFT } from './profileFFT';
 
 /**
@@ -74,11 +74,33 @@ export class JetFinder {
   find(ubar: Float64Array, overrides: PeakOptions = {}): JetReport {
     const { ny, Ly } = this;
     if (ubar.length !== ny) throw new RangeError(`JetFinder: profile has ${ubar.length} points, expected ${ny}`);
-    const dy = Ly / ny;
-    const at = (j: number) => ubar[((j % ny) + ny) % ny];
     let mean = 0;
     for (let j = 0; j < ny; j++) mean += ubar[j] / ny;
-    const peaks = findPeriodicPeaks(ubar, Ly, { floor: mean, ...this.options, ...overrides });
+    return this.describe(ubar, findPeriodicPeaks(ubar, Ly, { floor: mean, ...this.options, ...overrides }));
+  }
+
+  /**
+   * Every local maximum of `ubar` above `floor` that keeps the minimum separation, with its
+   * prominence and col: the candidates the significance rule of jetDetector.ts tests.
+   */
+  candidates(ubar: Float64Array, floor: number): Peak[] {
+    return findPeriodicPeaks(ubar, this.Ly, {
+      relativeProminence: 0,
+      absoluteProminence: 0,
+      floor,
+      minSeparation: this.options.minSeparation,
+    });
+  }
+
+  /**
+   * The jet report of `ubar` for a chosen set of its peaks (sorted by position, as findPeriodicPeaks
+   * returns them): the significance rule of jetDetector.ts chooses them, this describes them.
+   */
+  describe(ubar: Float64Array, peaks: readonly Peak[]): JetReport {
+    const { ny, Ly } = this;
+    if (ubar.length !== ny) throw new RangeError(`JetFinder: profile has ${ubar.length} points, expected ${ny}`);
+    const dy = Ly / ny;
+    const at = (j: number) => ubar[((j % ny) + ny) % ny];
     const n = peaks.length;
 
     const jets: Jet[] = peaks.map((p, i) => {
@@ -142,7 +164,7 @@ export class JetFinder {
    * so this is exactly the core mean of `ZonalMeans.convUpvp`; being an average over the core it is
    * not swamped by the grid-scale noise of a pointwise value.
    */
-  coreConvergence(jet: Jet, upvp: Float64Array): number {
+  coreConvergence(jet: Pick<Jet, 'ySouth' | 'yNorth' | 'width'>, upvp: Float64Array): number {
     if (upvp.length !== this.ny)
       throw new RangeError(`JetFinder: profile has ${upvp.length} points, expected ${this.ny}`);
     const [south, north] = this.profile.evaluate(upvp, [jet.ySouth, jet.yNorth]);

@@ -34,6 +34,8 @@ export interface Peak {
   /** The parabola's peak value (the grid value for a plateau). */
   value: number;
   prominence: number;
+  /** Grid index of the key col: the lowest point on the side whose low point is the higher (prominence = f[index] − f[col]). */
+  col: number;
 }
 
 /** Periodic distance between positions a and b on a period L. */
@@ -70,18 +72,21 @@ export function findPeriodicPeaks(f: ArrayLike<number>, Ly: number, options: Pea
     while (k - j < n && at(k + 1) === v) k++;
     if (!(at(k + 1) < v)) continue;
     let lowS = v;
+    let colS = j;
     for (let s = 1; s <= n; s++) {
       const w = at(j - s);
       if (w > v) break;
-      lowS = Math.min(lowS, w);
+      if (w < lowS) [lowS, colS] = [w, j - s];
     }
     let lowN = v;
+    let colN = k;
     for (let s = 1; s <= n; s++) {
       const w = at(k + s);
       if (w > v) break;
-      lowN = Math.min(lowN, w);
+      if (w < lowN) [lowN, colN] = [w, k + s];
     }
     const prominence = v - Math.max(lowS, lowN);
+    const col = (((lowS >= lowN ? colS : colN) % n) + n) % n;
     if (prominence < threshold || !(v > floor)) continue;
     let pos = 0.5 * (j + k);
     let value = v;
@@ -94,7 +99,7 @@ export function findPeriodicPeaks(f: ArrayLike<number>, Ly: number, options: Pea
       pos = j + delta;
       value = v - 0.25 * (a - c) * delta;
     }
-    found.push({ index: j, y: (((pos * dy) % Ly) + Ly) % Ly, value, prominence });
+    found.push({ index: j, y: (((pos * dy) % Ly) + Ly) % Ly, value, prominence, col });
   }
 
   // Stage 2: minimum separation, the higher peak first.

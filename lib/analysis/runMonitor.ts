@@ -2,18 +2,32 @@ import type { StepReport } from '../model/budget';
 import type { ModelParams } from '../model/params';
 import { BudgetSeries } from './budgetSeries';
 import { HovmollerAccumulator } from './hovmoller';
-import { JetFinder, type JetReport } from './jets';
+import { StructureDetector, type JetDetection, type MeanSeries, type StaircaseDetection } from './jetDetector';
 import { SnapshotPlan, type GridFields } from './snapshot';
-import { StaircaseFitter, type StaircaseFit } from './staircase';
+import { SteadyCriterion } from './steadyCriterion';
 import { ProfileTimeMean, type TimeWindow, type WindowReport } from './timeMean';
 import { createZonalMeans, ZonalMeanPlan, type ZonalMeans } from './zonalMean';
-
-/** Least jet prominence (peak over the deeper flank minimum of ū) as a fraction of U_rms. */
-export const JET_PROMINENCE_OF_URMS = 0.25;
 
 /** The zonal-mean profiles a run keeps time means of. */
 export const MEAN_PROFILES = ['ubar', 'qbar', 'qtot', 'upvp', 'convUpvp', 'vpqp', 'eke', 'dqdy'] as const;
 export type MeanProfile = (typeof MEAN_PROFILES)[number];
+
+/** The statistical steady state's test: window length (time units) and relative tolerance (steadyCriterion.ts). */
+export interface SteadyTest {
+  window: number;
+  tolerance: number;
+}
+
+/** The default test: windows of the spin-up time 1/(2μ) (50 without drag), 5 %. */
+export function defaultSteadyTest(p: ModelParams): SteadyTest {
+  return { window: p.mu > 0 ? 1 / (2 * p.mu) : 50, tolerance: 0.05 };
+}
+
+/** The jets and PV staircase of a window's time means, by the one detector (jetDetector.ts). */
+export interface Structure {
+  jets: JetDetection;
+  staircase: StaircaseDetection | null;
+}
 
 export interface RunMonitorOptions {
   /** The averaging window of the time means; default the last 1/μ time units (50 when μ = 0). */
@@ -21,13 +35,18 @@ export interface RunMonitorOptions {
   /** Hovmöller columns kept (default 512) and budget samples kept (default 4096). */
   hovmollerCap?: number;
   budgetCap?: number;
+  /** The steady-state test; default defaultSteadyTest. */
+  steady?: SteadyTest;
+  /** Where the run's clock started (the steady test's first window starts there); default 0. */
+  start?: number;
 }
 
 /**
- * Everything a run accumulates for its diagnostics, fed step by step: the budget series (every step's
- * report), and, at each `sample` call, the zonal means, their time means over the window and the
- * Hovmöller record of ū(y, t). Bounded memory (the caps above); the caller chooses how often to
- * sample (equal intervals in time make the time means time means). Model units throughout.
+ * Everything a run accumulates for its diagnostics, fed step by step: the budget series and the
+ * steady-state test (every step's report), and, at each `sample` call, the zonal means, their time
+ * means over the window and the Hovmöller record of ū(y, t). Bounded memory (the caps above); the
+ * caller chooses how often to sample (equal intervals in time make the time means time means, and
+ * the detector's sampling errors right). Model units throughout.
  */
 export class RunMonitor {
   readonly params: ModelParams;
@@ -35,10 +54,12 @@ export class RunMonitor {
   readonly zonal: ZonalMeanPlan;
   readonly budget: BudgetSeries;
   readonly hovmoller: HovmollerAccumulator;
-  readonly means: ProfileTimeMean<MeanProfile>;
-  readonly window: TimeWindow;
-  readonly jetFinder: JetFinder;
-  readonly staircase: StaircaseFitter | null;
+  /** The time means over the window (a new, empty one after `setWindow`). */
+  means: ProfileTimeMean<MeanProfile>;
+  window: TimeWindow;
+  readonly steady: SteadyCriterion;
+  /** The one detector of jets and staircase steps for this grid (jetDetector.ts). */
+  readonly detector: StructureDetector;
   /** The zonal means of the last sample, and the time means at the last `meanProfiles` call. */
   readonly latest: ZonalMeans;
   readonly mean: Record<MeanProfile, Float64Array>;
@@ -54,8 +75,9 @@ export class RunMonitor {
     this.hovmoller = new HovmollerAccumulator(params.ny, params.Ly, options.hovmollerCap ?? 512);
     this.window = options.window ?? { kind: 'last', span: params.mu > 0 ? 1 / params.mu : 50, cap: 256 };
     this.means = new ProfileTimeMean(MEAN_PROFILES, params.ny, this.window);
-    this.jetFinder = new JetFinder(params.ny, params.Ly);
-    this.staircase = params.beta > 0 ? new StaircaseFitter(params.ny, params.Ly, params.beta) : null;
+    const test = options.steady ?? defaultSteadyTest(params);
+    this.steady = new SteadyCriterion(options.start ?? 0, test.window, test.tolerance);
+    this.detector = runDetector(params);
     this.latest = createZonalMeans(params.ny);
     this.mean = Object.fromEntries(MEAN_PROFILES.map((k) => [k, new Float64Array(params.ny)])) as Record<
       MeanProfile,
@@ -64,9 +86,10 @@ export class RunMonitor {
     this.fields = this.snap.gridFields(new Float64Array(2 * this.snap.grid.spectralSize));
   }
 
-  /** Record one step's budget (call after every step). */
+  /** Record one step's budget and test for the steady state (call after every step). */
   step(report: StepReport): void {
     this.budget.push(report);
+    this.steady.add(report.time - report.dt, report.dt, report.energy.value);
   }
 
   /** Sample the state at time t: zonal means, their running time mean, the Hovmöller column. */
@@ -84,18 +107,42 @@ export class RunMonitor {
     return this.samples;
   }
 
+  /** A new averaging window: the time means start again from the next sample. */
+  setWindow(window: TimeWindow): void {
+    this.means = new ProfileTimeMean(MEAN_PROFILES, this.params.ny, window);
+    this.window = window;
+  }
+
   /** Time-mean profiles over the window into `this.mean`; returns the window actually averaged. */
   meanProfiles(): WindowReport {
     return this.means.mean(this.mean);
   }
 
-  /**
-   * Jets and staircase of the time-mean profiles (call `meanProfiles` first). Given the run's rms
-   * velocity, a jet must also stand out by JET_PROMINENCE_OF_URMS·U_rms: before jets form, the time
-   * mean of an eddy field still has wiggles of a fifth of its own small range, and they are not jets.
-   */
-  structure(uRms = 0): { jets: JetReport; staircase: StaircaseFit | null } {
-    const jets = this.jetFinder.find(this.mean.ubar, { absoluteProminence: JET_PROMINENCE_OF_URMS * uRms });
-    return { jets, staircase: this.staircase ? this.staircase.fit(this.mean.qtot) : null };
+  /** Jets and staircase of the window's time means (into `this.mean.ubar` and `.qtot`); null before the first sample. */
+  structure(): Structure | null {
+    return structureOf(this.detector, this.means, this.mean);
   }
+}
+
+/**
+ * The detector of a run's grid: β > 0 enables the staircase; the flow's memory is the drag time 1/μ
+ * (unknown without drag).
+ */
+export function runDetector(p: ModelParams): StructureDetector {
+  return new StructureDetector(
+    { points: p.ny, y0: 0, dy: p.Ly / p.ny, periodic: true },
+    { beta: p.beta, memory: p.mu > 0 ? 1 / p.mu : 0 },
+  );
+}
+
+/** Jets and staircase of the time means `means` (ū and total PV written into out.ubar and out.qtot). */
+export function structureOf(
+  detector: StructureDetector,
+  means: ProfileTimeMean<MeanProfile>,
+  out: Pick<Record<MeanProfile, Float64Array>, 'ubar' | 'qtot'>,
+): Structure | null {
+  const u: MeanSeries | null = means.series('ubar', out.ubar);
+  if (!u) return null;
+  const q = detector.fitter ? means.series('qtot', out.qtot) : null;
+  return { jets: detector.jets(u), staircase: q ? detector.staircase(q) : null };
 }

@@ -1,4 +1,4 @@
-import { findPeriodicPeaks } from './periodicPeaks';
+import { findPeriodicPeaks, type Peak, type PeakOptions } from './periodicPeaks';
 import { ProfileFFT } from './profileFFT';
 
 /**
@@ -69,6 +69,46 @@ export function staircaseIndex(
   return { index: 1 - rho, rho, levels };
 }
 
+/**
+ * S = 1 − ρ with ρ² = Σ(q_j − Q_s)²/Σβ²(y_j − Ȳ_s)² over the steps [0, e_0), [e_0, e_1), …, [e_last, Y]
+ * of a bounded profile (the definition of docs/staircase.md without the wrap).
+ */
+export function boundedIndex(
+  q: ArrayLike<number>,
+  beta: number,
+  dy: number,
+  edges: readonly number[],
+): { index: number; rho: number; levels: number[] } {
+  const n = q.length;
+  const bounds = [0, ...edges.map((e) => Math.min(n, Math.max(0, Math.ceil(e / dy - 1e-9)))), n];
+  let num = 0;
+  let den = 0;
+  const levels: number[] = [];
+  for (let s = 0; s + 1 < bounds.length; s++) {
+    const [a, b] = [bounds[s], bounds[s + 1]];
+    if (b <= a) {
+      levels.push(NaN);
+      continue;
+    }
+    let qm = 0;
+    let ym = 0;
+    for (let j = a; j < b; j++) {
+      qm += q[j];
+      ym += j * dy;
+    }
+    qm /= b - a;
+    ym /= b - a;
+    for (let j = a; j < b; j++) {
+      num += (q[j] - qm) ** 2;
+      den += (beta * (j * dy - ym)) ** 2;
+    }
+    levels.push(qm);
+  }
+  if (!(den > 0)) throw new RangeError('staircase index: the steps hold too few points to compare with βy');
+  const rho = Math.sqrt(num / den);
+  return { index: 1 - rho, rho, levels };
+}
+
 export interface StaircaseOptions {
   /** Gaussian smoothing σ of the PV gradient before edges are sought (length); default 2 grid spacings. */
   smoothing?: number;
@@ -107,23 +147,45 @@ export class StaircaseFitter {
 
   /** The staircase of qtot (q̄ + βy_j, y_j = j·Ly/ny, as `ZonalMeans.qtot`). */
   fit(qtot: Float64Array): StaircaseFit {
-    const { ny, Ly, beta, gradient: g, options: o } = this;
-    if (qtot.length !== ny) throw new RangeError(`StaircaseFitter: profile has ${qtot.length} points, expected ${ny}`);
+    this.smoothedGradient(qtot, this.gradient);
+    return this.fitWithEdges(
+      qtot,
+      this.edgePeaks(this.gradient).map((p) => p.y),
+    );
+  }
+
+  /**
+   * Stage 1: the smoothed PV gradient g = β + ∂y(q_tot − βy) of qtot into `out` (spectral, Gaussian
+   * σ = the smoothing option); `out` may be qtot itself.
+   */
+  smoothedGradient(qtot: Float64Array, out: Float64Array): Float64Array {
+    const { ny, Ly, beta, options: o } = this;
+    if (qtot.length !== ny || out.length !== ny)
+      throw new RangeError(`StaircaseFitter: profile has ${qtot.length} points, expected ${ny}`);
     const dy = Ly / ny;
-    // Stage 1: the smoothed gradient, from the periodic anomaly.
-    for (let j = 0; j < ny; j++) g[j] = qtot[j] - beta * j * dy;
-    this.profile.smooth(g, g, o.smoothing ?? 2 * dy);
-    this.profile.derivative(g, g);
-    for (let j = 0; j < ny; j++) g[j] += beta;
-    // Stage 2: edges where it concentrates.
-    const peaks = findPeriodicPeaks(g, Ly, {
+    for (let j = 0; j < ny; j++) out[j] = qtot[j] - beta * j * dy;
+    this.profile.smooth(out, out, o.smoothing ?? 2 * dy);
+    this.profile.derivative(out, out);
+    for (let j = 0; j < ny; j++) out[j] += beta;
+    return out;
+  }
+
+  /** Stage 2: the maxima of a smoothed gradient that pass the edge criterion (prominence, > β, separation). */
+  edgePeaks(g: Float64Array, overrides: PeakOptions = {}): Peak[] {
+    const { ny, Ly, beta, options: o } = this;
+    const dy = Ly / ny;
+    return findPeriodicPeaks(g, Ly, {
       relativeProminence: o.relativeProminence ?? 0.2,
       absoluteProminence: (o.betaProminence ?? 0.25) * beta,
       floor: beta,
       minSeparation: o.minSeparation ?? 3 * dy,
+      ...overrides,
     });
-    const edges = peaks.map((p) => p.y);
-    // Stage 3: steps, levels, jumps, index.
+  }
+
+  /** Stage 3: steps, levels, jumps and index of qtot for given edges (ascending in [0, Ly)). */
+  fitWithEdges(qtot: ArrayLike<number>, edges: number[]): StaircaseFit {
+    const { Ly, beta } = this;
     const n = edges.length;
     const widths = n ? edges.map((e, i) => (i + 1 < n ? edges[i + 1] : edges[0] + Ly) - e) : [Ly];
     const { index, rho, levels } = staircaseIndex(qtot, beta, Ly, edges);

@@ -1,8 +1,10 @@
+import type { MeanSeries } from './jetDetector';
+
 /**
  * The averaging window of a time mean: every sample from time tStart on, or the samples of the last
- * `span` time units, kept in at most `cap` stored profiles (default 256, even).
+ * `span` time units; either kept in at most `cap` stored bins (default 256, even).
  */
-export type TimeWindow = { kind: 'since'; tStart: number } | { kind: 'last'; span: number; cap?: number };
+export type TimeWindow = { kind: 'since'; tStart: number; cap?: number } | { kind: 'last'; span: number; cap?: number };
 
 /** The window actually averaged: first and last sample time, number of samples, profiles stored. */
 export interface WindowReport {
@@ -18,18 +20,19 @@ export interface WindowReport {
  * The mean is the plain average of the samples added, each with weight 1: a time mean when samples
  * come at equal intervals, which is the caller's job. Units are those of the profiles.
  *
- * 'since': running sums of every sample with t ≥ tStart; no cap is needed.
- * 'last': samples go into stored bins of `binSize` samples each (1 at first), a ring of at most `cap`
- * bins. When the ring is full, neighbouring bins are summed in pairs and `binSize` doubles, so memory
- * stays bounded and the window start moves in steps of at most one bin. A bin leaves the window when
- * its first sample is older than t − span (t the newest sample), so the window averaged always lies
- * inside [t − span, t]; `window` reports it. Adding allocates nothing.
+ * Samples go into stored bins of `binSize` samples each (1 at first), a ring of at most `cap` bins.
+ * When the ring is full, neighbouring bins are summed in pairs and `binSize` doubles, so memory stays
+ * bounded. 'since' keeps every sample with t ≥ tStart. 'last' drops a bin when its first sample is
+ * older than t − span (t the newest sample), so the window averaged always lies inside [t − span, t]
+ * and its start moves in steps of at most one bin; `window` reports it. Adding allocates nothing.
+ * The bins are consecutive batch means of the window: `series` gives them, with the mean, to the
+ * jet detector's sampling-error estimate (jetDetector.ts).
  */
 export class ProfileTimeMean<K extends string> {
   readonly names: readonly K[];
   readonly length: number;
   readonly spec: Readonly<TimeWindow>;
-  /** Samples per stored bin ('last' mode; 1 until the first pairing). */
+  /** Samples per stored bin (1 until the first pairing). */
   binSize = 1;
   private readonly width: number;
   private readonly cap: number;
@@ -47,18 +50,16 @@ export class ProfileTimeMean<K extends string> {
       throw new RangeError('ProfileTimeMean: needs at least one profile name and a positive length');
     if (window.kind === 'since' && !Number.isFinite(window.tStart))
       throw new RangeError(`ProfileTimeMean: tStart = ${window.tStart} must be finite`);
-    if (window.kind === 'last') {
-      if (!(window.span > 0 && Number.isFinite(window.span)))
-        throw new RangeError(`ProfileTimeMean: span = ${window.span} must be a positive finite time`);
-      const c = window.cap ?? 256;
-      if (!(Number.isInteger(c) && c >= 2 && c % 2 === 0))
-        throw new RangeError(`ProfileTimeMean: cap = ${c} must be an even integer ≥ 2`);
-    }
+    if (window.kind === 'last' && !(window.span > 0 && Number.isFinite(window.span)))
+      throw new RangeError(`ProfileTimeMean: span = ${window.span} must be a positive finite time`);
+    const c = window.cap ?? 256;
+    if (!(Number.isInteger(c) && c >= 2 && c % 2 === 0))
+      throw new RangeError(`ProfileTimeMean: cap = ${c} must be an even integer ≥ 2`);
     this.names = names;
     this.length = length;
     this.spec = window;
     this.width = names.length * length;
-    this.cap = window.kind === 'last' ? (window.cap ?? 256) : 1;
+    this.cap = window.cap ?? 256;
     this.sums = new Float64Array(this.cap * this.width);
     this.counts = new Float64Array(this.cap);
     this.t0 = new Float64Array(this.cap);
@@ -76,14 +77,9 @@ export class ProfileTimeMean<K extends string> {
     }
     this.tLast = t;
     const spec = this.spec;
-    if (spec.kind === 'since') {
-      if (t < spec.tStart) return;
-      if (this.bins === 0) this.openBin(0, t);
-      this.accumulate(0, t, profiles);
-      return;
-    }
+    if (spec.kind === 'since' && t < spec.tStart) return;
     // Stage 1: drop bins whose first sample has left the window.
-    while (this.bins > 0 && this.t0[this.head] < t - spec.span) {
+    while (spec.kind === 'last' && this.bins > 0 && this.t0[this.head] < t - spec.span) {
       this.head = (this.head + 1) % this.cap;
       this.bins--;
     }
@@ -99,7 +95,6 @@ export class ProfileTimeMean<K extends string> {
   }
 
   private openBin(slot: number, t: number): void {
-    if (this.spec.kind === 'since') this.bins = 1;
     this.sums.fill(0, slot * this.width, (slot + 1) * this.width);
     this.counts[slot] = 0;
     this.t0[slot] = t;
@@ -159,6 +154,42 @@ export class ProfileTimeMean<K extends string> {
       for (let j = 0; j < this.length; j++) o[j] *= inv;
     }
     return w;
+  }
+
+  /**
+   * The time mean of profile `name` over the window (into `mean`) with the series it is the mean of:
+   * the complete bins, oldest first, as their means (the newest bin is left out while it is still
+   * filling), their interval in time and the window's length (first to last sample plus one sample
+   * interval, for samples at equal intervals). Null while the window is empty. Allocates the bins.
+   */
+  series(name: K, mean: Float64Array = new Float64Array(this.length)): MeanSeries | null {
+    const n = this.names.indexOf(name);
+    if (n < 0) throw new RangeError(`ProfileTimeMean: no profile "${name}"`);
+    const w = this.window;
+    if (w.count === 0) return null;
+    if (mean.length !== this.length) throw new RangeError(`ProfileTimeMean: output not of length ${this.length}`);
+    mean.fill(0);
+    const newest = (this.head + this.bins - 1) % this.cap;
+    const full = this.counts[newest] < this.binSize ? this.bins - 1 : this.bins;
+    const bins = new Float64Array(full * this.length);
+    for (let b = 0; b < this.bins; b++) {
+      const slot = (this.head + b) % this.cap;
+      const off = slot * this.width + n * this.length;
+      for (let j = 0; j < this.length; j++) mean[j] += this.sums[off + j];
+      if (b >= full) continue;
+      const inv = 1 / this.counts[slot];
+      for (let j = 0; j < this.length; j++) bins[b * this.length + j] = this.sums[off + j] * inv;
+    }
+    for (let j = 0; j < this.length; j++) mean[j] /= w.count;
+    const sampleInterval = w.count > 1 ? (w.tEnd - w.tStart) / (w.count - 1) : 0;
+    return {
+      mean,
+      bins,
+      count: full,
+      interval: sampleInterval * this.binSize,
+      span: w.tEnd - w.tStart + sampleInterval,
+      samples: w.count,
+    };
   }
 
   /** Forget every sample (the window settings stay). */

@@ -4,7 +4,7 @@ import type { ZonalMeans } from '../analysis/zonalMean';
 import type { Model } from '../model/model';
 import { captureState, restoreState, type CapturedState } from './dataState';
 import type { RunPlan } from './runPlan';
-import { SteadyCriterion } from './steadyCriterion';
+import type { SteadyCriterion } from '../analysis/steadyCriterion';
 
 /** Why a run stopped: its rule was met, the steady cap was reached first, or the caller stopped it. */
 export type StopReason = 'steps' | 'until' | 'steady' | 'not-steady';
@@ -36,7 +36,7 @@ export interface MonitoredRunState {
 export const TIME_MEAN_CAP = 256;
 
 // Fields that are configuration or plan objects rebuilt identically by the constructor, not state.
-const RUN_CONFIG = ['current', 'plan', 'monitor', 'steady', 'hooks', 'startTime', 'startSteps'];
+const RUN_CONFIG = ['current', 'plan', 'monitor', 'hooks', 'startTime', 'startSteps'];
 const MONITOR_CONFIG = [
   'params',
   'snap',
@@ -45,8 +45,8 @@ const MONITOR_CONFIG = [
   'hovmoller',
   'means',
   'window',
-  'jetFinder',
-  'staircase',
+  'steady',
+  'detector',
   'latest',
   'mean',
   'fields',
@@ -70,7 +70,6 @@ export class MonitoredRun {
   readonly monitor: RunMonitor;
   readonly startTime: number;
   readonly startSteps: number;
-  readonly steady: SteadyCriterion | null;
   private current: Model;
   private readonly hooks: RunHooks;
   private nextSample: number;
@@ -88,9 +87,13 @@ export class MonitoredRun {
     this.hooks = hooks;
     this.startTime = origin.time;
     this.startSteps = origin.steps;
-    this.monitor = new RunMonitor(model.params, { window: { kind: 'last', span: plan.average, cap: TIME_MEAN_CAP } });
-    this.steady =
-      plan.stop.kind === 'steady' ? new SteadyCriterion(origin.time, plan.stop.window, plan.stop.tolerance) : null;
+    // The monitor's steady-state test is the stop rule's when the run stops at the steady state.
+    const test = plan.stop.kind === 'steady' ? { window: plan.stop.window, tolerance: plan.stop.tolerance } : undefined;
+    this.monitor = new RunMonitor(model.params, {
+      window: { kind: 'last', span: plan.average, cap: TIME_MEAN_CAP },
+      steady: test,
+      start: origin.time,
+    });
     this.nextSample = origin.time + plan.sampleEvery;
   }
 
@@ -123,14 +126,14 @@ export class MonitoredRun {
         const z = this.monitor.sample(m.qHat, m.time);
         this.hooks.onSample?.(m.time, m.steps, z);
       }
-      this.reason = this.checkStop(report.time - report.dt, report.dt, report.energy.value);
+      this.reason = this.stopNow();
     }
     return this.reason !== null;
   }
 
-  private checkStop(stepStart: number, dt: number, energy: number): StopReason | null {
-    if (this.plan.stop.kind === 'steady' && this.steady!.add(stepStart, dt, energy)) return 'steady';
-    return this.stopNow();
+  /** The steady-state test (the monitor's: with a steady stop rule, that rule's window and tolerance). */
+  get steady(): SteadyCriterion {
+    return this.monitor.steady;
   }
 
   /** The stop rule tested at the present state, without recording a step. */
@@ -139,7 +142,7 @@ export class MonitoredRun {
     const m = this.current;
     if (s.kind === 'steps') return m.steps - this.startSteps >= s.steps ? 'steps' : null;
     if (s.kind === 'until') return m.time >= s.time ? 'until' : null;
-    if (this.steady!.steadyAt !== null) return 'steady';
+    if (this.steady.steadyAt !== null) return 'steady';
     return m.time >= s.maxTime ? 'not-steady' : null;
   }
 
@@ -165,7 +168,7 @@ export class MonitoredRun {
     const mon = this.monitor;
     return {
       run: captureState(this, RUN_CONFIG, 'run'),
-      steady: this.steady ? captureState(this.steady, [], 'steady') : null,
+      steady: captureState(this.steady, [], 'steady'),
       monitor: {
         self: captureState(mon, MONITOR_CONFIG, 'monitor'),
         budget: captureState(mon.budget, [], 'monitor.budget'),
@@ -181,8 +184,6 @@ export class MonitoredRun {
    * from its final checkpoint takes no further step.
    */
   restoreState(s: MonitoredRunState): void {
-    if ((s.steady === null) !== (this.steady === null))
-      throw new RangeError(`restoreState: the state is of a run ${s.steady ? 'with' : 'without'} a steady criterion`);
     const mon = this.monitor;
     // Every part is checked by a dry run on a throwaway copy first, so a misfit changes nothing.
     const probe = this.saveState();
@@ -193,7 +194,7 @@ export class MonitoredRun {
     restoreState(probe.monitor.hovmoller, s.monitor.hovmoller, [], 'monitor.hovmoller');
     restoreState(probe.monitor.means, s.monitor.means, [], 'monitor.means');
     restoreState(this, s.run, RUN_CONFIG, 'run');
-    if (s.steady) restoreState(this.steady!, s.steady, [], 'steady');
+    if (s.steady) restoreState(this.steady, s.steady, [], 'steady');
     restoreState(mon, s.monitor.self, MONITOR_CONFIG, 'monitor');
     restoreState(mon.budget, s.monitor.budget, [], 'monitor.budget');
     restoreState(mon.hovmoller, s.monitor.hovmoller, [], 'monitor.hovmoller');

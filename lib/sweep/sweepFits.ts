@@ -2,8 +2,8 @@ import { fitScaling, type ScalingFitOptions } from '../analysis/scalingFit';
 import type { TableRow } from './sweepTable';
 
 /**
- * The scaling laws a sweep checks, fitted across its finished runs (log-log least squares with
- * seeded bootstrap percentile intervals, lib/analysis/scalingFit.ts):
+ * The scaling laws a sweep checks, fitted across its finished runs (log-log least squares weighted by
+ * each run's standard errors, with seeded bootstrap percentile intervals, lib/analysis/scalingFit.ts):
  *   jet spacing against the Rhines length 2π/k_R (measured U): L_jet = A (2π/k_R)^b; b = 1 and an
  *     O(1) prefactor is the Rhines scaling of jets (Rhines 1975), so the prefactor at b = 1 is given too;
  *   u_rms against the drag balance (ε/μ)^½: u_rms = A ((ε/μ)^½)^b; b = 1, A = 1 when drag alone
@@ -64,6 +64,9 @@ function fitColumns(
   const num = (v: unknown) => (typeof v === 'number' ? v : NaN);
   const x = rows.map((r) => num(r[xName]));
   const y = rows.map((r) => num(r[yName]));
+  // Each run weighs by its own standard errors (the `*_stderr` columns), where the table has them.
+  const error = (name: string) =>
+    rows.map((r) => (typeof r[`${name}_stderr`] === 'number' ? (r[`${name}_stderr`] as number) : null));
   const level = options.level ?? 0.95;
   const resamples = options.resamples ?? 2000;
   const empty = {
@@ -82,7 +85,7 @@ function fitColumns(
     degenerate_resamples: 0,
   };
   try {
-    const f = fitScaling(x, y, { ...options, fixedExponent: 1 });
+    const f = fitScaling(x, y, { ...options, fixedExponent: 1, yError: error(yName), xError: error(xName) });
     return {
       ...empty,
       n: f.n,

@@ -1,5 +1,12 @@
 import * as v from 'valibot';
-import { SUMMARY_KEYS, type RunSummary } from '../analysis/summary';
+import {
+  SUMMARY_BOOLEAN_KEYS,
+  SUMMARY_COUNT_KEYS,
+  SUMMARY_KEYS,
+  SUMMARY_OTHER_KEYS,
+  SUMMARY_TEXT_VALUES,
+  type RunSummary,
+} from '../analysis/summary';
 import type { StopReason } from '../run/monitoredRun';
 import { canonicalJson } from '../run/runId';
 import type { SweepJob } from './sweepRuns';
@@ -12,7 +19,8 @@ import type { SweepJob } from './sweepRuns';
  * (lib/analysis/summary.ts) at the end, or at the last good state of a blown-up run.
  */
 export const RECORD_FORMAT = 'stria-sweep-run';
-export const RECORD_VERSION = 1;
+/** 2: summaries with the detector's verdict, standard errors and the steady state (version 1 lines are refused). */
+export const RECORD_VERSION = 2;
 
 /** The job that ran (id, position, point, replica, seed, parameters, plan) and what came of it. */
 export interface SweepRecord extends SweepJob {
@@ -28,8 +36,16 @@ export interface SweepRecord extends SweepJob {
   finished_at: string;
 }
 
-/** The summary's keys that hold a number or null (lib/analysis/summary.ts). */
-const SUMMARY_NUMBERS = [...SUMMARY_KEYS, 'ls_loss', 'jet_spacing_std', 'window_start', 'window_end'] as const;
+/** The summary's validators, key by key (lib/analysis/summary.ts says what each holds). */
+function summaryEntry(key: keyof RunSummary) {
+  if (key in SUMMARY_TEXT_VALUES) {
+    const values = SUMMARY_TEXT_VALUES[key as keyof typeof SUMMARY_TEXT_VALUES];
+    return v.nullable(v.picklist(values, `must be one of ${values.join(', ')} or null`));
+  }
+  if ((SUMMARY_BOOLEAN_KEYS as readonly string[]).includes(key)) return v.boolean('must be true or false');
+  if ((SUMMARY_COUNT_KEYS as readonly string[]).includes(key)) return v.number('must be a number');
+  return v.nullable(v.number('must be a number or null'));
+}
 
 const RecordSchema = v.looseObject({
   format: v.literal(RECORD_FORMAT, `must be "${RECORD_FORMAT}"`),
@@ -54,11 +70,7 @@ const RecordSchema = v.looseObject({
   // Every key of a run summary, as summarize() writes them: a journal line lacking one is damaged.
   summary: v.looseObject(
     {
-      ...Object.fromEntries(SUMMARY_NUMBERS.map((k) => [k, v.nullable(v.number('must be a number or null'))])),
-      time: v.number('must be a number'),
-      steps: v.number('must be a number'),
-      window_samples: v.number('must be a number'),
-      regime: v.nullable(v.string('must be a text or null')),
+      ...Object.fromEntries([...SUMMARY_KEYS, ...SUMMARY_OTHER_KEYS].map((k) => [k, summaryEntry(k)])),
     },
     'must be a run summary',
   ),

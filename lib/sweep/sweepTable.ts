@@ -1,26 +1,18 @@
 import { balanceVelocity, rhinesLength } from '../analysis/scales';
-import { SUMMARY_KEYS, type RunSummary } from '../analysis/summary';
+import { SUMMARY_KEYS, SUMMARY_OTHER_KEYS } from '../analysis/summary';
 import type { CsvColumn } from '../io/csv';
 import type { SweepRecord } from './sweepRecord';
 
 /**
  * The results table of a sweep: one row per run in sweep order, with the swept values, the seed, the
  * run summary (stable keys first, then the rest) and the two scales the fits are against:
- *   rhines_length     2π/k_R with the measured k_R = (β/2U)^½ (the summary's k_rhines)
+ *   rhines_length     2π/k_R with the measured k_R = (β/2U)^½ (the summary's k_rhines), and its
+ *                     standard error, rhines_length·δU/(2U) (the length goes as U^½) [derived]
  *   balance_velocity  (ε/μ)^½ from the parameters, the drag-balance rms velocity
  * Missing numbers are null in JSON and empty fields in CSV (RFC 4180; docs/file-formats.md).
  */
 export type TableValue = number | string | boolean | null;
 export type TableRow = Record<string, TableValue>;
-
-const OTHER_SUMMARY_KEYS = [
-  'ls_loss',
-  'regime',
-  'jet_spacing_std',
-  'window_start',
-  'window_end',
-  'window_samples',
-] as const satisfies readonly (keyof RunSummary)[];
 
 /** Column names in order, for records whose swept parameters are `pointKeys`. */
 export function tableColumns(pointKeys: readonly string[]): string[] {
@@ -33,8 +25,9 @@ export function tableColumns(pointKeys: readonly string[]): string[] {
     'status',
     'stopped',
     ...SUMMARY_KEYS,
-    ...OTHER_SUMMARY_KEYS,
+    ...SUMMARY_OTHER_KEYS,
     'rhines_length',
+    'rhines_length_stderr',
     'balance_velocity',
     'wall_seconds',
   ];
@@ -54,9 +47,13 @@ export function tableRows(records: readonly SweepRecord[]): TableRow[] {
     const row: TableRow = { id: r.id, index: r.index };
     for (const k of keys) row[k] = r.point[k] ?? null;
     Object.assign(row, { replica: r.replica, seed: r.seed, status: r.status, stopped: r.stopped });
-    for (const k of [...SUMMARY_KEYS, ...OTHER_SUMMARY_KEYS]) row[k] = s[k] ?? null;
+    for (const k of [...SUMMARY_KEYS, ...SUMMARY_OTHER_KEYS]) row[k] = s[k] ?? null;
     const kR = r.summary.k_rhines;
-    row.rhines_length = kR !== null && kR > 0 ? rhinesLength(r.params.beta, r.summary.u_rms!, 'kR') : null;
+    const U = r.summary.u_rms;
+    const dU = r.summary.u_rms_stderr;
+    const L = kR !== null && kR > 0 && U !== null ? rhinesLength(r.params.beta, U, 'kR') : null;
+    row.rhines_length = L;
+    row.rhines_length_stderr = L !== null && U !== null && dU !== null ? (L * dU) / (2 * U) : null;
     row.balance_velocity = r.params.mu > 0 ? balanceVelocity(r.params.eps, r.params.mu) : null;
     row.wall_seconds = r.wall_seconds;
     return row;

@@ -1,3 +1,4 @@
+import { HovmollerAccumulator } from '../analysis/hovmoller';
 import { AllocationMeter } from '../io/allocationMeter';
 import { FieldDeriver, planDerivation, type DerivationPlan } from './derivedFields';
 import type { FdGrid } from './gridDerivatives';
@@ -9,6 +10,9 @@ import { SpectraAccumulator } from './spectraAccumulator';
 import type { UserGrid, UserRecordSource, UserRole } from './userData';
 import { UserSpectralPlan } from './spectral';
 import { summarizeUserAnalysis, type UserAnalysis } from './summary';
+
+/** Record profiles kept for the jet detector's noise estimate (pairs averaged beyond it). */
+const RECORD_BINS = 256;
 
 /**
  * The diagnostics of a user's own output over a window of records: what applies is computed, what
@@ -98,6 +102,14 @@ export function analyzeUserRecords(source: UserRecordSource, options: UserAnalys
     eke: new ProfileAccumulator(g.ny, meter),
   };
   const spec = spectral && options.spectra !== false ? new SpectraAccumulator(spectral, meter) : null;
+  // The records' own profiles (pairs averaged past RECORD_BINS): the scatter the jet detector judges against.
+  const records = {
+    ubar: new HovmollerAccumulator(g.ny, g.ny * g.dy, RECORD_BINS),
+    qbar: new HovmollerAccumulator(g.ny, g.ny * g.dy, RECORD_BINS),
+  };
+  meter.external(2 * RECORD_BINS * g.ny * 8, 'record profiles');
+  // The first record's u and q column by column (profiles along y), for files of too few records to judge over time.
+  let columns: { ubar: Float64Array; qbar: Float64Array | null } | null = null;
   let speed2 = 0;
   let speed2Count = 0;
   let qRecords = 0;
@@ -109,6 +121,7 @@ export function analyzeUserRecords(source: UserRecordSource, options: UserAnalys
     if (profileLayout) {
       const ub = fileBuffers.ubar as Float64Array;
       acc.ubar.add(ub);
+      records.ubar.add(r - start, ub);
       for (let j = 0; j < g.ny; j++)
         if (Number.isFinite(ub[j])) {
           speed2 += ub[j] * ub[j];
@@ -121,8 +134,12 @@ export function analyzeUserRecords(source: UserRecordSource, options: UserAnalys
       const q = d.q ? (f.q ?? null) : null;
       if (q) qRecords++;
       const p = zm.compute(f.u ?? null, f.v ?? null, q);
+      if (r === start && f.u)
+        columns = { ubar: byColumn(f.u, g.nx, g.ny, meter), qbar: q ? byColumn(q, g.nx, g.ny, meter) : null };
       acc.ubar.add(p.ubar);
       acc.qbar.add(p.qbar);
+      records.ubar.add(r - start, p.ubar);
+      records.qbar.add(r - start, p.qbar);
       acc.upvp.add(p.upvp);
       acc.vpqp.add(p.vpqp);
       acc.eke.add(p.eke);
@@ -150,6 +167,8 @@ export function analyzeUserRecords(source: UserRecordSource, options: UserAnalys
       eke: acc.eke.mean(Math.ceil(frac * used)),
     },
     qRecords,
+    records: { ubar: records.ubar.view(), qbar: qRecords ? records.qbar.view() : null },
+    columns,
     uRms: speed2Count ? Math.sqrt(speed2 / speed2Count) : null,
     uRmsKind: profileLayout ? 'zonal mean' : source.roles.includes('v') || plan.v ? 'u and v' : 'u only',
     spectra: spec?.result() ?? null,
@@ -210,3 +229,10 @@ function spectraReason(
 }
 
 export type { UserAnalysis };
+
+/** A row-major field (point (i, j) at j·nx + i) as its columns: profile i along y at i·ny + j. */
+function byColumn(f: Float64Array, nx: number, ny: number, meter: AllocationMeter): Float64Array {
+  const out = meter.f64(nx * ny, 'record profiles');
+  for (let j = 0; j < ny; j++) for (let i = 0; i < nx; i++) out[i * ny + j] = f[j * nx + i];
+  return out;
+}

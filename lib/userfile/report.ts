@@ -49,14 +49,22 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
   }
   out.push('', 'Results');
   if (a.jets) {
+    const j = a.jets;
     out.push(
-      `  jets: ${a.jets.count} eastward jet${a.jets.count === 1 ? '' : 's'}${a.jets.count ? ` at y = ${a.jets.jets.map((j) => fmt(j.y)).join(', ')}` : ''}`,
+      j.count === null
+        ? `  jets: ${j.reason}`
+        : `  jets: ${j.count} significant eastward jet${j.count === 1 ? '' : 's'}${j.count ? ` at y = ${j.jets.map((x) => fmt(x.y)).join(', ')}` : ''} (${j.reason})`,
     );
-    if (a.jets.meanSpacing !== null) out.push(`  jet spacing: ${L(a.jets.meanSpacing)} ± ${L(a.jets.spacingStd)}`);
+    if (j.meanSpacing !== null)
+      out.push(
+        `  jet spacing: ${L(j.meanSpacing)}${j.spacingStderr !== null ? ` ± ${L(j.spacingStderr)} (standard error)` : ''}, spread between jets ${L(j.spacingStd)}`,
+      );
   }
   if (a.staircase)
     out.push(
-      `  PV staircase: ${a.staircase.edges.length} edges, mean step width ${L(a.staircase.meanWidth)}, sharpness index ${fmt(a.staircase.index, 4)} (1 perfect, 0 the plain βy)`,
+      a.staircase.index === null
+        ? `  PV staircase: ${a.staircase.reason}`
+        : `  PV staircase: ${a.staircase.edges.length} significant edges, mean step width ${L(a.staircase.meanWidth)}, sharpness index ${fmt(a.staircase.index, 4)}${a.staircase.indexStderr !== null ? ` ± ${fmt(a.staircase.indexStderr, 2)}` : ''} (1 perfect, 0 the plain βy)`,
     );
   if (a.uRms) out.push(`  U_rms = ${fmt(a.uRms.value)} (${a.uRms.kind})`);
   if (a.scales.kRhines !== null)

@@ -2,13 +2,20 @@ import type { AllocationMeter } from '../io/allocationMeter';
 import type { DerivationPlan } from './derivedFields';
 import { eddyDiffusivity } from '../analysis/eddyDiffusivity';
 import { profileDerivative } from './gridDerivatives';
-import { profileJets, type ProfileJets } from '../analysis/profileJets';
-import { profileStaircase, type ProfileStaircase } from '../analysis/profileStaircase';
+import type { HovmollerRecord } from '../analysis/hovmoller';
 import { qtotFromUbar } from './qtotFromUbar';
 import type { Regime, RhinesConvention } from '../analysis/scales';
 import { userScales } from './scales';
 import type { SpectraMean } from './spectraAccumulator';
 import type { UserGrid } from './userData';
+import {
+  recordRows,
+  userJets,
+  userStaircase,
+  type RecordSeries,
+  type UserJets,
+  type UserStaircase,
+} from './userStructure';
 
 /**
  * The result of analysing a user's file (gridAnalysis.ts), and the step from time-mean profiles to
@@ -36,8 +43,9 @@ export interface UserAnalysis {
   };
   /** Total zonal-mean PV q̄ + β(y − y0) at positions y (grid rows, or midpoints between them), and how it was formed. */
   qtot: { y: number[]; values: number[]; source: string } | null;
-  jets: ProfileJets | null;
-  staircase: ProfileStaircase | null;
+  /** By the one detector, judged against the records' own scatter (userStructure.ts). */
+  jets: UserJets | null;
+  staircase: UserStaircase | null;
   uRms: { value: number; kind: 'u and v' | 'u only' | 'zonal mean' } | null;
   scales: {
     beta: number | null;
@@ -72,11 +80,15 @@ export interface SummaryInput {
     eke: Float64Array;
   };
   qRecords: number;
+  /** The records' ū and q̄ profiles (means of consecutive records, times in records): the detector's batch means. */
+  records: { ubar: HovmollerRecord; qbar: HovmollerRecord | null };
+  /** The first record's u and q as profiles along y, one per column x_i (i·ny + j), or null (zonal means only). */
+  columns: { ubar: Float64Array; qbar: Float64Array | null } | null;
   uRms: number | null;
   uRmsKind: 'u and v' | 'u only' | 'zonal mean';
   spectra: SpectraMean | null;
   spectralReason: string | null;
-  options: { beta?: number; kd: number; eps?: number; rhines?: RhinesConvention };
+  options: { beta?: number; kd: number; eps?: number; mu?: number; rhines?: RhinesConvention };
   meter: AllocationMeter;
 }
 
@@ -100,16 +112,26 @@ export function summarizeUserAnalysis(s: SummaryInput): UserAnalysis {
       s.profileLayout ? 'the file holds zonal means only' : 'the file has no northward velocity v (nor ψ)',
     );
 
+  // The samples the means are judged against (userStructure.ts): the records when there are enough
+  // of them, in the file's time unit when its times are evenly spaced; else the columns of the first
+  // record along x, of which the zonal mean is the mean (a single snapshot's own sampling error).
+  const samples = sampleSource(s, o.mu);
+  if (samples.note) s.grid.notes.push(samples.note);
+
   // Jets, from ū over its valid rows: invalid rows may be cut off the ends, not from the middle.
   const span = validSpan(means.ubar);
-  let jets: ProfileJets | null = null;
+  let jets: UserJets | null = null;
   if (!span) skip('jets', 'ū has no valid rows');
   else if (span.gaps)
     skip('jets', `ū is invalid at rows inside the domain (first at row ${span.gaps}): too few valid points there`);
   else {
     const periodic = g.periodicY && span.a === 0 && span.b === g.ny;
-    jets = profileJets(means.ubar.subarray(span.a, span.b), g.y0 + span.a * g.dy, g.dy, periodic);
-    computed.push('jets (positions, spacing)');
+    const mean = means.ubar.slice(span.a, span.b);
+    const bins = recordRows(samples.ubar, g.ny, span.a, span.b, mean);
+    const geometry = { points: span.b - span.a, y0: g.y0 + span.a * g.dy, dy: g.dy, periodic };
+    jets = userJets(geometry, mean, bins, samples.ubar.times, samples.mu);
+    computed.push(`jets (positions, spacing, significance against ${samples.label})`);
+    if (jets.verdict === 'too-short') s.grid.notes.push(`jets: ${jets.reason}`);
     if (span.b - span.a < g.ny)
       s.grid.notes.push(
         `ū is invalid on ${g.ny - (span.b - span.a)} rows at the edges: jets are sought on rows ${span.a}–${span.b - 1}, as a bounded profile`,
@@ -118,11 +140,13 @@ export function summarizeUserAnalysis(s: SummaryInput): UserAnalysis {
 
   // Total PV: from the file's own PV or vorticity when it has them (no derivative taken), else
   // from ū by differences between rows (qtotFromUbar.ts), which are exact on the arcs of a staircase
-  // where a derivative of the 2D field at the rows would smear every jet's cusp.
+  // where a derivative of the 2D field at the rows would smear every jet's cusp. The samples' total
+  // PV is formed the same way as the mean's.
   let qtot: UserAnalysis['qtot'] = null;
+  let qtotBins: { bins: Float64Array; times: number[] } | null = null;
   const direct = s.plan.q === 'file' || (s.plan.q === 'zeta' && s.plan.zeta === 'file');
   if (beta === null) skip('PV staircase', 'needs β (give it, or a planet and a central latitude)');
-  else if (s.profileLayout || !direct || !complete(means.qbar)) {
+  else if (s.profileLayout || !direct || !complete(means.qbar) || !samples.qbar) {
     if (direct)
       skip(
         'q̄ from the PV field',
@@ -133,6 +157,15 @@ export function summarizeUserAnalysis(s: SummaryInput): UserAnalysis {
       const periodic = g.periodicY && span.a === 0 && span.b === g.ny;
       const q = qtotFromUbar(u, g.dy, periodic, beta, o.kd);
       qtot = { y: q.y.map((v) => v + g.y0 + span.a * g.dy), values: q.values, source: q.source };
+      const rows = recordRows(samples.ubar, g.ny, span.a, span.b, u);
+      const n = span.b - span.a;
+      const bins = new Float64Array(samples.ubar.count * q.values.length);
+      for (let r = 0; r < samples.ubar.count; r++)
+        bins.set(
+          qtotFromUbar(rows.subarray(r * n, (r + 1) * n), g.dy, periodic, beta, o.kd).values,
+          r * q.values.length,
+        );
+      qtotBins = { bins, times: samples.ubar.times };
     }
   } else {
     qtot = {
@@ -140,14 +173,25 @@ export function summarizeUserAnalysis(s: SummaryInput): UserAnalysis {
       values: Array.from(means.qbar as Float64Array, (v, j) => v + beta * j * g.dy),
       source: `zonal mean of the PV anomaly q (${s.plan.q === 'file' ? 'from the file' : 'q = ζ − k_d²ψ'}) plus β(y − y0)`,
     };
+    const bins = recordRows(samples.qbar, g.ny, 0, g.ny, means.qbar as Float64Array);
+    for (let r = 0; r < samples.qbar.count; r++) for (let j = 0; j < g.ny; j++) bins[r * g.ny + j] += beta * j * g.dy;
+    qtotBins = { bins, times: samples.qbar.times };
   }
-  let staircase: ProfileStaircase | null = null;
-  if (qtot && beta !== null) {
+  let staircase: UserStaircase | null = null;
+  if (qtot && qtotBins && beta !== null) {
     if (!(beta > 0)) skip('PV staircase', `β = ${beta} must be > 0`);
     else {
       const periodic = g.periodicY && qtot.values.length === g.ny;
-      staircase = profileStaircase(qtot.values, qtot.y[0], g.dy, periodic, beta);
-      computed.push('PV staircase (edges, widths, sharpness index)');
+      const geometry = { points: qtot.values.length, y0: qtot.y[0], dy: g.dy, periodic };
+      staircase = userStaircase(
+        geometry,
+        beta,
+        Float64Array.from(qtot.values),
+        qtotBins.bins,
+        qtotBins.times,
+        samples.mu,
+      );
+      computed.push('PV staircase (edges, widths, sharpness index, significance)');
     }
   } else if (beta !== null && !qtot) skip('PV staircase', 'the total PV cannot be formed: no valid ū or PV profile');
 
@@ -242,4 +286,56 @@ function validSpan(p: Float64Array): { a: number; b: number; gaps: number | null
   while (!Number.isFinite(p[b - 1])) b--;
   for (let j = a; j < b; j++) if (!Number.isFinite(p[j])) return { a, b, gaps: j };
   return { a, b, gaps: null };
+}
+
+/**
+ * The spacing of the records' times in the file's unit, when the times are all known, increasing and
+ * evenly spaced (to 1e-6); else one record per unit ('records').
+ */
+function uniformStep(times: (number | null)[]): { step: number; unit: 'file' | 'records' } {
+  const n = times.length;
+  if (n < 2 || times.some((t) => t === null || !Number.isFinite(t))) return { step: 1, unit: 'records' };
+  const t = times as number[];
+  const step = (t[n - 1] - t[0]) / (n - 1);
+  const even = step > 0 && t.every((x, i) => Math.abs(x - (t[0] + i * step)) <= 1e-6 * Math.abs(step) * n);
+  return even ? { step, unit: 'file' } : { step: 1, unit: 'records' };
+}
+
+/** Fewer records than this and a 2D file is judged against its first record's scatter along x. */
+const MIN_RECORDS = 8;
+
+/** The samples the detector judges the means against, and how they are described. */
+function sampleSource(s: SummaryInput, mu: number | undefined) {
+  const g = s.grid;
+  const fromRecords = (rec: HovmollerRecord, step: number): RecordSeries => ({
+    values: rec.data,
+    count: rec.columns,
+    times: Array.from(rec.t, (t) => t * step),
+  });
+  if (s.records.ubar.columns >= MIN_RECORDS || !s.columns) {
+    const time = uniformStep(s.window.times);
+    const useMu = time.unit === 'file' ? mu : undefined;
+    return {
+      label: `the scatter of ${s.window.end - s.window.start} records`,
+      ubar: fromRecords(s.records.ubar, time.step),
+      qbar: s.records.qbar ? fromRecords(s.records.qbar, time.step) : null,
+      mu: useMu,
+      note:
+        mu !== undefined && useMu === undefined
+          ? 'μ is not used to bound the independent records: the file has no evenly spaced times'
+          : null,
+    };
+  }
+  const columns = (values: Float64Array): RecordSeries => ({
+    values,
+    count: g.nx,
+    times: Array.from({ length: g.nx }, (_, i) => i * g.dx),
+  });
+  return {
+    label: `the scatter of record ${s.window.start} along x (fewer than ${MIN_RECORDS} records)`,
+    ubar: columns(s.columns.ubar),
+    qbar: s.columns.qbar ? columns(s.columns.qbar) : null,
+    mu: undefined,
+    note: `fewer than ${MIN_RECORDS} records: jets and staircase steps are judged against the scatter of ū along x in record ${s.window.start}, not over time`,
+  };
 }

@@ -104,7 +104,13 @@ describe('run summary', () => {
     );
     expect(summary.jet_count).toBeGreaterThanOrEqual(1);
     expect(summary.jet_spacing).toBeCloseTo((2 * Math.PI) / summary.jet_count!, 12);
-    expect(summary.staircase_index).toBeGreaterThan(0.05);
+    expect(summary.jet_verdict).toBe('jets');
+    // The staircase stands above the plain gradient (S = 0) by more than twice its standard error.
+    expect(summary.staircase_index!).toBeGreaterThan(2 * summary.staircase_index_stderr!);
+    expect(summary.steady).toBe(true);
     expect(summary.regime).not.toBe('friction-dominated');
+    // Every headline number carries its standard error (docs/significance.md).
+    for (const k of ['u_rms_stderr', 'zonostrophy_index_stderr', 'jet_spacing_stderr'] as const)
+      expect(summary[k]).toBeGreaterThan(0);
   });
 });

@@ -28,7 +28,7 @@ describe('running time means of profiles', () => {
     const tm = new ProfileTimeMean(['a', 'b'], 3, { kind: 'since', tStart: 3.5 });
     for (let t = 0; t < 10; t++) tm.add(t, sample(t, 3));
     const out = { a: new Float64Array(3), b: new Float64Array(3) };
-    expect(tm.mean(out)).toEqual({ tStart: 4, tEnd: 9, count: 6, stored: 1 });
+    expect(tm.mean(out)).toEqual({ tStart: 4, tEnd: 9, count: 6, stored: 6 });
     // mean of t over 4..9 is 6.5; of t² is (16+25+36+49+64+81)/6 = 271/6
     expect(out.a[2]).toBeCloseTo(8.5, 14);
     expect(out.b[1]).toBeCloseTo(271 / 6 - 1, 13);

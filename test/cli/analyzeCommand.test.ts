@@ -126,7 +126,7 @@ describe('stria analyze', () => {
         ]);
         expect(text.code).toBe(0);
         expect(text.out).toContain('u     ← "U" (by the mapping u=U');
-        expect(text.out).toContain('jets: 4 eastward jets');
+        expect(text.out).toContain('jets: 4 significant eastward jets');
         expect(text.out).toContain('records 1 to 2 of 4 (2), time 100 to 200 s');
         expect(text.out).toMatch(/Measured beside the planner\n {2}quantity +measured +predicted +ratio +unit\n/);
         const json = await run([path, '--map', 'u=U,v=W', '--beta', '2e-11', '--records', '-2:', '--json']);

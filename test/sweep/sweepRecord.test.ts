@@ -20,7 +20,9 @@ describe('sweep records', () => {
     const line = formatSweepRecord(records[0]);
     expect(line).not.toContain('\n');
     expect(parseSweepRecord(line)).toEqual(records[0]);
-    expect(() => parseSweepRecord('{"format":"stria-sweep-run","version":1,"id":"x"}')).toThrow(/^id:/);
+    expect(() => parseSweepRecord('{"format":"stria-sweep-run","version":2,"id":"x"}')).toThrow(/^id:/);
+    // A line of the journal format before the detector's verdicts is refused by its version.
+    expect(() => parseSweepRecord('{"format":"stria-sweep-run","version":1,"id":"x"}')).toThrow(/^version: must be 2/);
     expect(() => parseSweepRecord('{"format":')).toThrow(/not JSON/);
   });
 

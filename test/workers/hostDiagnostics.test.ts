@@ -42,7 +42,7 @@ describe('SimulationHost diagnostics', () => {
       }
     }
     monitor.meanProfiles();
-    expect(st.jetCount).toBe(monitor.structure().jets.count);
+    expect(st.jetCount).toBe(monitor.structure()!.jets.count);
     expect(st.lastSample).toBe(direct.time);
     expect(st.window?.count).toBe(5);
   });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { SteadyCriterion } from '../../lib/run/steadyCriterion';
+import { SteadyCriterion } from '../../lib/analysis/steadyCriterion';
 
 /** Feed E(t) = 1 − e^{−2μt} in steps of dt until the criterion passes; the time it passes at. */
 function spinUp(mu: number, dt: number, tol: number): number | null {
