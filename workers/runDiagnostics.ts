@@ -3,6 +3,7 @@ import { MEAN_PROFILES, RunMonitor, type MeanProfile } from '../lib/analysis/run
 import type { StaircaseFit } from '../lib/analysis/staircase';
 import { summarize, type RunSummary } from '../lib/analysis/summary';
 import { ProfileTimeMean, type WindowReport } from '../lib/analysis/timeMean';
+import { reachedTime } from '../lib/model/clock';
 import type { Model } from '../lib/model/model';
 import type { ModelParams } from '../lib/model/params';
 import type { MonitorStatus } from './diagnosticsApi';
@@ -78,7 +79,7 @@ export class RunDiagnostics {
   /** Record the step just taken; returns true when it was also a sample time. */
   afterStep(model: Model, wants: { spectra: boolean; spectra2d: boolean; flux: boolean }): boolean {
     this.monitor.step(model.report);
-    if (model.time < this.next) return false;
+    if (!reachedTime(model.time, this.next, model.dt)) return false;
     this.taken++;
     this.next = this.since + (this.taken + 1) * this.sampling.sampleEvery;
     const t = model.time;
