@@ -174,7 +174,9 @@ export const runCommand: Command = {
 Runs the model from rest (or from the saved state in FILE) and prints the run summary: energy,
 u_rms, k_rhines, k_beta, zonostrophy_index, jet_count, jet_spacing, ... (model units), averaged over
 the last --average time units. FILE is a JSON object of parameters or a run file written by --save.
-Parameters are layered: the defaults, then --preset, then FILE, then each --set.
+Parameters are layered: the defaults, then --preset, then FILE, then each --set. Hyperviscosity
+follows the grid: when nx or ny changes and --set does not give nu, nu is rescaled so that its
+damping rate at the largest kept wavenumber stays the same (said on standard error).
 
 Steady criterion (--until-steady): time from the start is cut into consecutive windows of length W
 (--steady-window, default 1/(2 mu)); at the end of each window its time-mean energy is compared with
@@ -227,6 +229,10 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
     preset: o.preset as string | undefined,
     sets: o.set as string[] | undefined,
   });
+  if (start.rescaledNu)
+    io.err.write(
+      `stria run: hyperviscosity nu rescaled from ${start.rescaledNu.from} to ${start.rescaledNu.to} for the ${start.params.nx} × ${start.params.ny} grid, so its damping rate at k_max stays the same (--set nu=VALUE keeps a nu of your own)\n`,
+    );
   const resumed = o.resume === undefined ? null : readCheckpoint(o.resume as string);
   // The run as the command asks for it: its parameters, where it starts, and its plan.
   const origin: RunOrigin = resumed

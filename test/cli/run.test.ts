@@ -153,6 +153,38 @@ describe('stria run', () => {
     expect(JSON.parse(readFileSync(saved, 'utf8')).state.steps).toBe(summary.steps);
   });
 
+  it('rescales the default hyperviscosity to a new grid and says so, but keeps a ν set by hand', async () => {
+    const saved = (tag: string) => join(dir, `nu-${tag}.json`);
+    const params = (tag: string) => JSON.parse(readFileSync(saved(tag), 'utf8')).params;
+    const grid = ['--set', 'nx=64', '--set', 'ny=64', '--set', 'kf=16', '--steps', '1'];
+    const rescaled = await striaHere(['run', ...grid, '--save', saved('rescaled')]);
+    expect(rescaled.status, rescaled.stderr).toBe(0);
+    // k_max = ⌊64/3⌋ = 21 against 42 at 128² [derived]: ν × 2^16 keeps ν k_max^16.
+    expect(params('rescaled').nu).toBe(Number((3e-26 * 2 ** 16).toPrecision(4)));
+    expect(rescaled.stderr).toMatch(/nu rescaled from 3e-26 to 1\.966e-21 for the 64 × 64 grid/);
+    const byHand = await striaHere(['run', ...grid, '--set', 'nu=1e-20', '--save', saved('hand')]);
+    expect(params('hand').nu).toBe(1e-20);
+    expect(byHand.stderr).not.toMatch(/rescaled/);
+    // A preset is tuned for its own grid: at that grid nothing moves.
+    const preset = await striaHere(['run', '--preset', 'many-jets', '--steps', '1', '--save', saved('preset')]);
+    expect(preset.stderr).not.toMatch(/rescaled/);
+    // A saved run moved to another grid takes the rescaled ν too.
+    const moved = await striaHere([
+      'run',
+      saved('rescaled'),
+      '--set',
+      'nx=128',
+      '--set',
+      'ny=128',
+      '--steps',
+      '1',
+      '--save',
+      saved('moved'),
+    ]);
+    expect(params('moved').nu).toBe(3e-26);
+    expect(moved.stderr).toMatch(/rescaled/);
+  });
+
   it('refuses bad options, naming them, with exit code 2', async () => {
     const cases: [string[], RegExp][] = [
       [['run', '--stpes', '10'], /unknown option --stpes/],
