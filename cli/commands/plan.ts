@@ -5,6 +5,9 @@ import { Model } from '../../lib/model/model';
 import { BlowUpError } from '../../lib/model/stepper';
 import { analysePlan, type PlanAnalysis } from '../../lib/plan/analysePlan';
 import type { MatchedRun } from '../../lib/plan/matchedRun';
+import { DEFAULT_PARAMS } from '../../lib/model/params';
+import { fmt } from '../../lib/plan/format';
+import { missingFields } from '../../lib/plan/planInput';
 import { PLAN_PRESETS } from '../../lib/plan/planPresets';
 import { planReportHtml, planReportMarkdown } from '../../lib/plan/planReport';
 import { MonitoredRun } from '../../lib/run/monitoredRun';
@@ -28,7 +31,7 @@ const options: OptionSpec[] = [
     name: 'set',
     kind: 'list',
     value: 'PATH=VALUE',
-    help: 'set a field of the plan input (repeatable), e.g. drive.eps=0.02,\ngrid.nx=512, rotation.latitudeDeg=30; setting a kind clears its part',
+    help: 'set a field of the plan input (repeatable), e.g. drive.eps=0.02,\ngrid.nx=512, rotation.latitudeDeg=30; setting a kind clears its part.\nOr model-unit keys as stria run takes them (beta, kd, mu, nu, nu_order,\nkf, dkf, eps, Lx, Ly, nx, ny, cfl): a model-unit plan, the rest defaulted',
   },
   { name: 'json', kind: 'flag', help: 'print the predictions, checks, cost and matched run as JSON' },
   {
@@ -50,7 +53,8 @@ export const planCommand: Command = {
   summary: 'what a planned run will give: predictions, checks, cost, and a matched cheap run',
   usage: 'stria plan [PLANFILE | --preset ID] [--set PATH=VALUE]... [--json] [--matched] [--report FILE]',
   description: `
-Reads a plan (a plan file saved by the app, a preset, or fields given with --set), and prints what
+Reads a plan (a plan file saved by the app, a preset, fields given with --set, or model-unit
+parameters as stria run takes them, --set beta=3, the rest from the model defaults), and prints what
 it predicts (U, Rhines and transitional wavenumbers, zonostrophy index and regime, jet spacing and
 count, spin-up time, time step, steps), the checks with their fixes, the cost with Stria's model,
 and the matched cheap run that keeps the plan's ratios on a grid that runs here. Units and
@@ -58,6 +62,7 @@ formulas: docs/plan.md. With --matched, the matched run is run (from rest, for i
 averaging its second half) and its measured summary is printed beside its predictions.`,
   examples: `
   stria plan --preset jupiter --set grid.nx=1024 --set grid.ny=512 --report jupiter-plan.html
+  stria plan --set beta=3 --set eps=2e-4 --set mu=5e-3 --set nx=256 --set ny=256
   stria plan my-plan.json --matched --target-seconds 60 --json`,
   options,
   run,
@@ -72,16 +77,25 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
     throw new UsageError(`--report ${report}: the file name must end in .md or .html`);
   const target = o['target-seconds'] as number | undefined;
   if (target !== undefined && !(target > 0)) throw new UsageError(`--target-seconds must be > 0, got ${target}`);
-  const { input, setPaths } = planInputFrom(
+  const { input, setPaths, defaulted } = planInputFrom(
     args.positionals[0],
     o.preset as string | undefined,
     (o.set as string[] | undefined) ?? [],
   );
+  if (defaulted?.length)
+    io.err.write(
+      `stria plan: a model-unit plan; from the model defaults: ${defaulted.map((k) => `${k} = ${fmt(DEFAULT_PARAMS[k])}`).join(', ')}${setPaths.includes('runLength') ? '' : `; run length ${fmt(input.runLength as number)} (5/μ: spin-up, then as long again; --set runLength=T to choose)`}\n`,
+    );
   let analysis: PlanAnalysis;
   try {
     analysis = analysePlan(input, target === undefined ? {} : { targetWallSeconds: target });
   } catch (e) {
     if (!isInputError(e, 'plan input')) throw e;
+    const missing = missingFields(e.issues);
+    if (missing.length === e.issues.length)
+      throw new UsageError(
+        `the plan is incomplete: it needs ${missing.join(', ')}. Start from a preset (--preset ${PLAN_PRESETS[0].id}), a PLANFILE, or model-unit keys (--set beta=3 --set eps=2e-4 --set mu=5e-3, the rest from the defaults)`,
+      );
     throw new UsageError(
       `plan refused: ${e.issues.map((i) => `${i.field}: ${i.message}${setPaths.includes(i.field) ? ` (from --set ${i.field})` : ''}`).join('; ')}`,
     );

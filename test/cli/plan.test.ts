@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { SUMMARY_KEYS } from '../../lib/analysis/summary';
 import { serializePlanFile } from '../../lib/plan/planFile';
 import type { PlanInput } from '../../lib/plan/planInput';
-import { scratchDir, stria } from './support/stria';
+import { scratchDir, stria, striaHere } from './support/stria';
 
 const dir = scratchDir('plan');
 
@@ -45,10 +45,62 @@ describe('stria plan', () => {
     const m = JSON.parse(r.stdout).matched;
     expect(m.params).toMatchObject({ nx: 32, ny: 32 });
     for (const k of SUMMARY_KEYS) expect(m.measured).toHaveProperty(k);
-    expect(m.measured.time).toBeGreaterThanOrEqual(m.run_length);
+    expect(m.measured.time).toBeGreaterThanOrEqual(m.run_length - 1e-3 * m.params.dt); // the clock's tolerance
     expect(m.predicted.k_beta).toBeCloseTo(m.measured.k_beta, 6); // white forcing injects ε exactly
     const text = stria(['plan', file, '--matched']);
     expect(text.stdout).toMatch(/quantity +predicted +measured\n +regime/);
+  });
+
+  it('takes the model-unit keys of stria run, the rest from the defaults, and says which', async () => {
+    const r = await striaHere(['plan', '--set', 'beta=3', '--set', 'eps=2e-4', '--set', 'mu=5e-3', '--json']);
+    expect(r.status, r.stderr).toBe(0);
+    const p = JSON.parse(r.stdout);
+    expect(p.units).toBe('model');
+    // U = (ε/μ)^½ = 0.2 and k_β = (β³/ε)^{1/5} [published: Vallis & Maltrud 1993], from the keys given.
+    expect(p.u_rms).toBeCloseTo(0.2, 12);
+    expect(p.k_beta).toBeCloseTo(Math.pow(27 / 2e-4, 0.2), 9);
+    expect(r.stderr).toMatch(/from the model defaults: kd = 0, nu = 3e-26, nu_order = 8, kf = 24, dkf = 2/);
+    expect(r.stderr).toMatch(/run length 1000 \(5\/μ/);
+    // The model's own parameters of the plan are the ones given, and the defaults' (same k_max, same ν).
+    expect(p.matched.params).toBeDefined();
+    const grid = await striaHere(['plan', '--set', 'beta=3', '--set', 'nx=256', '--set', 'ny=256', '--json']);
+    const nu256 = JSON.parse(grid.stdout).predictions.kNu.value;
+    const nu128 = JSON.parse((await striaHere(['plan', '--set', 'beta=3', '--json'])).stdout).predictions.kNu.value;
+    expect(nu256).toBeGreaterThan(nu128); // ν rescaled with the grid: k_ν moves out with k_max
+    const run = await striaHere(['plan', '--set', 'dt=0.01']);
+    expect(run.status).toBe(2);
+    expect(run.stderr).toMatch(/dt is a run parameter the planner does not use/);
+    expect((await striaHere(['plan', '--preset', 'jupiter', '--set', 'beta=3'])).stderr).toMatch(
+      /model-unit keys make a plan of their own/,
+    );
+  });
+
+  it('names what an incomplete plan lacks in one line, not every variant of every field', async () => {
+    const r = await striaHere([
+      'plan',
+      '--set',
+      'units=model',
+      '--set',
+      'drive.kind=injection',
+      '--set',
+      'drive.eps=1',
+    ]);
+    expect(r.status).toBe(2);
+    const lines = r.stderr.trim().split('\n');
+    expect(lines).toHaveLength(1);
+    expect(lines[0]).toMatch(
+      /the plan is incomplete: it needs rotation, deformation, dragTime, forcing, domain, grid, hyperviscosity, runLength\./,
+    );
+    expect(lines[0]).not.toMatch(/Invalid key|received undefined/);
+  });
+
+  it('names plan presets as the run presets are named, and still reads the earlier ids', async () => {
+    const ids = ['earth-atmosphere', 'earth-ocean', 'jupiter'];
+    for (const id of ids) expect((await striaHere(['plan', '--preset', id, '--json'])).status, id).toBe(0);
+    const old = await striaHere(['plan', '--preset', 'earthOcean', '--json']);
+    const now = await striaHere(['plan', '--preset', 'earth-ocean', '--json']);
+    expect(old.stdout).toBe(now.stdout);
+    expect((await striaHere(['plan', '--help'])).stdout).toMatch(/earth-atmosphere, earth-ocean, jupiter/);
   });
 
   it('writes the printable report as Markdown or HTML', () => {
