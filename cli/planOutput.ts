@@ -1,5 +1,6 @@
 import type { RunSummary } from '../lib/analysis/summary';
 import type { PlanAnalysis } from '../lib/plan/analysePlan';
+import type { MatchedRun } from '../lib/plan/matchedRun';
 import { duration, fmt, withUnit } from '../lib/plan/format';
 import type { PlanPredictions } from '../lib/plan/predictions';
 import { regimeLabel } from '../lib/plan/predictions';
@@ -67,7 +68,8 @@ export function planJson(a: PlanAnalysis, measured: RunSummary | null): unknown 
   };
 }
 
-export function planText(a: PlanAnalysis, measured: RunSummary | null): string {
+/** The plan in text: predictions, checks, cost and the matched run it proposes (not its measurement). */
+export function planText(a: PlanAnalysis): string {
   const p = a.predictions;
   const u = a.plan.units;
   const lines = [
@@ -91,13 +93,16 @@ export function planText(a: PlanAnalysis, measured: RunSummary | null): string {
     lines.push(
       `Matched cheap run: ${m.params.nx} × ${m.params.ny}, ${m.cost.steps} steps, about ${duration(m.cost.wallSeconds)} (model units; ratio that gave: ${m.gives})`,
     );
-    if (measured) {
-      const pred = headline(m.predictions) as Record<string, unknown>;
-      const meas = measured as unknown as Record<string, unknown>;
-      lines.push('', `  ${'quantity'.padEnd(18)}  ${'predicted'.padEnd(14)}  measured`);
-      for (const k of HEADLINE_KEYS) lines.push(`  ${k.padEnd(18)}  ${show(pred[k]).padEnd(14)}  ${show(meas[k])}`);
-    }
   }
+  return `${lines.join('\n')}\n`;
+}
+
+/** The matched run's measurement beside its predictions, under the run summary's keys. */
+export function matchedComparisonText(m: MatchedRun, measured: RunSummary): string {
+  const pred = headline(m.predictions) as Record<string, unknown>;
+  const meas = measured as unknown as Record<string, unknown>;
+  const lines = ['', `  ${'quantity'.padEnd(18)}  ${'predicted'.padEnd(14)}  measured`];
+  for (const k of HEADLINE_KEYS) lines.push(`  ${k.padEnd(18)}  ${show(pred[k]).padEnd(14)}  ${show(meas[k])}`);
   return `${lines.join('\n')}\n`;
 }
 

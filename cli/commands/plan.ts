@@ -6,7 +6,7 @@ import { BlowUpError } from '../../lib/model/stepper';
 import { analysePlan, type PlanAnalysis } from '../../lib/plan/analysePlan';
 import type { MatchedRun } from '../../lib/plan/matchedRun';
 import { DEFAULT_PARAMS } from '../../lib/model/params';
-import { fmt } from '../../lib/plan/format';
+import { duration, fmt } from '../../lib/plan/format';
 import { missingFields } from '../../lib/plan/planInput';
 import { PLAN_PRESETS } from '../../lib/plan/planPresets';
 import { planReportHtml, planReportMarkdown } from '../../lib/plan/planReport';
@@ -16,7 +16,8 @@ import { isInputError } from '../../lib/inputError';
 import { UsageError, type OptionSpec, type ParsedArgs } from '../args';
 import { EXIT_FAILED, EXIT_INTERRUPTED, EXIT_OK, type Command, type CommandIO } from '../command';
 import { planInputFrom } from '../planInputArgs';
-import { planJson, planText } from '../planOutput';
+import { matchedComparisonText, planJson, planText } from '../planOutput';
+import { DEFAULT_PROGRESS_SECONDS, ProgressLines } from '../progressLines';
 import { Breather } from '../breather';
 import { ProgressBar } from '../progressBar';
 
@@ -41,6 +42,12 @@ const options: OptionSpec[] = [
   },
   { name: 'target-seconds', kind: 'number', value: 'S', help: 'wall-time target of the matched run (default 600)' },
   {
+    name: 'progress-seconds',
+    kind: 'number',
+    value: 'S',
+    help: `with --matched and standard error not a terminal: a progress line\nat most every S seconds (default ${DEFAULT_PROGRESS_SECONDS})`,
+  },
+  {
     name: 'report',
     kind: 'text',
     value: 'FILE',
@@ -59,7 +66,9 @@ it predicts (U, Rhines and transitional wavenumbers, zonostrophy index and regim
 count, spin-up time, time step, steps), the checks with their fixes, the cost with Stria's model,
 and the matched cheap run that keeps the plan's ratios on a grid that runs here. Units and
 formulas: docs/plan.md. With --matched, the matched run is run (from rest, for its planned length,
-averaging its second half) and its measured summary is printed beside its predictions.`,
+averaging its second half) and its measured summary is printed beside its predictions: the plan is
+printed at once, the run's progress goes to standard error (a bar on a terminal, else a line every
+--progress-seconds), and the comparison follows when it ends. --json prints one object at the end.`,
   examples: `
   stria plan --preset jupiter --set grid.nx=1024 --set grid.ny=512 --report jupiter-plan.html
   stria plan --set beta=3 --set eps=2e-4 --set mu=5e-3 --set nx=256 --set ny=256
@@ -105,21 +114,30 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
       report,
       extname(report).toLowerCase() === '.html' ? planReportHtml(analysis) : planReportMarkdown(analysis),
     );
+  const progressSeconds = (o['progress-seconds'] as number | undefined) ?? DEFAULT_PROGRESS_SECONDS;
+  if (!(progressSeconds >= 0)) throw new UsageError(`--progress-seconds must be ≥ 0, got ${progressSeconds}`);
+  if (report) io.err.write(`stria plan: report written to ${report}\n`);
+  // The predictions and checks first, at once: the matched run may take minutes.
+  if (!o.json) io.out.write(planText(analysis));
   let measured: RunSummary | null = null;
   let status = EXIT_OK;
   if (o.matched) {
     if (!analysis.matched) throw new Error(`no matched run can be made for this plan: ${analysis.matchedError}`);
-    const result = await runMatched(analysis.matched, io);
+    const result = await runMatched(analysis.matched, io, progressSeconds);
     measured = result.summary;
     status = result.status;
+    if (!o.json) io.out.write(matchedComparisonText(analysis.matched, measured));
   }
-  io.out.write(o.json ? `${JSON.stringify(planJson(analysis, measured), null, 2)}\n` : planText(analysis, measured));
-  if (report) io.err.write(`stria plan: report written to ${report}\n`);
+  if (o.json) io.out.write(`${JSON.stringify(planJson(analysis, measured), null, 2)}\n`);
   return status;
 }
 
 /** The matched run from rest for its planned length, averaged over its second half. */
-async function runMatched(m: MatchedRun, io: CommandIO): Promise<{ summary: RunSummary; status: number }> {
+async function runMatched(
+  m: MatchedRun,
+  io: CommandIO,
+  progressSeconds: number,
+): Promise<{ summary: RunSummary; status: number }> {
   const model = new Model(m.params);
   const length = m.plan.runLength;
   const run = new MonitoredRun(
@@ -131,10 +149,16 @@ async function runMatched(m: MatchedRun, io: CommandIO): Promise<{ summary: RunS
     }),
   );
   const bar = 'isTTY' in io.err && io.err.isTTY ? new ProgressBar(io.err, 'matched run') : null;
+  const lines = bar ? null : new ProgressLines(io.err, 'stria plan: matched run', progressSeconds);
+  io.err.write(
+    `stria plan: running the matched run, ${m.params.nx} × ${m.params.ny} to t = ${fmt(length)} (${m.cost.steps} steps, about ${duration(m.cost.wallSeconds)})\n`,
+  );
   try {
     const breather = new Breather();
     while (!run.advance(25)) {
-      bar?.update(run.progress(), `t = ${model.time.toPrecision(4)} of ${length.toPrecision(4)}`);
+      const status = `t = ${fmt(model.time)} of ${fmt(length)}, step ${model.steps}`;
+      bar?.update(run.progress(), status);
+      lines?.update(run.progress(), status);
       await breather.breathe();
       if (io.interrupted()) return { summary: run.summary(), status: EXIT_INTERRUPTED };
     }

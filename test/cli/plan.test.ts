@@ -1,5 +1,6 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { Writable } from 'node:stream';
 import { describe, expect, it } from 'vitest';
 import { SUMMARY_KEYS } from '../../lib/analysis/summary';
 import { serializePlanFile } from '../../lib/plan/planFile';
@@ -101,6 +102,28 @@ describe('stria plan', () => {
     const now = await striaHere(['plan', '--preset', 'earth-ocean', '--json']);
     expect(old.stdout).toBe(now.stdout);
     expect((await striaHere(['plan', '--help'])).stdout).toMatch(/earth-atmosphere, earth-ocean, jupiter/);
+  });
+
+  it('with --matched prints the plan at once, then progress lines on standard error, then the comparison', async () => {
+    const file = join(dir, 'small-progress.json');
+    writeFileSync(file, serializePlanFile(SMALL));
+    const { main } = await import('../../cli/main');
+    const events: ['out' | 'err', string][] = [];
+    const sink = (to: 'out' | 'err') => new Writable({ write: (c, _e, cb) => (events.push([to, String(c)]), cb()) });
+    const args = ['plan', file, '--matched', '--progress-seconds', '0'];
+    const status = await main(args, { out: sink('out'), err: sink('err'), argv: args, interrupted: () => false });
+    expect(status).toBe(0);
+    const first = (test: (e: ['out' | 'err', string]) => boolean) => events.findIndex(test);
+    const plan = first(([to, t]) => to === 'out' && /Predictions:[\s\S]*Checks:/.test(t));
+    const progress = first(([to, t]) => to === 'err' && /^stria plan: matched run: \d+% t = /.test(t));
+    const comparison = first(([to, t]) => to === 'out' && /quantity +predicted +measured/.test(t));
+    expect(plan).toBeGreaterThanOrEqual(0);
+    expect(progress).toBeGreaterThan(plan);
+    expect(comparison).toBeGreaterThan(progress);
+    // Whole lines, no carriage returns or escape codes, when standard error is not a terminal.
+    const err = events.filter(([to]) => to === 'err').map(([, t]) => t);
+    // eslint-disable-next-line no-control-regex -- ESC is the byte a terminal escape starts with
+    for (const t of err) expect(t.endsWith('\n') && !/[\r\x1b]/.test(t), JSON.stringify(t)).toBe(true);
   });
 
   it('writes the printable report as Markdown or HTML', () => {
