@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs';
 import { DEFAULT_PARAMS, type ModelParams } from '../lib/model/params';
 import { planInputFromModelParams, PLAN_MODEL_KEYS, type PlanModelKey } from '../lib/plan/modelPlanInput';
 import { parsePlanFile } from '../lib/plan/planFile';
+import { parseQuantity, PLAN_FIELD_QUANTITIES } from '../lib/plan/quantityInput';
 import { findPlanPreset, PLAN_PRESETS } from '../lib/plan/planPresets';
 import { isInputError } from '../lib/inputError';
 import { parseNumber, UsageError } from './args';
@@ -59,15 +60,23 @@ export function planInputFrom(
     input = structuredClone(p.input) as unknown as Record<string, unknown>;
   }
   const setPaths: string[] = Object.keys(model ?? {});
+  const withUnits: string[] = [];
   for (const word of paths) {
     const eq = word.indexOf('=');
     if (eq <= 0) throw new UsageError(`--set ${word}: expected path=value, e.g. --set drive.eps=0.02`);
     const path = word.slice(0, eq).split('.');
     if (path.some((k) => k === '' || k === '__proto__' || k === 'constructor' || k === 'prototype'))
       throw new UsageError(`--set ${word}: "${word.slice(0, eq)}" is not a field path`);
-    setAt(input, path, valueOf(word.slice(eq + 1)), word);
-    setPaths.push(path.join('.'));
+    const dotted = path.join('.');
+    const typed = typedValue(word.slice(eq + 1), dotted, word);
+    if (typed.unit !== null) withUnits.push(word);
+    setAt(input, path, typed.value, word);
+    setPaths.push(dotted);
   }
+  if (withUnits.length && input.units !== 'physical')
+    throw new UsageError(
+      `--set ${withUnits[0]}: a unit needs a physical plan (units = physical); a model-unit plan takes plain numbers`,
+    );
   return { input, setPaths, defaulted };
 }
 
@@ -98,6 +107,19 @@ function splitModelKeys(sets: readonly string[]): {
     model[key] = x;
   }
   return { model: Object.keys(model).length ? (model as Partial<Pick<ModelParams, PlanModelKey>>) : null, paths };
+}
+
+/**
+ * A value for `path`: a field of a physical quantity takes a plain number (SI) or a number with a unit
+ * (`--set dragTime=30d`, `--set forcing.wavelength=500km`, `--set rotation.latitudeDeg=45°`).
+ */
+function typedValue(text: string, path: string, word: string): { value: unknown; unit: string | null } {
+  const q = Object.hasOwn(PLAN_FIELD_QUANTITIES, path) ? PLAN_FIELD_QUANTITIES[path] : null;
+  const plain = parseNumber(text);
+  if (q === null || Number.isFinite(plain)) return { value: valueOf(text), unit: null };
+  const r = parseQuantity(text, q);
+  if ('error' in r) throw new UsageError(`--set ${word}: ${path}: ${r.error}`);
+  return r;
 }
 
 function valueOf(text: string): unknown {

@@ -1,6 +1,6 @@
 import type { RunSummary } from '../lib/analysis/summary';
 import type { PlanAnalysis } from '../lib/plan/analysePlan';
-import type { MatchedRun } from '../lib/plan/matchedRun';
+import { RATIO_LABELS, type MatchedRun } from '../lib/plan/matchedRun';
 import { duration, fmt, withUnit } from '../lib/plan/format';
 import type { PlanPredictions } from '../lib/plan/predictions';
 import { regimeLabel } from '../lib/plan/predictions';
@@ -91,7 +91,7 @@ export function planText(a: PlanAnalysis): string {
   if (!m) lines.push(`Matched cheap run: none (${a.matchedError})`);
   else {
     lines.push(
-      `Matched cheap run: ${m.params.nx} × ${m.params.ny}, ${m.cost.steps} steps, about ${duration(m.cost.wallSeconds)} (model units; ratio that gave: ${m.gives})`,
+      `Matched cheap run: ${m.params.nx} × ${m.params.ny}, ${m.cost.steps} steps, about ${duration(m.cost.wallSeconds)} (model units; ${m.gives === 'none' ? 'every ratio kept' : `the ratio that gave last: ${RATIO_LABELS[m.gives]}`})`,
     );
   }
   return `${lines.join('\n')}\n`;

@@ -1,7 +1,8 @@
-import { fmt, unitLabel } from '../plan/format';
+import { fmt, lengthText, unitLabel } from '../plan/format';
 import type { ComparisonRow } from './measuredVsPredicted';
 import type { FileAnalysis } from './analyzeFile';
 import type { SpectralSlope } from './spectralSlopes';
+import { rhinesLabel } from '../plan/rhinesLabels';
 
 /**
  * The readable text of a file analysis (`stria analyze` without --json): what was read and how,
@@ -16,7 +17,11 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
   const L = (x: number | null | undefined) =>
     x === null || x === undefined
       ? '—'
-      : `${fmt(x)}${g.lengthUnit === 'degrees' ? '°' : units === 'physical' ? ' m' : ''}`;
+      : g.lengthUnit === 'degrees'
+        ? `${fmt(x)}°`
+        : units === 'physical'
+          ? lengthText(x)
+          : fmt(x);
   const out: string[] = [];
   out.push(
     `Stria analysis of ${name} (${r.file.format}, ${r.file.layout === 'gridded' ? 'gridded fields' : 'zonal-mean profiles'})`,
@@ -62,7 +67,7 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
   if (a.uRms) out.push(`  U_rms = ${fmt(a.uRms.value)} (${a.uRms.kind})`);
   if (a.scales.kRhines !== null)
     out.push(
-      `  k_R = ${fmt(a.scales.kRhines)}, Rhines length (${a.scales.rhinesConvention}) = ${L(a.scales.rhinesLength)}, staircase spacing 720^¼(U/β)^½ = ${L(a.scales.staircaseSpacing)}`,
+      `  k_R = ${fmt(a.scales.kRhines)}, Rhines length ${rhinesLabel(a.scales.rhinesConvention)} = ${L(a.scales.rhinesLength)}, staircase spacing 720^¼(U/β)^½ = ${L(a.scales.staircaseSpacing)}`,
     );
   if (a.scales.zonostrophyIndex !== null) out.push(`  R_β = ${fmt(a.scales.zonostrophyIndex)} (${a.scales.regime})`);
   if (a.diffusivity?.Dfit !== null && a.diffusivity)

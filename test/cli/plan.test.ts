@@ -76,6 +76,34 @@ describe('stria plan', () => {
     );
   });
 
+  it('writes physical quantities as people read them and takes them as they type them', async () => {
+    const text = (await striaHere(['plan', '--preset', 'jupiter'])).stdout;
+    // Jupiter preset: spin-up 1/(2μ) = 1e7 s = 115.7 days, k_R = 2.308e-7 rad/m, 2π/k_R = 27230 km [derived].
+    expect(text).toMatch(/spin-up time \(energy e-folding\) \(t_spin\) +115\.7 days/);
+    expect(text).toMatch(/Rhines wavenumber \(k_R\) +2\.308e-7 rad\/m \(wavelength 27230 km\)/);
+    expect(text).not.toMatch(/\b(kR|sqrtUbeta|piOverKR|twoPiSqrtUbeta|kmaxOverKf)\b/);
+    const typed = await striaHere([
+      'plan',
+      '--preset',
+      'earth-ocean',
+      '--set',
+      'dragTime=30 d',
+      '--set',
+      'forcing.wavelength=80km',
+      '--set',
+      'rotation.latitudeDeg=30°S',
+      '--json',
+    ]);
+    expect(typed.status, typed.stderr).toBe(0);
+    const p = JSON.parse(typed.stdout);
+    expect(p.spin_up_time).toBe((30 * 86400) / 2); // 1/(2μ), 1/μ = 30 days
+    expect(p.predictions.eta.value).toBeCloseTo((Math.pow((2 * Math.PI) / 8e4, 2) * (0.1 * 0.1)) / (30 * 86400), 20);
+    const bad = await striaHere(['plan', '--preset', 'jupiter', '--set', 'runLength=3 fortnights']);
+    expect(bad.stderr).toMatch(/runLength: "3 fortnights": unknown unit "fortnights"; .*\(s, min, h, d\)/);
+    const model = await striaHere(['plan', '--set', 'beta=3', '--set', 'runLength=30d']);
+    expect(model.stderr).toMatch(/a unit needs a physical plan/);
+  });
+
   it('names what an incomplete plan lacks in one line, not every variant of every field', async () => {
     const r = await striaHere([
       'plan',
