@@ -2,6 +2,8 @@ import { readFileSync } from 'node:fs';
 import type { Checkpoint } from '../lib/model/checkpoint';
 import { DEFAULT_PARAMS, type ModelParams } from '../lib/model/params';
 import { validateParams } from '../lib/model/validateParams';
+import type { UnitSystem } from '../lib/io/cfUnits';
+import { decodeParamsFile, PARAMS_FILE_FORMAT } from '../lib/io/paramsFile';
 import { decodeRunFile, RUN_FILE_FORMAT } from '../lib/io/runFile';
 import { DEMO_SCENARIOS, scenarioById } from '../lib/plan/demoScenarios';
 import { scaledHyperviscosity } from '../lib/plan/gridHyperviscosity';
@@ -19,6 +21,8 @@ export interface RunStart {
   changes: Partial<ModelParams>;
   /** ν rescaled to a new grid (`scaledHyperviscosity`), or null when ν stayed as it was. */
   rescaledNu: { from: number; to: number } | null;
+  /** The physical size of the model units, from a parameter file of a physical plan; else model units. */
+  units: UnitSystem;
 }
 
 export interface RunStartRequest {
@@ -44,15 +48,18 @@ export function resolveRunStart(req: RunStartRequest): RunStart {
       throw new UsageError(`--preset cannot be used with a saved run (${req.file}): the run file holds its parameters`);
     const cp = file.checkpoint;
     const nu = followGrid([cp.params as unknown as Record<string, unknown>], changes);
-    return { params: checked({ ...cp.params, ...nu.changes }, changes), checkpoint: cp, ...nu };
+    return { params: checked({ ...cp.params, ...nu.changes }, changes), checkpoint: cp, ...nu, units: MODEL };
   }
   const nu = followGrid([{ ...DEFAULT_PARAMS }, preset, file?.params ?? {}], changes);
   return {
     params: checked({ ...preset, ...(file?.params ?? {}), ...nu.changes }, changes),
     checkpoint: null,
     ...nu,
+    units: file?.units ?? MODEL,
   };
 }
+
+const MODEL: UnitSystem = { kind: 'model' };
 
 /**
  * Hyperviscosity follows the grid: ν is tuned for the grid of the layer that set it (the defaults'
@@ -104,8 +111,15 @@ function checked(input: Record<string, unknown>, changes: Record<string, unknown
   }
 }
 
-/** A file of parameters: a JSON object of parameters, or a Stria run file (parameters and state). */
-function readParamFile(path: string): { params: Record<string, unknown>; checkpoint: Checkpoint | null } {
+/**
+ * A file of parameters: a JSON object of parameters, a parameter file (lib/io/paramsFile.ts, with
+ * the physical units of a planned run), or a Stria run file (parameters and state).
+ */
+function readParamFile(path: string): {
+  params: Record<string, unknown>;
+  checkpoint: Checkpoint | null;
+  units?: UnitSystem;
+} {
   let text: string;
   try {
     text = readFileSync(path, 'utf8');
@@ -126,6 +140,15 @@ function readParamFile(path: string): { params: Record<string, unknown>; checkpo
       return { params: cp.params as unknown as Record<string, unknown>, checkpoint: cp };
     } catch (e) {
       if (isInputError(e, 'run file')) throw new UsageError(`${path}: ${e.field}: ${e.reason}`);
+      throw e;
+    }
+  }
+  if ((json as Record<string, unknown>).format === PARAMS_FILE_FORMAT) {
+    try {
+      const f = decodeParamsFile(json as Record<string, unknown>);
+      return { params: f.params, checkpoint: null, units: f.units };
+    } catch (e) {
+      if (isInputError(e, 'parameter file')) throw new UsageError(`${path}: ${e.field}: ${e.reason}`);
       throw e;
     }
   }

@@ -62,6 +62,11 @@ export function planJson(a: PlanAnalysis, measured: RunSummary | null): unknown 
           within_target: a.matched.withinTarget,
           predicted: headline(a.matched.predictions),
           measured,
+          // The physical size of the matched run's model units (the plan's scaling), or null in model units.
+          physical_units:
+            a.plan.units === 'physical'
+              ? { metres_per_length: a.scaling.length, seconds_per_time: a.scaling.time }
+              : null,
         }
       : null,
     matched_error: a.matchedError,

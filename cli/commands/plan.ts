@@ -1,6 +1,7 @@
 import { writeFileSync } from 'node:fs';
 import { extname } from 'node:path';
 import type { RunSummary } from '../../lib/analysis/summary';
+import { encodeParamsFile, type ParamsFile } from '../../lib/io/paramsFile';
 import { Model } from '../../lib/model/model';
 import { BlowUpError } from '../../lib/model/stepper';
 import { analysePlan, type PlanAnalysis } from '../../lib/plan/analysePlan';
@@ -46,6 +47,12 @@ const options: OptionSpec[] = [
     kind: 'number',
     value: 'S',
     help: `with --matched and standard error not a terminal: a progress line\nat most every S seconds (default ${DEFAULT_PROGRESS_SECONDS})`,
+  },
+  {
+    name: 'matched-params',
+    kind: 'text',
+    value: 'FILE',
+    help: "write the matched run's parameters as a parameter file for stria run\n(with the plan's physical units, so its NetCDF files are in them)",
   },
   {
     name: 'report',
@@ -117,6 +124,14 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   const progressSeconds = (o['progress-seconds'] as number | undefined) ?? DEFAULT_PROGRESS_SECONDS;
   if (!(progressSeconds >= 0)) throw new UsageError(`--progress-seconds must be ≥ 0, got ${progressSeconds}`);
   if (report) io.err.write(`stria plan: report written to ${report}\n`);
+  const paramsOut = o['matched-params'] as string | undefined;
+  if (paramsOut !== undefined) {
+    if (!analysis.matched) throw new Error(`no matched run can be made for this plan: ${analysis.matchedError}`);
+    writeFileSync(paramsOut, encodeParamsFile(matchedParamsFile(analysis)));
+    io.err.write(
+      `stria plan: the matched run's parameters written to ${paramsOut}; run it with stria run ${paramsOut} --until ${analysis.matched.plan.runLength}\n`,
+    );
+  }
   // The predictions and checks first, at once: the matched run may take minutes.
   if (!o.json) io.out.write(planText(analysis));
   let measured: RunSummary | null = null;
@@ -170,4 +185,21 @@ async function runMatched(
     bar?.done();
   }
   return { summary: run.summary(), status: EXIT_OK };
+}
+
+/**
+ * The matched run as a parameter file: its parameters, and for a physical plan the physical size of
+ * its model units. The matched run keeps the plan's domain (Lx = 2π) and rms velocity (U = 1), so its
+ * model units are the plan's own scaling (planScaling: ℓ = Lx/2π, t = ℓ/U).
+ */
+export function matchedParamsFile(a: PlanAnalysis): ParamsFile {
+  const m = a.matched!;
+  return {
+    title: m.input.title,
+    params: { ...m.params },
+    units:
+      a.plan.units === 'physical'
+        ? { kind: 'physical', metresPerLength: a.scaling.length, secondsPerTime: a.scaling.time }
+        : { kind: 'model' },
+  };
 }

@@ -16,6 +16,7 @@ import { checkMemoryBudget, estimateRunMemory, MemoryBudgetError } from '../../l
 import { describeStopRule, resolveRunPlan, type RunLengthRequest, type RunPlan } from '../../lib/run/runPlan';
 import type { RunProgress } from '../../lib/run/runProgress';
 import { isInputError } from '../../lib/inputError';
+import { lengthText, timeText } from '../../lib/plan/format';
 import { UsageError, type OptionSpec, type ParsedArgs } from '../args';
 import { DEFAULT_MEMORY_BUDGET, parseByteSize } from '../byteSize';
 import { CheckpointStore, readCheckpoint } from '../checkpointStore';
@@ -233,6 +234,10 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
     io.err.write(
       `stria run: hyperviscosity nu rescaled from ${start.rescaledNu.from} to ${start.rescaledNu.to} for the ${start.params.nx} × ${start.params.ny} grid, so its damping rate at k_max stays the same (--set nu=VALUE keeps a nu of your own)\n`,
     );
+  if (start.units.kind === 'physical' && (o.snapshots !== undefined || o.zonal !== undefined))
+    io.err.write(
+      `stria run: NetCDF in physical units from ${args.positionals[0]}: one model length is ${lengthText(start.units.metresPerLength)}, one model time ${timeText(start.units.secondsPerTime)}\n`,
+    );
   const resumed = o.resume === undefined ? null : readCheckpoint(o.resume as string);
   // The run as the command asks for it: its parameters, where it starts, and its plan.
   const origin: RunOrigin = resumed
@@ -265,7 +270,7 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   const outputs = new RunOutputs(
     start.params,
     request,
-    { params: start.params, striaVersion: striaVersion(), createdAt, command },
+    { params: start.params, striaVersion: striaVersion(), createdAt, command, units: start.units },
     resumed ? keptRecords(resumed.progress, request, io) : {},
   );
   const monitored = new MonitoredRun(model, plan, outputs.hooks(), origin);

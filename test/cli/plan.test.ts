@@ -3,6 +3,7 @@ import { join } from 'node:path';
 import { Writable } from 'node:stream';
 import { describe, expect, it } from 'vitest';
 import { SUMMARY_KEYS } from '../../lib/analysis/summary';
+import { readNetcdf } from '../../lib/io/netcdfRead';
 import { serializePlanFile } from '../../lib/plan/planFile';
 import type { PlanInput } from '../../lib/plan/planInput';
 import { scratchDir, stria, striaHere } from './support/stria';
@@ -102,6 +103,44 @@ describe('stria plan', () => {
     expect(bad.stderr).toMatch(/runLength: "3 fortnights": unknown unit "fortnights"; .*\(s, min, h, d\)/);
     const model = await striaHere(['plan', '--set', 'beta=3', '--set', 'runLength=30d']);
     expect(model.stderr).toMatch(/a unit needs a physical plan/);
+  });
+
+  it("writes the matched run of a physical plan with its units, so stria run's NetCDF is in SI", async () => {
+    const params = join(dir, 'matched-params.json');
+    const r = await striaHere([
+      'plan',
+      '--preset',
+      'earth-atmosphere',
+      '--target-seconds',
+      '20',
+      '--matched-params',
+      params,
+    ]);
+    expect(r.status, r.stderr).toBe(0);
+    const file = JSON.parse(readFileSync(params, 'utf8'));
+    // ℓ = Lx/2π = 4e7 m/2π and t = ℓ/U with U = 6 m/s (docs/plan.md, the plan's scaling) [derived].
+    expect(file.physical_units.metres_per_length).toBeCloseTo(4e7 / (2 * Math.PI), 6);
+    expect(file.physical_units.seconds_per_time).toBeCloseTo(4e7 / (2 * Math.PI) / 6, 6);
+    const tiny = ['--set', 'nx=32', '--set', 'ny=32', '--set', 'kf=8', '--set', 'dkf=1', '--steps', '4'];
+    const phys = join(dir, 'phys.nc');
+    const model = join(dir, 'model.nc');
+    const sampling = ['--sample-interval', String(file.params.dt), '--average', String(2 * file.params.dt)];
+    expect((await striaHere(['run', params, ...tiny, ...sampling, '--zonal', phys])).status).toBe(0);
+    const bare = join(dir, 'matched-bare.json');
+    writeFileSync(bare, JSON.stringify(file.params));
+    expect((await striaHere(['run', bare, ...tiny, ...sampling, '--zonal', model])).status).toBe(0);
+    const p = readNetcdf(readFileSync(phys));
+    const m = readNetcdf(readFileSync(model));
+    expect(p.attributes.stria_units).toBe('physical');
+    expect(p.variable('ubar').attributes.units).toBe('m s-1');
+    expect(p.variable('ubar').attributes.stria_model_units).toBe('L T-1');
+    expect(p.variable('time').attributes.units).toBe('s');
+    // The same run, its values converted: u in m/s is u in model units times ℓ/t.
+    const [l, t] = [file.physical_units.metres_per_length, file.physical_units.seconds_per_time];
+    const up = p.readRecord('ubar', 0) as Float64Array;
+    const um = m.readRecord('ubar', 0) as Float64Array;
+    for (let j = 0; j < um.length; j++) expect(up[j]).toBeCloseTo((um[j] * l) / t, 9);
+    expect(m.variable('ubar').attributes.units).toBe('1');
   });
 
   it('names what an incomplete plan lacks in one line, not every variant of every field', async () => {
