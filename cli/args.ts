@@ -133,7 +133,10 @@ export function formatOptions(specs: readonly OptionSpec[]): string {
   return all
     .map((s, i) => {
       const head = heads[i];
-      const lines = [...s.help.split('\n'), ...(s.aliases?.length ? [`(formerly --${s.aliases.join(', --')})`] : [])];
+      const lines = [
+        ...s.help.split('\n'),
+        ...(s.aliases?.length ? [`(its older name --${s.aliases.join(', --')} still works)`] : []),
+      ];
       const first =
         head.length > width ? `  ${head}\n  ${' '.repeat(width)}  ${lines[0]}` : `  ${head.padEnd(width)}  ${lines[0]}`;
       return [first, ...lines.slice(1).map((l) => `  ${' '.repeat(width)}  ${l}`)].join('\n');

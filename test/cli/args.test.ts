@@ -62,7 +62,7 @@ describe('option parsing', () => {
       'run',
     );
     expect(o.options).toMatchObject({ 'snapshot-every-steps': 5, 'checkpoint-every-steps': 7, 'sample-interval': 0.5 });
-    expect(help).toMatch(/formerly --every/);
+    expect(help).toMatch(/its older name --every still works/);
   });
 
   it('refuses unknown, repeated, valueless and mistyped options by name', () => {
