@@ -14,6 +14,8 @@ export interface OptionSpec {
   /** Shown after the option in help, e.g. FILE, N, T. */
   value?: string;
   help: string;
+  /** Older names still accepted, so scripts written for them keep working (read as `name`). */
+  aliases?: readonly string[];
 }
 
 export type OptionValue = boolean | string | number | string[];
@@ -40,7 +42,9 @@ export const HELP_OPTION: OptionSpec = { name: 'help', kind: 'flag', help: 'show
  * own messages. The checks strict mode would make are made here instead, token by token, in Stria's words.
  */
 export function parseArgs(argv: readonly string[], specs: readonly OptionSpec[], command: string): ParsedArgs {
-  const byName = new Map([...specs, HELP_OPTION].map((s) => [s.name, s]));
+  const byName = new Map(
+    [...specs, HELP_OPTION].flatMap((s) => [s.name, ...(s.aliases ?? [])].map((n) => [n, s] as const)),
+  );
   const { tokens } = tokenize({
     args: [...argv],
     options: nodeOptions(byName),
@@ -64,10 +68,10 @@ export function parseArgs(argv: readonly string[], specs: readonly OptionSpec[],
       options.help = true;
       continue;
     }
-    const name = token.name;
-    const spec = byName.get(name);
+    const spec = byName.get(token.name);
     // Named as written up to any '=' (Node calls "--=x" an option named "=x"; the message says "--").
     if (!spec) throw new UsageError(`unknown option ${word.split('=', 1)[0]} ${see}`);
+    const name = spec.name;
     if (spec.kind === 'flag') {
       if (token.value !== undefined) throw new UsageError(`option --${name} takes no value, got "${token.value}"`);
       options[name] = true;
@@ -80,7 +84,10 @@ export function parseArgs(argv: readonly string[], specs: readonly OptionSpec[],
       options[name] = [...((options[name] as string[] | undefined) ?? []), text];
       continue;
     }
-    if (options[name] !== undefined) throw new UsageError(`option --${name} is given twice`);
+    if (options[name] !== undefined)
+      throw new UsageError(
+        `option --${name} is given twice${spec.aliases?.length ? ` (--${spec.aliases.join(', --')} is another name for it)` : ''}`,
+      );
     options[name] = convert(spec, text);
   }
   return { options, positionals };
@@ -126,7 +133,10 @@ export function formatOptions(specs: readonly OptionSpec[]): string {
   return all
     .map((s, i) => {
       const head = heads[i];
-      const lines = s.help.split('\n');
+      const lines = [
+        ...s.help.split('\n'),
+        ...(s.aliases?.length ? [`(its older name --${s.aliases.join(', --')} still works)`] : []),
+      ];
       const first =
         head.length > width ? `  ${head}\n  ${' '.repeat(width)}  ${lines[0]}` : `  ${head.padEnd(width)}  ${lines[0]}`;
       return [first, ...lines.slice(1).map((l) => `  ${' '.repeat(width)}  ${l}`)].join('\n');

@@ -1,5 +1,6 @@
 import type { RunSummary } from '../lib/analysis/summary';
 import type { PlanAnalysis } from '../lib/plan/analysePlan';
+import { RATIO_LABELS, type MatchedRun } from '../lib/plan/matchedRun';
 import { duration, fmt, withUnit } from '../lib/plan/format';
 import type { PlanPredictions } from '../lib/plan/predictions';
 import { regimeLabel } from '../lib/plan/predictions';
@@ -61,13 +62,19 @@ export function planJson(a: PlanAnalysis, measured: RunSummary | null): unknown 
           within_target: a.matched.withinTarget,
           predicted: headline(a.matched.predictions),
           measured,
+          // The physical size of the matched run's model units (the plan's scaling), or null in model units.
+          physical_units:
+            a.plan.units === 'physical'
+              ? { metres_per_length: a.scaling.length, seconds_per_time: a.scaling.time }
+              : null,
         }
       : null,
     matched_error: a.matchedError,
   };
 }
 
-export function planText(a: PlanAnalysis, measured: RunSummary | null): string {
+/** The plan in text: predictions, checks, cost and the matched run it proposes (not its measurement). */
+export function planText(a: PlanAnalysis): string {
   const p = a.predictions;
   const u = a.plan.units;
   const lines = [
@@ -89,15 +96,18 @@ export function planText(a: PlanAnalysis, measured: RunSummary | null): string {
   if (!m) lines.push(`Matched cheap run: none (${a.matchedError})`);
   else {
     lines.push(
-      `Matched cheap run: ${m.params.nx} × ${m.params.ny}, ${m.cost.steps} steps, about ${duration(m.cost.wallSeconds)} (model units; ratio that gave: ${m.gives})`,
+      `Matched cheap run: ${m.params.nx} × ${m.params.ny}, ${m.cost.steps} steps, about ${duration(m.cost.wallSeconds)} (model units; ${m.gives === 'none' ? 'every ratio kept' : `the ratio that gave last: ${RATIO_LABELS[m.gives]}`})`,
     );
-    if (measured) {
-      const pred = headline(m.predictions) as Record<string, unknown>;
-      const meas = measured as unknown as Record<string, unknown>;
-      lines.push('', `  ${'quantity'.padEnd(18)}  ${'predicted'.padEnd(14)}  measured`);
-      for (const k of HEADLINE_KEYS) lines.push(`  ${k.padEnd(18)}  ${show(pred[k]).padEnd(14)}  ${show(meas[k])}`);
-    }
   }
+  return `${lines.join('\n')}\n`;
+}
+
+/** The matched run's measurement beside its predictions, under the run summary's keys. */
+export function matchedComparisonText(m: MatchedRun, measured: RunSummary): string {
+  const pred = headline(m.predictions) as Record<string, unknown>;
+  const meas = measured as unknown as Record<string, unknown>;
+  const lines = ['', `  ${'quantity'.padEnd(18)}  ${'predicted'.padEnd(14)}  measured`];
+  for (const k of HEADLINE_KEYS) lines.push(`  ${k.padEnd(18)}  ${show(pred[k]).padEnd(14)}  ${show(meas[k])}`);
   return `${lines.join('\n')}\n`;
 }
 

@@ -22,8 +22,8 @@ describe('Plan view in Chromium', () => {
 
   it('shows for a preset exactly the predictions of lib/plan, each with its formula and source', async () => {
     const { page } = app;
-    await page.getByTestId('plan-preset').selectOption('earthOcean');
-    const expected = analysePlan(planPreset('earthOcean').input).predictions;
+    await page.getByTestId('plan-preset').selectOption('earth-ocean');
+    const expected = analysePlan(planPreset('earth-ocean').input).predictions;
     const rows = page.locator('[data-testid^=prediction-]');
     const shown = await rows.evaluateAll((els) =>
       els.map(
@@ -85,11 +85,11 @@ describe('Plan view in Chromium', () => {
 
   it('runs the matched run here and puts its measured summary beside the predictions', async () => {
     const { page } = app;
-    await page.getByTestId('plan-preset').selectOption('earthOcean');
+    await page.getByTestId('plan-preset').selectOption('earth-ocean');
     // A small wall-time target keeps the matched run to a 128 × 128 grid.
     await page.getByTestId('plan-target').fill('20');
     await page.getByTestId('plan-target').press('Enter');
-    const matched = analysePlan(planPreset('earthOcean').input, { targetWallSeconds: 20 }).matched!;
+    const matched = analysePlan(planPreset('earth-ocean').input, { targetWallSeconds: 20 }).matched!;
     await page.getByTestId('run-matched').click();
     await expect.poll(() => page.getByTestId('matched-trial').getAttribute('data-phase')).toBe('running');
     expect(Number(await page.locator('#param-nx').inputValue())).toBe(matched.params.nx);

@@ -9,12 +9,21 @@
  * The message keeps the form each boundary has always given, which the command line and the app
  * show as they are:
  *   parameters, plan input             field = value: why; field = value: why …
- *   run file, checkpoint file, sweep   <source>: field: why
+ *   run file, checkpoint file, sweep,  <source>: field: why
+ *   parameter file
  *   state                              field: why
  *   run length, plan file              why
  */
 export type InputSource =
-  'parameters' | 'plan input' | 'plan file' | 'run file' | 'checkpoint file' | 'sweep spec' | 'run length' | 'state';
+  | 'parameters'
+  | 'plan input'
+  | 'plan file'
+  | 'parameter file'
+  | 'run file'
+  | 'checkpoint file'
+  | 'sweep spec'
+  | 'run length'
+  | 'state';
 
 /** One refused entry: its field (a dotted path), the value given, and what is allowed. */
 export interface InputIssue {
@@ -64,6 +73,7 @@ const MESSAGE: Record<InputSource, Format> = {
   parameters: withValues,
   'plan input': withValues,
   'run file': ofFile,
+  'parameter file': ofFile,
   'checkpoint file': ofFile,
   'sweep spec': ofFile,
   state: atField,

@@ -3,6 +3,7 @@ import { successiveSpread } from '../lib/analysis/noiseReference';
 import { RunMonitor, type MeanProfile, type Structure } from '../lib/analysis/runMonitor';
 import { summarize, type RunSummary } from '../lib/analysis/summary';
 import type { TimeWindow, WindowReport } from '../lib/analysis/timeMean';
+import { reachedTime } from '../lib/model/clock';
 import type { Model } from '../lib/model/model';
 import type { ModelParams } from '../lib/model/params';
 import type { MonitorStatus } from './diagnosticsApi';
@@ -78,7 +79,7 @@ export class RunDiagnostics {
   afterStep(model: Model, wants: { spectra: boolean; spectra2d: boolean; flux: boolean }): boolean {
     this.monitor.step(model.report);
     this.model = { time: model.time, steps: model.steps };
-    if (model.time < this.next) return false;
+    if (!reachedTime(model.time, this.next, model.dt)) return false;
     this.taken++;
     this.next = this.since + (this.taken + 1) * this.sampling.sampleEvery;
     const t = model.time;

@@ -3,6 +3,7 @@ import { copyReport, type StepReport } from '../lib/model/budget';
 import type { Checkpoint } from '../lib/model/checkpoint';
 import type { FieldName } from '../lib/model/fields';
 import { Model } from '../lib/model/model';
+import { reachedTime } from '../lib/model/clock';
 import type { ModelParams } from '../lib/model/params';
 import { BlowUpError } from '../lib/model/stepper';
 import { validateParams } from '../lib/model/validateParams';
@@ -116,7 +117,7 @@ export class SimulationHost implements SimulationApi {
   async runUntil(time: number): Promise<void> {
     const model = this.requireModel();
     if (!Number.isFinite(time)) throw new RangeError(`runUntil: the time must be a finite number, got ${time}`);
-    if (model.time >= time || this.stopped !== null) return;
+    if (reachedTime(model.time, time, model.dt) || this.stopped !== null) return;
     this.until = time;
     this.playing = true;
     this.changed();
@@ -243,9 +244,9 @@ export class SimulationHost implements SimulationApi {
     const until = this.until;
     this.advance(() => {
       do this.stepAndRecord(model);
-      while (performance.now() - t0 < SLICE_MS && (until === null || model.time < until));
+      while (performance.now() - t0 < SLICE_MS && (until === null || !reachedTime(model.time, until, model.dt)));
     });
-    if (until !== null && model.time >= until) {
+    if (until !== null && reachedTime(model.time, until, model.dt)) {
       this.playing = false;
       this.until = null;
     }

@@ -16,6 +16,7 @@ import { checkMemoryBudget, estimateRunMemory, MemoryBudgetError } from '../../l
 import { describeStopRule, resolveRunPlan, type RunLengthRequest, type RunPlan } from '../../lib/run/runPlan';
 import type { RunProgress } from '../../lib/run/runProgress';
 import { isInputError } from '../../lib/inputError';
+import { lengthText, timeText } from '../../lib/plan/format';
 import { UsageError, type OptionSpec, type ParsedArgs } from '../args';
 import { DEFAULT_MEMORY_BUDGET, parseByteSize } from '../byteSize';
 import { CheckpointStore, readCheckpoint } from '../checkpointStore';
@@ -28,7 +29,7 @@ import { RunOutputs, type OutputCounts } from '../runOutputs';
 import { runReport } from '../runReport';
 import { striaVersion } from '../version';
 
-/** Steps between checkpoints when --checkpoint-every is not given. */
+/** Steps between checkpoints when --checkpoint-every-steps is not given. */
 export const DEFAULT_CHECKPOINT_EVERY = 1000;
 /** What the command line itself takes (Node and the TypeScript loader: about 100 MiB measured). */
 export const CLI_RUNTIME_BYTES = 128 * 2 ** 20;
@@ -63,25 +64,26 @@ const options: OptionSpec[] = [
     name: 'steady-window',
     kind: 'number',
     value: 'T',
-    help: 'window of the steady criterion (default 1/(2 mu), the spin-up time)',
+    help: 'window of the steady criterion, in model time (default 1/(2 mu),\nthe spin-up time)',
   },
   {
     name: 'max-time',
     kind: 'number',
     value: 'T',
-    help: 'give up on steadiness at time T (default start + 20 windows)',
+    help: 'give up on steadiness at model time T (default start + 20 windows)',
   },
   {
     name: 'average',
     kind: 'number',
     value: 'T',
-    help: 'average the summary over the last T time units\n(default 1/mu, or 50 if mu = 0, at most the length of the run)',
+    help: 'average the summary over the last T model time units\n(default 1/mu, or 50 if mu = 0, at most the length of the run)',
   },
   {
-    name: 'sample-every',
+    name: 'sample-interval',
     kind: 'number',
     value: 'T',
-    help: 'sample the zonal means every T time units (default 10 dt)',
+    help: 'sample the zonal means every T model time units, a time, not a\nstep count (default 10 dt)',
+    aliases: ['sample-every'],
   },
   {
     name: 'snapshots',
@@ -89,7 +91,13 @@ const options: OptionSpec[] = [
     value: 'FILE',
     help: 'write gridded snapshots (q, zeta, psi, u, v) to a NetCDF file',
   },
-  { name: 'every', kind: 'count', value: 'K', help: 'a snapshot every K steps (with --snapshots)' },
+  {
+    name: 'snapshot-every-steps',
+    kind: 'count',
+    value: 'K',
+    help: 'a snapshot every K steps, a step count, not a time (with --snapshots)',
+    aliases: ['every'],
+  },
   {
     name: 'zonal',
     kind: 'text',
@@ -106,13 +114,14 @@ const options: OptionSpec[] = [
     name: 'checkpoint',
     kind: 'text',
     value: 'FILE',
-    help: 'keep a checkpoint of the run in FILE (replaced atomically), every\n--checkpoint-every steps, at the end and on Ctrl-C',
+    help: 'keep a checkpoint of the run in FILE (replaced atomically), every\n--checkpoint-every-steps steps, at the end and on Ctrl-C',
   },
   {
-    name: 'checkpoint-every',
+    name: 'checkpoint-every-steps',
     kind: 'count',
     value: 'K',
-    help: `steps between checkpoints, at multiples of K of the step count\n(default ${DEFAULT_CHECKPOINT_EVERY}; also the in-memory checkpoints of --on-blowup retry)`,
+    help: `steps between checkpoints, a step count: at multiples of K of the\nstep count (default ${DEFAULT_CHECKPOINT_EVERY}; also the in-memory checkpoints of\n--on-blowup retry)`,
+    aliases: ['checkpoint-every'],
   },
   {
     name: 'resume',
@@ -154,7 +163,7 @@ const OPTION_OF: Record<string, string> = {
   steadyWindow: '--steady-window',
   maxTime: '--max-time',
   average: '--average',
-  sampleEvery: '--sample-every',
+  sampleEvery: '--sample-interval',
   length: '--steps, --until or --until-steady',
 };
 
@@ -166,7 +175,9 @@ export const runCommand: Command = {
 Runs the model from rest (or from the saved state in FILE) and prints the run summary: energy,
 u_rms, k_rhines, k_beta, zonostrophy_index, jet_count, jet_spacing, ... (model units), averaged over
 the last --average time units. FILE is a JSON object of parameters or a run file written by --save.
-Parameters are layered: the defaults, then --preset, then FILE, then each --set.
+Parameters are layered: the defaults, then --preset, then FILE, then each --set. Hyperviscosity
+follows the grid: when nx or ny changes and --set does not give nu, nu is rescaled so that its
+damping rate at the largest kept wavenumber stays the same (said on standard error).
 
 Steady criterion (--until-steady): time from the start is cut into consecutive windows of length W
 (--steady-window, default 1/(2 mu)); at the end of each window its time-mean energy is compared with
@@ -188,15 +199,15 @@ estimate exceeds --memory-budget is refused before anything is allocated.`,
   examples: `
   # the demo jets on a 64 x 64 grid until t = 200, zonal means every 0.5, summary as JSON
   stria run --preset jets --set nx=64 --set ny=64 --set kf=16 --until 200 \\
-      --sample-every 0.5 --zonal jets-zonal.nc --json
+      --sample-interval 0.5 --zonal jets-zonal.nc --json
 
   # run until steady, snapshots every 500 steps, then continue the saved run to t = 800
-  stria run --preset jets --until-steady --snapshots jets.nc --every 500 --save jets-run.json
+  stria run --preset jets --until-steady --snapshots jets.nc --snapshot-every-steps 500 --save jets-run.json
   stria run jets-run.json --until 800
 
   # an hour-long run that survives being killed: checkpoint every 2000 steps, then resume
-  stria run --preset jets --until 5000 --zonal z.nc --checkpoint ck.json --checkpoint-every 2000
-  stria run --preset jets --until 5000 --zonal z.nc --checkpoint ck.json --checkpoint-every 2000 --resume ck.json`,
+  stria run --preset jets --until 5000 --zonal z.nc --checkpoint ck.json --checkpoint-every-steps 2000
+  stria run --preset jets --until 5000 --zonal z.nc --checkpoint ck.json --checkpoint-every-steps 2000 --resume ck.json`,
   options,
   run,
 };
@@ -205,20 +216,28 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   const o = args.options;
   if (args.positionals.length > 1)
     throw new UsageError(`expected at most one FILE, got ${args.positionals.map((p) => `"${p}"`).join(', ')}`);
-  if ((o.snapshots === undefined) !== (o.every === undefined))
+  if ((o.snapshots === undefined) !== (o['snapshot-every-steps'] === undefined))
     throw new UsageError(
       o.snapshots === undefined
-        ? '--every needs --snapshots FILE'
-        : '--snapshots needs --every K (steps between snapshots)',
+        ? '--snapshot-every-steps needs --snapshots FILE'
+        : '--snapshots needs --snapshot-every-steps K (steps between snapshots)',
     );
   const policy = blowUpPolicy(o);
   const budget = memoryBudget(o);
-  const checkpointEvery = (o['checkpoint-every'] as number | undefined) ?? DEFAULT_CHECKPOINT_EVERY;
+  const checkpointEvery = (o['checkpoint-every-steps'] as number | undefined) ?? DEFAULT_CHECKPOINT_EVERY;
   const start = resolveRunStart({
     file: args.positionals[0],
     preset: o.preset as string | undefined,
     sets: o.set as string[] | undefined,
   });
+  if (start.rescaledNu)
+    io.err.write(
+      `stria run: hyperviscosity nu rescaled from ${start.rescaledNu.from} to ${start.rescaledNu.to} for the ${start.params.nx} × ${start.params.ny} grid, so its damping rate at k_max stays the same (--set nu=VALUE keeps a nu of your own)\n`,
+    );
+  if (start.units.kind === 'physical' && (o.snapshots !== undefined || o.zonal !== undefined))
+    io.err.write(
+      `stria run: NetCDF in physical units from ${args.positionals[0]}: one model length is ${lengthText(start.units.metresPerLength)}, one model time ${timeText(start.units.secondsPerTime)}\n`,
+    );
   const resumed = o.resume === undefined ? null : readCheckpoint(o.resume as string);
   // The run as the command asks for it: its parameters, where it starts, and its plan.
   const origin: RunOrigin = resumed
@@ -245,13 +264,13 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   const command = resumed?.progress.outputs.command ?? ['stria', ...io.argv].join(' ');
   const request = {
     snapshots: o.snapshots as string | undefined,
-    every: o.every as number | undefined,
+    every: o['snapshot-every-steps'] as number | undefined,
     zonal: o.zonal as string | undefined,
   };
   const outputs = new RunOutputs(
     start.params,
     request,
-    { params: start.params, striaVersion: striaVersion(), createdAt, command },
+    { params: start.params, striaVersion: striaVersion(), createdAt, command, units: start.units },
     resumed ? keptRecords(resumed.progress, request, io) : {},
   );
   const monitored = new MonitoredRun(model, plan, outputs.hooks(), origin);
@@ -386,7 +405,7 @@ function keptRecords(
   if (req.snapshots !== undefined && saved.snapshots && resolve(saved.snapshots.path) === resolve(req.snapshots)) {
     if (saved.snapshots.every !== req.every)
       throw new UsageError(
-        `--every ${req.every}: the checkpoint's run wrote a snapshot every ${saved.snapshots.every} steps to ${req.snapshots}`,
+        `--snapshot-every-steps ${req.every}: the checkpoint's run wrote a snapshot every ${saved.snapshots.every} steps to ${req.snapshots}`,
       );
     keep.snapshots = saved.snapshots.records;
   } else if (req.snapshots !== undefined)
@@ -423,7 +442,7 @@ function runPlanOf(params: ModelParams, o: ParsedArgs['options'], start: number)
     steadyWindow: o['steady-window'] as number | undefined,
     maxTime: o['max-time'] as number | undefined,
     average: o.average as number | undefined,
-    sampleEvery: o['sample-every'] as number | undefined,
+    sampleEvery: o['sample-interval'] as number | undefined,
   };
   try {
     return resolveRunPlan(params, req, start);

@@ -3,8 +3,9 @@ import type { Quantity } from './predictions';
 
 /**
  * Number and unit text for messages and reports. Numbers keep 4 significant figures (plain notation
- * between 1e-3 and 1e6, else exponent notation); units are SI for a physical plan and named model
- * units otherwise.
+ * between 1e-3 and 1e6, else exponent notation); a physical plan's lengths, times and wavenumbers
+ * read as people write them (km, days or hours, with wavelengths; see below), other quantities in
+ * SI, and a model-unit plan's in named model units.
  */
 export function fmt(x: number, digits = 4, round: Rounding = 'nearest'): string {
   if (!Number.isFinite(x)) return x > 0 ? '∞' : x < 0 ? '−∞' : 'NaN';
@@ -58,8 +59,17 @@ export function unitLabel(q: Quantity, units: UnitSystem): string {
   return (units === 'physical' ? PHYSICAL : MODEL)[q];
 }
 
-/** A number with its unit, e.g. "1.2e6 m"; `round` as in `fmt`. */
+/**
+ * A number with its unit; `round` as in `fmt`. Physical lengths, times and wavenumbers read as people
+ * write them (quantities.ts): "27230 km", "115.7 days", "2.308e-7 rad/m (wavelength 27230 km)";
+ * everything else as the number and its SI or model unit, e.g. "40 m/s", "3 rad/model length".
+ */
 export function withUnit(x: number, q: Quantity, units: UnitSystem, round: Rounding = 'nearest'): string {
+  if (units === 'physical' && Number.isFinite(x)) {
+    if (q === 'length') return lengthText(x, round);
+    if (q === 'time') return timeText(x, round);
+    if (q === 'wavenumber' && x > 0) return wavenumberText(x, round);
+  }
   const u = unitLabel(q, units);
   return u ? `${fmt(x, 4, round)} ${u}` : fmt(x, 4, round);
 }
@@ -84,4 +94,43 @@ export function bytes(n: number): string {
     i++;
   }
   return `${fmt(x, 3)} ${units[i]}`;
+}
+
+/*
+ * Physical quantities as people write them (the report, the command line's text and the app use
+ * these, through withUnit):
+ *   lengths      km, or m below 1 km                        2.723e7 m → "27230 km", 500 m → "500 m"
+ *   times        days from 2 days, hours from 2 h, else s   1e7 s → "115.7 days", 6 h → "6 h"
+ *   wavenumbers  rad/m with the wavelength 2π/k beside it   "2.308e-7 rad/m (wavelength 27230 km)"
+ *   latitudes    degrees                                    "45°"
+ * Directed rounding ("at least", "at most") is kept through the change of unit, and turns round for
+ * a wavelength (a wavenumber at least k is a wavelength at most 2π/k). The parser of typed values
+ * is quantityInput.ts.
+ */
+const KM = 1000;
+const HOUR = 3600;
+const DAY = 86_400;
+
+/** A length in metres as km (from 1 km) or m. */
+export function lengthText(metres: number, round: Rounding = 'nearest'): string {
+  return Math.abs(metres) >= KM ? `${fmt(metres / KM, 4, round)} km` : `${fmt(metres, 4, round)} m`;
+}
+
+/** A time in seconds as days (from 2 days), hours (from 2 h) or s. */
+export function timeText(seconds: number, round: Rounding = 'nearest'): string {
+  const a = Math.abs(seconds);
+  if (a >= 2 * DAY) return `${fmt(seconds / DAY, 4, round)} days`;
+  if (a >= 2 * HOUR) return `${fmt(seconds / HOUR, 4, round)} h`;
+  return `${fmt(seconds, 4, round)} s`;
+}
+
+/** A wavenumber in rad/m with its wavelength 2π/k. */
+export function wavenumberText(k: number, round: Rounding = 'nearest'): string {
+  const turned: Rounding = round === 'up' ? 'down' : round === 'down' ? 'up' : 'nearest';
+  return `${fmt(k, 4, round)} rad/m (wavelength ${lengthText((2 * Math.PI) / k, turned)})`;
+}
+
+/** A latitude in degrees. */
+export function latitudeText(degrees: number): string {
+  return `${fmt(degrees, 6)}°`;
 }

@@ -1,15 +1,14 @@
 import { rhinesLength } from '../analysis/scales';
 import type { ModelParams } from '../model/params';
 import { SIZE_MAX, SIZE_MIN } from '../model/params';
-import { isInputError } from '../inputError';
-import { keptRadius, validateParams } from '../model/validateParams';
+import { keptRadius } from '../model/validateParams';
 import { annulusModeCount, MEASURED_STEP, runCost, type MeasuredStep, type RunCost } from './cost';
 import { fmt } from './format';
 import type { PlanInput } from './planInput';
+import { evaluateMatched, roundMatched } from './matchedRounding';
 import { predictPlan, type PlanPredictions } from './predictions';
-import { resolvePlan, type ResolvedPlan } from './resolvePlan';
+import type { ResolvedPlan } from './resolvePlan';
 import { THRESHOLDS as T } from './thresholds';
-import { IDENTITY_SCALING, planModelParams } from './units';
 import { planRatios, type RatioId, type RatioSet } from './ratios';
 
 /**
@@ -45,8 +44,13 @@ export interface MatchedRun {
   input: PlanInput;
   plan: ResolvedPlan;
   predictions: PlanPredictions;
-  /** The matched run's model parameters, accepted by validateParams. */
+  /**
+   * The matched run's model parameters, accepted by validateParams, rounded to `digits` significant
+   * figures (matchedRounding.ts): the numbers the panel, the link and the files show.
+   */
   params: ModelParams;
+  /** Significant figures of the parameters and the run length (17: not rounded). */
+  digits: number;
   ratios: MatchedRatio[];
   /** The ratio that gave last in the priority order ('none' when all are kept). */
   gives: 'none' | 'kfOverKR' | 'jetsPerDomain' | 'kmaxOverKf';
@@ -192,21 +196,15 @@ function buildMatched(
     cfl: plan.cfl,
     rhines: conv,
   };
-  let mPlan: ResolvedPlan;
-  let mPred: PlanPredictions;
-  let params: ModelParams;
-  try {
-    // Refusals here (a parameter out of the model's range) make this grid unworkable, not the plan.
-    mPlan = resolvePlan(input);
-    mPred = predictPlan(mPlan);
-    params = validateParams(planModelParams(mPlan, mPred.dtCFL.value, IDENTITY_SCALING));
-  } catch (e) {
-    if (isInputError(e, 'plan input') || isInputError(e, 'parameters')) return e.message;
-    throw e;
-  }
+  const exact = evaluateMatched(input);
+  if (typeof exact === 'string') return exact;
+  const form = roundMatched(exact);
+  const { plan: mPlan, predictions: mPred, params } = form;
+  // A ratio is kept when it moved no more than the rounding of the parameters can move it.
+  const keptTol = form.digits >= 17 ? KEPT_TOL : Math.max(KEPT_TOL, 4 * 0.5 * Math.pow(10, 1 - form.digits));
   const got = planRatios(mPlan, mPred);
   const ratios = (Object.keys(RATIO_LABELS) as RatioId[]).map((id) => {
-    const kept = Math.abs(got[id] / want[id] - 1) <= KEPT_TOL || got[id] === want[id];
+    const kept = Math.abs(got[id] / want[id] - 1) <= keptTol || got[id] === want[id];
     if (id === 'runDragTimes' && !kept)
       why.runDragTimes = `shortened to two times to statistical steady state (${T.steadyMultiple} drag times): spin-up, then as long again to average; long statistics are the planned run's job`;
     return {
@@ -220,10 +218,11 @@ function buildMatched(
   });
   const cost = runCost(nx, ny, mPred.stepsPlanned.value, annulusModeCount(params), speed, ref);
   return {
-    input,
+    input: form.input,
     plan: mPlan,
     predictions: mPred,
     params,
+    digits: form.digits,
     ratios,
     gives,
     cost,

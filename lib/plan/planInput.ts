@@ -159,6 +159,17 @@ export const PlanInputSchema = v.strictObject({
   ),
 });
 
+/** The message of a field the plan needs and does not have (see `missingFields`). */
+export const MISSING = 'is missing';
+
+/**
+ * The fields an InputError of `validatePlanInput` says are missing, or [] when something else is
+ * wrong: a caller can then say in one line what an incomplete plan lacks.
+ */
+export function missingFields(issues: readonly InputIssue[]): string[] {
+  return issues.filter((i) => i.message === MISSING).map((i) => i.field);
+}
+
 /** The plan input with defaults filled (cfl, rhines), as every other planner module receives it. */
 export type ValidPlanInput = PlanInput & { cfl: number; rhines: RhinesConvention };
 
@@ -173,8 +184,14 @@ export function validatePlanInput(input: unknown): ValidPlanInput {
       'plan input',
       parsed.issues.map((issue) => {
         const field = issue.path?.map((p) => String(p.key)).join('.') ?? '(plan)';
-        const unknownKey = issue.type === 'strict_object' && issue.kind === 'schema' && issue.expected === 'never';
-        return { field, value: issue.input, message: unknownKey ? 'is not a plan field' : issue.message };
+        const strict = issue.type === 'strict_object' && issue.kind === 'schema';
+        const unknownKey = strict && issue.expected === 'never';
+        const missing = strict && !unknownKey && issue.received === 'undefined';
+        return {
+          field,
+          value: issue.input,
+          message: unknownKey ? 'is not a plan field' : missing ? MISSING : issue.message,
+        };
       }),
     );
   }

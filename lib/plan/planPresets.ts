@@ -7,7 +7,8 @@ import type { PlanInput } from './planInput';
  * made up for the demo, chosen to give a plan worth looking at, and labelled so here and in the app.
  */
 export interface PlanPreset {
-  id: 'earthAtmosphere' | 'earthOcean' | 'jupiter';
+  /** Lower case words joined by hyphens, the style of the model's demo scenarios (`few-jets`). */
+  id: 'earth-atmosphere' | 'earth-ocean' | 'jupiter';
   title: string;
   description: string;
   /** The real constants the preset rests on, with their sources (see planets.ts). */
@@ -22,7 +23,7 @@ const MADE_UP_ALL = ['drive', 'dragTime', 'deformation', 'forcing', 'domain', 'g
 
 export const PLAN_PRESETS: readonly PlanPreset[] = Object.freeze([
   {
-    id: 'earthAtmosphere',
+    id: 'earth-atmosphere',
     title: 'Earth mid-latitude atmosphere-like beta-plane (demo)',
     description:
       'A barotropic beta-plane at 45° N of the real Earth, stirred at 500 km and held at 6 m/s rms against a 30-day drag. The flow numbers are made up; it is an idealisation, not the atmosphere.',
@@ -43,7 +44,7 @@ export const PLAN_PRESETS: readonly PlanPreset[] = Object.freeze([
     },
   },
   {
-    id: 'earthOcean',
+    id: 'earth-ocean',
     title: 'Earth ocean-basin-like beta-plane with a small deformation radius (demo)',
     description:
       'A reduced-gravity layer at 30° N of the real Earth with a 30 km deformation radius, stirred at 100 km and held at 0.1 m/s rms against a 100-day drag. The flow numbers are made up; the deformation radius is of oceanic size but not taken from data.',
@@ -89,9 +90,21 @@ export const PLAN_PRESETS: readonly PlanPreset[] = Object.freeze([
   },
 ] satisfies PlanPreset[]);
 
+/** Earlier ids, still read (scripts and saved links may hold them). */
+export const PLAN_PRESET_ALIASES: Readonly<Record<string, PlanPreset['id']>> = Object.freeze({
+  earthAtmosphere: 'earth-atmosphere',
+  earthOcean: 'earth-ocean',
+});
+
+/** The preset with this id or an earlier id of it, or undefined. */
+export function findPlanPreset(id: string): PlanPreset | undefined {
+  const current = Object.hasOwn(PLAN_PRESET_ALIASES, id) ? PLAN_PRESET_ALIASES[id] : id;
+  return PLAN_PRESETS.find((q) => q.id === current);
+}
+
 /** The preset with this id (RangeError for an unknown one). */
 export function planPreset(id: PlanPreset['id']): PlanPreset {
-  const p = PLAN_PRESETS.find((q) => q.id === id);
+  const p = findPlanPreset(id);
   if (!p) throw new RangeError(`no plan preset "${id}" (known: ${PLAN_PRESETS.map((q) => q.id).join(', ')})`);
   return p;
 }

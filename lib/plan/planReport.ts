@@ -1,4 +1,7 @@
 import { regimeLabel } from './predictions';
+import { RATIO_LABELS } from './matchedRun';
+import { rhinesLabel } from './rhinesLabels';
+import { PLAN_FIELD_QUANTITIES } from './quantityInput';
 import type { PlanAnalysis } from './analysePlan';
 import type { PlanCheck } from './checks';
 import { bytes, duration, fmt, unitLabel, withUnit } from './format';
@@ -23,13 +26,13 @@ export function planReportBlocks(a: PlanAnalysis): Block[] {
     { type: 'heading', level: 1, text: title },
     {
       type: 'paragraph',
-      text: `Regime: ${regimeLabel(p)}. Expected jets in the domain: ${fmt(p.jetsRhines.value, 3)} (Rhines spacing, ${plan.input.rhines}) to ${fmt(p.jetsStaircase.value, 3)} (staircase spacing). Checks: ${counts(a.checks)}. Units: ${u === 'physical' ? 'SI (m, s)' : 'model units'}.`,
+      text: `Regime: ${regimeLabel(p)}. Expected jets in the domain: ${fmt(p.jetsRhines.value, 3)} (Rhines spacing ${rhinesLabel(plan.input.rhines)}) to ${fmt(p.jetsStaircase.value, 3)} (staircase spacing). Checks: ${counts(a.checks)}. Units: ${u === 'physical' ? 'SI (m, s)' : 'model units'}.`,
     },
     { type: 'heading', level: 2, text: 'Inputs as entered' },
     {
       type: 'table',
       head: ['field', 'value', 'unit'],
-      rows: flatten(plan.input).map(([k, v]) => [k, v, inputUnit(k, u, plan.order)]),
+      rows: flatten(plan.input).map(([k, v]) => [k, enteredText(k, v, plan.input), inputUnit(k, u, plan.order)]),
     },
     { type: 'heading', level: 2, text: 'Inputs as derived' },
     {
@@ -183,7 +186,7 @@ function matchedBlocks(a: PlanAnalysis): Block[] {
     { type: 'heading', level: 2, text: 'Matched cheap run' },
     {
       type: 'paragraph',
-      text: `${m.params.nx} × ${m.params.ny} grid, ${m.cost.steps} steps, about ${duration(m.cost.wallSeconds)} here (target ${duration(m.targetWallSeconds)}${m.withinTarget ? '' : ', exceeded'}). Ratio that gave: ${m.gives}.`,
+      text: `${m.params.nx} × ${m.params.ny} grid, ${m.cost.steps} steps, about ${duration(m.cost.wallSeconds)} here (target ${duration(m.targetWallSeconds)}${m.withinTarget ? '' : ', exceeded'}). ${m.gives === 'none' ? 'Every ratio is kept.' : `The ratio that gave last: ${RATIO_LABELS[m.gives]}.`}`,
     },
     {
       type: 'table',
@@ -263,3 +266,13 @@ function inputUnit(path: string, u: UnitSystem, order: number): string {
 const betaUnit = (u: UnitSystem) => (u === 'physical' ? '1/(m·s)' : '1/(model length·time)');
 const injectionUnit = (u: UnitSystem) => (u === 'physical' ? 'm²/s³ (W/kg)' : 'model length²/time³');
 const hyperUnit = (u: UnitSystem, p: number) => (u === 'physical' ? `m^${2 * p}/s` : `model length^${2 * p}/time`);
+
+/** An input as entered, with the readable form beside it: a physical length or time, a Rhines convention. */
+function enteredText(path: string, text: string, input: PlanAnalysis['plan']['input']): string {
+  if (path === 'rhines') return `${text} (${rhinesLabel(input.rhines)})`;
+  const q = Object.hasOwn(PLAN_FIELD_QUANTITIES, path) ? PLAN_FIELD_QUANTITIES[path] : null;
+  const x = Number(text);
+  if (input.units !== 'physical' || (q !== 'length' && q !== 'time') || !Number.isFinite(x)) return text;
+  const readable = withUnit(x, q, 'physical');
+  return readable.startsWith(`${text} `) ? text : `${text} (${readable})`;
+}

@@ -13,6 +13,7 @@ import {
   type RhinesConvention,
 } from '../analysis/scales';
 import { REFERENCES } from './references';
+import { RHINES_LABELS } from './rhinesLabels';
 import type { ResolvedPlan } from './resolvePlan';
 import { THRESHOLDS } from './thresholds';
 
@@ -92,7 +93,7 @@ export function predictPlan(plan: ResolvedPlan): PlanPredictions {
   for (const c of Object.keys(RHINES_DEFINITIONS) as RhinesConvention[]) {
     put(
       `rhines_${c}`,
-      `Rhines length (${c})`,
+      `Rhines length ${RHINES_LABELS[c]}`,
       'L_R',
       rhinesLength(beta, U, c),
       'length',
@@ -140,7 +141,7 @@ export function predictPlan(plan: ResolvedPlan): PlanPredictions {
   const Lr = rhinesLength(beta, U, conv);
   put(
     'jetSpacingRhines',
-    `jet spacing from the Rhines scale (${conv})`,
+    `jet spacing from the Rhines scale (${RHINES_LABELS[conv]})`,
     'L_jet',
     Lr,
     'length',

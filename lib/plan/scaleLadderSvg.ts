@@ -1,3 +1,4 @@
+import { rhinesLabel } from './rhinesLabels';
 import { REGIME_LABELS } from '../analysis/scales';
 import { fmt, unitLabel } from './format';
 import type { PlanPredictions } from './predictions';
@@ -29,7 +30,7 @@ export function ladderMarks(plan: ResolvedPlan, pred: PlanPredictions): LadderMa
     {
       id: 'rhines',
       symbol: 'k_Rh',
-      label: `Rhines (${plan.input.rhines})`,
+      label: `Rhines (${rhinesLabel(plan.input.rhines)})`,
       k: (2 * Math.PI) / pred.jetSpacingRhines.value,
       kind: 'jets',
     },

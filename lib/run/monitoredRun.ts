@@ -1,6 +1,7 @@
 import { RunMonitor } from '../analysis/runMonitor';
 import { summarize, type RunSummary } from '../analysis/summary';
 import type { ZonalMeans } from '../analysis/zonalMean';
+import { reachedTime } from '../model/clock';
 import type { Model } from '../model/model';
 import { captureState, restoreState, type CapturedState } from './dataState';
 import type { RunPlan } from './runPlan';
@@ -55,7 +56,7 @@ const MONITOR_CONFIG = [
 /**
  * A model driven to the end of its RunPlan with a RunMonitor watching: every step's budget goes to
  * the monitor, the zonal means are sampled every `sampleEvery` time units from the start (at the
- * first step ending on or after each sample time, so with a step no longer than the interval the
+ * first step ending on or after each sample time, to the clock's tolerance (lib/model/clock.ts), so with a step no longer than the interval the
  * samples are equally spaced to within one step), and the summary averages the last `average` time
  * units. `advance` takes a bounded number of steps, so a caller can show progress or stop between
  * calls. Throws the model's BlowUpError, leaving the last good state and a summary of it.
@@ -120,7 +121,7 @@ export class MonitoredRun {
         );
       this.monitor.step(report);
       this.hooks.onStep?.(m);
-      if (m.time >= this.nextSample) {
+      if (reachedTime(m.time, this.nextSample, report.dt)) {
         this.samplesTaken++;
         this.nextSample = this.startTime + (this.samplesTaken + 1) * this.plan.sampleEvery;
         const z = this.monitor.sample(m.qHat, m.time);
@@ -141,9 +142,9 @@ export class MonitoredRun {
     const s = this.plan.stop;
     const m = this.current;
     if (s.kind === 'steps') return m.steps - this.startSteps >= s.steps ? 'steps' : null;
-    if (s.kind === 'until') return m.time >= s.time ? 'until' : null;
+    if (s.kind === 'until') return reachedTime(m.time, s.time, m.dt) ? 'until' : null;
     if (this.steady.steadyAt !== null) return 'steady';
-    return m.time >= s.maxTime ? 'not-steady' : null;
+    return reachedTime(m.time, s.maxTime, m.dt) ? 'not-steady' : null;
   }
 
   /** Fraction of the run done, in [0, 1] (for a steady run, of the way to its cap). */

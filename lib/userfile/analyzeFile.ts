@@ -13,6 +13,7 @@ import { openDataset } from '../io/openDataset';
 import { parseRecordWindow } from './recordWindow';
 import { userFieldSource } from './fieldSource';
 import { striaParameters } from './striaParameters';
+import { spectralSlopes, type SpectralSlope } from './spectralSlopes';
 
 /**
  * A user's NetCDF file through Stria's diagnostics, end to end: open (NetCDF-3 or netCDF-4), find the
@@ -56,6 +57,8 @@ export interface FileAnalysis {
   plane: { lat0: number; lon0: number; radius: number; label: string } | null;
   analysis: UserAnalysis;
   comparison: Comparison;
+  /** Slopes of the time-mean energy spectrum in its two cascade ranges (spectralSlopes.ts); [] without spectra. */
+  spectralSlopes: SpectralSlope[];
 }
 
 export function analyzeFile(source: ByteSource, options: AnalyzeFileOptions = {}): FileAnalysis {
@@ -129,6 +132,10 @@ export function analyzeFile(source: ByteSource, options: AnalyzeFileOptions = {}
       missing: `no planner predictions: ${(e as Error).message}`,
     };
   }
+  const slopes =
+    analysis.spectra && analysis.spectra.records > 0
+      ? spectralSlopes(analysis.spectra, striaForcing(reader.attributes), analysis.scales.kRhines)
+      : [];
   const masking: FileAnalysis['masking'] = {};
   for (const [role, c] of Object.entries(fs.masks) as [FieldRole, MaskCounts][]) {
     const masked = c.nonFinite + c.fill + c.outOfRange;
@@ -150,5 +157,17 @@ export function analyzeFile(source: ByteSource, options: AnalyzeFileOptions = {}
     plane: fs.plane,
     analysis,
     comparison,
+    spectralSlopes: slopes,
   };
+}
+
+/**
+ * The forcing wavenumber a Stria-written file records (stria_kf, model units), in the file's units:
+ * divided by stria_length_unit_m for a file in physical units. Null for other files.
+ */
+function striaForcing(attributes: Record<string, unknown>): number | null {
+  const kf = attributes.stria_kf;
+  if (typeof attributes.stria_file_kind !== 'string' || typeof kf !== 'number' || !(kf > 0)) return null;
+  const l = attributes.stria_units === 'physical' ? attributes.stria_length_unit_m : 1;
+  return typeof l === 'number' && l > 0 ? kf / l : null;
 }

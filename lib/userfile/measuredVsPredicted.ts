@@ -1,4 +1,5 @@
 import type { UserAnalysis } from './summary';
+import { rhinesLabel } from '../plan/rhinesLabels';
 import { regimeOf, staircaseSpacing } from '../analysis/scales';
 import type { PlanInput, UnitSystem } from '../plan/planInput';
 import { predictPlan, type PlanPredictions, type PredictionId, type Quantity } from '../plan/predictions';
@@ -89,11 +90,11 @@ export function measuredVsPredicted(a: UserAnalysis, p: ComparisonParams): Compa
   );
   put(
     'rhines',
-    `Rhines length (${conv})`,
+    `Rhines length ${rhinesLabel(conv)}`,
     'length',
     a.scales.rhinesLength,
     P(`rhines_${conv}`),
-    F(`rhines_${conv}`, conv),
+    F(`rhines_${conv}`, rhinesLabel(conv)),
     R(`rhines_${conv}`, REFERENCES.rhinesConventions),
   );
   put(

@@ -1,6 +1,8 @@
-import { fmt, unitLabel } from '../plan/format';
+import { fmt, lengthText, unitLabel } from '../plan/format';
 import type { ComparisonRow } from './measuredVsPredicted';
 import type { FileAnalysis } from './analyzeFile';
+import type { SpectralSlope } from './spectralSlopes';
+import { rhinesLabel } from '../plan/rhinesLabels';
 
 /**
  * The readable text of a file analysis (`stria analyze` without --json): what was read and how,
@@ -15,7 +17,11 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
   const L = (x: number | null | undefined) =>
     x === null || x === undefined
       ? '—'
-      : `${fmt(x)}${g.lengthUnit === 'degrees' ? '°' : units === 'physical' ? ' m' : ''}`;
+      : g.lengthUnit === 'degrees'
+        ? `${fmt(x)}°`
+        : units === 'physical'
+          ? lengthText(x)
+          : fmt(x);
   const out: string[] = [];
   out.push(
     `Stria analysis of ${name} (${r.file.format}, ${r.file.layout === 'gridded' ? 'gridded fields' : 'zonal-mean profiles'})`,
@@ -30,7 +36,7 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
     `  ${g.nx} × ${g.ny} points, dx = ${L(g.dx)}, dy = ${L(g.dy)}; periodic in x: ${g.periodicX ? 'yes' : 'no'}, in y: ${g.periodicY ? 'yes' : 'no'}`,
   );
   out.push(
-    `  records ${a.window.start} to ${a.window.end - 1} of ${r.file.records} (${a.window.count})${a.window.timeStart !== null ? `, time ${fmt(a.window.timeStart)} to ${fmt(a.window.timeEnd as number)}${a.window.timeUnits ? ` ${a.window.timeUnits}` : ''}` : ''}`,
+    `  records ${a.window.start} to ${a.window.end - 1} of ${r.file.records} (${a.window.count})${a.window.timeStart !== null ? `, time ${fmt(a.window.timeStart)} to ${fmt(a.window.timeEnd as number)} ${timeUnitText(a.window.timeUnits)}` : ''}`,
   );
   out.push('', 'Masked values (missing data are left out, never averaged in)');
   for (const [role, m] of Object.entries(r.masking)) {
@@ -69,17 +75,16 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
   if (a.uRms) out.push(`  U_rms = ${fmt(a.uRms.value)} (${a.uRms.kind})`);
   if (a.scales.kRhines !== null)
     out.push(
-      `  k_R = ${fmt(a.scales.kRhines)}, Rhines length (${a.scales.rhinesConvention}) = ${L(a.scales.rhinesLength)}, staircase spacing 720^¼(U/β)^½ = ${L(a.scales.staircaseSpacing)}`,
+      `  k_R = ${fmt(a.scales.kRhines)}, Rhines length ${rhinesLabel(a.scales.rhinesConvention)} = ${L(a.scales.rhinesLength)}, staircase spacing 720^¼(U/β)^½ = ${L(a.scales.staircaseSpacing)}`,
     );
   if (a.scales.zonostrophyIndex !== null) out.push(`  R_β = ${fmt(a.scales.zonostrophyIndex)} (${a.scales.regime})`);
   if (a.diffusivity?.Dfit !== null && a.diffusivity)
-    out.push(
-      `  eddy diffusivity of PV D_fit = ${fmt(a.diffusivity.Dfit as number)}, mixing length ${L(a.diffusivity.Lmix)}`,
-    );
+    out.push(`  ${diffusivityText(a.diffusivity.Dfit as number, L(a.diffusivity.Lmix))}`);
   if (a.spectra)
     out.push(
       `  spectra: ${a.spectra.kind === 'pv' ? 'energy and enstrophy of q' : 'kinetic energy'}, mean of ${a.spectra.records} records${a.spectra.refused ? ` (${a.spectra.refused} left out for missing values)` : ''}`,
     );
+  for (const sl of r.spectralSlopes) out.push(`  ${slopeText(sl)}`);
   out.push('', 'Measured beside the planner');
   out.push(...comparisonTable(r.comparison.rows, units));
   if (r.comparison.missing) out.push(`  (${r.comparison.missing})`);
@@ -109,4 +114,27 @@ export function comparisonTable(rows: readonly ComparisonRow[], units: 'physical
   const w = head.map((h, i) => Math.max(h.length, ...body.map((b) => b[i].length)));
   const line = (c: string[]) => '  ' + c.map((x, i) => (i === 0 ? x.padEnd(w[i]) : x.padStart(w[i]))).join('  ');
   return [line(head), ...body.map(line)];
+}
+
+/**
+ * The eddy diffusivity of PV, D = −⟨v′q′⟩/∂q̄/∂y fitted across the rows. A negative D means the
+ * eddies carry PV up its gradient (sharpening it, as at jets that a staircase forms), so it is no
+ * down-gradient diffusivity and has no mixing length: say so instead of printing the bare number.
+ */
+export function diffusivityText(D: number, mixingLength: string): string {
+  if (D < 0)
+    return `eddy diffusivity of PV D_fit = ${fmt(D)}: UP-GRADIENT (negative): the eddy PV flux runs up the mean PV gradient, so this is no down-gradient diffusivity and no mixing length follows from it`;
+  return `eddy diffusivity of PV D_fit = ${fmt(D)}, mixing length ${mixingLength}`;
+}
+
+/** The time axis's unit as the file states it (its units attribute, quoted), or that it states none. */
+export function timeUnitText(units: string | null): string {
+  return units ? `(units "${units}" as the file states them)` : '(the file states no time units)';
+}
+
+function slopeText(s: SpectralSlope): string {
+  const band = Number.isFinite(s.kLo) ? ` over k = ${fmt(s.kLo)} to ${fmt(s.kHi)}` : '';
+  const law = `${s.range} range (theory ${s.expected === -3 ? '−3' : '−5/3'})`;
+  if (s.slope === null) return `energy spectrum slope, ${law}: not fitted${band}: ${s.reason}`;
+  return `energy spectrum slope, ${law}: ${fmt(s.slope, 3)} ± ${fmt(s.slopeStdErr as number, 2)}${band} (${s.points} shells)`;
 }

@@ -127,7 +127,11 @@ describe('stria analyze', () => {
         expect(text.code).toBe(0);
         expect(text.out).toContain('u     ← "U" (by the mapping u=U');
         expect(text.out).toContain('jets: 4 significant eastward jets');
-        expect(text.out).toContain('records 1 to 2 of 4 (2), time 100 to 200 s');
+        expect(text.out).toContain('records 1 to 2 of 4 (2), time 100 to 200 (units "s" as the file states them)');
+        // The slopes the analysis fitted, or why none: this file records no forcing wavenumber and has no q.
+        expect(text.out).toMatch(
+          /energy spectrum slope, inverse cascade range \(theory −5\/3\): not fitted: no forcing wavenumber/,
+        );
         expect(text.out).toMatch(/Measured beside the planner\n {2}quantity +measured +predicted +ratio +unit\n/);
         const json = await run([path, '--map', 'u=U,v=W', '--beta', '2e-11', '--records', '-2:', '--json']);
         expect(json.code).toBe(0);

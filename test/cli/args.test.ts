@@ -35,6 +35,36 @@ describe('option parsing', () => {
     expect(parseArgs(['-h'], specs, 'run').options.help).toBe(true);
   });
 
+  it('reads an older name of an option as the option, once, and says it in help', () => {
+    const renamed: OptionSpec[] = [{ name: 'snapshot-every-steps', kind: 'count', help: 'steps', aliases: ['every'] }];
+    expect(parseArgs(['--every', '5'], renamed, 'run').options).toEqual({ 'snapshot-every-steps': 5 });
+    expect(parseArgs(['--every=5'], renamed, 'run').options).toEqual({ 'snapshot-every-steps': 5 });
+    expect(() => parseArgs(['--every', '5', '--snapshot-every-steps', '6'], renamed, 'run')).toThrow(/given twice/);
+  });
+
+  it('names the unit of every step count and time option of stria run', () => {
+    const help = commandHelp(runCommand);
+    for (const [name, unit] of [
+      ['snapshot-every-steps', /step count/],
+      ['checkpoint-every-steps', /step count/],
+      ['sample-interval', /model time/],
+      ['average', /model time/],
+      ['steady-window', /model time/],
+      ['max-time', /model time/],
+    ] as const) {
+      const spec = runCommand.options.find((o) => o.name === name);
+      expect(spec?.help, name).toMatch(unit);
+    }
+    // The old names still parse, as the same options.
+    const o = parseArgs(
+      ['--every', '5', '--checkpoint-every', '7', '--sample-every', '0.5'],
+      runCommand.options,
+      'run',
+    );
+    expect(o.options).toMatchObject({ 'snapshot-every-steps': 5, 'checkpoint-every-steps': 7, 'sample-interval': 0.5 });
+    expect(help).toMatch(/its older name --every still works/);
+  });
+
   it('refuses unknown, repeated, valueless and mistyped options by name', () => {
     expect(usage(['--stpes', '3'])).toMatch(/unknown option --stpes \(see stria run --help\)/);
     expect(usage(['-s'])).toMatch(/unknown option -s/);

@@ -88,7 +88,7 @@ describe('stria run on a blow-up', () => {
       dt: { from: 0.05, to: 0.025 },
       blow_up: { steps: 259 },
     });
-    expect(out.time).toBeGreaterThanOrEqual(25);
+    expect(out.time).toBeGreaterThanOrEqual(25 - 1e-3 * 0.025); // reached to the clock's tolerance (lib/model/clock.ts)
     expect(r.stderr).toMatch(
       /retry 1 of 3 from the checkpoint at t = 10\.0+, step 200, with dt = 0\.02500 \(was 0\.05000\)/,
     );

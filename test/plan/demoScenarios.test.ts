@@ -8,6 +8,8 @@ import {
 import { keptRadius, validateParams } from '../../lib/model/validateParams';
 import { DEFAULT_PARAMS } from '../../lib/model/params';
 import { DEFAULT_SCENARIO_ID, DEMO_SCENARIOS, scenarioById } from '../../lib/plan/demoScenarios';
+import { scaledHyperviscosity } from '../../lib/plan/gridHyperviscosity';
+import { benchParams } from '../../bench/stepBench';
 
 const params = (id: string) => validateParams(scenarioById(id)?.params ?? {});
 /** Jets across the domain if they sit 2π/k_R apart, with U = (ε/μ)^½ [derived, docs/scales.md]. */
@@ -36,6 +38,16 @@ describe('demo scenarios', () => {
       expect(p.nu * Math.pow(kMax, 2 * p.nu_order), s.id).toBeGreaterThan(10 * p.mu);
       expect(p.nu * Math.pow(p.kf, 2 * p.nu_order), s.id).toBeLessThan(p.mu);
     }
+  });
+
+  it('take the default ν rescaled to their grid, as the benchmark does: the same damping rate at k_max', () => {
+    for (const s of DEMO_SCENARIOS) {
+      const p = params(s.id);
+      expect(p.nu, s.id).toBe(scaledHyperviscosity(DEFAULT_PARAMS, p));
+    }
+    expect(params('many-jets').nu).not.toBe(DEFAULT_PARAMS.nu); // 256²
+    for (const n of [128, 256, 512])
+      expect(benchParams(n).nu, `bench ${n}`).toBe(scaledHyperviscosity(DEFAULT_PARAMS, { nx: n, ny: n }));
   });
 
   it('are what they say: no β, a few jets, many zonostrophic jets, a deformation radius', () => {

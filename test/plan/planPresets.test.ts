@@ -6,7 +6,7 @@ import { validatePlanInput } from '../../lib/plan/planInput';
 
 describe('plan presets', () => {
   it('are valid plans built on the real planets, with the made-up numbers named', () => {
-    expect(PLAN_PRESETS.map((p) => p.id)).toEqual(['earthAtmosphere', 'earthOcean', 'jupiter']);
+    expect(PLAN_PRESETS.map((p) => p.id)).toEqual(['earth-atmosphere', 'earth-ocean', 'jupiter']);
     for (const p of PLAN_PRESETS) {
       expect(() => validatePlanInput(p.input)).not.toThrow();
       expect(p.input.rotation.kind).toBe('planet');

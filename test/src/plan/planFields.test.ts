@@ -5,7 +5,7 @@ import { planPreset } from '../../../lib/plan/planPresets';
 import { CHOICE_FIELDS, COMMON_FIELDS, freshChoice, getPath, KINDS, setPath } from '../../../src/plan/planFields';
 
 describe('plan fields', () => {
-  const base = planPreset('earthAtmosphere').input;
+  const base = planPreset('earth-atmosphere').input;
 
   it('name the paths that a refused plan input names, so a refusal lands at its field', () => {
     const bad = setPath(setPath(base, 'domain.Lx', -1), 'forcing.halfWidth', 2);
