@@ -109,6 +109,20 @@ export const ONE_LAYER_VALUES: Readonly<Pick<ModelParams, 'layers' | 'shear' | '
 });
 
 /**
+ * The parameters as files store them and run ids digest them: a one-layer run without the two-layer
+ * keys (validation keeps them at ONE_LAYER_VALUES there), so its run files and run ids are those it had
+ * before the two-layer model existed, and older readers still take them; a two-layer run with all.
+ */
+export function storedParams(p: ModelParams): Partial<ModelParams> {
+  if (p.layers !== 1) return { ...p };
+  const out: Partial<ModelParams> = { ...p };
+  delete out.layers;
+  delete out.shear;
+  delete out.depth_ratio;
+  return out;
+}
+
+/**
  * The coefficients of the two-layer model (model units), for the model, the planner and the tests:
  * fractional depths h₁ = H₁/H = δ/(1 + δ), h₂ = H₂/H = 1/(1 + δ); coupling F₁ = k_d² h₂, F₂ = k_d² h₁
  * (so F₁ + F₂ = k_d², F₁/F₂ = H₂/H₁, F₁h₁ = F₂h₂); imposed flows U₁ = h₂·shear, U₂ = −h₁·shear
