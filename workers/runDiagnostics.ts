@@ -5,6 +5,7 @@ import { summarize, type RunSummary } from '../lib/analysis/summary';
 import { ProfileTimeMean, type WindowReport } from '../lib/analysis/timeMean';
 import type { Model } from '../lib/model/model';
 import type { ModelParams } from '../lib/model/params';
+import { monitoredParams, monitoredState } from '../lib/run/monitoredRun';
 import type { MonitorStatus } from './diagnosticsApi';
 import { SpectralDiagnostics } from './spectralDiagnostics';
 import { ZonalFrameStore } from './zonalFrameStore';
@@ -42,6 +43,7 @@ export class RunDiagnostics {
   private viewMean: ProfileTimeMean<MeanProfile>;
   readonly mean: Record<MeanProfile, Float64Array>;
   private taken = 0;
+  private barotropic: Float64Array | undefined;
   private next: number;
   /** Window, jets and staircase of the time mean at the last sample. */
   window: WindowReport | null = null;
@@ -57,7 +59,10 @@ export class RunDiagnostics {
   ) {
     this.since = start;
     this.next = start + sampling.sampleEvery;
-    this.monitor = new RunMonitor(params, { window: { kind: 'last', span: sampling.meanSpan, cap: 256 } });
+    // Two layers: the diagnostics watch the barotropic flow until they learn the layers (monitoredParams).
+    this.monitor = new RunMonitor(monitoredParams(params), {
+      window: { kind: 'last', span: sampling.meanSpan, cap: 256 },
+    });
     this.viewMean = this.newMean(sampling.meanSpan);
     this.mean = Object.fromEntries(MEAN_PROFILES.map((k) => [k, new Float64Array(params.ny)])) as Record<
       MeanProfile,
@@ -71,6 +76,13 @@ export class RunDiagnostics {
     return new ProfileTimeMean(MEAN_PROFILES, this.params.ny, { kind: 'last', span, cap: 256 });
   }
 
+  /** The spectrum the diagnostics read: the model's state, or with two layers its barotropic PV. */
+  sampled(model: Model): Float64Array {
+    const q = monitoredState(model, this.barotropic);
+    if (q !== model.qHat) this.barotropic = q;
+    return q;
+  }
+
   get samples(): number {
     return this.taken;
   }
@@ -82,7 +94,8 @@ export class RunDiagnostics {
     this.taken++;
     this.next = this.since + (this.taken + 1) * this.sampling.sampleEvery;
     const t = model.time;
-    const z = this.monitor.sample(model.qHat, t);
+    const q = this.sampled(model);
+    const z = this.monitor.sample(q, t);
     this.viewMean.add(t, z);
     this.frames.add(t, model.steps, z);
     this.lastSample = t;
@@ -90,8 +103,8 @@ export class RunDiagnostics {
     this.meanJets = this.monitor.jetFinder.find(this.mean.ubar);
     this.latestJets = this.monitor.jetFinder.find(z.ubar);
     this.staircase = this.monitor.staircase ? this.monitor.staircase.fit(this.mean.qtot) : null;
-    if (wants.spectra) this.spectral.addSpectra(model.qHat, t, wants.spectra2d);
-    if (wants.flux) this.spectral.addFlux(model.qHat, t);
+    if (wants.spectra) this.spectral.addSpectra(q, t, wants.spectra2d);
+    if (wants.flux) this.spectral.addFlux(q, t);
     return true;
   }
 
