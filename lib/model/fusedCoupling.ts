@@ -8,8 +8,9 @@
 /**
  * Backward x transforms of both layers finished in place, as `lastStageProducts` does for one: each
  * u_i + i·v_i becomes (u_i·v_i, v_i² − u_i²), and the coupling product u₁v₂ − u₂v₁ = J(ψ₁, ψ₂) is
- * written to X as (u₁v₂ − u₂v₁, 0) at the same place. `speeds` receives max|u₁|, max|v₁|, max|u₂|,
- * max|v₂|. W1, W2 and X are work grids of the same layout; `run` is the transforms' `xLastRun`.
+ * written to the real grid X: the value at work-grid index t (doubles) goes to X[t/2], so X holds
+ * (x, y) at x·ny + y. `speeds` receives max|u₁|, max|v₁|, max|u₂|, max|v₂|. W1 and W2 are work grids
+ * of the same layout; `run` is the transforms' `xLastRun`.
  */
 export function lastStageProductsCoupled(
   W1: Float64Array,
@@ -92,14 +93,10 @@ export function lastStageProductsCoupled(
     W2[i2 + 1] = q2 * q2 - p2 * p2;
     W2[i3] = p3 * q3;
     W2[i3 + 1] = q3 * q3 - p3 * p3;
-    X[t] = u0 * q0 - p0 * v0;
-    X[t + 1] = 0;
-    X[i1] = u1 * q1 - p1 * v1;
-    X[i1 + 1] = 0;
-    X[i2] = u2 * q2 - p2 * v2;
-    X[i2 + 1] = 0;
-    X[i3] = u3 * q3 - p3 * v3;
-    X[i3 + 1] = 0;
+    X[t >> 1] = u0 * q0 - p0 * v0;
+    X[i1 >> 1] = u1 * q1 - p1 * v1;
+    X[i2 >> 1] = u2 * q2 - p2 * v2;
+    X[i3 >> 1] = u3 * q3 - p3 * v3;
     mu1 = Math.max(mu1, Math.abs(u0), Math.abs(u1), Math.abs(u2), Math.abs(u3));
     mv1 = Math.max(mv1, Math.abs(v0), Math.abs(v1), Math.abs(v2), Math.abs(v3));
     mu2 = Math.max(mu2, Math.abs(p0), Math.abs(p1), Math.abs(p2), Math.abs(p3));
@@ -112,8 +109,9 @@ export function lastStageProductsCoupled(
 }
 
 /**
- * Forward y transform of a block whose first field is the coupling product X (its second field is
- * not read), finished into both layers' tendencies: on the kept rows and columns 0..Kx,
+ * Forward y transform of the coupling product's single-field block (ny rows of Kx + 1 complex
+ * columns, X's half-line spectra in x), finished into both layers' tendencies: on the kept rows and
+ * columns 0..Kx,
  *   out1 += c1·X̂,  out2 += c2·X̂   (X̂ unnormalised: fold 1/(nx·ny) into c1 and c2).
  * `src` is the block y-transformed but for the last stage, as for `lastStageToTendency`.
  */
@@ -126,7 +124,7 @@ export function lastStageAddCoupling(
   c2: number,
 ): void {
   const { ny, nkx, Kx, Ky } = grid;
-  const cols = 2 * (Kx + 1);
+  const cols = Kx + 1;
   const s = ny >> 2;
   const run = 2 * s * cols;
   const highBottom = ny - Ky;

@@ -1,5 +1,6 @@
+import { BatchFFT } from './batchFFT';
 import { lastStageAddCoupling, lastStageProductsCoupled } from './fusedCoupling';
-import { lastStageToTendency, velocitiesFirstStageY } from './fusedStages';
+import { lastStageToBlock, lastStageToTendency, velocitiesFirstStageY } from './fusedStages';
 import type { Grid } from './grid';
 import { RealTransform2D } from './realTransform2D';
 import type { TwoLayerLinearOperator } from './twoLayerLinear';
@@ -11,9 +12,13 @@ import type { TwoLayerLinearOperator } from './twoLayerLinear';
  * J(ψ₂, q₂) = J(ψ₂, ζ₂) − F₂ J(ψ₁, ψ₂). Each J(ψ_i, ζ_i) is formed as in one layer (nonlinearTerm.ts:
  * (∂xx − ∂yy)(u_i v_i) + ∂x∂y(v_i² − u_i²), docs/fused-step.md), with the same fused stages; the
  * interface term needs both layers' velocities at once, J(ψ₁, ψ₂) = ψ₁ₓψ₂ᵧ − ψ₁ᵧψ₂ₓ = u₁v₂ − u₂v₁,
- * a fifth grid product with a transform of its own. Per evaluation: two inverse pair transforms (u_i,
- * v_i) and three forward ones (the layers' products, then J(ψ₁, ψ₂) with an empty partner), against
- * one and one in one layer. Products of kept modes alias only onto discarded ones (2/3 rule), so on the
+ * a fifth grid product, real, with a transform of half the size of a pair's: read as nx × ny/2
+ * complex values, the real grid X (x-major, (x, y) at x·ny + y) packs its rows 2y′ and 2y′ + 1 as one
+ * complex number, so its x transform runs over ny/2 columns, and `lastStageToBlock`, which unpacks
+ * two real fields a + ib, writes rows 2y′ (a) and 2y′ + 1 (b) of a single-field block of width
+ * Kx + 1, which the y transform takes over Kx + 1 columns. Per evaluation: two inverse pair transforms
+ * (u_i, v_i), two forward ones (the layers' products) and half of one (J(ψ₁, ψ₂)), against one and
+ * one in one layer. Products of kept modes alias only onto discarded ones (2/3 rule), so on the
  * kept modes the result is the Galerkin-truncated term, which conserves the two-layer energy and
  * potential enstrophy.
  *
@@ -33,7 +38,11 @@ export class TwoLayerNonlinearTerm {
   private readonly lin: TwoLayerLinearOperator;
   private readonly xf1: RealTransform2D;
   private readonly xf2: RealTransform2D;
-  private readonly xf3: RealTransform2D;
+  /** J(ψ₁, ψ₂) on the grid, its x and y transforms and its single-field block. */
+  private readonly coupling: Float64Array;
+  private readonly couplingX: BatchFFT;
+  private readonly couplingY: BatchFFT;
+  private readonly couplingBlock: Float64Array;
   /** −1 on every mode: velocitiesFirstStageY forms −q̂·invK2, here −ψ̂·(−1) = ψ̂ exactly. */
   private readonly minusOne: Float64Array;
   private readonly speeds = new Float64Array(4);
@@ -44,7 +53,10 @@ export class TwoLayerNonlinearTerm {
     this.lin = lin;
     this.xf1 = new RealTransform2D(grid, true);
     this.xf2 = new RealTransform2D(grid, true);
-    this.xf3 = new RealTransform2D(grid, true);
+    this.coupling = new Float64Array(grid.size);
+    this.couplingX = new BatchFFT(grid.nx, grid.ny / 2);
+    this.couplingY = new BatchFFT(grid.ny, grid.Kx + 1);
+    this.couplingBlock = new Float64Array(2 * grid.ny * (grid.Kx + 1));
     this.psi1 = new Float64Array(2 * grid.spectralSize);
     this.psi2 = new Float64Array(2 * grid.spectralSize);
     this.minusOne = new Float64Array(grid.spectralSize).fill(-1);
@@ -62,7 +74,7 @@ export class TwoLayerNonlinearTerm {
    * (for buffers that are zero there and stay so, as the stepper's stage buffers).
    */
   evaluateKept(q1: Float64Array, q2: Float64Array, out1: Float64Array, out2: Float64Array): void {
-    const { grid, xf1, xf2, xf3 } = this;
+    const { grid, xf1, xf2 } = this;
     this.invert(q1, q2);
     const y1 = xf1.yTransform;
     velocitiesFirstStageY(this.psi1, this.minusOne, grid, y1.firstRadix, y1.cosT, y1.sinT, xf1.block);
@@ -70,8 +82,8 @@ export class TwoLayerNonlinearTerm {
     const y2 = xf2.yTransform;
     velocitiesFirstStageY(this.psi2, this.minusOne, grid, y2.firstRadix, y2.cosT, y2.sinT, xf2.block);
     const W2 = xf2.inverseFirstStageDoneButLast();
-    // Both x transforms' last stages: the layers' products in place, J(ψ₁, ψ₂) into the third grid.
-    lastStageProductsCoupled(W1, W2, xf3.work, xf1.xLastRun, this.speeds);
+    // Both x transforms' last stages: the layers' products in place, J(ψ₁, ψ₂) into its own grid.
+    lastStageProductsCoupled(W1, W2, this.coupling, xf1.xLastRun, this.speeds);
     this.maxU1 = this.speeds[0];
     this.maxV1 = this.speeds[1];
     this.maxU2 = this.speeds[2];
@@ -80,8 +92,10 @@ export class TwoLayerNonlinearTerm {
     lastStageToTendency(y1.transformButLast(xf1.forwardToBlockButY(W1), -1), out1, grid, scale);
     lastStageToTendency(y2.transformButLast(xf2.forwardToBlockButY(W2), -1), out2, grid, scale);
     const { F1, F2 } = this.lin.coefficients;
-    const block3 = xf3.yTransform.transformButLast(xf3.forwardToBlockButY(xf3.work), -1);
-    lastStageAddCoupling(block3, out1, out2, grid, -F1 * scale, F2 * scale);
+    const X = this.couplingX.transformButLast(this.coupling, -1);
+    lastStageToBlock(X, this.couplingBlock, grid.nx, grid.ny / 2, grid.Kx);
+    const block = this.couplingY.transformButLast(this.couplingBlock, -1);
+    lastStageAddCoupling(block, out1, out2, grid, -F1 * scale, F2 * scale);
     hermitianColumn(out1, grid);
     hermitianColumn(out2, grid);
   }
