@@ -3,7 +3,7 @@ import type { StriaRunInfo } from '../lib/io/cfGlobalAttributes';
 import { SNAPSHOT_FILE, ZONAL_MEAN_FILE } from '../lib/io/cfStria';
 import { snapshotFrame, zonalMeanFrame } from '../lib/io/cfStriaWriter';
 import type { ModelParams } from '../lib/model/params';
-import type { RunHooks } from '../lib/run/monitoredRun';
+import { monitoredParams, monitoredState, type RunHooks } from '../lib/run/monitoredRun';
 import type { OutputProgress } from '../lib/run/runProgress';
 import { NcRecordFile } from './ncRecordFile';
 
@@ -33,6 +33,8 @@ export class RunOutputs {
   private readonly plan: SnapshotPlan | null;
   private readonly run: StriaRunInfo;
   private fields: GridFields | undefined;
+  /** Two layers: the barotropic spectrum the snapshots show (monitoredState). */
+  private barotropic: Float64Array | undefined;
 
   constructor(params: ModelParams, req: RunOutputRequest, run: StriaRunInfo, keep: Partial<OutputCounts> = {}) {
     this.every = req.every ?? 0;
@@ -46,14 +48,17 @@ export class RunOutputs {
       this.snapshots?.close();
       throw e;
     }
-    this.plan = this.snapshots ? new SnapshotPlan(params) : null;
+    // Two layers: the snapshots hold the barotropic flow, as the summary and zonal means do (monitoredParams).
+    this.plan = this.snapshots ? new SnapshotPlan(monitoredParams(params)) : null;
   }
 
   hooks(): RunHooks {
     return {
       onStep: (m) => {
         if (!this.snapshots || m.steps % this.every !== 0) return;
-        this.fields = this.plan!.gridFields(m.qHat, this.fields);
+        const q = monitoredState(m, this.barotropic);
+        if (q !== m.qHat) this.barotropic = q;
+        this.fields = this.plan!.gridFields(q, this.fields);
         this.snapshots.append(snapshotFrame(m.time, m.steps, this.fields));
       },
       onSample: (t, steps, z) => this.zonal?.append(zonalMeanFrame(t, steps, z)),

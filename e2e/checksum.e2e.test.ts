@@ -18,7 +18,7 @@ const base = scenarioById(DEFAULT_SCENARIO_ID)!.params;
  * The default scenario as it is (128²; its CFL target does not bind in the first steps), at 64² with
  * the forcing moved in to k_f = 12 (inside the 64² dealiased range) on a fixed step, with a largest
  * step (dt = 0.2, 0.1) long enough that the adaptive step walks down its ladder, rebuilding the
- * propagators at each rung, with very fast Rossby waves, and with steady forcing.
+ * propagators at each rung, with very fast Rossby waves, with steady forcing, and with two layers.
  */
 const CASES: { name: string; params: ModelParams; adaptive: boolean }[] = [
   { name: '128², the default scenario', params: validateParams({ ...base }), adaptive: false },
@@ -34,6 +34,22 @@ const CASES: { name: string; params: ModelParams; adaptive: boolean }[] = [
     name: '64², β = 10¹⁰',
     params: validateParams({ ...base, nx: 64, ny: 64, kf: 12, cfl: 0, beta: 1e10 }),
     adaptive: false,
+  },
+  // The two-layer model (docs/two-layer.md): 2 × 2 propagators rebuilt at each rung, the coupled Jacobian.
+  {
+    name: '64², two layers, adaptive dt',
+    params: validateParams({
+      ...base,
+      nx: 64,
+      ny: 64,
+      kf: 12,
+      layers: 2,
+      kd: 8,
+      shear: 1.5,
+      depth_ratio: 0.5,
+      dt: 0.2,
+    }),
+    adaptive: true,
   },
   {
     name: '64², steady forcing',

@@ -62,8 +62,8 @@ export class DiagnosticsPublisher {
     const d = this.diag;
     if (d && model) {
       if (needs.spectra && d.spectral.spectraCount === 0)
-        d.spectral.addSpectra(model.qHat, model.time, needs.spectra2d);
-      if (needs.flux && d.spectral.fluxCount === 0) d.spectral.addFlux(model.qHat, model.time);
+        d.spectral.addSpectra(d.sampled(model), model.time, needs.spectra2d);
+      if (needs.flux && d.spectral.fluxCount === 0) d.spectral.addFlux(d.sampled(model), model.time);
     }
     for (const k of KINDS) this.dirty[k] = true;
   }

@@ -6,6 +6,7 @@ import type { TimeWindow, WindowReport } from '../lib/analysis/timeMean';
 import { reachedTime } from '../lib/model/clock';
 import type { Model } from '../lib/model/model';
 import type { ModelParams } from '../lib/model/params';
+import { monitoredParams, monitoredState } from '../lib/run/monitoredRun';
 import type { MonitorStatus } from './diagnosticsApi';
 import { SpectralDiagnostics } from './spectralDiagnostics';
 import { ZonalFrameStore } from './zonalFrameStore';
@@ -43,6 +44,7 @@ export class RunDiagnostics {
   readonly spectral: SpectralDiagnostics;
   readonly since: number;
   private taken = 0;
+  private barotropic: Float64Array | undefined;
   private next: number;
   private worked: { structure: Structure | null; latest: JetReport | null; summary: RunSummary } | null = null;
   private model: { time: number; steps: number } = { time: 0, steps: 0 };
@@ -56,9 +58,17 @@ export class RunDiagnostics {
     this.since = start;
     this.model = { time: start, steps: 0 };
     this.next = start + sampling.sampleEvery;
-    this.monitor = new RunMonitor(params, { window: meanWindow(sampling.meanSpan), start });
+    // Two layers: the diagnostics watch the barotropic flow until they learn the layers (monitoredParams).
+    this.monitor = new RunMonitor(monitoredParams(params), { window: meanWindow(sampling.meanSpan), start });
     this.frames = new ZonalFrameStore(params.ny);
     this.spectral = new SpectralDiagnostics(this.monitor.snap, sampling.spectralAverage);
+  }
+
+  /** The spectrum the diagnostics read: the model's state, or with two layers its barotropic PV. */
+  sampled(model: Model): Float64Array {
+    const q = monitoredState(model, this.barotropic);
+    if (q !== model.qHat) this.barotropic = q;
+    return q;
   }
 
   get samples(): number {
@@ -83,12 +93,13 @@ export class RunDiagnostics {
     this.taken++;
     this.next = this.since + (this.taken + 1) * this.sampling.sampleEvery;
     const t = model.time;
-    const z = this.monitor.sample(model.qHat, t);
+    const q = this.sampled(model);
+    const z = this.monitor.sample(q, t);
     this.frames.add(t, model.steps, z);
     this.lastSample = t;
     this.worked = null;
-    if (wants.spectra) this.spectral.addSpectra(model.qHat, t, wants.spectra2d);
-    if (wants.flux) this.spectral.addFlux(model.qHat, t);
+    if (wants.spectra) this.spectral.addSpectra(q, t, wants.spectra2d);
+    if (wants.flux) this.spectral.addFlux(q, t);
     return true;
   }
 

@@ -28,7 +28,7 @@ const stamp = (t: number) => `t${t.toFixed(2)}`;
 
 /** The current state as a one-record snapshot file (CF NetCDF, docs/file-formats.md). */
 export function snapshotExport(model: Model, diag: RunDiagnostics): ExportedFile {
-  const fields = diag.monitor.snap.gridFields(model.qHat);
+  const fields = diag.monitor.snap.gridFields(diag.sampled(model));
   const bytes = encodeSnapshotFile(runInfo(model, 'export the current state'), [
     snapshotFrame(model.time, model.steps, fields),
   ]);

@@ -45,7 +45,7 @@ const options: OptionSpec[] = [
     name: 'set',
     kind: 'list',
     value: 'KEY=VALUE',
-    help: 'set a parameter (repeatable): beta, kd, mu, nu, nu_order, kf, dkf, eps,\nLx, Ly, nx, ny, dt, cfl, seed, forcing, force_zonal, mu_ls, k_ls, init_energy',
+    help: 'set a parameter (repeatable): beta, kd, mu, nu, nu_order, kf, dkf, eps,\nLx, Ly, nx, ny, dt, cfl, seed, forcing, force_zonal, mu_ls, k_ls, init_energy,\nlayers (1 or 2), shear, depth_ratio (two layers: docs/two-layer.md)',
   },
   { name: 'steps', kind: 'count', value: 'N', help: 'take N steps' },
   {

@@ -1,7 +1,7 @@
 import * as v from 'valibot';
 import { CHECKPOINT_FORMAT, CHECKPOINT_VERSION, type Checkpoint } from '../model/checkpoint';
 import { Grid } from '../model/grid';
-import type { ModelParams } from '../model/params';
+import { storedParams, type ModelParams } from '../model/params';
 import { InputError, isInputError } from '../inputError';
 import { validateParams } from '../model/validateParams';
 import { decodeBase64, encodeBase64 } from './base64';
@@ -16,7 +16,10 @@ import { decodeBase64, encodeBase64 } from './base64';
  *                "qHat": { "encoding": "float64le-base64", "length": L, "data": "…" } } }
  *
  * `qHat` is the PV anomaly spectrum in the half-plane layout of lib/model/grid.ts, L = 2·ny·(nx/2 + 1)
- * numbers as IEEE 754 doubles, little-endian, in standard base64 (RFC 4648, with padding). Numbers in
+ * numbers as IEEE 754 doubles, little-endian, in standard base64 (RFC 4648, with padding); with two
+ * layers (params.layers = 2) the upper layer's spectrum then the lower layer's, L = 4·ny·(nx/2 + 1).
+ * A one-layer run's params leave out the two-layer keys (layers, shear, depth_ratio: `storedParams`),
+ * so its file is the version-1 file it always was; params without them read as one layer. Numbers in
  * the JSON are written by JavaScript's shortest round-trip formatting, so they read back exactly.
  */
 export const RUN_FILE_FORMAT = 'stria-run';
@@ -81,7 +84,7 @@ export function encodeRunFile(cp: Checkpoint, saved: Date = new Date()): string 
     format: RUN_FILE_FORMAT,
     version: RUN_FILE_VERSION,
     saved: saved.toISOString(),
-    params: cp.params,
+    params: storedParams(cp.params),
     state: {
       time: cp.time,
       steps: cp.steps,
@@ -128,12 +131,12 @@ export function decodeRunFile(text: string): Checkpoint {
     );
   }
   const grid = new Grid(params);
-  const expected = 2 * grid.spectralSize;
+  const expected = 2 * params.layers * grid.spectralSize;
   if (state.qHat.length !== expected) {
     throw new InputError(
       'run file',
       'state.qHat.length',
-      `is ${state.qHat.length}, but a ${params.nx} × ${params.ny} grid needs ${expected}`,
+      `is ${state.qHat.length}, but a ${params.nx} × ${params.ny} grid ${params.layers === 2 ? 'of two layers ' : ''}needs ${expected}`,
     );
   }
   const bytes = decodeBase64(state.qHat.data, 'state.qHat.data');
@@ -147,7 +150,8 @@ export function decodeRunFile(text: string): Checkpoint {
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const qHat = new Float64Array(expected);
   for (let i = 0; i < expected; i++) qHat[i] = view.getFloat64(8 * i, true);
-  checkSpectrum(qHat, grid);
+  for (let layer = 0; layer < params.layers; layer++)
+    checkSpectrum(qHat.subarray(layer * 2 * grid.spectralSize, (layer + 1) * 2 * grid.spectralSize), grid, layer);
   const [r0, r1, r2, r3] = state.rng;
   return {
     format: CHECKPOINT_FORMAT,
@@ -162,18 +166,19 @@ export function decodeRunFile(text: string): Checkpoint {
 }
 
 /** Every value finite, and zero on the modes the model never holds (dealiased ones and the mean). */
-function checkSpectrum(qHat: Float64Array, grid: Grid): void {
+function checkSpectrum(qHat: Float64Array, grid: Grid, layer: number): void {
+  const where = (ix: number, jy: number) => `mode (ix ${ix}, jy ${jy})${layer > 0 ? ' of the lower layer' : ''}`;
   for (let jy = 0; jy < grid.ny; jy++) {
     for (let ix = 0; ix < grid.nkx; ix++) {
       const t = 2 * (jy * grid.nkx + ix);
       if (!Number.isFinite(qHat[t]) || !Number.isFinite(qHat[t + 1])) {
-        throw new InputError('run file', 'state.qHat.data', `mode (ix ${ix}, jy ${jy}) is not a finite number`);
+        throw new InputError('run file', 'state.qHat.data', `${where(ix, jy)} is not a finite number`);
       }
       if (!grid.kept(ix, jy) && (qHat[t] !== 0 || qHat[t + 1] !== 0)) {
         throw new InputError(
           'run file',
           'state.qHat.data',
-          `mode (ix ${ix}, jy ${jy}) lies outside the dealiased range but is not zero`,
+          `${where(ix, jy)} lies outside the dealiased range but is not zero`,
         );
       }
     }

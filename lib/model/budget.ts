@@ -1,5 +1,5 @@
 /**
- * Energy and enstrophy budgets of one step, model units. Energy E = ½⟨|∇ψ|² + k_d²ψ²⟩ = ½Σ|q̂|²/K²,
+ * Energy and enstrophy budgets of one step, model units. One layer: energy E = ½⟨|∇ψ|² + k_d²ψ²⟩ = ½Σ|q̂|²/K²,
  * kinetic energy KE = ½⟨|∇ψ|²⟩, potential enstrophy Z = ½⟨q²⟩ (domain means; sums over the full
  * plane). Rates are instantaneous, at the state the step starts from:
  *   dE/dt = injection − drag − hyper − largeScale + transfer,
@@ -7,6 +7,11 @@
  * to round-off. So `transfer` is the budget's residual: it closes to round-off at every step.
  * Injection is the ensemble-mean rate for white-noise forcing (ε, exact for additive noise), the
  * instantaneous rate ⟨−ψ F⟩ for steady forcing. `realized*` are what the step actually did.
+ *
+ * Two layers (docs/two-layer.md), h_i = H_i/H: E = ½Σ_i h_i⟨|∇ψ_i|²⟩ + ½F₁h₁⟨(ψ₁ − ψ₂)²⟩ (kinetic energy
+ * of each layer and the available potential energy of the interface), Z = ½Σ_i h_i⟨q_i²⟩; the drag
+ * acts on the lower layer (energy loss 2μ·KE₂), the imposed shear adds `generation`, and `layers`
+ * carries the split of the energy and the heat flux.
  */
 export interface QuadraticBudget {
   /** Value at the start of the step. */
@@ -23,6 +28,24 @@ export interface QuadraticBudget {
   realizedTendency: number;
   /** What this step's random kick added, divided by dt (0 unless the forcing is stochastic). */
   realizedInjection: number;
+  /**
+   * Two layers only (absent in one): the rate at which the imposed shear feeds the eddies, through
+   * the mean PV gradients. Energy: F₁(H₁/H)(U₁ − U₂)⟨v τ⟩, the eddy interface (heat) flux times the
+   * shear; enstrophy: k_d² times that. Then tendency = injection + generation − drag − hyper −
+   * largeScale + transfer.
+   */
+  generation?: number;
+}
+
+/** The two-layer parts of a step report (model units, at the start of the step). */
+export interface TwoLayerTerms {
+  /** Kinetic energy of the upper and of the lower layer, ½(H_i/H)⟨|∇ψ_i|²⟩; their sum is `kinetic`. */
+  kineticUpper: number;
+  kineticLower: number;
+  /** Available potential energy of the interface, ½F₁(H₁/H)⟨(ψ₁ − ψ₂)²⟩; E = kinetic + potential. */
+  potential: number;
+  /** Eddy interface (heat) flux ⟨v τ⟩, τ = ψ₁ − ψ₂, v of either layer (the two give the same mean). */
+  heatFlux: number;
 }
 
 export interface StepReport {
@@ -37,6 +60,8 @@ export interface StepReport {
   kinetic: number;
   energy: QuadraticBudget;
   enstrophy: QuadraticBudget;
+  /** Two layers only (absent in one). */
+  layers?: TwoLayerTerms;
 }
 
 export function emptyBudget(): QuadraticBudget {
@@ -69,5 +94,7 @@ export function emptyReport(): StepReport {
 
 /** A plain copy, safe to keep or send (reports are reused and overwritten step after step). */
 export function copyReport(r: StepReport): StepReport {
-  return { ...r, energy: { ...r.energy }, enstrophy: { ...r.enstrophy } };
+  const copy: StepReport = { ...r, energy: { ...r.energy }, enstrophy: { ...r.enstrophy } };
+  if (r.layers) copy.layers = { ...r.layers };
+  return copy;
 }

@@ -1,5 +1,4 @@
 import type { Grid } from './grid';
-import type { LinearOperator } from './linearOperator';
 import type { ModelParams } from './params';
 import { RandomStream } from './randomStream';
 
@@ -31,7 +30,12 @@ export class Forcing {
   private readonly invK2: Float64Array;
   private readonly draw = new Float64Array(2);
 
-  constructor(grid: Grid, p: ModelParams, lin: LinearOperator) {
+  /**
+   * `lin.invK2` is 1/K² of the energy the forcing is normalised on: the model's 1/(k² + k_d²) in one
+   * layer, the barotropic 1/k² in two (the forcing adds the same increment to both layers, which
+   * changes the barotropic PV alone; its energy is ½|Δq̂|²/k²).
+   */
+  constructor(grid: Grid, p: ModelParams, lin: { readonly invK2: Float64Array }) {
     this.kind = p.forcing;
     this.invK2 = lin.invK2;
     const modes: number[] = [];
@@ -113,4 +117,60 @@ export class Forcing {
     injected[0] = dE;
     injected[1] = dZ;
   }
+
+  /**
+   * The two-layer kick: the same increment √dt·ξ (the same draws as `kick`) added to q̂₁ and q̂₂, a
+   * change of the barotropic PV alone. `injected` gets the change of the two-layer energy
+   * E = ½Σ(|h₁q̂₁ + h₂q̂₂|²/k² + h₁h₂|q̂₁ − q̂₂|²/(k² + k_d²)) and of the enstrophy ½Σ(h₁|q̂₁|² + h₂|q̂₂|²),
+   * mode by mode from the values before and after (`ib` = 1/k², `ic` = 1/(k² + k_d²)).
+   */
+  kickBothLayers(
+    q1: Float64Array,
+    q2: Float64Array,
+    dt: number,
+    rng: RandomStream,
+    layers: { h1: number; h2: number; ib: Float64Array; ic: Float64Array },
+    injected: Float64Array,
+  ): void {
+    const varDt = this.variance * dt;
+    const draw = this.draw;
+    const { h1, h2, ib, ic } = layers;
+    const h12 = h1 * h2;
+    let dE = 0;
+    let dZ = 0;
+    for (let i = 0; i < this.modes.length; i++) {
+      const q = this.modes[i];
+      rng.complexGaussian(varDt, draw);
+      const t = 2 * q;
+      const ar0 = q1[t],
+        ai0 = q1[t + 1],
+        br0 = q2[t],
+        bi0 = q2[t + 1];
+      const ar1 = ar0 + draw[0],
+        ai1 = ai0 + draw[1],
+        br1 = br0 + draw[0],
+        bi1 = bi0 + draw[1];
+      q1[t] = ar1;
+      q1[t + 1] = ai1;
+      q2[t] = br1;
+      q2[t + 1] = bi1;
+      const mq = this.mirrors[i];
+      if (mq >= 0) {
+        q1[2 * mq] = ar1;
+        q1[2 * mq + 1] = -ai1;
+        q2[2 * mq] = br1;
+        q2[2 * mq + 1] = -bi1;
+      }
+      dE +=
+        (sq(h1 * ar1 + h2 * br1, h1 * ai1 + h2 * bi1) - sq(h1 * ar0 + h2 * br0, h1 * ai0 + h2 * bi0)) * ib[q] +
+        h12 * (sq(ar1 - br1, ai1 - bi1) - sq(ar0 - br0, ai0 - bi0)) * ic[q];
+      dZ += h1 * (sq(ar1, ai1) - sq(ar0, ai0)) + h2 * (sq(br1, bi1) - sq(br0, bi0));
+    }
+    injected[0] = dE;
+    injected[1] = dZ;
+  }
+}
+
+function sq(re: number, im: number): number {
+  return re * re + im * im;
 }

@@ -3,28 +3,39 @@ import { CHECKPOINT_FORMAT, CHECKPOINT_VERSION, type Checkpoint } from './checkp
 import { fieldSpectrum, type FieldName } from './fields';
 import { Forcing } from './forcing';
 import { Grid } from './grid';
+import { layerFieldSpectrum, type LayerView } from './layerFields';
 import { LinearOperator } from './linearOperator';
 import { NonlinearTerm } from './nonlinearTerm';
-import type { ModelParams } from './params';
+import { ONE_LAYER_VALUES, type ModelParams } from './params';
 import { RandomStream, type RandomState } from './randomStream';
 import { RealTransform2D } from './realTransform2D';
 import { regridSpectrum } from './regrid';
 import { Stepper } from './stepper';
+import { TwoLayerLinearOperator } from './twoLayerLinear';
+import { TwoLayerNonlinearTerm } from './twoLayerNonlinear';
+import { TwoLayerStepper } from './twoLayerStepper';
 import { validateParams } from './validateParams';
 
 /**
  * A running model: validated parameters, the plan objects built once for its grid, and the state.
  * Same parameters, seed and number of steps give the same bits.
+ *
+ * One layer (layers = 1) or two (layers = 2, the Phillips model: docs/two-layer.md). The two-layer
+ * state is one array, q̂₁ then q̂₂; its fields are read per view (`LayerView`: a layer, the barotropic
+ * or the baroclinic flow), the barotropic one by default.
  */
 export class Model {
   params: ModelParams;
   readonly grid: Grid;
   /** Transforms on kept modes only (the state never holds others). */
   readonly transform: RealTransform2D;
+  /** One layer: the model's linear operator; two layers: that of the barotropic mode (k_d = 0). */
   private lin: LinearOperator;
+  /** Two layers: the coupled linear operator; null in one layer. */
+  private lin2: TwoLayerLinearOperator | null = null;
   private forcing: Forcing;
   private rng: RandomStream;
-  private stepper: Stepper;
+  private stepper: Stepper | TwoLayerStepper;
   private readonly spec: Float64Array;
 
   /** `blank` skips the initial random field (for restoring a state). */
@@ -34,39 +45,66 @@ export class Model {
     this.grid = new Grid(p);
     this.transform = new RealTransform2D(this.grid, true);
     this.rng = new RandomStream(p.seed);
-    this.lin = new LinearOperator(this.grid, p);
-    this.forcing = new Forcing(this.grid, p, this.lin);
+    this.lin = this.buildOperators(p);
+    this.forcing = this.buildForcing(p);
     this.stepper = this.buildStepper(p);
     this.spec = new Float64Array(2 * this.grid.spectralSize);
     if (p.init_energy > 0 && !blank) this.seedInitialField(p);
   }
 
-  private buildStepper(p: ModelParams): Stepper {
+  /** The linear operator(s) for p; sets lin2 (two layers) and returns lin. */
+  private buildOperators(p: ModelParams): LinearOperator {
+    if (p.layers === 1) {
+      this.lin2 = null;
+      return new LinearOperator(this.grid, p);
+    }
+    this.lin2 = new TwoLayerLinearOperator(this.grid, p);
+    return new LinearOperator(this.grid, { ...p, ...ONE_LAYER_VALUES, kd: 0, mu: 0 });
+  }
+
+  /** One layer: normalised on 1/K²; two layers: on the barotropic 1/k² (it forces both layers alike). */
+  private buildForcing(p: ModelParams): Forcing {
+    return new Forcing(this.grid, p, this.lin2 ? { invK2: this.lin2.invK2Barotropic } : this.lin);
+  }
+
+  private buildStepper(p: ModelParams): Stepper | TwoLayerStepper {
+    if (this.lin2) {
+      const nl2 = new TwoLayerNonlinearTerm(this.grid, this.lin2);
+      return new TwoLayerStepper(this.grid, p, this.lin2, nl2, this.forcing, this.rng);
+    }
     const nl = new NonlinearTerm(this.grid, this.lin, this.transform);
     return new Stepper(this.grid, p, this.lin, nl, this.forcing, this.rng);
   }
 
-  /** A random field on the forcing annulus with energy init_energy, from its own seeded stream. */
+  /**
+   * A random field on the forcing annulus with energy init_energy, from its own seeded stream. Two
+   * layers: each layer its own random phases (layer 1 draws first), so the field has barotropic and
+   * baroclinic parts, scaled to the two-layer energy.
+   */
   private seedInitialField(p: ModelParams): void {
     const init = new RandomStream((p.seed ^ 0x9e3779b9) >>> 0);
     const q = this.stepper.qHat;
-    const f = this.forcing.modes.length
-      ? this.forcing
-      : new Forcing(this.grid, { ...p, forcing: 'stochastic' }, this.lin);
+    const f = this.forcing.modes.length ? this.forcing : this.buildForcing({ ...p, forcing: 'stochastic' });
     let e = 0;
     const cs = new Float64Array(2);
-    for (let i = 0; i < f.modes.length; i++) {
-      const m = f.modes[i];
-      init.phase(cs);
-      q[2 * m] = cs[0];
-      q[2 * m + 1] = cs[1];
-      e += this.lin.invK2[m];
-      const mm = f.mirrors[i];
-      if (mm >= 0) {
-        q[2 * mm] = q[2 * m];
-        q[2 * mm + 1] = -q[2 * m + 1];
+    const layers = this.lin2 ? 2 : 1;
+    const n = 2 * this.grid.spectralSize;
+    for (let layer = 0; layer < layers; layer++) {
+      const o = layer * n;
+      for (let i = 0; i < f.modes.length; i++) {
+        const m = f.modes[i];
+        init.phase(cs);
+        q[o + 2 * m] = cs[0];
+        q[o + 2 * m + 1] = cs[1];
+        if (!this.lin2) e += this.lin.invK2[m];
+        const mm = f.mirrors[i];
+        if (mm >= 0) {
+          q[o + 2 * mm] = q[o + 2 * m];
+          q[o + 2 * mm + 1] = -q[o + 2 * m + 1];
+        }
       }
     }
+    if (this.lin2) e = twoLayerEnergy(q, this.grid, this.lin2);
     const scale = e > 0 ? Math.sqrt(p.init_energy / e) : 0;
     for (let i = 0; i < q.length; i++) q[i] *= scale;
   }
@@ -89,6 +127,10 @@ export class Model {
   get qHat(): Float64Array {
     return this.stepper.qHat;
   }
+  /** Number of layers, 1 or 2. */
+  get layers(): 1 | 2 {
+    return this.lin2 ? 2 : 1;
+  }
   /** The random stream's state now (four numbers): with qHat, time, steps and dt, a checkpoint without copying the spectrum. */
   randomState(): RandomState {
     return this.rng.getState();
@@ -97,9 +139,16 @@ export class Model {
   get forcedModes(): number {
     return this.forcing.count;
   }
-  /** The linear operator (damping rates, 1/K²) for diagnostics that need them. */
+  /**
+   * The linear operator (damping rates, 1/K²) for diagnostics that need them; with two layers, that
+   * of the barotropic mode (1/k², the damping of q in both layers, no drag: see `twoLayerLinear`).
+   */
   get linear(): LinearOperator {
     return this.lin;
+  }
+  /** The two-layer linear operator (coefficients, inversions, propagators); null in one layer. */
+  get twoLayerLinear(): TwoLayerLinearOperator | null {
+    return this.lin2;
   }
 
   /** Advance n steps; returns the last step's report. Throws BlowUpError, leaving the last good state. */
@@ -108,26 +157,43 @@ export class Model {
     return this.stepper.report;
   }
 
-  /** Replace the state by a spectrum (half-plane layout); modes the model does not keep are dropped. */
+  /**
+   * Replace the state by a spectrum (half-plane layout; two layers: q̂₁ then q̂₂); modes the model does
+   * not keep are dropped.
+   */
   setState(qHat: Float64Array): void {
     const q = this.stepper.qHat;
     if (qHat.length !== q.length) throw new RangeError(`setState: expected ${q.length} values, got ${qHat.length}`);
     const kept = this.lin.kept;
-    for (let m = 0; m < kept.length; m++) {
-      q[2 * m] = kept[m] ? qHat[2 * m] : 0;
-      q[2 * m + 1] = kept[m] ? qHat[2 * m + 1] : 0;
+    for (let o = 0; o < q.length; o += 2 * kept.length) {
+      for (let m = 0; m < kept.length; m++) {
+        q[o + 2 * m] = kept[m] ? qHat[o + 2 * m] : 0;
+        q[o + 2 * m + 1] = kept[m] ? qHat[o + 2 * m + 1] : 0;
+      }
     }
   }
 
-  /** Spectrum of a field (half-plane layout) into out, or a new array. */
-  spectrum(name: FieldName, out: Float64Array = new Float64Array(2 * this.grid.spectralSize)): Float64Array {
-    fieldSpectrum(name, this.stepper.qHat, this.grid, this.lin, out);
+  /**
+   * Spectrum of a field (half-plane layout) into out, or a new array. Two layers: of the view asked
+   * for (default the barotropic flow; layerFields.ts); one layer: `view` is ignored.
+   */
+  spectrum(
+    name: FieldName,
+    out: Float64Array = new Float64Array(2 * this.grid.spectralSize),
+    view: LayerView = 'barotropic',
+  ): Float64Array {
+    if (this.lin2) layerFieldSpectrum(name, view, this.stepper.qHat, this.grid, this.lin2, out);
+    else fieldSpectrum(name, this.stepper.qHat, this.grid, this.lin, out);
     return out;
   }
 
-  /** A field on the grid (row-major, y slow) into out, or a new array. */
-  field(name: FieldName, out: Float64Array = new Float64Array(this.grid.size)): Float64Array {
-    fieldSpectrum(name, this.stepper.qHat, this.grid, this.lin, this.spec);
+  /** A field on the grid (row-major, y slow) into out, or a new array; `view` as for `spectrum`. */
+  field(
+    name: FieldName,
+    out: Float64Array = new Float64Array(this.grid.size),
+    view: LayerView = 'barotropic',
+  ): Float64Array {
+    this.spectrum(name, this.spec, view);
     this.transform.inverse(this.spec, out);
     return out;
   }
@@ -170,11 +236,16 @@ export class Model {
   reconfigure(changes: Partial<ModelParams>): Model {
     const next = validateParams({ ...this.params, ...changes });
     const old = this.params;
-    if (next.Lx !== old.Lx || next.Ly !== old.Ly) return new Model(next);
+    if (next.Lx !== old.Lx || next.Ly !== old.Ly || next.layers !== old.layers) return new Model(next);
     const rng = next.seed === old.seed ? this.rng.getState() : new RandomStream(next.seed).getState();
     if (next.nx !== old.nx || next.ny !== old.ny) {
       const m = new Model(next, true);
-      m.stepper.qHat.set(regridSpectrum(this.stepper.qHat, this.grid, m.grid));
+      const from = 2 * this.grid.spectralSize;
+      const to = 2 * m.grid.spectralSize;
+      for (let layer = 0; layer < next.layers; layer++) {
+        const q = this.stepper.qHat.subarray(layer * from, (layer + 1) * from);
+        m.stepper.qHat.set(regridSpectrum(q, this.grid, m.grid), layer * to);
+      }
       m.stepper.time = this.stepper.time;
       m.stepper.steps = this.stepper.steps;
       m.rng.setState(rng);
@@ -183,8 +254,8 @@ export class Model {
     const cp = this.checkpoint();
     this.params = next;
     this.rng.setState(rng);
-    this.lin = new LinearOperator(this.grid, next);
-    this.forcing = new Forcing(this.grid, next, this.lin);
+    this.lin = this.buildOperators(next);
+    this.forcing = this.buildForcing(next);
     this.stepper = this.buildStepper(next);
     this.stepper.qHat.set(cp.qHat);
     this.stepper.time = cp.time;
@@ -192,4 +263,22 @@ export class Model {
     this.stepper.dt = Math.min(cp.dt, next.dt);
     return this;
   }
+}
+
+/** The two-layer energy ½Σ(|h₁q̂₁ + h₂q̂₂|²/k² + h₁h₂|q̂₁ − q̂₂|²/(k² + k_d²)) of a state (full plane). */
+function twoLayerEnergy(q: Float64Array, grid: Grid, lin: TwoLayerLinearOperator): number {
+  const { h1, h2 } = lin.coefficients;
+  const n = 2 * grid.spectralSize;
+  let e = 0;
+  for (let m = 0; m < grid.spectralSize; m++) {
+    if (!lin.kept[m]) continue;
+    const t = 2 * m;
+    const br = h1 * q[t] + h2 * q[n + t];
+    const bi = h1 * q[t + 1] + h2 * q[n + t + 1];
+    const cr = q[t] - q[n + t];
+    const ci = q[t + 1] - q[n + t + 1];
+    const w = m % grid.nkx === 0 ? 0.5 : 1;
+    e += w * ((br * br + bi * bi) * lin.invK2Barotropic[m] + h1 * h2 * (cr * cr + ci * ci) * lin.invK2Baroclinic[m]);
+  }
+  return e;
 }

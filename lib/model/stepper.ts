@@ -92,13 +92,7 @@ export class Stepper {
    * (each change rebuilds the propagators).
    */
   private chooseStep(speed: number): number {
-    if (this.cfl <= 0) return this.dtMax;
-    const target = speed > 0 ? this.cfl / speed : Infinity;
-    if (!(target > 0)) return NaN; // non-finite speed: step() refuses it
-    // Rungs below MIN_STEP_FRACTION are refused by step(); no need to count further.
-    const j = target >= this.dtMax ? 0 : Math.min(8 * 41, firstRungBelow(this.dtMax, target));
-    const rung = this.dtMax * ladderFactor(j);
-    return rung < this.dt || rung > this.dt * 1.18 ? rung : this.dt;
+    return adaptiveStep(this.dtMax, this.cfl, this.dt, speed);
   }
 
   /** Advance one step. Throws BlowUpError (state unchanged) on a non-finite result or CFL > CFL_LIMIT. */
@@ -265,6 +259,21 @@ export class Stepper {
     fill(r.energy, e, eInj, eDrag, eHyper, eLs, eTr);
     fill(r.enstrophy, z, zInj, zDrag, zHyper, zLs, zTr);
   }
+}
+
+/**
+ * The adaptive step (Stepper.chooseStep, shared with the two-layer stepper): dtMax when cfl = 0, else
+ * the largest rung dtMax·2^(−j/8) with dt·speed ≤ cfl, kept at dtNow unless it must fall or can rise
+ * by two rungs or more; NaN for a non-finite speed (the caller refuses the step).
+ */
+export function adaptiveStep(dtMax: number, cfl: number, dtNow: number, speed: number): number {
+  if (cfl <= 0) return dtMax;
+  const target = speed > 0 ? cfl / speed : Infinity;
+  if (!(target > 0)) return NaN; // non-finite speed: step() refuses it
+  // Rungs below MIN_STEP_FRACTION are refused by step(); no need to count further.
+  const j = target >= dtMax ? 0 : Math.min(8 * 41, firstRungBelow(dtMax, target));
+  const rung = dtMax * ladderFactor(j);
+  return rung < dtNow || rung > dtNow * 1.18 ? rung : dtNow;
 }
 
 /** 2^(−r/8), r = 0..7, as literals: the same bits on every engine (unlike Math.pow). */

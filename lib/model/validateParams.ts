@@ -1,6 +1,6 @@
 import * as v from 'valibot';
 import { InputError, type InputIssue } from '../inputError';
-import { DEFAULT_PARAMS, SIZE_MAX, SIZE_MIN, type ModelParams } from './params';
+import { DEFAULT_PARAMS, ONE_LAYER_VALUES, SIZE_MAX, SIZE_MIN, type ModelParams } from './params';
 
 const isPow2 = (n: number) => Number.isInteger(n) && n > 0 && (n & (n - 1)) === 0;
 
@@ -47,6 +47,12 @@ export const ModelParamsSchema = v.strictObject({
   ),
   init_energy: real('initial energy', 0, 1e12),
   scheme: v.picklist(['ifrk4'], 'must be "ifrk4"'),
+  layers: v.pipe(
+    v.number('number of layers: 1 or 2'),
+    v.check((n) => n === 1 || n === 2, 'must be 1 or 2'),
+  ),
+  shear: real('vertical shear U₁ − U₂', -1e12, 1e12),
+  depth_ratio: real('depth ratio δ = H₁/H₂', 1e-3, 1e3),
 });
 
 /** Largest wavenumber magnitude whose whole disc survives the 2/3 rule on this grid. */
@@ -124,6 +130,23 @@ export function validateParams(input: unknown, base: Readonly<ModelParams> = DEF
       value: p.k_ls,
       message: `large-scale drag cutoff must lie below the dealiased range, < ${fmt(kMax)}`,
     });
+  }
+  if (p.layers === 2 && !(p.kd > 0)) {
+    issues.push({
+      field: 'kd',
+      value: p.kd,
+      message: 'two layers need a deformation wavenumber k_d > 0 (the interface couples the layers through it)',
+    });
+  }
+  if (p.layers === 1) {
+    for (const key of ['shear', 'depth_ratio'] as const) {
+      if (p[key] !== ONE_LAYER_VALUES[key])
+        issues.push({
+          field: key,
+          value: p[key],
+          message: `applies to two layers only: set layers = 2, or leave it at ${ONE_LAYER_VALUES[key]}`,
+        });
+    }
   }
   if (issues.length) throw new InputError('parameters', issues);
   return p;

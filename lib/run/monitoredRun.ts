@@ -3,6 +3,7 @@ import { summarize, type RunSummary } from '../analysis/summary';
 import type { ZonalMeans } from '../analysis/zonalMean';
 import { reachedTime } from '../model/clock';
 import type { Model } from '../model/model';
+import { ONE_LAYER_VALUES, type ModelParams } from '../model/params';
 import { captureState, restoreState, type CapturedState } from './dataState';
 import type { RunPlan } from './runPlan';
 import type { SteadyCriterion } from '../analysis/steadyCriterion';
@@ -37,7 +38,7 @@ export interface MonitoredRunState {
 export const TIME_MEAN_CAP = 256;
 
 // Fields that are configuration or plan objects rebuilt identically by the constructor, not state.
-const RUN_CONFIG = ['current', 'plan', 'monitor', 'hooks', 'startTime', 'startSteps'];
+const RUN_CONFIG = ['current', 'plan', 'monitor', 'hooks', 'startTime', 'startSteps', 'barotropic'];
 const MONITOR_CONFIG = [
   'params',
   'snap',
@@ -76,6 +77,8 @@ export class MonitoredRun {
   private nextSample: number;
   private samplesTaken = 0;
   private reason: StopReason | null = null;
+  /** Two layers: the barotropic spectrum the monitor samples (monitoredState). */
+  private barotropic: Float64Array | undefined;
 
   constructor(
     model: Model,
@@ -90,7 +93,7 @@ export class MonitoredRun {
     this.startSteps = origin.steps;
     // The monitor's steady-state test is the stop rule's when the run stops at the steady state.
     const test = plan.stop.kind === 'steady' ? { window: plan.stop.window, tolerance: plan.stop.tolerance } : undefined;
-    this.monitor = new RunMonitor(model.params, {
+    this.monitor = new RunMonitor(monitoredParams(model.params), {
       window: { kind: 'last', span: plan.average, cap: TIME_MEAN_CAP },
       steady: test,
       start: origin.time,
@@ -124,7 +127,9 @@ export class MonitoredRun {
       if (reachedTime(m.time, this.nextSample, report.dt)) {
         this.samplesTaken++;
         this.nextSample = this.startTime + (this.samplesTaken + 1) * this.plan.sampleEvery;
-        const z = this.monitor.sample(m.qHat, m.time);
+        const q = monitoredState(m, this.barotropic);
+        if (q !== m.qHat) this.barotropic = q;
+        const z = this.monitor.sample(q, m.time);
         this.hooks.onSample?.(m.time, m.steps, z);
       }
       this.reason = this.stopNow();
@@ -217,4 +222,26 @@ export class MonitoredRun {
       throw e;
     }
   }
+}
+
+/**
+ * The parameters the run's diagnostics see. One layer: the run's. Two layers: their barotropic flow
+ * as a one-layer flow with k_d = 0 (its PV h₁q₁ + h₂q₂ is its relative vorticity, its mean PV
+ * gradient β), so today's summary, zonal means and snapshots describe the barotropic flow of a
+ * two-layer run until the diagnostics learn the layers.
+ */
+export function monitoredParams(p: ModelParams): ModelParams {
+  return p.layers === 2 ? { ...p, ...ONE_LAYER_VALUES, kd: 0 } : p;
+}
+
+/**
+ * The spectrum the diagnostics sample (see monitoredParams): the model's state in one layer, the
+ * barotropic PV in two, written into `buffer` (a new array when it is missing or of another length;
+ * keep what comes back to reuse it).
+ */
+export function monitoredState(model: Model, buffer?: Float64Array): Float64Array {
+  if (model.layers === 1) return model.qHat;
+  const n = 2 * model.grid.spectralSize;
+  const out = buffer?.length === n ? buffer : new Float64Array(n);
+  return model.spectrum('q', out, 'barotropic');
 }

@@ -1,4 +1,4 @@
-import type { ModelParams } from '../model/params';
+import { storedParams, type ModelParams } from '../model/params';
 import type { RunPlan } from './runPlan';
 
 /**
@@ -9,11 +9,12 @@ import type { RunPlan } from './runPlan';
  * ids (and so the results) of the runs it already had.
  *
  * The digest is 64-bit FNV-1a over the UTF-8 bytes of the canonical JSON (object keys sorted at every
- * level, numbers in JavaScript's shortest round-trip form). 64 bits make an accidental collision
+ * level, numbers in JavaScript's shortest round-trip form) of the parameters as stored (`storedParams`:
+ * a one-layer run without the two-layer keys, so it keeps the id it had before they existed). 64 bits make an accidental collision
  * among a million runs about a 1-in-10⁷ event; the id is a name, not a security measure.
  */
 export function runId(params: ModelParams, plan: RunPlan): string {
-  return `r${fnv1a64(canonicalJson({ params, plan }))}`;
+  return `r${fnv1a64(canonicalJson({ params: storedParams(params), plan }))}`;
 }
 
 /** JSON with object keys sorted at every level; refuses values JSON cannot hold exactly. */

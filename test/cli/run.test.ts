@@ -122,6 +122,30 @@ describe('stria run', () => {
     expect(JSON.parse(readFileSync(resumed, 'utf8')).state).toEqual(JSON.parse(readFileSync(whole, 'utf8')).state);
   });
 
+  // A two-layer run from the command line: the parameters come from the model's schema, today's summary
+  // describes the barotropic flow, the saved file holds both layers and resumes bit for bit.
+  it('runs two layers with --set layers=2, and resumes them bit for bit', async () => {
+    const TWO = [...TINY_SETS, '--set', 'layers=2', '--set', 'shear=0.3', '--set', 'kd=3', '--set', 'depth_ratio=0.5'];
+    const whole = join(dir, 'two-whole.json');
+    const half = join(dir, 'two-half.json');
+    const resumed = join(dir, 'two-resumed.json');
+    const r = await striaHere(['run', ...TWO, '--steps', '40', '--json', '--save', whole]);
+    expect(r.status, r.stderr).toBe(0);
+    const summary = JSON.parse(r.stdout);
+    for (const k of SUMMARY_KEYS) expect(summary).toHaveProperty(k);
+    expect(summary.steps).toBe(40);
+    const file = JSON.parse(readFileSync(whole, 'utf8'));
+    expect(file.params).toMatchObject({ layers: 2, shear: 0.3, kd: 3, depth_ratio: 0.5 });
+    expect(file.state.qHat.length).toBe(4 * 32 * 17);
+    expect((await striaHere(['run', ...TWO, '--steps', '20', '--save', half])).status).toBe(0);
+    const back = await striaHere(['run', half, '--steps', '20', '--save', resumed, '--json']);
+    expect(back.status, back.stderr).toBe(0);
+    expect(JSON.parse(readFileSync(resumed, 'utf8')).state).toEqual(file.state);
+    const refused = await striaHere(['run', ...TINY_SETS, '--set', 'layers=2', '--steps', '5']);
+    expect(refused.status).toBe(2);
+    expect(refused.stderr).toMatch(/parameter kd = 0: two layers need a deformation wavenumber k_d > 0/);
+  });
+
   it('stops at the steady state under strong drag and says so', () => {
     const r = stria([
       'run',

@@ -120,3 +120,48 @@ describe('run file', () => {
     expect(refusal(encodeRunFile({ ...cp, qHat: mean })).reason).toMatch(/ix 0, jy 0/);
   });
 });
+
+describe('run files of two-layer runs', () => {
+  const TWO = { ...SMALL, layers: 2, kd: 3, shear: 0.4, depth_ratio: 0.5, beta: 1, init_energy: 0.01 };
+
+  it('hold both layers and resume bit for bit, in version 1', () => {
+    const original = new Model(TWO);
+    original.step(5);
+    const cp = original.checkpoint();
+    const text = encodeRunFile(cp);
+    const file = JSON.parse(text);
+    expect(file.version).toBe(1);
+    expect(file.params.layers).toBe(2);
+    expect(file.state.qHat.length).toBe(4 * 32 * 17);
+    const back = decodeRunFile(text);
+    expect(back.params).toEqual(cp.params);
+    expect(new Uint32Array(back.qHat.buffer)).toEqual(new Uint32Array(cp.qHat.buffer));
+    const resumed = Model.restore(back);
+    original.step(4);
+    resumed.step(4);
+    expect(new Uint32Array(resumed.qHat.slice().buffer)).toEqual(new Uint32Array(original.qHat.slice().buffer));
+  });
+
+  it('write one-layer runs without the two-layer keys, and read files without them as one layer', () => {
+    const file = fileObject();
+    expect(Object.keys(file.params)).not.toContain('layers');
+    expect(Object.keys(file.params)).not.toContain('shear');
+    expect(Object.keys(file.params)).not.toContain('depth_ratio');
+    const back = decodeRunFile(JSON.stringify(file));
+    expect(back.params.layers).toBe(1);
+    expect(back.qHat.length).toBe(2 * 32 * 17);
+  });
+
+  it('refuse a spectrum of the wrong length for the layers, or a bad lower layer, naming it', () => {
+    const m = new Model(TWO);
+    const cp = m.checkpoint();
+    expect(refusal(encodeRunFile({ ...cp, qHat: cp.qHat.slice(0, 2 * 32 * 17) })).reason).toMatch(
+      /a 32 × 32 grid of two layers needs 2176/,
+    );
+    const outside = cp.qHat.slice();
+    outside[2 * 32 * 17 + 2 * 16] = 1e-3;
+    expect(refusal(encodeRunFile({ ...cp, qHat: outside })).reason).toMatch(
+      /mode \(ix 16, jy 0\) of the lower layer lies outside the dealiased range/,
+    );
+  });
+});

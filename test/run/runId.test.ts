@@ -32,4 +32,14 @@ describe('run ids', () => {
     expect(runId({ ...p, beta: 10 + 1e-12 }, plan)).not.toBe(id);
     expect(runId(p, { ...plan, average: 4 })).not.toBe(id);
   });
+
+  // Ids are stored in checkpoints and sweep records: a one-layer run keeps the id it had before the
+  // two-layer keys existed (this value was computed by the code of that time), a two-layer run has its own.
+  it('keeps the ids of one-layer runs from before the two-layer keys', () => {
+    const plan: RunPlan = { stop: { kind: 'until', time: 10 }, average: 5, sampleEvery: 0.5 };
+    expect(runId({ ...DEFAULT_PARAMS }, plan)).toBe('rcfb689369c32e1df');
+    const two = runId({ ...DEFAULT_PARAMS, layers: 2, kd: 1 }, plan);
+    expect(two).not.toBe(runId({ ...DEFAULT_PARAMS, kd: 1 }, plan));
+    expect(runId({ ...DEFAULT_PARAMS, layers: 2, kd: 1, shear: 0.1 }, plan)).not.toBe(two);
+  });
 });
