@@ -77,7 +77,7 @@ describe('stria analyze', () => {
     for (const [argv, msg] of [
       [[], 'stria analyze needs one FILE, got 0'],
       [['a.nc', 'b.nc'], 'stria analyze needs one FILE, got 2'],
-      [['a.nc', '--map', 'speed=U'], '--map: "speed" is not a role (roles: u, v, zeta, psi, q, ubar)'],
+      [['a.nc', '--map', 'speed=U'], '--map: "speed" is not a role (roles: u, v, zeta, psi, q, ubar, upvp, vpqp, eke)'],
       [['a.nc', '--periodic', 'z'], '--periodic must be xy, x, y or none, got "z"'],
       [['a.nc', '--lat0', '45'], '--lat0 and --lon0 place the tangent plane of a planet: give --planet too'],
       [['a.nc', '--planet', 'mars'], '--planet must be one of earth, jupiter, got "mars"'],

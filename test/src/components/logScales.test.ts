@@ -57,10 +57,11 @@ describe('boundLogScales', () => {
 
   it('leaves linear scales, and a range or splits the chart sets itself, as they are', () => {
     const own = (_u: uPlot, lo: number, hi: number): [number, number] => [lo, hi];
-    const o = boundLogScales({
+    const given: Pick<uPlot.Options, 'scales' | 'axes'> = {
       scales: { x: { time: false }, y: { distr: 3, log: 10, range: own } },
       axes: [{}, { scale: 'y' }],
-    });
+    };
+    const o = boundLogScales(given);
     expect(o.scales!.y.range).toBe(own);
     expect(o.scales!.x.range).toBeUndefined();
     expect(o.axes![0].splits).toBeUndefined();
