@@ -8,11 +8,12 @@ import { tangentPlane } from '../plan/tangentPlane';
 import type { ByteSource } from '../io/byteSource';
 import { discoverFields, type FieldMapping } from './fieldDiscovery';
 import type { MaskCounts } from './fieldValues';
-import type { FieldRole } from './fieldNames';
+import { roleUnits, type FieldRole } from './fieldNames';
 import { openDataset } from '../io/openDataset';
 import { parseRecordWindow } from './recordWindow';
 import { userFieldSource } from './fieldSource';
 import { striaParameters } from './striaParameters';
+import { fileUnitLabels } from './unitLabels';
 
 /**
  * A user's NetCDF file through Stria's diagnostics, end to end: open (NetCDF-3 or netCDF-4), find the
@@ -114,17 +115,22 @@ export function analyzeFile(source: ByteSource, options: AnalyzeFileOptions = {}
     onProgress: options.onProgress,
     meter,
   });
+  const velocity = d.fields.u ?? d.fields.ubar ?? d.fields.v ?? null;
+  const labels = fileUnitLabels(
+    analysis.grid.lengthUnit,
+    velocity ? roleUnits(velocity.role, velocity.units ?? undefined) : null,
+  );
   let comparison: Comparison;
   try {
-    comparison = measuredVsPredicted(analysis, {
-      beta: value('beta'),
-      eps: value('eps'),
-      mu: value('mu'),
-      kd: value('kd'),
-    });
+    comparison = measuredVsPredicted(
+      analysis,
+      { beta: value('beta'), eps: value('eps'), mu: value('mu'), kd: value('kd') },
+      labels,
+    );
   } catch (e) {
     comparison = {
       units: analysis.grid.lengthUnit === 'm' ? 'physical' : 'model',
+      labels,
       rows: [],
       missing: `no planner predictions: ${(e as Error).message}`,
     };

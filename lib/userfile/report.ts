@@ -1,4 +1,5 @@
-import { fmt, unitLabel } from '../plan/format';
+import { fmt } from '../plan/format';
+import type { UnitLabels } from './unitLabels';
 import type { ComparisonRow } from './measuredVsPredicted';
 import type { FileAnalysis } from './analyzeFile';
 
@@ -11,11 +12,9 @@ import type { FileAnalysis } from './analyzeFile';
 export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
   const a = r.analysis;
   const g = a.grid;
-  const units = r.comparison.units;
+  const labels = r.comparison.labels;
   const L = (x: number | null | undefined) =>
-    x === null || x === undefined
-      ? '—'
-      : `${fmt(x)}${g.lengthUnit === 'degrees' ? '°' : units === 'physical' ? ' m' : ''}`;
+    x === null || x === undefined ? '—' : `${fmt(x)}${labels.length === '°' ? '°' : ` ${labels.length}`}`;
   const out: string[] = [];
   out.push(
     `Stria analysis of ${name} (${r.file.format}, ${r.file.layout === 'gridded' ? 'gridded fields' : 'zonal-mean profiles'})`,
@@ -58,10 +57,10 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
     out.push(
       `  PV staircase: ${a.staircase.edges.length} edges, mean step width ${L(a.staircase.meanWidth)}, sharpness index ${fmt(a.staircase.index, 4)} (1 perfect, 0 the plain βy)`,
     );
-  if (a.uRms) out.push(`  U_rms = ${fmt(a.uRms.value)} (${a.uRms.kind})`);
+  if (a.uRms) out.push(`  U_rms = ${fmt(a.uRms.value)} ${labels.velocity} (${a.uRms.kind})`);
   if (a.scales.kRhines !== null)
     out.push(
-      `  k_R = ${fmt(a.scales.kRhines)}, Rhines length (${a.scales.rhinesConvention}) = ${L(a.scales.rhinesLength)}, staircase spacing 720^¼(U/β)^½ = ${L(a.scales.staircaseSpacing)}`,
+      `  k_R = ${fmt(a.scales.kRhines)} ${labels.wavenumber}, Rhines length (${a.scales.rhinesConvention}) = ${L(a.scales.rhinesLength)}, staircase spacing 720^¼(U/β)^½ = ${L(a.scales.staircaseSpacing)}`,
     );
   if (a.scales.zonostrophyIndex !== null) out.push(`  R_β = ${fmt(a.scales.zonostrophyIndex)} (${a.scales.regime})`);
   if (a.diffusivity?.Dfit !== null && a.diffusivity)
@@ -73,7 +72,7 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
       `  spectra: ${a.spectra.kind === 'pv' ? 'energy and enstrophy of q' : 'kinetic energy'}, mean of ${a.spectra.records} records${a.spectra.refused ? ` (${a.spectra.refused} left out for missing values)` : ''}`,
     );
   out.push('', 'Measured beside the planner');
-  out.push(...comparisonTable(r.comparison.rows, units));
+  out.push(...comparisonTable(r.comparison.rows, labels));
   if (r.comparison.missing) out.push(`  (${r.comparison.missing})`);
   const notes = [...r.file.notes, ...a.notes];
   if (notes.length) {
@@ -87,8 +86,8 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
   return out.join('\n') + '\n';
 }
 
-/** The rows as a fixed-width table. */
-export function comparisonTable(rows: readonly ComparisonRow[], units: 'physical' | 'model'): string[] {
+/** The rows as a fixed-width table, each number's unit in the file's own units. */
+export function comparisonTable(rows: readonly ComparisonRow[], labels: UnitLabels): string[] {
   const cell = (x: number | null, text?: string) => (x === null ? '—' : fmt(x) + (text ? ` (${text})` : ''));
   const head = ['quantity', 'measured', 'predicted', 'ratio', 'unit'];
   const body = rows.map((r) => [
@@ -96,7 +95,7 @@ export function comparisonTable(rows: readonly ComparisonRow[], units: 'physical
     cell(r.measured, r.measuredText),
     cell(r.predicted, r.predictedText),
     r.ratio === null ? '—' : fmt(r.ratio, 3),
-    unitLabel(r.quantity, units),
+    labels[r.quantity],
   ]);
   const w = head.map((h, i) => Math.max(h.length, ...body.map((b) => b[i].length)));
   const line = (c: string[]) => '  ' + c.map((x, i) => (i === 0 ? x.padEnd(w[i]) : x.padStart(w[i]))).join('  ');

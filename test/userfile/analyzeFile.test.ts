@@ -232,6 +232,12 @@ describe.runIf(runNcgen)('stria analyze, the library: files written by ncgen', (
     expect(deg.analysis.skipped.find((s) => s.diagnostic === 'Rhines scale, zonostrophy index')?.reason).toBe(
       'the grid is in degrees: lengths need the tangent plane',
     );
+    // Its numbers are labelled in the file's own units: m/s for the wind, degrees for lengths.
+    expect(deg.comparison.labels).toMatchObject({ velocity: 'm/s', length: '°', wavenumber: 'rad/°' });
+    const degText = fileAnalysisText(deg, 'winds.nc');
+    expect(degText).not.toContain('model');
+    expect(degText).toMatch(/rms velocity U +\d[\d.e-]* +— +— +m\/s\n/);
+    expect(degText).toMatch(/jet spacing vs the Rhines spacing +\d[\d.e-]* +— +— +°\n/);
   });
 
   it('masks fill values and missing_value, counts them, and never averages them in', () => {
