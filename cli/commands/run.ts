@@ -21,6 +21,7 @@ import { DEFAULT_MEMORY_BUDGET, parseByteSize } from '../byteSize';
 import { CheckpointStore, readCheckpoint } from '../checkpointStore';
 import { EXIT_FAILED, EXIT_INTERRUPTED, EXIT_OK, type Command, type CommandIO } from '../command';
 import { resolveRunStart } from '../paramInput';
+import { historyCommand } from '../historyCommand';
 import { ProgressBar } from '../progressBar';
 import { checkSameRun } from '../resumeCheck';
 import { RunDriver } from '../runDriver';
@@ -242,7 +243,8 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
       : Model.restore(start.checkpoint);
   else model = new Model(start.params);
   const createdAt = resumed?.progress.outputs.created_at ?? new Date().toISOString();
-  const command = resumed?.progress.outputs.command ?? ['stria', ...io.argv].join(' ');
+  // The history of the files: the command and options, files by their names only (historyCommand.ts).
+  const command = resumed?.progress.outputs.command ?? historyCommand('run', io.argv.slice(1), options);
   const request = {
     snapshots: o.snapshots as string | undefined,
     every: o.every as number | undefined,

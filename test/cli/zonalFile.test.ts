@@ -1,4 +1,4 @@
-import { readFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { memorySource } from '../../lib/io/byteSource';
@@ -113,6 +113,19 @@ describe('the zonal-mean file of stria run', () => {
     expect(profiles.upvp?.every((x) => x !== null)).toBe(true);
     expect(result.analysis.computed).toEqual(
       expect.arrayContaining(['eddy momentum flux u′v′', 'eddy kinetic energy']),
+    );
+  });
+
+  it('records the command and its options in history, without directories', () => {
+    const zonal = join(dir, 'history.nc');
+    const params = join(dir, 'history-params.json');
+    writeFileSync(params, JSON.stringify({ seed: 3 }));
+    const r = stria(['run', params, ...TINY_SETS, '--steps', '20', '--zonal', zonal, '--sample-every=0.5']);
+    expect(r.status, r.stderr).toBe(0);
+    const history = readNetcdf(readFileSync(zonal)).attributes.history as string;
+    expect(history).not.toContain(dir);
+    expect(history).toMatch(
+      /^\d{4}-\d\d-\d\dT[\d:.]+Z stria run history-params\.json --set nx=32 .* --steps 20 --zonal history\.nc --sample-every=0\.5: wrote zonal_means$/,
     );
   });
 });
