@@ -3,6 +3,7 @@ import { SUMMARY_KEYS, type RunSummary } from '../analysis/summary';
 import type { StopReason } from '../run/monitoredRun';
 import { canonicalJson } from '../run/runId';
 import type { SweepJob } from './sweepRuns';
+import { namedValues } from '../io/namedValues';
 
 /**
  * One finished sweep run: one line of `runs.jsonl` (JSON Lines, one object per line, appended as
@@ -39,7 +40,7 @@ const RecordSchema = v.looseObject({
   point: v.record(v.string(), v.union([v.number(), v.boolean(), v.string()]), 'must be an object of swept values'),
   replica: v.pipe(v.number('must be a number'), v.integer('must be an integer')),
   seed: v.pipe(v.number('must be a number'), v.integer('must be an integer')),
-  params: v.record(v.string(), v.unknown(), 'must be an object of parameters'),
+  params: namedValues('must be an object of parameters'),
   plan: v.looseObject(
     {
       stop: v.looseObject({ kind: v.picklist(['steps', 'until', 'steady']) }),
