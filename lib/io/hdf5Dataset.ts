@@ -74,16 +74,27 @@ class Hdf5Dataset extends NamedVariables implements DatasetReader {
           entries.push({
             name: key,
             obj: d,
-            attrs: { ...safeAttributes(d, key), ...denseAttributes(d, `"${key}"`) },
+            attrs: { ...safeAttributes(d, `"${key}"`, this.notes), ...denseAttributes(d, `"${key}"`) },
             dims,
             unlimited,
           });
         } else if (obj instanceof Group) {
-          this.notes.push(`the group "${key}" was not read: only the root group of a netCDF-4 file is`);
+          // A named data type (a netCDF-4 user-defined type: compound, enum, …) holds a datatype
+          // message and no group structure (symbol table 0x0011, link info 0x0002); it is not data.
+          const d = obj._dataobjects;
+          const namedType =
+            d.find_msg_type(0x0003).length > 0 &&
+            d.find_msg_type(0x0011).length === 0 &&
+            d.find_msg_type(0x0002).length === 0;
+          this.notes.push(
+            namedType
+              ? `"${key}" is a named data type (a netCDF-4 user-defined type), not a variable: not read`
+              : `the group "${key}" was not read: only the root group of a netCDF-4 file is`,
+          );
         }
       }
       const globals = {
-        ...safeAttributes(file._dataobjects, 'the file'),
+        ...safeAttributes(file._dataobjects, 'the file', this.notes),
         ...denseAttributes(file._dataobjects, 'the file'),
       };
       // jsfive lists links in storage order (by name hash or, for dense groups, a string sort of
@@ -165,10 +176,25 @@ class Hdf5Dataset extends NamedVariables implements DatasetReader {
   }
 }
 
-function safeAttributes(obj: DataObjects, owner: string): Record<string, unknown> {
+/**
+ * The attributes jsfive decodes, and a note naming each one it cannot (a compound or other type it
+ * lacks), with its owner: "the attribute "meta" of "u" …", one note per attribute and variable.
+ */
+function safeAttributes(obj: DataObjects, owner: string, notes: string[]): Record<string, unknown> {
+  const warnings: string[] = [];
   try {
-    return obj.get_attributes();
+    return quietly(warnings, () => obj.get_attributes());
   } catch (e) {
     throw new RangeError(`cannot read the attributes of ${owner}: ${describe(e)}`, { cause: e });
+  } finally {
+    for (const w of warnings) {
+      const m = /^Attribute (.+) type not implemented, set to null\.?$/.exec(w);
+      if (m?.[1] === 'REFERENCE_LIST') continue; // the netCDF-4 bookkeeping of every dimension scale
+      notes.push(
+        m
+          ? `the attribute "${m[1]}" of ${owner} has a type the HDF5 reader cannot decode (such as a compound type): left out`
+          : `jsfive, reading the attributes of ${owner}: ${w}`,
+      );
+    }
   }
 }

@@ -158,6 +158,34 @@ describe.runIf(runNcgen)('netCDF-4 (HDF5) through the dataset interface (files w
     expect(r.notes).toContain('the group "extra" was not read: only the root group of a netCDF-4 file is');
   });
 
+  it('names each attribute it cannot decode with its variable, and a named type as a type', () => {
+    const text = `netcdf t {
+types:
+  compound pair { int a ; double b ; } ;
+dimensions:
+  y = 2 ;
+variables:
+  double u(y) ; pair u:meta = {1, 2.5} ;
+  double v(y) ; pair v:meta = {1, 2.5} ;
+data:
+  u = 1, 2 ;
+  v = 3, 4 ;
+}
+`;
+    const r = openDataset(memorySource(ncgen(text, 'nc4')));
+    const about = (name: string) =>
+      `the attribute "meta" of "${name}" has a type the HDF5 reader cannot decode (such as a compound type): left out`;
+    expect(r.notes).toEqual(
+      expect.arrayContaining([
+        about('u'),
+        about('v'),
+        '"pair" is a named data type (a netCDF-4 user-defined type), not a variable: not read',
+      ]),
+    );
+    expect(r.notes.some((n) => n.includes('group'))).toBe(false);
+    expect(Array.from(r.readAll('v'))).toEqual([3, 4]);
+  });
+
   it('refuses a truncated file with the size its superblock states', () => {
     const bytes = ncgen(cdl(file(2, 3, 4, {})), 'nc4');
     expect(() => openDataset(memorySource(bytes.subarray(0, bytes.length - 100)))).toThrow(

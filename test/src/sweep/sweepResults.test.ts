@@ -27,6 +27,16 @@ describe('parseResults', () => {
     expect(parseResults('runs.jsonl', records.map(formatSweepRecord).join('\n') + '\n').rows).toEqual(rows);
   });
 
+  it('counts a run journaled twice once, as the command line does, and refuses two that disagree', () => {
+    const again = records.map((r) => ({ ...r, wall_seconds: 5, finished_at: '2026-01-02T00:00:00Z' }));
+    const text = [...records, ...again].map((r) => JSON.stringify(r)).join('\n') + '\n';
+    expect(parseResults('runs.jsonl', text).rows).toEqual(rows);
+    const changed = { ...records[0], summary: { ...records[0].summary, u_rms: 1 } };
+    expect(() =>
+      parseResults('runs.jsonl', [...records, changed].map((r) => JSON.stringify(r)).join('\n') + '\n'),
+    ).toThrow(new RegExp(`runs.jsonl: run ${records[0].id} differs`));
+  });
+
   it('reads table.csv with numbers as numbers and empty fields as null', () => {
     const csv = new TextDecoder().decode(encodeCsv(tableCsvColumns(rows, tableColumns(pointKeysOf(records)))));
     const parsed = parseResults('table.csv', csv).rows;
