@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { expandSweep } from '../lib/sweep/sweepRuns';
 import { parseSweepSpec } from '../lib/sweep/sweepSpec';
 import { runSweepJob } from '../lib/sweep/runSweepJob';
+import { sealRecord } from '../lib/sweep/sweepRecord';
 import { tableRows } from '../lib/sweep/sweepTable';
 import { ncgen, runNcgen } from '../test/io/ncgenTool';
 import { launchChromium, type BrowserSession } from './support/browser';
@@ -76,7 +77,7 @@ describe('Repeated user data in Chromium', () => {
       sampleEvery: 0.25,
     });
     const runs = expandSweep(spec).map((j) => runSweepJob(j, { seconds: () => 1, iso: () => '2026-01-01T00:00:00Z' }));
-    const again = runs.map((r) => ({ ...r, wall_seconds: 2, finished_at: '2026-01-01T00:01:00Z' }));
+    const again = runs.map((r) => sealRecord({ ...r, wall_seconds: 2, finished_at: '2026-01-01T00:01:00Z' }));
     const jsonl = [...runs, ...again].map((r) => JSON.stringify(r)).join('\n') + '\n';
     await page
       .getByTestId('sweep-load')

@@ -1,7 +1,10 @@
 import * as v from 'valibot';
 import { SUMMARY_KEYS, type RunSummary } from '../analysis/summary';
 import type { StopReason } from '../run/monitoredRun';
-import { canonicalJson } from '../run/runId';
+import { textDigest } from '../io/digest';
+import type { ModelParams } from '../model/params';
+import { canonicalJson, runId } from '../run/runId';
+import type { RunPlan } from '../run/runPlan';
 import type { SweepJob } from './sweepRuns';
 import { namedValues } from '../io/namedValues';
 
@@ -13,12 +16,18 @@ import { namedValues } from '../io/namedValues';
  * (lib/analysis/summary.ts) at the end, or at the last good state of a blown-up run.
  */
 export const RECORD_FORMAT = 'stria-sweep-run';
-export const RECORD_VERSION = 1;
+/**
+ * Version 2 lines carry `digest`, the fingerprint (lib/io/digest.ts `textDigest`) of the canonical
+ * JSON (keys sorted) of every other field of the line, so that a line changed after it was written —
+ * a summary edited by hand, a copy gone wrong — is refused instead of changing the fits. Version 1
+ * lines (written before the digest) are still read, with the id check only.
+ */
+export const RECORD_VERSION = 2;
 
 /** The job that ran (id, position, point, replica, seed, parameters, plan) and what came of it. */
 export interface SweepRecord extends SweepJob {
   format: typeof RECORD_FORMAT;
-  version: typeof RECORD_VERSION;
+  version: 1 | 2;
   status: 'done' | 'blew-up';
   /** Why a finished run stopped (null for a blown-up run). */
   stopped: StopReason | null;
@@ -27,6 +36,20 @@ export interface SweepRecord extends SweepJob {
   /** Wall time of the run (s) and when it finished: the only fields that differ between reruns. */
   wall_seconds: number;
   finished_at: string;
+  /** The fingerprint of the rest of the line (version 2; see RECORD_VERSION). */
+  digest?: string;
+}
+
+/** The fingerprint of a record: textDigest of the canonical JSON of every field but `digest`. */
+export function recordDigest(r: SweepRecord): string {
+  const { digest: _, ...rest } = r;
+  return textDigest(canonicalJson(rest));
+}
+
+/** A record of this version, with its digest. */
+export function sealRecord(r: Omit<SweepRecord, 'format' | 'version' | 'digest'>): SweepRecord {
+  const record: SweepRecord = { format: RECORD_FORMAT, version: RECORD_VERSION, ...r };
+  return { ...record, digest: recordDigest(record) };
 }
 
 /** The summary's keys that hold a number or null (lib/analysis/summary.ts). */
@@ -34,7 +57,8 @@ const SUMMARY_NUMBERS = [...SUMMARY_KEYS, 'ls_loss', 'jet_spacing_std', 'window_
 
 const RecordSchema = v.looseObject({
   format: v.literal(RECORD_FORMAT, `must be "${RECORD_FORMAT}"`),
-  version: v.literal(RECORD_VERSION, `must be ${RECORD_VERSION}`),
+  version: v.picklist([1, RECORD_VERSION], `must be 1 or ${RECORD_VERSION}`),
+  digest: v.optional(v.pipe(v.string('must be a text'), v.regex(/^[0-9a-f]{16}$/, 'must be 16 hex digits'))),
   id: v.pipe(v.string('must be a text'), v.regex(/^r[0-9a-f]{16}$/, 'must be a run id such as r0123456789abcdef')),
   index: v.pipe(v.number('must be a number'), v.integer('must be an integer'), v.minValue(0, 'must be ≥ 0')),
   point: v.record(v.string(), v.union([v.number(), v.boolean(), v.string()]), 'must be an object of swept values'),
@@ -83,7 +107,21 @@ export function parseSweepRecord(line: string): SweepRecord {
   const bad = nonFinitePath(json, '');
   if (bad !== null)
     throw new RangeError(`${bad || '(record)'}: must be a finite number (JSON such as 1e999 reads as Infinity)`);
-  return json as SweepRecord;
+  const r = json as SweepRecord;
+  // What the line says of itself must hold: it is whole (its digest), and it is the run it names (its id).
+  if (r.version === RECORD_VERSION) {
+    if (r.digest === undefined) throw new RangeError(`digest: missing (a version ${RECORD_VERSION} line carries one)`);
+    if (recordDigest(r) !== r.digest)
+      throw new RangeError(
+        'digest: does not match the line: it was changed after it was written; remove the line to run that run again',
+      );
+  }
+  const id = runId(r.params as unknown as ModelParams, r.plan as RunPlan);
+  if (id !== r.id)
+    throw new RangeError(
+      `id: ${r.id} is not the id of the line's parameters and plan (${id}): the line was changed after it was written; remove it to run that run again`,
+    );
+  return r;
 }
 
 /** Path of the first number in a JSON value that is not finite, or null. */
