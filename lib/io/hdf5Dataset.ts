@@ -2,7 +2,7 @@ import { Dataset, File, Group, type DataObjects } from 'jsfive';
 import type { AllocationMeter } from './allocationMeter';
 import type { ByteSource } from './byteSource';
 import type { AttributeValue, DatasetDimension, DatasetReader, ReadOptions, ReaderOptions } from './datasetReader';
-import { isNumericType, NamedVariables } from './datasetReader';
+import { isNumericType, NamedVariables, recordRange } from './datasetReader';
 import { readChunkIndex } from './hdf5ChunkIndex';
 import { denseAttributes } from './hdf5DenseAttributes';
 import { elementReader, elementType, parseDataspace, parseLayout, superblockEnd, superblockSizes } from './hdf5Format';
@@ -120,13 +120,29 @@ class Hdf5Dataset extends NamedVariables implements DatasetReader {
     if (!(Number.isInteger(index) && index >= 0 && index < count))
       throw new RangeError(`record ${index} of "${name}" does not exist (it has ${count})`);
     const n = this.recordLength(name);
-    const out = options.out ?? new Float64Array(n);
-    if (out.length !== n) throw new RangeError(`readRecord("${name}"): out has ${out.length} values, a record ${n}`);
+    const range = recordRange(name, n, options.range);
+    const out = options.out ?? new Float64Array(range.count);
+    if (out.length !== range.count)
+      throw new RangeError(`readRecord("${name}"): out has ${out.length} values, the read ${range.count}`);
     const bytes = (k: number) => k * plan.elementSize;
-    readSlab(this.view, plan, index, out, this.meter, (done, total) =>
-      options.onProgress?.({ variable: name, record: index, done: bytes(done), total: bytes(total) }),
+    readSlab(
+      this.view,
+      plan,
+      index,
+      out,
+      this.meter,
+      (done, total) => options.onProgress?.({ variable: name, record: index, done: bytes(done), total: bytes(total) }),
+      range.start,
     );
     return out;
+  }
+
+  recordReadBytes(name: string): number {
+    const plan = this.plan(name);
+    if (plan.layout.kind !== 'chunked' || plan.filters.length === 0) return 0; // read from the file's bytes
+    // One chunk at a time: its stored copy and each filter's output, at most the decoded size each.
+    const chunk = plan.layout.chunk.reduce((a, b) => a * b, 1) * plan.elementSize;
+    return (plan.filters.length + 1) * chunk;
   }
 
   readAll(name: string, options: ReadOptions = {}): Float64Array {

@@ -100,6 +100,19 @@ describe.runIf(runNcgen)('netCDF-4 (HDF5) through the dataset interface (files w
         expect(Array.from(h5.readAll(v.name))).toEqual(Array.from(nc3.readAll(v.name)));
       }
       for (const t of [0, 3, 4]) expect(Array.from(h5.readRecord('u', t))).toEqual(Array.from(nc3.readRecord('u', t)));
+      // A range of a record (one row, a run across rows, a piece of a row) is that slice of it, in both readers.
+      const whole = Array.from(nc3.readRecord('u', 3));
+      for (const [start, count] of [
+        [9, 9],
+        [5, 20],
+        [60, 3],
+        [0, 63],
+      ]) {
+        const slice = whole.slice(start, start + count);
+        expect(Array.from(h5.readRecord('u', 3, { range: { start, count } })), `${start}+${count}`).toEqual(slice);
+        expect(Array.from(nc3.readRecord('u', 3, { range: { start, count } }))).toEqual(slice);
+      }
+      expect(() => h5.readRecord('u', 3, { range: { start: 60, count: 4 } })).toThrow(/not within a record of 63/);
     });
   }
 
