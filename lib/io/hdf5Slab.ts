@@ -1,6 +1,7 @@
 import { Filters } from 'jsfive';
 import type { AllocationMeter } from './allocationMeter';
 import { firstChunkAtOrAfter, type ChunkEntry } from './hdf5ChunkIndex';
+import { isLowLevel, meaning } from './fileErrors';
 import { FILTER_NAMES, UNDEFINED_ADDRESS, type Layout } from './hdf5Format';
 
 /**
@@ -195,6 +196,7 @@ function copyRecordPart(
   return copied;
 }
 
+/** An error's message for a user: plain words for jsfive's and the engine's own (fileErrors.ts). */
 export function describe(e: unknown): string {
-  return e instanceof Error ? e.message : String(e);
+  return isLowLevel(e) ? meaning(e) : (e as Error).message;
 }

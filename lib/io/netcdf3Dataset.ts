@@ -1,7 +1,7 @@
 import type { AllocationMeter } from './allocationMeter';
 import type { ByteSource } from './byteSource';
 import type { DatasetReader, DatasetType, ReadOptions, ReaderOptions } from './datasetReader';
-import { NamedVariables, recordRange } from './datasetReader';
+import { NamedVariables, readBuffer, recordRange } from './datasetReader';
 import { readNetcdf, type NetcdfFile } from './netcdfRead';
 import { NC_STREAMING, NC_TYPE_SIZE, type NcType } from './netcdf3Types';
 
@@ -110,7 +110,7 @@ class Netcdf3Dataset extends NamedVariables implements DatasetReader {
     const v = this.nc.variable(name);
     if (v.type === 'char') throw new RangeError(`"${name}" holds text (char), not numbers`);
     const n = this.variable(name).shape.reduce((a, b) => a * b, 1);
-    const out = options.out ?? new Float64Array(n);
+    const out = options.out ?? readBuffer(name, n);
     if (out.length !== n) throw new RangeError(`readAll("${name}"): out has ${out.length} values, the variable ${n}`);
     if (!v.isRecord) return this.readSlab(name, v.type, v.begin, n, 0, { ...options, out });
     const per = v.slabCount;
@@ -127,7 +127,7 @@ class Netcdf3Dataset extends NamedVariables implements DatasetReader {
     record: number,
     options: ReadOptions,
   ): Float64Array {
-    const out = options.out ?? new Float64Array(n);
+    const out = options.out ?? readBuffer(name, n);
     if (out.length !== n) throw new RangeError(`readRecord("${name}"): out has ${out.length} values, a record ${n}`);
     const size = NC_TYPE_SIZE[type];
     const per = Math.max(1, Math.floor(READ_PIECE / size));

@@ -10,6 +10,7 @@ import {
   type FieldRole,
   type MatchHow,
 } from './fieldNames';
+import { printable } from '../io/fileErrors';
 
 export type { RecordAxis };
 
@@ -179,7 +180,7 @@ function found(role: FieldRole, v: DatasetVariable, m: { how: MatchHow; detail: 
   const reading = roleUnits(role, units ?? undefined);
   if (reading.kind === 'unknown')
     notes.push(
-      `"${v.name}": units "${units}" not recognised for ${ROLE_LABELS[role]}; its values are taken as they are`,
+      `"${v.name}": units "${printable(units ?? '')}" not recognised for ${ROLE_LABELS[role]}; its values are taken as they are`,
     );
   return {
     role,

@@ -7,6 +7,7 @@ import {
   velocityUnits,
   type UnitReading,
 } from './unitsText';
+import { printable } from '../io/fileErrors';
 
 /**
  * How Stria recognises the fields of a user's file. By CF standard_name first — these names are
@@ -86,7 +87,7 @@ export function matchRole(
   const units = typeof v.attributes.units === 'string' ? v.attributes.units : undefined;
   if (roleUnits(role, units).kind === 'unknown') {
     why.push(
-      `"${v.name}" was not taken as ${ROLE_LABELS[role]}: its units "${units}" are not those of ${ROLE_LABELS[role]}`,
+      `"${v.name}" was not taken as ${ROLE_LABELS[role]}: its units "${printable(units ?? '')}" are not those of ${ROLE_LABELS[role]}`,
     );
     return null;
   }
