@@ -2,7 +2,10 @@ import { analyzeFile } from '../lib/userfile/analyzeFile';
 import { fileAnalysisText } from '../lib/userfile/report';
 import { ANALYZE_OPTIONS as OPTIONS, parseMap, toOptions } from './analyzeOptions';
 import { formatOptions, parseArgs, UsageError, type ParsedArgs } from './args';
-import type { Command } from './command';
+import { EXIT_OK, EXIT_USAGE, type Command } from './command';
+import { CLI_RUNTIME_BYTES } from './commands/run';
+import { formatBytes } from '../lib/run/runMemory';
+import { UserFileMemoryError } from '../lib/userfile/userFileMemory';
 import { fileSource } from './fileSource';
 
 export { parseMap };
@@ -10,8 +13,9 @@ export { parseMap };
 /**
  * `stria analyze FILE [options]`: Stria's diagnostics on a NetCDF file it did not write (the
  * library: lib/userfile/analyzeFile.ts). Prints the readable report, or the result object as JSON with
- * --json. Exit codes: 0 done, 1 the file could not be analysed (the message says why), 2 a mistake
- * in the command line. Two entry points: `analyzeCommand(argv)` on its own, and `analyzeCmd` for
+ * --json. Exit codes: 0 done, 2 a mistake in the command line or a file Stria refuses (the message
+ * names the file and says what is wrong: damaged, not NetCDF, no field, or too large for the memory
+ * budget, with the subsample that would fit). Two entry points: `analyzeCommand(argv)` on its own, and `analyzeCmd` for
  * the dispatcher's command list. The analysis runs synchronously, so an interrupt takes effect
  * when it ends.
  */
@@ -98,22 +102,40 @@ async function runAnalyze(parsed: ParsedArgs, io: Streams): Promise<number> {
   try {
     source = fileSource(path);
   } catch (e) {
-    io.err.write(`stria analyze: cannot open ${path}: ${(e as Error).message}\n`);
-    return 1;
+    io.err.write(`stria analyze: ${path}: ${openProblem(e as NodeJS.ErrnoException)}\n`);
+    return EXIT_USAGE;
   }
   try {
-    const result = analyzeFile(source, options);
+    const result = analyzeFile(source, { ...options, runtimeBytes: CLI_RUNTIME_BYTES });
     if (showProgress) io.err.write('\n');
     io.out.write(o.json ? `${JSON.stringify(result, null, 2)}\n` : fileAnalysisText(result, path));
-    return 0;
+    return EXIT_OK;
   } catch (e) {
     if (showProgress) io.err.write('\n');
+    // A file Stria refuses is a bad file (docs/cli.md: exit 2), named with what is wrong with it.
+    if (e instanceof UserFileMemoryError) {
+      const advice =
+        e.fitsAt !== null
+          ? `give --subsample ${e.fitsAt}, or a --memory-budget larger than ${formatBytes(e.estimate.totalBytes)}`
+          : `give a --memory-budget larger than ${formatBytes(e.estimate.totalBytes)}`;
+      io.err.write(`stria analyze: ${path}: ${e.message}: ${advice}\n`);
+      return EXIT_USAGE;
+    }
     if (e instanceof RangeError) {
       io.err.write(`stria analyze: ${path}: ${e.message}\n`);
-      return 1;
+      return EXIT_USAGE;
     }
     throw e;
   } finally {
     source.close();
   }
+}
+
+/** Why a file cannot be opened, in words (never the bare ENOENT or EISDIR of the system). */
+function openProblem(e: NodeJS.ErrnoException): string {
+  if (e.code === 'ENOENT') return 'no such file';
+  if (e.code === 'EISDIR') return 'is a folder, not a file';
+  if (e.code === 'EACCES' || e.code === 'EPERM') return 'cannot be read: permission denied';
+  if (e.code === 'ENOTDIR') return 'a folder on its path is a file';
+  return `cannot be opened (${e.code ?? e.message})`;
 }

@@ -3,6 +3,7 @@ import { FIELD_ROLES, type FieldRole } from '../lib/userfile/fieldNames';
 import { RHINES_DEFINITIONS, type RhinesConvention } from '../lib/analysis/scales';
 import { PLANETS, type PlanetId } from '../lib/plan/planets';
 import { parseNumber, UsageError, type OptionSpec } from './args';
+import { DEFAULT_MEMORY_BUDGET, parseByteSize } from './byteSize';
 
 /**
  * The options of `stria analyze`, declared once (help, parsing and messages come from here), and
@@ -86,6 +87,18 @@ export const ANALYZE_OPTIONS: readonly OptionSpec[] = [
     help: `Rhines-length convention: ${Object.keys(RHINES_DEFINITIONS).join(', ')} (default kR)`,
   },
   { name: 'no-spectra', kind: 'flag', help: 'skip spectra and spectral flux' },
+  {
+    name: 'subsample',
+    kind: 'count',
+    value: 'K',
+    help: 'read every K-th point in x and y (one row of the file at a time):\na large grid in a fraction of the memory',
+  },
+  {
+    name: 'memory-budget',
+    kind: 'text',
+    value: 'SIZE',
+    help: 'refuse, before reading, an analysis whose memory estimate exceeds SIZE,\ne.g. 512MiB, 8GiB (default 2GiB)',
+  },
   { name: 'quiet', kind: 'flag', help: 'no progress on standard error' },
 ];
 
@@ -107,6 +120,11 @@ export function toOptions(o: Record<string, unknown>): AnalyzeFileOptions {
   if (o.records !== undefined) out.records = o.records as string;
   if (o['q-total']) out.qIncludesBeta = true;
   if (o['no-spectra']) out.spectra = false;
+  if (o.subsample !== undefined) out.subsample = o.subsample as number;
+  const budget = o['memory-budget'] as string | undefined;
+  out.memoryBudget = budget === undefined ? DEFAULT_MEMORY_BUDGET : parseByteSize(budget);
+  if (!Number.isFinite(out.memoryBudget))
+    throw new UsageError(`--memory-budget ${budget}: needs a size such as 512MiB, 4GiB or 2000000000 (bytes)`);
   if (o.periodic !== undefined) {
     const p = (o.periodic as string).toLowerCase();
     if (!['xy', 'yx', 'x', 'y', 'none'].includes(p))

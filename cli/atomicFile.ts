@@ -1,5 +1,6 @@
 import { closeSync, fsyncSync, openSync, readdirSync, renameSync, unlinkSync, writeSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
+import { isRunning } from './processes';
 
 /**
  * Replace a file so that it is, at every instant and whatever kills the process, either the old
@@ -82,14 +83,4 @@ export function removeStaleTemporaries(path: string): string[] {
     removed.push(name);
   }
   return removed;
-}
-
-function isRunning(pid: number): boolean {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch (e) {
-    // EPERM: it exists but is someone else's.
-    return (e as NodeJS.ErrnoException).code === 'EPERM';
-  }
 }

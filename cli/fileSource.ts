@@ -9,7 +9,12 @@ import type { ByteSource } from '../lib/io/byteSource';
  */
 export function fileSource(path: string): ByteSource & { close(): void } {
   const fd = openSync(path, 'r');
-  const size = fstatSync(fd).size;
+  const stat = fstatSync(fd);
+  if (stat.isDirectory()) {
+    closeSync(fd);
+    throw Object.assign(new Error(`${path} is a directory`), { code: 'EISDIR' });
+  }
+  const size = stat.size;
   return {
     byteLength: size,
     read(offset: number, length: number, into?: Uint8Array): Uint8Array {

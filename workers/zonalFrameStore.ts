@@ -1,4 +1,4 @@
-import type { StriaFrame } from '../lib/io/cfStriaWriter';
+import { zonalMeanFrame, type StriaFrame } from '../lib/io/cfStriaWriter';
 import type { ZonalMeans } from '../lib/analysis/zonalMean';
 
 /** The profiles a zonal-mean file holds (cfStria.ts), in its names: `qbar` is the total PV q̄ + βy. */
@@ -50,7 +50,8 @@ export class ZonalFrameStore {
     }
     const f = this.frames++;
     const { ny } = this;
-    const src = { ubar: z.ubar, qbar: z.qtot, upvp: z.upvp, vpqp: z.vpqp, eke: z.eke };
+    // The profiles as the file holds them (its total PV and plain eddy means), from the one mapping.
+    const src = zonalMeanFrame(time, steps, z).fields;
     PROFILES.forEach((name, k) => this.data.set(src[name], (f * WIDTH + k) * ny));
     this.time[f] = time;
     this.steps[f] = steps;

@@ -6,6 +6,8 @@ import { parseSweepSpec, type SweepSpec } from '../../lib/sweep/sweepSpec';
 import { isInputError } from '../../lib/inputError';
 import { UsageError, type OptionSpec, type ParsedArgs } from '../args';
 import { EXIT_OK, type Command, type CommandIO } from '../command';
+import { lockDirectory } from '../dirLock';
+import { guardOutputs, identity } from '../outputGuard';
 import { readRunsLog, writeRunsLog } from '../sweep/runsLog';
 import { fitsText, writeResults } from '../sweep/writeResults';
 
@@ -16,12 +18,17 @@ const options: OptionSpec[] = [
     value: 'DIR',
     help: 'directory of the merged results (required; may be one of the inputs)',
   },
+  {
+    name: 'overwrite',
+    kind: 'flag',
+    help: 'replace the runs.jsonl an --out directory holds when it is not one of the inputs',
+  },
 ];
 
 export const mergeCommand: Command = {
   name: 'merge',
   summary: 'join sweep directories (shards, or parts run elsewhere) into one: runs, table and fits',
-  usage: 'stria merge DIR... --out DIR',
+  usage: 'stria merge DIR... --out DIR [--overwrite]',
   description: `
 Reads DIR/runs.jsonl of every directory given (or the .jsonl files themselves), joins the runs by
 id, and writes the joined runs.jsonl, table.csv, table.json and fits.json to --out, in sweep order.
@@ -49,7 +56,7 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
     if (!existsSync(file)) throw new UsageError(`${p}: no runs.jsonl there (is it a sweep directory?)`);
     const { records, partialTail } = readRunsLog(file);
     if (partialTail) io.err.write(`stria merge: ${file}: ignoring an unfinished last line\n`);
-    return { name: p, records, spec: readSpecBeside(p, file) };
+    return { name: p, file, records, spec: readSpecBeside(p, file) };
   });
   let records;
   try {
@@ -65,10 +72,24 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
     );
   }
   const spec: SweepSpec | null = specs.length ? specs[0].spec!.spec : null;
+  // The merged journal replaces --out's own only when that one is merged in too, or when asked.
+  const outLog = join(out, 'runs.jsonl');
+  guardOutputs([{ option: '--out', path: out, kind: 'folder' }], [], { overwrite: false, choices: '' });
+  const merged = sources.some((s) => identity(s.file) === identity(outLog));
+  if (existsSync(outLog) && !merged && !args.options.overwrite)
+    throw new UsageError(
+      `--out ${out} holds runs.jsonl of its own: add it to the directories to merge, or give --overwrite to replace it`,
+    );
   mkdirSync(out, { recursive: true });
-  writeRunsLog(join(out, 'runs.jsonl'), records);
-  if (specs.length) writeFileSync(join(out, 'spec.json'), specs[0].spec!.text);
-  const fits = writeResults(out, records, spec?.fits ?? {});
+  const lock = lockDirectory(out, 'stria merge', (line) => io.err.write(`stria merge: ${line}\n`));
+  let fits;
+  try {
+    writeRunsLog(outLog, records);
+    if (specs.length) writeFileSync(join(out, 'spec.json'), specs[0].spec!.text);
+    fits = writeResults(out, records, spec?.fits ?? {});
+  } finally {
+    lock.release();
+  }
   const total = sources.reduce((n, s) => n + s.records.length, 0);
   io.out.write(
     `${records.length} runs (from ${total} records in ${sources.length} directories) in ${out}: runs.jsonl, table.csv, table.json, fits.json\n${fitsText(fits)}`,

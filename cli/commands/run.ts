@@ -22,6 +22,8 @@ import { DEFAULT_MEMORY_BUDGET, parseByteSize } from '../byteSize';
 import { CheckpointStore, readCheckpoint } from '../checkpointStore';
 import { EXIT_FAILED, EXIT_INTERRUPTED, EXIT_OK, type Command, type CommandIO } from '../command';
 import { resolveRunStart } from '../paramInput';
+import { historyCommand } from '../historyCommand';
+import { guardOutputs, identity, type InputPath, type OutputPath } from '../outputGuard';
 import { ProgressBar } from '../progressBar';
 import { checkSameRun } from '../resumeCheck';
 import { RunDriver } from '../runDriver';
@@ -128,6 +130,11 @@ const options: OptionSpec[] = [
     kind: 'text',
     value: 'FILE',
     help: 'continue the run that wrote the checkpoint FILE, bit for bit: give the\nsame command as it, plus --resume FILE',
+  },
+  {
+    name: 'overwrite',
+    kind: 'flag',
+    help: 'start afresh over output files and a checkpoint that already exist\n(without it, or --resume, the run refuses to replace them)',
   },
   {
     name: 'on-blowup',
@@ -238,12 +245,18 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
     io.err.write(
       `stria run: NetCDF in physical units from ${args.positionals[0]}: one model length is ${lengthText(start.units.metresPerLength)}, one model time ${timeText(start.units.secondsPerTime)}\n`,
     );
+  if (o.resume !== undefined && o.overwrite)
+    throw new UsageError(
+      '--resume and --overwrite exclude each other: continue the run that wrote the checkpoint, or start afresh',
+    );
   const resumed = o.resume === undefined ? null : readCheckpoint(o.resume as string);
+  // Before anything is written: every output a file of its own, none replaced unasked.
+  guardRunOutputs(o, args.positionals[0], resumed?.progress ?? null);
   // The run as the command asks for it: its parameters, where it starts, and its plan.
   const origin: RunOrigin = resumed
     ? resumed.progress.origin
     : { time: start.checkpoint?.time ?? 0, steps: start.checkpoint?.steps ?? 0 };
-  const plan = runPlanOf(start.params, o, origin.time);
+  const plan = runPlanOf(start.params, o, origin);
   if (resumed) checkSameRun(o.resume as string, start.params, plan, resumed.progress);
   const params = resumed ? resumed.checkpoint.params : start.params;
   checkMemory(params, budget, {
@@ -261,7 +274,8 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
       : Model.restore(start.checkpoint);
   else model = new Model(start.params);
   const createdAt = resumed?.progress.outputs.created_at ?? new Date().toISOString();
-  const command = resumed?.progress.outputs.command ?? ['stria', ...io.argv].join(' ');
+  // The history of the files: the command and options, files by their names only (historyCommand.ts).
+  const command = resumed?.progress.outputs.command ?? historyCommand('run', io.argv.slice(1), options);
   const request = {
     snapshots: o.snapshots as string | undefined,
     every: o['snapshot-every-steps'] as number | undefined,
@@ -361,6 +375,37 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   return EXIT_OK;
 }
 
+/**
+ * The run's outputs through the one output guard (outputGuard.ts). A resumed run continues the
+ * NetCDF files its checkpoint counted and rewrites its checkpoint and saved state; any other file
+ * that exists is replaced only with --overwrite. The checkpoint may be the --resume file itself.
+ */
+function guardRunOutputs(o: ParsedArgs['options'], file: string | undefined, progress: RunProgress | null): void {
+  const saved = progress?.outputs;
+  const same = (a: string | undefined, b: string | undefined) =>
+    a !== undefined && b !== undefined && identity(a) === identity(b);
+  const outputs: OutputPath[] = [];
+  const add = (option: string, continues: boolean) => {
+    const path = o[option] as string | undefined;
+    if (path !== undefined) outputs.push({ option: `--${option}`, path, kind: 'file', continues });
+  };
+  add('snapshots', same(o.snapshots as string | undefined, saved?.snapshots?.path));
+  add('zonal', same(o.zonal as string | undefined, saved?.zonal?.path));
+  add('save', progress !== null);
+  add('checkpoint', same(o.checkpoint as string | undefined, o.resume as string | undefined));
+  const inputs: InputPath[] = [];
+  if (file !== undefined) inputs.push({ option: 'FILE', path: file });
+  if (o.resume !== undefined)
+    inputs.push({ option: '--resume', path: o.resume as string, sharedWith: ['--checkpoint'] });
+  const checkpoint = o.checkpoint as string | undefined;
+  guardOutputs(outputs, inputs, {
+    overwrite: o.overwrite === true,
+    choices: checkpoint
+      ? `--resume ${checkpoint} to continue the run that wrote it, or --overwrite to start afresh over it`
+      : '--overwrite to start afresh over it, or another name (a run kept with --checkpoint can be continued with --resume)',
+  });
+}
+
 function blowUpPolicy(o: ParsedArgs['options']): BlowUpPolicy {
   const mode = (o['on-blowup'] as string | undefined) ?? 'stop';
   if (mode !== 'stop' && mode !== 'retry') throw new UsageError(`--on-blowup ${mode}: must be stop or retry`);
@@ -433,7 +478,7 @@ function restoreMeasurement(run: MonitoredRun, progress: RunProgress, io: Comman
   }
 }
 
-function runPlanOf(params: ModelParams, o: ParsedArgs['options'], start: number): RunPlan {
+function runPlanOf(params: ModelParams, o: ParsedArgs['options'], start: RunOrigin): RunPlan {
   const req: RunLengthRequest = {
     steps: o.steps as number | undefined,
     until: o.until as number | undefined,
@@ -445,7 +490,7 @@ function runPlanOf(params: ModelParams, o: ParsedArgs['options'], start: number)
     sampleEvery: o['sample-interval'] as number | undefined,
   };
   try {
-    return resolveRunPlan(params, req, start);
+    return resolveRunPlan(params, req, start.time, start.steps);
   } catch (e) {
     if (!isInputError(e, 'run length')) throw e;
     const option = OPTION_OF[e.field] ?? e.field;

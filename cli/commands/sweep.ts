@@ -11,6 +11,8 @@ import { UsageError, type OptionSpec, type ParsedArgs } from '../args';
 import { DEFAULT_MEMORY_BUDGET, parseByteSize } from '../byteSize';
 import { CLI_RUNTIME_BYTES } from './run';
 import { EXIT_INTERRUPTED, EXIT_OK, type Command, type CommandIO } from '../command';
+import { lockDirectory } from '../dirLock';
+import { guardOutputs } from '../outputGuard';
 import { appendRecord, openRunsLog, readRunsLog } from '../sweep/runsLog';
 import { defaultJobs, runInPool } from '../sweep/workerPool';
 import { fitsText, writeResults } from '../sweep/writeResults';
@@ -139,7 +141,28 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   const jobsN = Math.min((o.jobs as number | undefined) ?? defaultJobs(), Math.max(1, todo.length));
   // Before anything is written: a sweep that cannot fit leaves no trace.
   checkSweepMemory(todo, jobsN, memoryBudgetOf(o['memory-budget'] as string | undefined));
+  guardOutputs([{ option: '--out', path: dir, kind: 'folder' }], [], { overwrite: false, choices: '' });
   mkdirSync(dir, { recursive: true });
+  // One sweep at a time in a directory; the journal is read again under the lock.
+  const lock = lockDirectory(dir, 'stria sweep', (line) => io.err.write(`stria sweep: ${line}\n`));
+  try {
+    return await sweepLocked(io, o, { spec, text, dir, log, mine, shard, jobs: jobsN });
+  } finally {
+    lock.release();
+  }
+}
+
+/** The sweep proper, with the directory's lock held. */
+async function sweepLocked(
+  io: CommandIO,
+  o: ParsedArgs['options'],
+  s: { spec: SweepSpec; text: string; dir: string; log: string; mine: SweepJob[]; shard: Shard | null; jobs: number },
+): Promise<number> {
+  const { spec, text, dir, log, mine, shard } = s;
+  // Another sweep may have finished runs between the first read and the lock.
+  const finished = new Map(joinRecords([{ name: log, records: readRunsLog(log).records }]).map((r) => [r.id, r]));
+  const todo = mine.filter((j) => !finished.has(j.id));
+  const jobsN = Math.min(s.jobs, Math.max(1, todo.length));
   writeFileSync(join(dir, 'spec.json'), text);
   const dropped = openRunsLog(log);
   if (dropped) io.err.write(`stria sweep: dropped an unfinished last line (${dropped} bytes) of ${log}\n`);

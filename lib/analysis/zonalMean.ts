@@ -25,12 +25,33 @@ export interface ZonalMeans {
   vpqp: Float64Array;
   /** Eddy kinetic energy ½(u′² + v′²) (length²/time²). */
   eke: Float64Array;
+  /**
+   * The same three eddy products as plain zonal means at each row, before any band limit: what the
+   * snapshot fields give when averaged along x, and what Stria's zonal-mean files hold. With a band
+   * (Stria's own runs), `upvp`, `vpqp` and `eke` above keep |m| ≤ band of these; their domain means agree.
+   */
+  upvpPlain: Float64Array;
+  vpqpPlain: Float64Array;
+  ekePlain: Float64Array;
 }
 
 /** Fresh output profiles for ny rows. */
 export function createZonalMeans(ny: number): ZonalMeans {
   const f = () => new Float64Array(ny);
-  return { ubar: f(), qbar: f(), qtot: f(), psibar: f(), dqdy: f(), upvp: f(), convUpvp: f(), vpqp: f(), eke: f() };
+  return {
+    ubar: f(),
+    qbar: f(),
+    qtot: f(),
+    psibar: f(),
+    dqdy: f(),
+    upvp: f(),
+    convUpvp: f(),
+    vpqp: f(),
+    eke: f(),
+    upvpPlain: f(),
+    vpqpPlain: f(),
+    ekePlain: f(),
+  };
 }
 
 export interface ZonalMeanOptions {
@@ -116,16 +137,20 @@ export class ZonalMeanPlan {
       out.qbar[j] = qb;
       out.psibar[j] = sp * inv;
       out.qtot[j] = qb + this.beta * this.y[j];
-      out.upvp[j] = uv * inv;
-      out.vpqp[j] = vq * inv;
-      out.eke[j] = 0.5 * ke * inv;
+      out.upvpPlain[j] = uv * inv;
+      out.vpqpPlain[j] = vq * inv;
+      out.ekePlain[j] = 0.5 * ke * inv;
     }
     // Stage 2: meridional derivatives, spectral (periodic profiles); the band limit, if any.
     const p = this.profile;
     if (this.band < ny / 2) {
-      p.truncate(out.upvp, out.upvp, this.band);
-      p.truncate(out.vpqp, out.vpqp, this.band);
-      p.truncate(out.eke, out.eke, this.band);
+      p.truncate(out.upvpPlain, out.upvp, this.band);
+      p.truncate(out.vpqpPlain, out.vpqp, this.band);
+      p.truncate(out.ekePlain, out.eke, this.band);
+    } else {
+      out.upvp.set(out.upvpPlain);
+      out.vpqp.set(out.vpqpPlain);
+      out.eke.set(out.ekePlain);
     }
     p.derivative(out.upvp, out.convUpvp, this.band);
     for (let j = 0; j < ny; j++) out.convUpvp[j] = -out.convUpvp[j];

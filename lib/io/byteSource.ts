@@ -6,6 +6,8 @@
 export interface ByteSource {
   /** Length of the file in bytes. */
   readonly byteLength: number;
+  /** The bytes are in memory already (not read from a disk as asked for): memory estimates count them. */
+  readonly inMemory?: boolean;
   /**
    * Bytes [offset, offset + length). With `into` (at least `length` bytes long) they are read into
    * it and its first `length` bytes are returned; without it the source may return a view of its own
@@ -24,6 +26,7 @@ export function memorySource(input: ArrayBuffer | Uint8Array): ByteSource {
   const bytes = input instanceof Uint8Array ? input : new Uint8Array(input);
   return {
     byteLength: bytes.length,
+    inMemory: true,
     read(offset: number, length: number, into?: Uint8Array): Uint8Array {
       if (!(offset >= 0 && length >= 0 && offset + length <= bytes.length)) {
         throw new RangeError(

@@ -31,10 +31,16 @@ export function snapshotFrame(time: number, steps: number, f: GridFields): Stria
 
 /**
  * A zonal-mean frame from lib/analysis/zonalMean.ts. The file's `qbar` is the total PV [q] + βy,
- * which ZonalMeans calls `qtot` (its own `qbar` is the anomaly, without βy).
+ * which ZonalMeans calls `qtot` (its own `qbar` is the anomaly, without βy), and its eddy products
+ * are the plain zonal means (`upvpPlain`, …), not the band-limited profiles a run's views show: a
+ * file's [u'v'] is the mean along x of u'v' of its snapshot fields, as its long_name says.
  */
 export function zonalMeanFrame(time: number, steps: number, z: ZonalMeans): StriaFrame {
-  return { time, steps, fields: { ubar: z.ubar, qbar: z.qtot, upvp: z.upvp, vpqp: z.vpqp, eke: z.eke } };
+  return {
+    time,
+    steps,
+    fields: { ubar: z.ubar, qbar: z.qtot, upvp: z.upvpPlain, vpqp: z.vpqpPlain, eke: z.ekePlain },
+  };
 }
 
 /**

@@ -53,9 +53,40 @@ export interface ReadProgress {
 }
 
 export interface ReadOptions {
-  /** Output of exactly the right length (see `recordLength`); a new array when absent. */
+  /** Output of exactly the right length (see `recordLength`, or `range.count`); a new array when absent. */
   out?: Float64Array;
   onProgress?: (p: ReadProgress) => void;
+  /**
+   * readRecord only: values [start, start + count) of the record (row-major, last dimension fastest)
+   * instead of all of it, e.g. one row of a grid, so that a subsample of a large field is read without
+   * holding a whole record.
+   */
+  range?: { start: number; count: number };
+}
+
+/**
+ * The most values a reader allocates for one read of its own (a coordinate, the record of a caller
+ * that gives no buffer): 2²⁷ doubles, 1 GiB. Larger reads take the caller's buffer, sized by a
+ * memory estimate; a coordinate longer than this is a damaged dimension, not a grid.
+ */
+export const MAX_OWN_READ_VALUES = 2 ** 27;
+
+/** A new buffer of n values for a read of `name`, refused past MAX_OWN_READ_VALUES. */
+export function readBuffer(name: string, n: number): Float64Array {
+  if (n > MAX_OWN_READ_VALUES)
+    throw new RangeError(
+      `"${name}" would be read as ${n} values at once, more than the ${MAX_OWN_READ_VALUES} a reader takes on its own: its dimensions are damaged, or far larger than Stria analyses`,
+    );
+  return new Float64Array(n);
+}
+
+/** The range a read covers within a record of n values, checked; the whole record by default. */
+export function recordRange(name: string, n: number, range: ReadOptions['range']): { start: number; count: number } {
+  if (!range) return { start: 0, count: n };
+  const { start, count } = range;
+  if (!(Number.isInteger(start) && Number.isInteger(count) && start >= 0 && count >= 0 && start + count <= n))
+    throw new RangeError(`readRecord("${name}"): values ${start} to ${start + count} are not within a record of ${n}`);
+  return range;
 }
 
 export interface DatasetReader {
@@ -73,8 +104,13 @@ export interface DatasetReader {
   recordCount(name: string): number;
   /** Values in one record: the product of the lengths after the first (all values of a 1-D variable: 1). */
   recordLength(name: string): number;
-  /** Record `index` (index of the first dimension) of a numeric variable, as float64. */
+  /** Record `index` (index of the first dimension) of a numeric variable, or a range of it, as float64. */
   readRecord(name: string, index: number, options?: ReadOptions): Float64Array;
+  /**
+   * Bytes that reading one record of `name` allocates and drops again (decoded chunks and their
+   * stored copies), for memory estimates before anything is read.
+   */
+  recordReadBytes(name: string): number;
   /** All values of a numeric variable (coordinates), as float64. */
   readAll(name: string, options?: ReadOptions): Float64Array;
 }
@@ -137,6 +173,7 @@ export type FileKind = 'netcdf3' | 'hdf5';
  */
 export function sniffFormat(head: Uint8Array, byteLength: number): FileKind {
   if (byteLength === 0) throw new RangeError('not a NetCDF file: the file is empty');
+  if (byteLength < 4) throw new RangeError(`not a NetCDF file: it is only ${byteLength} bytes long`);
   if (HDF5_SIGNATURE.every((b, i) => head[i] === b)) return 'hdf5';
   if (head[0] === 0x43 && head[1] === 0x44 && head[2] === 0x46) {
     if (head[3] === 1 || head[3] === 2) return 'netcdf3';

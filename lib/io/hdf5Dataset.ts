@@ -2,12 +2,13 @@ import { Dataset, File, Group, type DataObjects } from 'jsfive';
 import type { AllocationMeter } from './allocationMeter';
 import type { ByteSource } from './byteSource';
 import type { AttributeValue, DatasetDimension, DatasetReader, ReadOptions, ReaderOptions } from './datasetReader';
-import { isNumericType, NamedVariables } from './datasetReader';
+import { isNumericType, NamedVariables, readBuffer, recordRange } from './datasetReader';
 import { readChunkIndex } from './hdf5ChunkIndex';
 import { denseAttributes } from './hdf5DenseAttributes';
 import { elementReader, elementType, parseDataspace, parseLayout, superblockEnd, superblockSizes } from './hdf5Format';
 import { checkFilters, describe, readSlab, type SlabPlan } from './hdf5Slab';
 import { cleanAttributes, quietly } from './hdf5Attributes';
+import { fileError, printable } from './fileErrors';
 import { netcdf4Structure, type Entry } from './hdf5Netcdf4';
 
 /**
@@ -25,12 +26,12 @@ import { netcdf4Structure, type Entry } from './hdf5Netcdf4';
 export function openHdf5(source: ByteSource, options: ReaderOptions = {}): DatasetReader {
   const buffer = source.whole();
   const view = new DataView(buffer);
-  const { end } = superblockEnd(view);
+  const { end } = fileError('the superblock', () => superblockEnd(view));
   if (end > buffer.byteLength)
     throw new RangeError(
       `truncated HDF5 file: its superblock says the file is ${end} bytes long, but it has ${buffer.byteLength}`,
     );
-  const sizes = superblockSizes(view);
+  const sizes = fileError('the superblock', () => superblockSizes(view));
   if (sizes.offsets !== 8 || sizes.lengths !== 8)
     throw new RangeError(
       `HDF5 files with ${sizes.offsets}-byte offsets are not supported (jsfive reads 8-byte offsets only)`,
@@ -65,25 +66,12 @@ class Hdf5Dataset extends NamedVariables implements DatasetReader {
         try {
           obj = file.get(key);
         } catch (e) {
-          throw new RangeError(`cannot read "${key}" of this HDF5 file: ${describe(e)}`, { cause: e });
+          throw new RangeError(`cannot read "${printable(key)}" of this HDF5 file: ${describe(e)}`, { cause: e });
         }
-        if (obj instanceof Dataset) {
-          const d = obj._dataobjects;
-          const space = d.find_msg_type(0x0001)[0];
-          const { dims, unlimited } = parseDataspace(view, space.get('offset_to_message') as number);
-          entries.push({
-            name: key,
-            obj: d,
-            attrs: { ...safeAttributes(d, key), ...denseAttributes(d, `"${key}"`) },
-            dims,
-            unlimited,
-          });
-        } else if (obj instanceof Group) {
-          this.notes.push(`the group "${key}" was not read: only the root group of a netCDF-4 file is`);
-        }
+        fileError(`the object "${printable(key)}"`, () => this.addEntry(key, obj, entries));
       }
       const globals = {
-        ...safeAttributes(file._dataobjects, 'the file'),
+        ...safeAttributes(file._dataobjects, 'the file', this.notes),
         ...denseAttributes(file._dataobjects, 'the file'),
       };
       // jsfive lists links in storage order (by name hash or, for dense groups, a string sort of
@@ -93,13 +81,47 @@ class Hdf5Dataset extends NamedVariables implements DatasetReader {
       return { file, entries, globals };
     });
     this.attributes = cleanAttributes(globals);
-    for (const w of warnings) if (!/REFERENCE_LIST/.test(w)) this.notes.push(`jsfive: ${w}`);
-    const { dimensions, variables, notes } = netcdf4Structure(file._links, entries);
+    for (const w of warnings) if (!/REFERENCE_LIST/.test(w)) this.notes.push(`jsfive: ${printable(w, 200)}`);
+    const { dimensions, variables, notes } = fileError('the netCDF-4 dimensions', () =>
+      netcdf4Structure(file._links, entries),
+    );
     this.dimensions.push(...dimensions);
     this.notes.push(...notes);
     for (const { variable, obj } of variables) {
       this.addVariable(variable);
       this.objects.set(variable.name, obj);
+    }
+  }
+
+  /** One root object: a variable's dataset (its dataspace and attributes), or a note on what else it is. */
+  private addEntry(key: string, obj: Group | Dataset | null, entries: Entry[]): void {
+    if (obj instanceof Dataset) {
+      const d = obj._dataobjects;
+      const space = d.find_msg_type(0x0001)[0];
+      const { dims, unlimited } = parseDataspace(this.view, space.get('offset_to_message') as number);
+      entries.push({
+        name: key,
+        obj: d,
+        attrs: {
+          ...safeAttributes(d, `"${printable(key)}"`, this.notes),
+          ...denseAttributes(d, `"${printable(key)}"`),
+        },
+        dims,
+        unlimited,
+      });
+    } else if (obj instanceof Group) {
+      // A named data type (a netCDF-4 user-defined type: compound, enum, …) holds a datatype
+      // message and no group structure (symbol table 0x0011, link info 0x0002); it is not data.
+      const d = obj._dataobjects;
+      const namedType =
+        d.find_msg_type(0x0003).length > 0 &&
+        d.find_msg_type(0x0011).length === 0 &&
+        d.find_msg_type(0x0002).length === 0;
+      this.notes.push(
+        namedType
+          ? `"${printable(key)}" is a named data type (a netCDF-4 user-defined type), not a variable: not read`
+          : `the group "${printable(key)}" was not read: only the root group of a netCDF-4 file is`,
+      );
     }
   }
 
@@ -109,19 +131,38 @@ class Hdf5Dataset extends NamedVariables implements DatasetReader {
     if (!(Number.isInteger(index) && index >= 0 && index < count))
       throw new RangeError(`record ${index} of "${name}" does not exist (it has ${count})`);
     const n = this.recordLength(name);
-    const out = options.out ?? new Float64Array(n);
-    if (out.length !== n) throw new RangeError(`readRecord("${name}"): out has ${out.length} values, a record ${n}`);
+    const range = recordRange(name, n, options.range);
+    const out = options.out ?? readBuffer(name, range.count);
+    if (out.length !== range.count)
+      throw new RangeError(`readRecord("${name}"): out has ${out.length} values, the read ${range.count}`);
     const bytes = (k: number) => k * plan.elementSize;
-    readSlab(this.view, plan, index, out, this.meter, (done, total) =>
-      options.onProgress?.({ variable: name, record: index, done: bytes(done), total: bytes(total) }),
+    fileError(`record ${index} of "${name}"`, () =>
+      readSlab(
+        this.view,
+        plan,
+        index,
+        out,
+        this.meter,
+        (done, total) =>
+          options.onProgress?.({ variable: name, record: index, done: bytes(done), total: bytes(total) }),
+        range.start,
+      ),
     );
     return out;
+  }
+
+  recordReadBytes(name: string): number {
+    const plan = this.plan(name);
+    if (plan.layout.kind !== 'chunked' || plan.filters.length === 0) return 0; // read from the file's bytes
+    // One chunk at a time: its stored copy and each filter's output, at most the decoded size each.
+    const chunk = plan.layout.chunk.reduce((a, b) => a * b, 1) * plan.elementSize;
+    return (plan.filters.length + 1) * chunk;
   }
 
   readAll(name: string, options: ReadOptions = {}): Float64Array {
     const v = this.variable(name);
     const total = v.shape.reduce((a, b) => a * b, 1);
-    const out = options.out ?? new Float64Array(total);
+    const out = options.out ?? readBuffer(name, total);
     if (out.length !== total)
       throw new RangeError(`readAll("${name}"): out has ${out.length} values, the variable ${total}`);
     const per = this.recordLength(name);
@@ -134,6 +175,10 @@ class Hdf5Dataset extends NamedVariables implements DatasetReader {
   private plan(name: string): SlabPlan {
     const cached = this.plans.get(name);
     if (cached) return cached;
+    return fileError(`the storage of "${name}"`, () => this.newPlan(name));
+  }
+
+  private newPlan(name: string): SlabPlan {
     const v = this.variable(name);
     if (!isNumericType(v.type))
       throw new RangeError(
@@ -165,10 +210,25 @@ class Hdf5Dataset extends NamedVariables implements DatasetReader {
   }
 }
 
-function safeAttributes(obj: DataObjects, owner: string): Record<string, unknown> {
+/**
+ * The attributes jsfive decodes, and a note naming each one it cannot (a compound or other type it
+ * lacks), with its owner: "the attribute "meta" of "u" …", one note per attribute and variable.
+ */
+function safeAttributes(obj: DataObjects, owner: string, notes: string[]): Record<string, unknown> {
+  const warnings: string[] = [];
   try {
-    return obj.get_attributes();
+    return quietly(warnings, () => obj.get_attributes());
   } catch (e) {
     throw new RangeError(`cannot read the attributes of ${owner}: ${describe(e)}`, { cause: e });
+  } finally {
+    for (const w of warnings) {
+      const m = /^Attribute (.+) type not implemented, set to null\.?$/.exec(w);
+      if (m?.[1] === 'REFERENCE_LIST') continue; // the netCDF-4 bookkeeping of every dimension scale
+      notes.push(
+        m
+          ? `the attribute "${m[1]}" of ${owner} has a type the HDF5 reader cannot decode (such as a compound type): left out`
+          : `jsfive, reading the attributes of ${owner}: ${w}`,
+      );
+    }
   }
 }

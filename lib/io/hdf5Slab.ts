@@ -1,6 +1,7 @@
 import { Filters } from 'jsfive';
 import type { AllocationMeter } from './allocationMeter';
 import { firstChunkAtOrAfter, type ChunkEntry } from './hdf5ChunkIndex';
+import { isLowLevel, meaning } from './fileErrors';
 import { FILTER_NAMES, UNDEFINED_ADDRESS, type Layout } from './hdf5Format';
 
 /**
@@ -36,8 +37,9 @@ export function checkFilters(variable: string, filters: readonly { id: number }[
 }
 
 /**
- * Record `r` of the dataset into out (length = product of shape[1..], or 1 for rank ≤ 1).
- * `onChunk(done, total)` reports values produced so far.
+ * Values [first, first + out.length) of record `r` of the dataset into out (a record holds the
+ * product of shape[1..] values, 1 for rank ≤ 1; the range is all of it by default). Chunks that hold
+ * none of the range are not decoded. `onValues(done, total)` reports values produced so far.
  */
 export function readSlab(
   view: DataView,
@@ -46,6 +48,7 @@ export function readSlab(
   out: Float64Array,
   meter?: AllocationMeter,
   onValues?: (done: number, total: number) => void,
+  first = 0,
 ): void {
   const { shape, layout, elementSize, read } = plan;
   const n = out.length;
@@ -54,7 +57,8 @@ export function readSlab(
     if (base === UNDEFINED_ADDRESS) {
       out.fill(NaN);
     } else {
-      const start = base + r * n * elementSize;
+      const perRecord = shape.slice(1).reduce((a, b) => a * b, 1);
+      const start = base + (r * perRecord + first) * elementSize;
       if (start + n * elementSize > view.byteLength)
         throw new RangeError(`truncated HDF5 file: record ${r} of "${plan.variable}" lies past the end of the file`);
       for (let k = 0; k < n; k++) out[k] = read(view, start + k * elementSize);
@@ -72,11 +76,28 @@ export function readSlab(
   let done = 0;
   for (let c = firstChunkAtOrAfter(plan.chunks, t0); c < plan.chunks.length && plan.chunks[c].offset[0] === t0; c++) {
     const entry = plan.chunks[c];
+    if (!chunkMeetsRange(plan, entry.offset, first, first + n)) continue;
     const data = chunkBytes(view, plan, entry, chunkValues * elementSize, meter);
-    done += copyRecordPart(data.view, data.start + tc * perRecordInChunk * elementSize, plan, entry.offset, out);
+    done += copyRecordPart(data.view, data.start + tc * perRecordInChunk * elementSize, plan, entry.offset, out, first);
     onValues?.(Math.min(done, n), n);
   }
   if (done < n) onValues?.(n, n);
+}
+
+/**
+ * Whether a chunk holds any value of [a, b) of a record: the record indices of its values lie
+ * between those of its first corner and its last (clipped to the dataset), in row-major order.
+ */
+function chunkMeetsRange(plan: SlabPlan, offset: number[], a: number, b: number): boolean {
+  const { shape } = plan;
+  const chunk = (plan.layout as { chunk: number[] }).chunk;
+  let lo = 0;
+  let hi = 0;
+  for (let d = 1; d < shape.length; d++) {
+    lo = lo * shape[d] + offset[d];
+    hi = hi * shape[d] + Math.min(offset[d] + chunk[d], shape[d]) - 1;
+  }
+  return hi >= a && lo < b;
 }
 
 /** The decoded bytes of one chunk: a view of the file itself when unfiltered, else the decoded copy. */
@@ -125,12 +146,21 @@ function chunkBytes(
 
 /**
  * Copies the part of one chunk's time slice (row-major over dims 1..rank−1, starting at byte `start`)
- * that lies inside the dataset into out; returns the number of values copied.
+ * that lies inside the dataset and within record values [first, first + out.length) into out (at
+ * their index less `first`); returns the number of values copied.
  */
-function copyRecordPart(src: DataView, start: number, plan: SlabPlan, offset: number[], out: Float64Array): number {
+function copyRecordPart(
+  src: DataView,
+  start: number,
+  plan: SlabPlan,
+  offset: number[],
+  out: Float64Array,
+  first: number,
+): number {
   const { shape, elementSize, read } = plan;
   const chunk = (plan.layout as { chunk: number[] }).chunk;
   const rank = shape.length;
+  const end = first + out.length;
   if (rank <= 1) {
     out[0] = read(src, start);
     return 1;
@@ -153,8 +183,11 @@ function copyRecordPart(src: DataView, start: number, plan: SlabPlan, offset: nu
     if (inside) {
       const s = start + src0 * chunk[last] * elementSize;
       const o = dst0 * shape[last] + offset[last];
-      for (let k = 0; k < run; k++) out[o + k] = read(src, s + k * elementSize);
-      copied += run;
+      // The part of this run of values within [first, end).
+      const k0 = Math.max(0, first - o);
+      const k1 = Math.min(run, end - o);
+      for (let k = k0; k < k1; k++) out[o + k - first] = read(src, s + k * elementSize);
+      if (k1 > k0) copied += k1 - k0;
     }
     let d = last - 1;
     while (d >= 1 && ++idx[d] === chunk[d]) idx[d--] = 0;
@@ -163,6 +196,7 @@ function copyRecordPart(src: DataView, start: number, plan: SlabPlan, offset: nu
   return copied;
 }
 
+/** An error's message for a user: plain words for jsfive's and the engine's own (fileErrors.ts). */
 export function describe(e: unknown): string {
-  return e instanceof Error ? e.message : String(e);
+  return isLowLevel(e) ? meaning(e) : (e as Error).message;
 }

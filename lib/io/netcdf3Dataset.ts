@@ -1,7 +1,7 @@
 import type { AllocationMeter } from './allocationMeter';
 import type { ByteSource } from './byteSource';
 import type { DatasetReader, DatasetType, ReadOptions, ReaderOptions } from './datasetReader';
-import { NamedVariables } from './datasetReader';
+import { NamedVariables, readBuffer, recordRange } from './datasetReader';
 import { readNetcdf, type NetcdfFile } from './netcdfRead';
 import { NC_STREAMING, NC_TYPE_SIZE, type NcType } from './netcdf3Types';
 
@@ -88,21 +88,29 @@ class Netcdf3Dataset extends NamedVariables implements DatasetReader {
 
   readRecord(name: string, index: number, options: ReadOptions = {}): Float64Array {
     const v = this.nc.variable(name);
-    const count = this.recordCount(name);
-    if (!(Number.isInteger(index) && index >= 0 && index < count))
-      throw new RangeError(`record ${index} of "${name}" does not exist (it has ${count})`);
+    const records = this.recordCount(name);
+    if (!(Number.isInteger(index) && index >= 0 && index < records))
+      throw new RangeError(`record ${index} of "${name}" does not exist (it has ${records})`);
     if (v.type === 'char') throw new RangeError(`"${name}" holds text (char), not numbers`);
     const n = this.recordLength(name);
-    if (v.isRecord) return this.readSlab(v.name, v.type, this.nc.slabRange(name, index).offset, n, index, options);
-    // A fixed variable is one slab; record `index` of its first dimension is a piece of it.
-    return this.readSlab(v.name, v.type, v.begin + index * n * NC_TYPE_SIZE[v.type], n, index, options);
+    const { start, count } = recordRange(name, n, options.range);
+    const size = NC_TYPE_SIZE[v.type];
+    // A record variable's record is one slab; a fixed variable is one slab, record `index` of its
+    // first dimension a piece of it. Either way the range is a run of bytes within it.
+    const base = v.isRecord ? this.nc.slabRange(name, index).offset : v.begin + index * n * size;
+    return this.readSlab(v.name, v.type, base + start * size, count, index, options);
+  }
+
+  /** Reads go through the one scratch buffer, counted as kept (at most READ_PIECE bytes). */
+  recordReadBytes(): number {
+    return 0;
   }
 
   readAll(name: string, options: ReadOptions = {}): Float64Array {
     const v = this.nc.variable(name);
     if (v.type === 'char') throw new RangeError(`"${name}" holds text (char), not numbers`);
     const n = this.variable(name).shape.reduce((a, b) => a * b, 1);
-    const out = options.out ?? new Float64Array(n);
+    const out = options.out ?? readBuffer(name, n);
     if (out.length !== n) throw new RangeError(`readAll("${name}"): out has ${out.length} values, the variable ${n}`);
     if (!v.isRecord) return this.readSlab(name, v.type, v.begin, n, 0, { ...options, out });
     const per = v.slabCount;
@@ -119,7 +127,7 @@ class Netcdf3Dataset extends NamedVariables implements DatasetReader {
     record: number,
     options: ReadOptions,
   ): Float64Array {
-    const out = options.out ?? new Float64Array(n);
+    const out = options.out ?? readBuffer(name, n);
     if (out.length !== n) throw new RangeError(`readRecord("${name}"): out has ${out.length} values, a record ${n}`);
     const size = NC_TYPE_SIZE[type];
     const per = Math.max(1, Math.floor(READ_PIECE / size));

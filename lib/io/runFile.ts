@@ -5,6 +5,7 @@ import { storedParams, type ModelParams } from '../model/params';
 import { InputError, isInputError } from '../inputError';
 import { validateParams } from '../model/validateParams';
 import { decodeBase64, encodeBase64 } from './base64';
+import { namedValues } from './namedValues';
 
 /**
  * The Stria run file: a saved run that resumes bit for bit. Versioned JSON:
@@ -41,7 +42,7 @@ const RunFileSchema = v.object({
     `must be ${RUN_FILE_VERSION}: this Stria reads run files of version ${RUN_FILE_VERSION}`,
   ),
   saved: v.optional(v.string('must be a date string')),
-  params: v.record(v.string(), v.unknown(), 'must be an object of named parameters'),
+  params: namedValues('must be an object of named parameters'),
   state: v.object(
     {
       time: v.pipe(finite('model time'), v.minValue(0, 'model time must be ≥ 0')),

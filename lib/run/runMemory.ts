@@ -85,8 +85,9 @@ export function estimateRunMemory(
   const model = modelMemory(nx, ny, forcedModesForCost(p));
   const plan = snapshotPlanBytes(model, S);
   const acc = accumulatorBytes(ny);
-  // Zonal means and time-mean profiles (9 + 8), three profile transforms (4 each), y, jet amplitudes, gradient.
-  const profiles = D * (9 * ny + MEAN_PROFILES.length * ny + 3 * 4 * ny + ny + (ny / 2 + 1) + ny);
+  // Zonal means (9, and the 3 plain eddy means) and time-mean profiles (8), three profile transforms
+  // (4 each), y, jet amplitudes, gradient.
+  const profiles = D * (12 * ny + MEAN_PROFILES.length * ny + 3 * 4 * ny + ny + (ny / 2 + 1) + ny);
   const items: MemoryItem[] = [
     { what: 'model', bytes: model.totalBytes },
     { what: 'measurement', bytes: plan + D * 5 * N + acc + profiles },

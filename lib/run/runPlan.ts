@@ -43,7 +43,17 @@ export const STEADY_CAP_WINDOWS = 20;
 /** Samples per time step dt when none is asked for: one per 10 dt keeps sampling to a few % of the cost. */
 export const DEFAULT_SAMPLE_STEPS = 10;
 
+/**
+ * The most steps a run may count, 2³¹ − 1: Stria's NetCDF files store the step count as a 32-bit
+ * integer (`step`), and a run that needs more would not end in any useful time anyway (at a few
+ * microseconds a step on the smallest grid, 2³¹ steps take hours; on a 256² grid, weeks).
+ */
+export const MAX_RUN_STEPS = 2 ** 31 - 1;
+
 const positive = (x: number | undefined) => x === undefined || (Number.isFinite(x) && x > 0);
+
+/** A step count as people read it: whole up to 10⁹, else three digits and an exponent (1e+300). */
+const stepsText = (n: number) => (n < 1e9 ? String(n) : Number(n.toPrecision(3)).toExponential());
 
 /** The steady window 1/(2μ), the e-folding time of the energy's spin-up from rest (E ∝ 1 − e^{−2μt}). */
 export function spinUpTime(mu: number): number {
@@ -51,12 +61,13 @@ export function spinUpTime(mu: number): number {
 }
 
 /**
- * Resolve a request into a RunPlan for a run of these parameters starting at model time `start`.
- * Throws an InputError of source 'run length' whose field is the request's key (`steps`, `until`,
- * `average`, …, or `length`) when the request is not exactly one of steps, until and untilSteady,
- * or a value is out of range.
+ * Resolve a request into a RunPlan for a run of these parameters starting at model time `start`
+ * after `startSteps` steps. Throws an InputError of source 'run length' whose field is the request's
+ * key (`steps`, `until`, `average`, …, or `length`) when the request is not exactly one of steps,
+ * until and untilSteady, a value is out of range, or the run would count more than MAX_RUN_STEPS
+ * steps: at least (end − start)/dt of them, dt being the largest step the run takes.
  */
-export function resolveRunPlan(p: ModelParams, req: RunLengthRequest, start = 0): RunPlan {
+export function resolveRunPlan(p: ModelParams, req: RunLengthRequest, start = 0, startSteps = 0): RunPlan {
   const given = (['steps', 'until', 'untilSteady'] as const).filter((k) => req[k] !== undefined && req[k] !== false);
   if (given.length !== 1)
     throw new InputError(
@@ -103,6 +114,7 @@ export function resolveRunPlan(p: ModelParams, req: RunLengthRequest, start = 0)
       );
     stop = { kind: 'steady', window, tolerance: req.steadyTolerance ?? DEFAULT_STEADY_TOLERANCE, maxTime };
   }
+  checkStepCount(stop, p.dt, start, startSteps);
   // The default window shrinks to a run that is shorter; a window asked for must fit.
   const span = stop.kind === 'until' ? stop.time - start : Infinity;
   const average = req.average ?? Math.min(p.mu > 0 ? 1 / p.mu : 50, span);
@@ -123,6 +135,26 @@ export function resolveRunPlan(p: ModelParams, req: RunLengthRequest, start = 0)
       `sampleEvery = ${sampleEvery} is longer than the averaging window ${average}`,
     );
   return { stop, average, sampleEvery };
+}
+
+/** Refuses a stop rule that would take the run past MAX_RUN_STEPS, naming the estimate. */
+function checkStepCount(stop: StopRule, dt: number, start: number, startSteps: number): void {
+  // Worded without the bare names of other request keys: the command line puts its options there.
+  const room = MAX_RUN_STEPS - startSteps;
+  const limit = `beyond the most a run may count, ${MAX_RUN_STEPS}${startSteps > 0 ? `, from its start at step ${startSteps}` : ''}`;
+  if (stop.kind === 'steps') {
+    if (stop.steps > room) throw new InputError('run length', 'steps', `steps ${stepsText(stop.steps)} is ${limit}`);
+    return;
+  }
+  const key = stop.kind === 'until' ? 'until' : 'maxTime';
+  const end = stop.kind === 'until' ? stop.time : stop.maxTime;
+  const least = Math.ceil((end - start) / dt);
+  if (least > room)
+    throw new InputError(
+      'run length',
+      key,
+      `${key} ${end} means a step count of at least ${stepsText(least)} at dt = ${dt}, ${limit}: give a larger dt or a shorter run`,
+    );
 }
 
 /** The stop rule in words, for messages and help. */

@@ -11,6 +11,7 @@ import type { RunPlan } from './runPlan';
 import { stateFromJson, stateToJson } from './stateJson';
 import type { CapturedState } from './dataState';
 import { textDigest } from '../io/digest';
+import { namedValues } from '../io/namedValues';
 
 /**
  * The checkpoint file of `stria run --checkpoint`: a run file (lib/io/runFile.ts: parameters and
@@ -101,7 +102,7 @@ const ProgressSchema = v.strictObject({
     `must be ${PROGRESS_VERSION}: this Stria reads run progress of version ${PROGRESS_VERSION}`,
   ),
   id: v.pipe(v.string('must be a text'), v.regex(/^r[0-9a-f]{16}$/, 'must be a run id such as r0123456789abcdef')),
-  params: v.record(v.string(), v.unknown(), 'must be an object of parameters'),
+  params: namedValues('must be an object of parameters'),
   plan: v.strictObject(
     { stop: StopSchema, average: positive, sampleEvery: positive },
     'must be a run plan { stop, average, sampleEvery }',

@@ -1,7 +1,7 @@
 import { Model } from '../model/model';
 import { BlowUpError } from '../model/stepper';
 import { MonitoredRun } from '../run/monitoredRun';
-import { RECORD_FORMAT, RECORD_VERSION, type SweepRecord } from './sweepRecord';
+import { sealRecord, type SweepRecord } from './sweepRecord';
 import type { SweepJob } from './sweepRuns';
 
 /** The caller's clock (lib/ reads none): seconds from any origin, and the time now as ISO 8601. */
@@ -25,9 +25,7 @@ export function runSweepJob(job: SweepJob, clock: Clock): SweepRecord {
     if (!(e instanceof BlowUpError)) throw e;
     error = e.message;
   }
-  return {
-    format: RECORD_FORMAT,
-    version: RECORD_VERSION,
+  return sealRecord({
     id: job.id,
     index: job.index,
     point: job.point,
@@ -41,5 +39,5 @@ export function runSweepJob(job: SweepJob, clock: Clock): SweepRecord {
     summary: run.summary(),
     wall_seconds: clock.seconds() - t0,
     finished_at: clock.iso(),
-  };
+  });
 }

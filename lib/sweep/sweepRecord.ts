@@ -8,8 +8,12 @@ import {
   type RunSummary,
 } from '../analysis/summary';
 import type { StopReason } from '../run/monitoredRun';
-import { canonicalJson } from '../run/runId';
+import { textDigest } from '../io/digest';
+import type { ModelParams } from '../model/params';
+import { canonicalJson, runId } from '../run/runId';
+import type { RunPlan } from '../run/runPlan';
 import type { SweepJob } from './sweepRuns';
+import { namedValues } from '../io/namedValues';
 
 /**
  * One finished sweep run: one line of `runs.jsonl` (JSON Lines, one object per line, appended as
@@ -19,7 +23,13 @@ import type { SweepJob } from './sweepRuns';
  * (lib/analysis/summary.ts) at the end, or at the last good state of a blown-up run.
  */
 export const RECORD_FORMAT = 'stria-sweep-run';
-/** 2: summaries with the detector's verdict, standard errors and the steady state (version 1 lines are refused). */
+/**
+ * Version 2 lines carry `digest`, the fingerprint (lib/io/digest.ts `textDigest`) of the canonical
+ * JSON (keys sorted) of every other field of the line, so that a line changed after it was written —
+ * a summary edited by hand, a copy gone wrong — is refused instead of changing the fits, and a
+ * summary with the jet detector's verdict, standard errors and the steady state. Version 1 lines
+ * (written before both) are refused: their summaries lack the verdicts the tables and fits need.
+ */
 export const RECORD_VERSION = 2;
 
 /** The job that ran (id, position, point, replica, seed, parameters, plan) and what came of it. */
@@ -34,6 +44,20 @@ export interface SweepRecord extends SweepJob {
   /** Wall time of the run (s) and when it finished: the only fields that differ between reruns. */
   wall_seconds: number;
   finished_at: string;
+  /** The fingerprint of the rest of the line (see RECORD_VERSION). */
+  digest?: string;
+}
+
+/** The fingerprint of a record: textDigest of the canonical JSON of every field but `digest`. */
+export function recordDigest(r: SweepRecord): string {
+  const { digest: _, ...rest } = r;
+  return textDigest(canonicalJson(rest));
+}
+
+/** A record of this version, with its digest. */
+export function sealRecord(r: Omit<SweepRecord, 'format' | 'version' | 'digest'>): SweepRecord {
+  const record: SweepRecord = { format: RECORD_FORMAT, version: RECORD_VERSION, ...r };
+  return { ...record, digest: recordDigest(record) };
 }
 
 /** The summary's validators, key by key (lib/analysis/summary.ts says what each holds). */
@@ -50,12 +74,13 @@ function summaryEntry(key: keyof RunSummary) {
 const RecordSchema = v.looseObject({
   format: v.literal(RECORD_FORMAT, `must be "${RECORD_FORMAT}"`),
   version: v.literal(RECORD_VERSION, `must be ${RECORD_VERSION}`),
+  digest: v.optional(v.pipe(v.string('must be a text'), v.regex(/^[0-9a-f]{16}$/, 'must be 16 hex digits'))),
   id: v.pipe(v.string('must be a text'), v.regex(/^r[0-9a-f]{16}$/, 'must be a run id such as r0123456789abcdef')),
   index: v.pipe(v.number('must be a number'), v.integer('must be an integer'), v.minValue(0, 'must be ≥ 0')),
   point: v.record(v.string(), v.union([v.number(), v.boolean(), v.string()]), 'must be an object of swept values'),
   replica: v.pipe(v.number('must be a number'), v.integer('must be an integer')),
   seed: v.pipe(v.number('must be a number'), v.integer('must be an integer')),
-  params: v.record(v.string(), v.unknown(), 'must be an object of parameters'),
+  params: namedValues('must be an object of parameters'),
   plan: v.looseObject(
     {
       stop: v.looseObject({ kind: v.picklist(['steps', 'until', 'steady']) }),
@@ -94,7 +119,19 @@ export function parseSweepRecord(line: string): SweepRecord {
   const bad = nonFinitePath(json, '');
   if (bad !== null)
     throw new RangeError(`${bad || '(record)'}: must be a finite number (JSON such as 1e999 reads as Infinity)`);
-  return json as SweepRecord;
+  const r = json as SweepRecord;
+  // What the line says of itself must hold: it is whole (its digest), and it is the run it names (its id).
+  if (r.digest === undefined) throw new RangeError(`digest: missing (a version ${RECORD_VERSION} line carries one)`);
+  if (recordDigest(r) !== r.digest)
+    throw new RangeError(
+      'digest: does not match the line: it was changed after it was written; remove the line to run that run again',
+    );
+  const id = runId(r.params as unknown as ModelParams, r.plan as RunPlan);
+  if (id !== r.id)
+    throw new RangeError(
+      `id: ${r.id} is not the id of the line's parameters and plan (${id}): the line was changed after it was written; remove it to run that run again`,
+    );
+  return r;
 }
 
 /** Path of the first number in a JSON value that is not finite, or null. */

@@ -2,6 +2,7 @@ import * as v from 'valibot';
 import { InputError } from '../inputError';
 import { DEFAULT_PARAMS } from '../model/params';
 import { DEMO_SCENARIOS } from '../plan/demoScenarios';
+import { namedValues } from '../io/namedValues';
 
 /**
  * The sweep spec: which runs a sweep makes and how each is measured (JSON; docs/cli.md).
@@ -82,7 +83,7 @@ export const SweepSpecSchema = v.strictObject(
         `must be one of ${DEMO_SCENARIOS.map((s) => `"${s.id}"`).join(', ')}`,
       ),
     ),
-    base: v.optional(v.record(v.string(), v.unknown(), 'must be an object of named parameters'), {}),
+    base: v.optional(namedValues('must be an object of named parameters'), {}),
     vary: v.pipe(
       v.array(AxisSchema, 'must be a list of one or two swept parameters'),
       v.minLength(1, 'must name at least one swept parameter'),

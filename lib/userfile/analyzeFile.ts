@@ -8,12 +8,16 @@ import { tangentPlane } from '../plan/tangentPlane';
 import type { ByteSource } from '../io/byteSource';
 import { discoverFields, type FieldMapping } from './fieldDiscovery';
 import type { MaskCounts } from './fieldValues';
-import type { FieldRole } from './fieldNames';
+import { roleUnits, type FieldRole } from './fieldNames';
 import { openDataset } from '../io/openDataset';
+import { sniffFormat } from '../io/datasetReader';
+import { formatBytes } from '../run/runMemory';
+import { checkUserFileMemory, estimateUserFileMemory, type UserFileMemoryEstimate } from './userFileMemory';
 import { parseRecordWindow } from './recordWindow';
 import { userFieldSource } from './fieldSource';
 import { striaParameters } from './striaParameters';
 import { spectralSlopes, type SpectralSlope } from './spectralSlopes';
+import { fileUnitLabels } from './unitLabels';
 
 /**
  * A user's NetCDF file through Stria's diagnostics, end to end: open (NetCDF-3 or netCDF-4), find the
@@ -40,6 +44,14 @@ export interface AnalyzeFileOptions {
   tolerance?: number;
   rhines?: RhinesConvention;
   spectra?: boolean;
+  /** Read every K-th point in x and y (fieldSource.ts); default 1, every point. */
+  subsample?: number;
+  /**
+   * Refuse, before anything is read, an analysis whose memory estimate (userFileMemory.ts) plus
+   * `runtimeBytes` exceeds this many bytes; no check when absent.
+   */
+  memoryBudget?: number;
+  runtimeBytes?: number;
   onProgress?: (p: { record: number; index: number; of: number; done: number; total: number }) => void;
   meter?: AllocationMeter;
 }
@@ -51,6 +63,8 @@ export interface FileAnalysis {
     fields: Partial<Record<FieldRole, { variable: string; found: string; units: string | null }>>;
     records: number;
     notes: string[];
+    /** What the analysis was estimated to take before anything was read. */
+    memoryEstimate: UserFileMemoryEstimate;
   };
   masking: Partial<Record<FieldRole, MaskCounts & { masked: number; fraction: number }>>;
   parameters: Record<'beta' | 'kd' | 'eps' | 'mu', { value: number; source: string } | null>;
@@ -63,14 +77,37 @@ export interface FileAnalysis {
 
 export function analyzeFile(source: ByteSource, options: AnalyzeFileOptions = {}): FileAnalysis {
   const meter = options.meter ?? new AllocationMeter();
+  const budget = options.memoryBudget;
+  const runtime = options.runtimeBytes ?? 0;
+  // The netCDF-4 reader takes the whole file into memory: a file larger than the budget is refused first.
+  const head = source.read(0, Math.min(8, source.byteLength)).slice();
+  if (budget !== undefined && !source.inMemory && sniffFormat(head, source.byteLength) === 'hdf5')
+    if (source.byteLength + runtime > budget)
+      throw new RangeError(
+        `this netCDF-4 file is ${formatBytes(source.byteLength)}, and the HDF5 reader holds it whole in memory: more than the memory budget of ${formatBytes(budget)}`,
+      );
   const reader = openDataset(source, { meter });
   const d = discoverFields(reader, { map: options.map, tolerance: options.tolerance, domain: options.domain });
+  // From the dimensions alone, before a buffer of the grid's size exists.
+  const memoryInput = {
+    reader,
+    discovery: d,
+    fileBytes: source.inMemory || reader.format === 'netcdf4' ? source.byteLength : 0,
+    subsample: options.subsample,
+    kd: options.kd,
+    spectra: options.spectra,
+    periodic: options.periodic,
+    runtimeBytes: runtime,
+  };
+  const memoryEstimate =
+    budget !== undefined ? checkUserFileMemory(memoryInput, budget) : estimateUserFileMemory(memoryInput);
   const planet = options.planet ? PLANETS[options.planet] : null;
   if (options.planet && !planet)
     throw new RangeError(`unknown planet "${options.planet}" (known: ${Object.keys(PLANETS).join(', ')})`);
   const lonlat = d.y.kind === 'latitude';
   const fs = userFieldSource(reader, d, {
     meter,
+    subsample: options.subsample,
     tangentPlane:
       planet && lonlat
         ? {
@@ -117,17 +154,22 @@ export function analyzeFile(source: ByteSource, options: AnalyzeFileOptions = {}
     onProgress: options.onProgress,
     meter,
   });
+  const velocity = d.fields.u ?? d.fields.ubar ?? d.fields.v ?? null;
+  const labels = fileUnitLabels(
+    analysis.grid.lengthUnit,
+    velocity ? roleUnits(velocity.role, velocity.units ?? undefined) : null,
+  );
   let comparison: Comparison;
   try {
-    comparison = measuredVsPredicted(analysis, {
-      beta: value('beta'),
-      eps: value('eps'),
-      mu: value('mu'),
-      kd: value('kd'),
-    });
+    comparison = measuredVsPredicted(
+      analysis,
+      { beta: value('beta'), eps: value('eps'), mu: value('mu'), kd: value('kd') },
+      labels,
+    );
   } catch (e) {
     comparison = {
       units: analysis.grid.lengthUnit === 'm' ? 'physical' : 'model',
+      labels,
       rows: [],
       missing: `no planner predictions: ${(e as Error).message}`,
     };
@@ -151,6 +193,7 @@ export function analyzeFile(source: ByteSource, options: AnalyzeFileOptions = {}
       fields,
       records: d.records.count,
       notes: [...reader.notes, ...d.notes],
+      memoryEstimate,
     },
     masking,
     parameters: params,

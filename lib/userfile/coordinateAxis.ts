@@ -1,5 +1,6 @@
 import type { DatasetReader, DatasetVariable } from '../io/datasetReader';
 import { degreesOf, lengthUnits } from './unitsText';
+import { printable } from '../io/fileErrors';
 
 /**
  * A horizontal coordinate of a user's file, checked to be regular: positions x_i = start + i·spacing
@@ -116,7 +117,7 @@ export function coordinateAxis(
     const u = lengthUnits(units);
     if (u.kind === 'unknown')
       throw new RangeError(
-        `axis "${dim}" has units "${u.text}", which Stria does not read as a length (m, km, cm, degrees_east/degrees_north, or "1" for model units)`,
+        `axis "${dim}" has units "${printable(u.text)}", which Stria does not read as a length (m, km, cm, degrees_east/degrees_north, or "1" for model units)`,
       );
     scale = u.kind === 'si' ? u.factor : 'model';
   }

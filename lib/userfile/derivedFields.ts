@@ -6,7 +6,8 @@ import type { UserSpectralPlan } from './spectral';
 /**
  * Which of u, v, ζ, ψ and the PV anomaly q = ζ − k_d²ψ a user's record gives, directly or derived:
  * u = −ψ_y, v = ψ_x from ψ; ζ = v_x − u_y from u and v, or ∇²ψ; ψ = ∇⁻²ζ (zero mean) by spectral
- * inversion, only on a doubly periodic 2^k grid and only when k_d ≠ 0 needs it; q from the file, or
+ * inversion, only on a doubly periodic 2^k grid, when k_d ≠ 0 needs it for q or when the file lacks
+ * u and v (a vorticity-only file: its velocities come from the inverted ψ); q from the file, or
  * from ζ (and ψ). Derivatives are spectral on a doubly periodic 2^k grid when the inputs have no
  * missing values, finite differences otherwise (gridDerivatives.ts); a record whose ψ cannot be
  * inverted (missing values) has no q when k_d ≠ 0. All in the record's units; ψ in length²/time.
@@ -29,18 +30,23 @@ export function planDerivation(
 ): DerivationPlan {
   const has = (r: UserRole) => roles.includes(r);
   const reasons: string[] = [];
-  const u = has('u') ? 'file' : has('psi') && lengths ? 'psi' : null;
-  const v = has('v') ? 'file' : has('psi') && lengths ? 'psi' : null;
   let zeta: DerivationPlan['zeta'] = has('zeta') ? 'file' : null;
   if (!zeta && lengths) zeta = has('u') && has('v') ? 'uv' : has('psi') ? 'psi' : null;
+  // ψ = ∇⁻²ζ when q = ζ − k_d²ψ needs it, or when the velocities must come from it (a ζ-only file).
+  const velocitiesMissing = !(has('u') && has('v'));
   let psi: DerivationPlan['psi'] = has('psi') ? 'file' : null;
-  if (!psi && kd !== 0 && zeta && !has('q')) {
+  if (!psi && zeta && ((kd !== 0 && !has('q')) || (velocitiesMissing && lengths))) {
     if (spectral) psi = 'inversion';
     else
       reasons.push(
-        'ψ: k_d ≠ 0 needs ψ for q = ζ − k_d²ψ, and the file has none; inverting ζ needs a doubly periodic grid of 2^k × 2^m points',
+        kd !== 0 && !has('q')
+          ? 'ψ: k_d ≠ 0 needs ψ for q = ζ − k_d²ψ, and the file has none; inverting ζ needs a doubly periodic grid of 2^k × 2^m points'
+          : 'u and v: the file has neither them nor ψ, and inverting ζ for ψ needs a doubly periodic grid of 2^k × 2^m points',
       );
   }
+  const fromPsi = psi !== null && lengths ? 'psi' : null;
+  const u = has('u') ? 'file' : fromPsi;
+  const v = has('v') ? 'file' : fromPsi;
   const q: DerivationPlan['q'] = has('q') ? 'file' : zeta && (kd === 0 || psi) ? 'zeta' : null;
   if (!lengths && !has('q') && !has('zeta'))
     reasons.push(
@@ -87,8 +93,6 @@ export class FieldDeriver {
       if (op === 'dy') return s ? s.ddy(x, out) : ddy(fd, x, out);
       return s ? s.laplacian(x, out) : laplacian(fd, x, out);
     };
-    if (plan.u === 'psi') negate(d('dy', f.psi as Float64Array, f.u as Float64Array));
-    if (plan.v === 'psi') d('dx', f.psi as Float64Array, f.v as Float64Array);
     if (plan.zeta === 'uv') {
       const z = f.zeta as Float64Array;
       d('dx', f.v as Float64Array, z);
@@ -101,8 +105,11 @@ export class FieldDeriver {
       if (s) {
         s.invertLaplacian(f.zeta as Float64Array, f.psi as Float64Array);
         psiOk = usedSpectral = true;
-      }
+      } else (f.psi as Float64Array).fill(NaN); // missing values: no inversion in this record
     }
+    // Velocities from ψ (the file's, or the inversion's), after the inversion.
+    if (plan.u === 'psi') negate(d('dy', f.psi as Float64Array, f.u as Float64Array));
+    if (plan.v === 'psi') d('dx', f.psi as Float64Array, f.v as Float64Array);
     if (plan.q === 'file' && this.betaOff) {
       const q = f.q as Float64Array;
       const { beta, y0, y } = this.betaOff;

@@ -1,14 +1,24 @@
 import { coordinateAxis, type CoordinateAxis } from './coordinateAxis';
 import { isNumericType, type DatasetReader, type DatasetVariable } from '../io/datasetReader';
 import { hintOf, horizontal, recordAxis, striaPeriods, type RecordAxis } from './fieldAxes';
-import { FIELD_ROLES, matchRole, ROLE_LABELS, roleUnits, type FieldRole, type MatchHow } from './fieldNames';
+import {
+  FIELD_ROLES,
+  GRID_ROLES,
+  matchRole,
+  ROLE_LABELS,
+  roleUnits,
+  type FieldRole,
+  type MatchHow,
+} from './fieldNames';
+import { printable } from '../io/fileErrors';
 
 export type { RecordAxis };
 
 /**
  * Finds what Stria can analyse in a user's file: velocity components u, v, relative vorticity ζ,
  * streamfunction ψ or QG PV q on a regular x/y or longitude/latitude grid, or the zonal-mean zonal
- * velocity ū on (time, latitude/y). Fields are recognised as fieldNames.ts says, or named by the user
+ * velocity ū on (time, latitude/y), with the eddy profiles u′v′, v′q′ and EKE stored beside it (a
+ * zonal-mean file such as Stria's own). Fields are recognised as fieldNames.ts says, or named by the user
  * (`map`: { u: 'U', v: 'V' }), and must share one grid: horizontal dimensions last (y then x, or x
  * then y), before them at most one dimension longer than 1 (the records: usually time) and any
  * number of length 1 (a single level). Irregular axes are refused (coordinateAxis.ts).
@@ -54,15 +64,19 @@ export function discoverFields(reader: DatasetReader, options: DiscoveryOptions 
   // Which of the chosen fields are grids and which are meridional profiles.
   const grids: [FieldRole, DatasetVariable][] = [];
   let profile: [FieldRole, DatasetVariable] | null = null;
+  // Eddy profiles stored beside ū (a zonal-mean file): read with it, as their own roles.
+  const eddyProfiles: [FieldRole, DatasetVariable][] = [];
   for (const role of FIELD_ROLES) {
     const v = chosen[role];
     if (!v) continue;
     const shape = horizontal(reader, v);
-    if (shape === 'grid' && role !== 'ubar') grids.push([role, v]);
+    const gridRole = GRID_ROLES.includes(role);
+    if (shape === 'grid' && gridRole) grids.push([role, v]);
     else if (shape === 'profile' && (role === 'ubar' || role === 'u')) profile ??= [role, v];
+    else if (shape === 'profile' && !gridRole) eddyProfiles.push([role, v]);
     else
       notes.push(
-        `"${v.name}" (${ROLE_LABELS[role]}) is left out: its dimensions (${v.dimensions.join(', ')}) are not ${role === 'ubar' ? '(time, y)' : '(…, y, x)'}`,
+        `"${v.name}" (${ROLE_LABELS[role]}) is left out: its dimensions (${v.dimensions.join(', ')}) are not ${gridRole ? '(…, y, x)' : '(time, y)'}`,
       );
   }
   const layout = grids.length ? 'gridded' : profile ? 'zonal-mean' : null;
@@ -86,9 +100,13 @@ export function discoverFields(reader: DatasetReader, options: DiscoveryOptions 
     fields[role] = found(role, v, chosen.how[matched] as { how: MatchHow; detail: string }, notes);
   };
   if (layout === 'gridded') for (const [role, v] of grids) take(role, v, role);
-  else take('ubar', (profile as [FieldRole, DatasetVariable])[1], (profile as [FieldRole, DatasetVariable])[0]);
-  if (layout === 'gridded' && profile)
-    notes.push(`"${profile[1].name}" (a zonal-mean profile) is not used: the gridded fields give the zonal means`);
+  else {
+    take('ubar', (profile as [FieldRole, DatasetVariable])[1], (profile as [FieldRole, DatasetVariable])[0]);
+    for (const [role, v] of eddyProfiles) take(role, v, role);
+  }
+  if (layout === 'gridded')
+    for (const [, v] of profile ? [profile, ...eddyProfiles] : eddyProfiles)
+      notes.push(`"${v.name}" (a zonal-mean profile) is not used: the gridded fields give the zonal means`);
 
   const dims = lead.dimensions;
   const nh = layout === 'gridded' ? 2 : 1;
@@ -162,7 +180,7 @@ function found(role: FieldRole, v: DatasetVariable, m: { how: MatchHow; detail: 
   const reading = roleUnits(role, units ?? undefined);
   if (reading.kind === 'unknown')
     notes.push(
-      `"${v.name}": units "${units}" not recognised for ${ROLE_LABELS[role]}; its values are taken as they are`,
+      `"${v.name}": units "${printable(units ?? '')}" not recognised for ${ROLE_LABELS[role]}; its values are taken as they are`,
     );
   return {
     role,

@@ -1,5 +1,13 @@
 import type { DatasetVariable } from '../io/datasetReader';
-import { rateUnits, streamfunctionUnits, velocityUnits, type UnitReading } from './unitsText';
+import {
+  accelerationUnits,
+  rateUnits,
+  streamfunctionUnits,
+  velocitySquaredUnits,
+  velocityUnits,
+  type UnitReading,
+} from './unitsText';
+import { printable } from '../io/fileErrors';
 
 /**
  * How Stria recognises the fields of a user's file. By CF standard_name first — these names are
@@ -9,8 +17,11 @@ import { rateUnits, streamfunctionUnits, velocityUnits, type UnitReading } from 
  * saying it is something else: `q` is specific humidity in many atmospheric files, `zeta` the free
  * surface in some ocean models.
  */
-export type FieldRole = 'u' | 'v' | 'zeta' | 'psi' | 'q' | 'ubar';
-export const FIELD_ROLES: readonly FieldRole[] = ['u', 'v', 'zeta', 'psi', 'q', 'ubar'];
+export type FieldRole = 'u' | 'v' | 'zeta' | 'psi' | 'q' | 'ubar' | 'upvp' | 'vpqp' | 'eke';
+export const FIELD_ROLES: readonly FieldRole[] = ['u', 'v', 'zeta', 'psi', 'q', 'ubar', 'upvp', 'vpqp', 'eke'];
+/** The roles of 2D fields (…, y, x); the others are zonal-mean profiles (…, y), read beside ū. */
+export const GRID_ROLES: readonly FieldRole[] = ['u', 'v', 'zeta', 'psi', 'q'];
+export const PROFILE_ROLES: readonly FieldRole[] = ['ubar', 'upvp', 'vpqp', 'eke'];
 
 export const ROLE_LABELS: Readonly<Record<FieldRole, string>> = {
   u: 'eastward velocity u',
@@ -19,6 +30,9 @@ export const ROLE_LABELS: Readonly<Record<FieldRole, string>> = {
   psi: 'streamfunction ψ',
   q: 'potential vorticity anomaly q (QG, without βy unless stated)',
   ubar: 'zonal-mean zonal velocity ū',
+  upvp: 'eddy momentum flux u′v′ (zonal mean)',
+  vpqp: 'eddy PV flux v′q′ (zonal mean)',
+  eke: 'eddy kinetic energy ½(u′² + v′²) (zonal mean)',
 };
 
 export const STANDARD_NAMES: Readonly<Record<FieldRole, readonly string[]>> = {
@@ -28,6 +42,9 @@ export const STANDARD_NAMES: Readonly<Record<FieldRole, readonly string[]>> = {
   psi: ['atmosphere_horizontal_streamfunction'],
   q: [],
   ubar: [],
+  upvp: [],
+  vpqp: [],
+  eke: [],
 };
 
 export const COMMON_NAMES: Readonly<Record<FieldRole, readonly string[]>> = {
@@ -37,12 +54,18 @@ export const COMMON_NAMES: Readonly<Record<FieldRole, readonly string[]>> = {
   psi: ['psi', 'streamfunction', 'stream_function', 'strf', 'sf'],
   q: ['q', 'pv', 'qgpv', 'qpv'],
   ubar: ['ubar', 'u_bar', 'umean', 'u_mean', 'uzm', 'u_zm', 'zonal_mean_u'],
+  // Stria's own zonal-mean files (docs/file-formats.md) and the obvious spellings.
+  upvp: ['upvp', 'uv_eddy', 'eddy_momentum_flux'],
+  vpqp: ['vpqp', 'vq_eddy', 'eddy_pv_flux'],
+  eke: ['eke', 'eddy_kinetic_energy'],
 };
 
 /** The units family of a role: what its values must be measured in. */
 export function roleUnits(role: FieldRole, units: string | undefined): UnitReading {
   if (role === 'zeta' || role === 'q') return rateUnits(units);
   if (role === 'psi') return streamfunctionUnits(units);
+  if (role === 'upvp' || role === 'eke') return velocitySquaredUnits(units);
+  if (role === 'vpqp') return accelerationUnits(units);
   return velocityUnits(units);
 }
 
@@ -64,7 +87,7 @@ export function matchRole(
   const units = typeof v.attributes.units === 'string' ? v.attributes.units : undefined;
   if (roleUnits(role, units).kind === 'unknown') {
     why.push(
-      `"${v.name}" was not taken as ${ROLE_LABELS[role]}: its units "${units}" are not those of ${ROLE_LABELS[role]}`,
+      `"${v.name}" was not taken as ${ROLE_LABELS[role]}: its units "${printable(units ?? '')}" are not those of ${ROLE_LABELS[role]}`,
     );
     return null;
   }

@@ -4,6 +4,7 @@ import type { CoordinateAxis } from './coordinateAxis';
 import type { DatasetReader } from '../io/datasetReader';
 import type { Discovery } from './fieldDiscovery';
 import { applyValueRule, newMaskCounts, valueRule, type MaskCounts, type ValueRule } from './fieldValues';
+import { printable } from '../io/fileErrors';
 
 /**
  * The fields that fieldDiscovery.ts found, as a UserRecordSource: one record at a time, masked
@@ -27,6 +28,12 @@ export interface TangentPlaneSpec {
 export interface FieldSourceOptions {
   tangentPlane?: TangentPlaneSpec;
   meter?: AllocationMeter;
+  /**
+   * Read every K-th point along x and y (K a whole number ≥ 1, default 1): the grid becomes
+   * ⌈nx/K⌉ × ⌈ny/K⌉ points K spacings apart, read one file row at a time, so a field too large for
+   * memory can still be analysed. Periodic only when K divides the number of points.
+   */
+  subsample?: number;
 }
 
 export interface UserFieldSource extends UserRecordSource {
@@ -45,7 +52,15 @@ export function userFieldSource(
   options: FieldSourceOptions = {},
 ): UserFieldSource {
   const notes: string[] = [];
-  const { grid, plane } = buildGrid(d, options.tangentPlane, notes);
+  const K = options.subsample ?? 1;
+  if (!(Number.isInteger(K) && K >= 1)) throw new RangeError(`subsample ${K} must be a whole number ≥ 1`);
+  const thin = (a: CoordinateAxis): CoordinateAxis => ({ ...a, n: Math.ceil(a.n / K), spacing: a.spacing * K });
+  const sampled: Discovery = K === 1 ? d : { ...d, x: d.x ? thin(d.x) : null, y: thin(d.y) };
+  if (K > 1)
+    notes.push(
+      `read every ${ordinal(K)} point in x and y: a ${sampled.x?.n ?? 1} × ${sampled.y.n} subsample of the ${d.x?.n ?? 1} × ${d.y.n} grid, ${K} spacings apart`,
+    );
+  const { grid, plane } = buildGrid(sampled, options.tangentPlane, notes);
   const roles = Object.keys(d.fields) as UserRole[];
   const lead = d.dimensions.slice(0, d.dimensions.length - (d.layout === 'gridded' ? 2 : 1));
   const recordDim = d.records.dimension;
@@ -59,16 +74,22 @@ export function userFieldSource(
   const masks: Partial<Record<UserRole, MaskCounts>> = {};
   for (const r of roles) {
     const f = d.fields[r] as { variable: string; factor: number };
-    rules.set(r, valueRule(reader.variable(f.variable), f.factor));
+    const v = reader.variable(f.variable);
+    // The values a record holds must be the points its axes give (a damaged file may say otherwise).
+    const held = v.shape.slice(lead.length).reduce((a, b) => a * b, 1);
+    if (held !== nFile)
+      throw new RangeError(
+        `"${f.variable}" holds ${held} values a record, but its axes give ${nFile} points (${d.x ? `${d.x.n} × ` : ''}${d.y.n}): the file's dimensions do not agree`,
+      );
+    rules.set(r, valueRule(v, f.factor));
     masks[r] = newMaskCounts();
   }
-  const needsReorder = d.order === 'xy' || d.y.reversed || !!d.x?.reversed;
-  // Fields in the file's order are read straight into the analysis buffers; others through one buffer.
-  const raw = !needsReorder
-    ? new Float64Array(0)
-    : options.meter
-      ? options.meter.f64(nFile, 'read buffer')
-      : new Float64Array(nFile);
+  const needsReorder = K === 1 && (d.order === 'xy' || d.y.reversed || !!d.x?.reversed);
+  const f64 = (n: number) => (options.meter ? options.meter.f64(n, 'read buffer') : new Float64Array(n));
+  // Fields in the file's order are read straight into the analysis buffers; others through one
+  // buffer; a subsample through one row of the file.
+  const raw = needsReorder ? f64(nFile) : new Float64Array(0);
+  const rows = K > 1 ? rowReader(reader, d, K, perRecord, f64) : null;
   const times = d.records.variable ? reader.readAll(d.records.variable) : null;
   const read = (
     r: number,
@@ -86,7 +107,8 @@ export function userFieldSource(
       // Progress in bytes of the float64 values produced, over all the record's fields.
       const report = (p: { done: number; total: number }) =>
         onProgress?.((k + p.done / Math.max(p.total, 1)) * 8 * nFile, roles.length * 8 * nFile);
-      if (perRecord) reader.readRecord(name, r, { out: target, onProgress: report });
+      if (rows) rows(name, r, out, report);
+      else if (perRecord) reader.readRecord(name, r, { out: target, onProgress: report });
       else reader.readAll(name, { out: target, onProgress: report });
       applyValueRule(rules.get(role) as ValueRule, target, target, masks[role] as MaskCounts);
       if (needsReorder) reorder(raw, out, d);
@@ -103,6 +125,59 @@ export function userFieldSource(
     masks,
     plane,
   };
+}
+
+/**
+ * Reads every K-th point of a record into Stria's order, one file row at a time: the rows of the
+ * file's slower horizontal dimension at every K-th position, counted from the first point of
+ * Stria's ascending order (the last of a reversed axis), each row read whole (the only buffer of the
+ * file's size in one dimension) and sampled at every K-th position along it.
+ */
+function rowReader(
+  reader: DatasetReader,
+  d: Discovery,
+  K: number,
+  perRecord: boolean,
+  f64: (n: number) => Float64Array,
+): (name: string, r: number, out: Float64Array, report: (p: { done: number; total: number }) => void) => void {
+  const nx = d.x?.n ?? 1;
+  const ny = d.y.n;
+  const sx = Math.ceil(nx / K);
+  // The file's order: rows along its slower horizontal dimension, values along the faster one.
+  const xy = d.order === 'xy' && !!d.x;
+  const slow = d.layout === 'gridded' ? (xy ? { n: nx, rev: !!d.x?.reversed } : { n: ny, rev: d.y.reversed }) : null;
+  const fast =
+    d.layout === 'gridded'
+      ? xy
+        ? { n: ny, rev: d.y.reversed }
+        : { n: nx, rev: !!d.x?.reversed }
+      : { n: ny, rev: d.y.reversed };
+  const row = f64(fast.n);
+  const at = (k: number, axis: { n: number; rev: boolean }) => (axis.rev ? axis.n - 1 - k * K : k * K);
+  const nSlow = slow ? Math.ceil(slow.n / K) : 1;
+  const nFast = Math.ceil(fast.n / K);
+  return (name, r, out, report) => {
+    for (let a = 0; a < nSlow; a++) {
+      const fileRow = slow ? at(a, slow) : 0;
+      if (!perRecord && slow) reader.readRecord(name, fileRow, { out: row });
+      else if (!perRecord) reader.readAll(name, { out: row });
+      else reader.readRecord(name, r, { out: row, range: { start: fileRow * fast.n, count: fast.n } });
+      for (let b = 0; b < nFast; b++) {
+        // Stria's indices (i east, j north) of sample (a, b).
+        const [i, j] = !slow ? [0, b] : xy ? [a, b] : [b, a];
+        out[j * sx + i] = row[at(b, fast)];
+      }
+      report({ done: a + 1, total: nSlow });
+    }
+  };
+}
+
+/** 2nd, 3rd, 4th, …, 21st, 22nd. */
+export function ordinal(k: number): string {
+  const tens = k % 100;
+  const suffix =
+    tens >= 11 && tens <= 13 ? 'th' : (({ 1: 'st', 2: 'nd', 3: 'rd' } as Record<number, string>)[k % 10] ?? 'th');
+  return `${k}${suffix}`;
 }
 
 /** Stria's order from the file's: target (i east, j north) from the file's (possibly transposed, reversed) index. */
@@ -166,7 +241,7 @@ function buildGrid(
   const sx = x ? x.scale : y.scale;
   if (!lonlat && x && (x.scale === 'model') !== (y.scale === 'model'))
     throw new RangeError(
-      `the axes are in different unit systems: "${x.dimension}" in "${x.units}", "${y.dimension}" in "${y.units}"`,
+      `the axes are in different unit systems: "${x.dimension}" in "${printable(x.units)}", "${y.dimension}" in "${printable(y.units)}"`,
     );
   const f = (a: CoordinateAxis) => (typeof a.scale === 'number' ? a.scale : 1);
   const grid: UserGrid = {

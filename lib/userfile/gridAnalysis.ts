@@ -68,7 +68,7 @@ export function analyzeUserRecords(source: UserRecordSource, options: UserAnalys
 
   // The file's fields, read before anything that depends on periodicity is built.
   const fileBuffers: Partial<Record<UserRole, Float64Array>> = {};
-  for (const r of source.roles) fileBuffers[r] = meter.f64(r === 'ubar' ? g.ny : n, 'fields');
+  for (const r of source.roles) fileBuffers[r] = meter.f64(profileLayout ? g.ny : n, 'fields');
   const progress = (index: number) => (done: number, total: number) =>
     options.onProgress?.({ record: index, index: index - start, of: end - start, done, total });
   const time0 = source.read(start, fileBuffers, progress(start)).time;
@@ -120,11 +120,16 @@ export function analyzeUserRecords(source: UserRecordSource, options: UserAnalys
     if (r > start) times.push(source.read(r, fileBuffers, progress(r)).time);
     if (profileLayout) {
       const ub = fileBuffers.ubar as Float64Array;
+      const eke = fileBuffers.eke ?? null;
       acc.ubar.add(ub);
       records.ubar.add(r - start, ub);
+      if (eke) acc.eke.add(eke);
+      if (fileBuffers.upvp) acc.upvp.add(fileBuffers.upvp);
+      if (fileBuffers.vpqp) acc.vpqp.add(fileBuffers.vpqp);
+      // u² + v² of a row, averaged along it: ū² + 2·EKE (with v̄ = 0, as in a beta-plane QG flow).
       for (let j = 0; j < g.ny; j++)
-        if (Number.isFinite(ub[j])) {
-          speed2 += ub[j] * ub[j];
+        if (Number.isFinite(ub[j]) && (!eke || Number.isFinite(eke[j]))) {
+          speed2 += ub[j] * ub[j] + (eke ? 2 * eke[j] : 0);
           speed2Count++;
         }
     } else {
@@ -163,14 +168,21 @@ export function analyzeUserRecords(source: UserRecordSource, options: UserAnalys
       ubar: acc.ubar.mean(Math.ceil(frac * used)),
       qbar: qRecords >= Math.ceil(frac * used) ? acc.qbar.mean(Math.ceil(frac * qRecords)) : null,
       upvp: acc.upvp.mean(Math.ceil(frac * used)),
-      vpqp: qRecords ? acc.vpqp.mean(Math.ceil(frac * qRecords)) : null,
+      vpqp: qRecords || source.roles.includes('vpqp') ? acc.vpqp.mean(Math.ceil(frac * (qRecords || used))) : null,
       eke: acc.eke.mean(Math.ceil(frac * used)),
     },
     qRecords,
     records: { ubar: records.ubar.view(), qbar: qRecords ? records.qbar.view() : null },
     columns,
+    storedEddies: profileLayout ? source.roles.filter((r) => r === 'upvp' || r === 'vpqp' || r === 'eke') : [],
     uRms: speed2Count ? Math.sqrt(speed2 / speed2Count) : null,
-    uRmsKind: profileLayout ? 'zonal mean' : source.roles.includes('v') || plan.v ? 'u and v' : 'u only',
+    uRmsKind: profileLayout
+      ? source.roles.includes('eke')
+        ? 'zonal mean and eddy kinetic energy'
+        : 'zonal mean'
+      : source.roles.includes('v') || plan.v
+        ? 'u and v'
+        : 'u only',
     spectra: spec?.result() ?? null,
     spectralReason: spectral
       ? options.spectra === false

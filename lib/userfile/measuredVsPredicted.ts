@@ -5,6 +5,7 @@ import type { PlanInput, UnitSystem } from '../plan/planInput';
 import { predictPlan, type PlanPredictions, type PredictionId, type Quantity } from '../plan/predictions';
 import { REFERENCES } from '../plan/references';
 import { resolvePlan } from '../plan/resolvePlan';
+import { fileUnitLabels, type UnitLabels } from './unitLabels';
 
 /**
  * A user's measured values beside what Stria's planner predicts for the same parameters: the
@@ -32,6 +33,8 @@ export interface ComparisonRow {
 
 export interface Comparison {
   units: UnitSystem;
+  /** The unit of each kind of quantity as the rows hold it (the file's own: unitLabels.ts). */
+  labels: UnitLabels;
   rows: ComparisonRow[];
   /** Why there are no planner predictions, when there are none. */
   missing: string | null;
@@ -44,7 +47,11 @@ export interface ComparisonParams {
   kd?: number;
 }
 
-export function measuredVsPredicted(a: UserAnalysis, p: ComparisonParams): Comparison {
+export function measuredVsPredicted(
+  a: UserAnalysis,
+  p: ComparisonParams,
+  labels: UnitLabels = fileUnitLabels(a.grid.lengthUnit, null),
+): Comparison {
   const units: UnitSystem = a.grid.lengthUnit === 'm' ? 'physical' : 'model';
   const rows: ComparisonRow[] = [];
   const ratio = (m: number | null, q: number | null) => (m !== null && q !== null && q !== 0 ? m / q : null);
@@ -166,7 +173,7 @@ export function measuredVsPredicted(a: UserAnalysis, p: ComparisonParams): Compa
       REFERENCES.staircase,
     );
   }
-  return { units, rows, missing: missing ? `no planner predictions: ${missing}` : null };
+  return { units, labels, rows, missing: missing ? `no planner predictions: ${missing}` : null };
 }
 
 /**

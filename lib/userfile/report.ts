@@ -1,4 +1,5 @@
-import { fmt, lengthText, unitLabel } from '../plan/format';
+import { fmt, lengthText } from '../plan/format';
+import type { UnitLabels } from './unitLabels';
 import type { ComparisonRow } from './measuredVsPredicted';
 import type { FileAnalysis } from './analyzeFile';
 import type { SpectralSlope } from './spectralSlopes';
@@ -13,15 +14,13 @@ import { rhinesLabel } from '../plan/rhinesLabels';
 export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
   const a = r.analysis;
   const g = a.grid;
-  const units = r.comparison.units;
+  const labels = r.comparison.labels;
   const L = (x: number | null | undefined) =>
     x === null || x === undefined
       ? '—'
-      : g.lengthUnit === 'degrees'
-        ? `${fmt(x)}°`
-        : units === 'physical'
-          ? lengthText(x)
-          : fmt(x);
+      : labels.length === 'm'
+        ? lengthText(x)
+        : `${fmt(x)}${labels.length === '°' ? '°' : ` ${labels.length}`}`;
   const out: string[] = [];
   out.push(
     `Stria analysis of ${name} (${r.file.format}, ${r.file.layout === 'gridded' ? 'gridded fields' : 'zonal-mean profiles'})`,
@@ -72,10 +71,10 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
         ? `  PV staircase: ${a.staircase.reason}`
         : `  PV staircase: ${a.staircase.edges.length} significant edges, mean step width ${L(a.staircase.meanWidth)}, sharpness index ${fmt(a.staircase.index, 4)}${a.staircase.indexStderr !== null ? ` ± ${fmt(a.staircase.indexStderr, 2)}` : ''} (1 perfect, 0 the plain βy)`,
     );
-  if (a.uRms) out.push(`  U_rms = ${fmt(a.uRms.value)} (${a.uRms.kind})`);
+  if (a.uRms) out.push(`  U_rms = ${fmt(a.uRms.value)} ${labels.velocity} (${a.uRms.kind})`);
   if (a.scales.kRhines !== null)
     out.push(
-      `  k_R = ${fmt(a.scales.kRhines)}, Rhines length ${rhinesLabel(a.scales.rhinesConvention)} = ${L(a.scales.rhinesLength)}, staircase spacing 720^¼(U/β)^½ = ${L(a.scales.staircaseSpacing)}`,
+      `  k_R = ${fmt(a.scales.kRhines)} ${labels.wavenumber}, Rhines length ${rhinesLabel(a.scales.rhinesConvention)} = ${L(a.scales.rhinesLength)}, staircase spacing 720^¼(U/β)^½ = ${L(a.scales.staircaseSpacing)}`,
     );
   if (a.scales.zonostrophyIndex !== null) out.push(`  R_β = ${fmt(a.scales.zonostrophyIndex)} (${a.scales.regime})`);
   if (a.diffusivity?.Dfit !== null && a.diffusivity)
@@ -86,7 +85,7 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
     );
   for (const sl of r.spectralSlopes) out.push(`  ${slopeText(sl)}`);
   out.push('', 'Measured beside the planner');
-  out.push(...comparisonTable(r.comparison.rows, units));
+  out.push(...comparisonTable(r.comparison.rows, labels));
   if (r.comparison.missing) out.push(`  (${r.comparison.missing})`);
   const notes = [...r.file.notes, ...a.notes];
   if (notes.length) {
@@ -100,8 +99,8 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
   return out.join('\n') + '\n';
 }
 
-/** The rows as a fixed-width table. */
-export function comparisonTable(rows: readonly ComparisonRow[], units: 'physical' | 'model'): string[] {
+/** The rows as a fixed-width table, each number's unit in the file's own units. */
+export function comparisonTable(rows: readonly ComparisonRow[], labels: UnitLabels): string[] {
   const cell = (x: number | null, text?: string) => (x === null ? '—' : fmt(x) + (text ? ` (${text})` : ''));
   const head = ['quantity', 'measured', 'predicted', 'ratio', 'unit'];
   const body = rows.map((r) => [
@@ -109,7 +108,7 @@ export function comparisonTable(rows: readonly ComparisonRow[], units: 'physical
     cell(r.measured, r.measuredText),
     cell(r.predicted, r.predictedText),
     r.ratio === null ? '—' : fmt(r.ratio, 3),
-    unitLabel(r.quantity, units),
+    labels[r.quantity],
   ]);
   const w = head.map((h, i) => Math.max(h.length, ...body.map((b) => b[i].length)));
   const line = (c: string[]) => '  ' + c.map((x, i) => (i === 0 ? x.padEnd(w[i]) : x.padStart(w[i]))).join('  ');

@@ -46,7 +46,7 @@ export interface UserAnalysis {
   /** By the one detector, judged against the records' own scatter (userStructure.ts). */
   jets: UserJets | null;
   staircase: UserStaircase | null;
-  uRms: { value: number; kind: 'u and v' | 'u only' | 'zonal mean' } | null;
+  uRms: { value: number; kind: URmsKind } | null;
   scales: {
     beta: number | null;
     kRhines: number | null;
@@ -67,6 +67,12 @@ export interface UserAnalysis {
   memory: { retainedBytes: number; peakTransientBytes: number; byLabel: Record<string, number> };
 }
 
+/**
+ * What U_rms = ⟨u² + v²⟩^½ was formed from: both velocity components, u alone (a lower bound), ū
+ * alone (the zonal part only), or ū and the stored EKE (⟨ū² + 2·EKE⟩, the whole of it when v̄ = 0).
+ */
+export type URmsKind = 'u and v' | 'u only' | 'zonal mean' | 'zonal mean and eddy kinetic energy';
+
 export interface SummaryInput {
   grid: UserAnalysis['grid'] & { notes: string[] };
   window: { start: number; end: number; times: (number | null)[]; timeUnits: string | null };
@@ -84,8 +90,10 @@ export interface SummaryInput {
   records: { ubar: HovmollerRecord; qbar: HovmollerRecord | null };
   /** The first record's u and q as profiles along y, one per column x_i (i·ny + j), or null (zonal means only). */
   columns: { ubar: Float64Array; qbar: Float64Array | null } | null;
+  /** Eddy profiles a zonal-mean file stores itself (read, not computed). */
+  storedEddies: readonly ('upvp' | 'vpqp' | 'eke')[];
   uRms: number | null;
-  uRmsKind: 'u and v' | 'u only' | 'zonal mean';
+  uRmsKind: URmsKind;
   spectra: SpectraMean | null;
   spectralReason: string | null;
   options: { beta?: number; kd: number; eps?: number; mu?: number; rhines?: RhinesConvention };
@@ -104,12 +112,20 @@ export function summarizeUserAnalysis(s: SummaryInput): UserAnalysis {
   const beta = o.beta ?? null;
   const y = Array.from({ length: g.ny }, (_, j) => g.y0 + j * g.dy);
   const hasV = !s.profileLayout && !!s.plan.v;
+  const stored = (k: 'upvp' | 'vpqp' | 'eke') => s.storedEddies.includes(k);
   computed.push('zonal-mean zonal velocity ū');
   if (hasV) computed.push('eddy momentum flux u′v′', 'eddy kinetic energy');
-  else
+  else if (s.profileLayout && (stored('upvp') || stored('eke'))) {
+    if (stored('upvp')) computed.push('eddy momentum flux u′v′');
+    if (stored('eke')) computed.push('eddy kinetic energy');
+    if (!stored('upvp') || !stored('eke'))
+      skip(stored('upvp') ? 'EKE' : 'eddy momentum flux u′v′', 'the file stores the other eddy profile only');
+  } else
     skip(
       'eddy momentum flux u′v′ and EKE',
-      s.profileLayout ? 'the file holds zonal means only' : 'the file has no northward velocity v (nor ψ)',
+      s.profileLayout
+        ? 'the file holds zonal means of u only (no u′v′ or EKE profile)'
+        : 'the file has no northward velocity v (nor ψ)',
     );
 
   // The samples the means are judged against (userStructure.ts): the records when there are enough
@@ -197,7 +213,10 @@ export function summarizeUserAnalysis(s: SummaryInput): UserAnalysis {
 
   // Eddy PV flux and diffusivity, on the grid rows.
   let diffusivity: UserAnalysis['diffusivity'] = null;
-  if (!hasV || !s.qRecords)
+  if (stored('vpqp')) {
+    computed.push('eddy PV flux v′q′');
+    skip('eddy diffusivity', 'needs the zonal-mean PV anomaly, which a zonal-mean file does not give apart from βy');
+  } else if (!hasV || !s.qRecords)
     skip(
       'eddy PV flux v′q′ and eddy diffusivity',
       !hasV ? 'needs v' : s.plan.reasons.join('; ') || 'q could not be formed',
@@ -255,9 +274,9 @@ export function summarizeUserAnalysis(s: SummaryInput): UserAnalysis {
     profiles: {
       y,
       ubar: arr(means.ubar) as (number | null)[],
-      upvp: hasV ? arr(means.upvp) : null,
-      vpqp: s.qRecords && hasV ? arr(means.vpqp) : null,
-      eke: hasV ? arr(means.eke) : null,
+      upvp: hasV || stored('upvp') ? arr(means.upvp) : null,
+      vpqp: (s.qRecords && hasV) || stored('vpqp') ? arr(means.vpqp) : null,
+      eke: hasV || stored('eke') ? arr(means.eke) : null,
     },
     qtot,
     jets,

@@ -80,6 +80,24 @@ export function streamfunctionUnits(units: string | undefined): UnitReading {
   });
 }
 
+/** m²/s² per unit of an eddy momentum flux or a kinetic energy per unit mass (J/kg = m²/s²). */
+export function velocitySquaredUnits(units: string | undefined): UnitReading {
+  return read(units, {
+    'm2 s-2': 1,
+    'm2/s2': 1,
+    'm2 / s2': 1,
+    'j kg-1': 1,
+    'j/kg': 1,
+    'cm2 s-2': 1e-4,
+    'cm2/s2': 1e-4,
+  });
+}
+
+/** m/s² per unit of an eddy PV flux v′q′ (velocity times a rate). */
+export function accelerationUnits(units: string | undefined): UnitReading {
+  return read(units, { 'm s-2': 1, 'm/s2': 1, 'm / s2': 1, 'cm s-2': 0.01, 'cm/s2': 0.01 });
+}
+
 /** Degrees of longitude or latitude, by CF's units spellings (CF 1.8, sections 4.1 and 4.2). */
 export function degreesOf(units: string | undefined): 'east' | 'north' | null {
   if (units === undefined) return null;

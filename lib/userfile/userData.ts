@@ -8,7 +8,7 @@
  * the file's own units ('model'), or in degrees for an unmapped longitude/latitude grid; velocities,
  * vorticity and streamfunction in the matching units (m/s, 1/s, m²/s for SI).
  */
-export type UserRole = 'u' | 'v' | 'zeta' | 'psi' | 'q' | 'ubar';
+export type UserRole = 'u' | 'v' | 'zeta' | 'psi' | 'q' | 'ubar' | 'upvp' | 'vpqp' | 'eke';
 
 export interface UserGrid {
   /** Points in x (1 for zonal-mean profiles) and y. */
@@ -40,7 +40,8 @@ export interface UserRecordSource {
   readonly timeUnits: string | null;
   /**
    * Reads record r into `into[role]` for each provided role (length nx·ny; ny for ubar), missing
-   * values as NaN. `onProgress(done, total)` in bytes of the record.
+   * values as NaN. `onProgress(done, total)` in bytes of the record. Profiles (ubar, upvp, vpqp, eke)
+   * have ny values.
    */
   read(
     r: number,

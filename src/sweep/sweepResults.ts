@@ -1,10 +1,11 @@
 import { parseCsv } from '../../lib/io/csv';
-import { parseSweepRecord, type SweepRecord } from '../../lib/sweep/sweepRecord';
+import { joinRecords, parseSweepRecord, type SweepRecord } from '../../lib/sweep/sweepRecord';
 import { tableRows, type TableRow, type TableValue } from '../../lib/sweep/sweepTable';
 
 /**
  * A command-line sweep's results as table rows (sweepTable.ts): `runs.jsonl` (one record per line;
- * a partial last line of an interrupted sweep is dropped, as the command line does), `table.json`
+ * a partial last line of an interrupted sweep is dropped and a run found twice kept once, as the
+ * command line does), `table.json`
  * (an array of rows) or `table.csv` (numbers read back as numbers, empty fields as null). Throws
  * RangeError naming the line or field that is not what a results file holds.
  */
@@ -22,7 +23,15 @@ export function parseResults(name: string, text: string): { rows: TableRow[]; re
           throw new RangeError(`${name} line ${i + 1}: ${e instanceof Error ? e.message : String(e)}`, { cause: e });
         }
       });
-    return { rows: tableRows(records), records };
+    // A run journaled twice (two sweeps into one directory, or a rerun) counts once, as the command
+    // line counts it; two records of one run that disagree are refused, naming the run.
+    let joined: SweepRecord[];
+    try {
+      joined = joinRecords([{ name, records }]);
+    } catch (e) {
+      throw new RangeError(`${name}: ${e instanceof Error ? e.message : String(e)}`, { cause: e });
+    }
+    return { rows: tableRows(joined), records: joined };
   }
   if (name.endsWith('.json')) {
     const data: unknown = JSON.parse(text);

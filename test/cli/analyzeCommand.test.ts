@@ -77,7 +77,7 @@ describe('stria analyze', () => {
     for (const [argv, msg] of [
       [[], 'stria analyze needs one FILE, got 0'],
       [['a.nc', 'b.nc'], 'stria analyze needs one FILE, got 2'],
-      [['a.nc', '--map', 'speed=U'], '--map: "speed" is not a role (roles: u, v, zeta, psi, q, ubar)'],
+      [['a.nc', '--map', 'speed=U'], '--map: "speed" is not a role (roles: u, v, zeta, psi, q, ubar, upvp, vpqp, eke)'],
       [['a.nc', '--periodic', 'z'], '--periodic must be xy, x, y or none, got "z"'],
       [['a.nc', '--lat0', '45'], '--lat0 and --lon0 place the tangent plane of a planet: give --planet too'],
       [['a.nc', '--planet', 'mars'], '--planet must be one of earth, jupiter, got "mars"'],
@@ -91,18 +91,62 @@ describe('stria analyze', () => {
     expect(parseMap('u=U, v = V_wind')).toEqual({ u: 'U', v: 'V_wind' });
   });
 
-  it('refuses bad files with exit code 1 and a message naming the problem', async () => {
+  it('refuses bad files with exit code 2 (docs/cli.md) and a plain message naming the file and the problem', async () => {
     const text = join(dir, 'notes.txt');
     writeFileSync(text, 'these are not data\n');
     const r = await run([text]);
-    expect(r.code).toBe(1);
+    expect(r.code).toBe(2);
     expect(r.err).toBe(
       `stria analyze: ${text}: not a NetCDF file: it starts with bytes 74 68 65 73, neither "CDF" (NetCDF-3) nor the HDF5 signature (netCDF-4)\n`,
     );
     const gone = await run([join(dir, 'absent.nc')]);
-    expect(gone.code).toBe(1);
-    expect(gone.err).toMatch(/cannot open .*absent\.nc: ENOENT/);
+    expect(gone.code).toBe(2);
+    expect(gone.err).toBe(`stria analyze: ${join(dir, 'absent.nc')}: no such file\n`);
+    const folder = await run([dir]);
+    expect(folder.code).toBe(2);
+    expect(folder.err).toBe(`stria analyze: ${dir}: is a folder, not a file\n`);
   });
+
+  it.runIf(runNcgen)(
+    'refuses a file whose dimensions need more memory than the budget, before reading, and reads a subsample',
+    async () => {
+      // 16384² points in 13 kB: the chunks were never written. The estimate comes from the dimensions.
+      const huge = join(dir, 'huge.nc');
+      writeFileSync(
+        huge,
+        ncgen(
+          `netcdf huge {
+dimensions:
+  time = 1 ; y = 16384 ; x = 16384 ;
+variables:
+  double time(time) ; time:units = "s" ;
+  double y(y) ; y:units = "m" ;
+  double x(x) ; x:units = "m" ;
+  float u(time, y, x) ; u:units = "m s-1" ; u:_ChunkSizes = 1, 512, 512 ;
+  float v(time, y, x) ; v:units = "m s-1" ; v:_ChunkSizes = 1, 512, 512 ;
+data:
+  time = 0 ;
+  y = ${Array.from({ length: 16384 }, (_, j) => j * 1000).join(', ')} ;
+  x = ${Array.from({ length: 16384 }, (_, i) => i * 1000).join(', ')} ;
+}
+`,
+          'nc4',
+        ),
+      );
+      const r = await run([huge]);
+      expect(r.code).toBe(2);
+      expect(r.err).toMatch(
+        new RegExp(
+          `^stria analyze: ${huge}: "u" and "v" on 16384 × 16384 points need about \\d+(\\.\\d+)? GiB \\(.*fields .*\\), more than the memory budget of 2\\.00 GiB; every 3rd point \\(5462 × 5462\\) would fit: give --subsample 3, or a --memory-budget larger than \\d+(\\.\\d+)? GiB\\n$`,
+        ),
+      );
+      const small = await run([huge, '--subsample', '64', '--json', '--memory-budget', '256MiB']);
+      expect(small.code, small.err).toBe(0);
+      const a = JSON.parse(small.out);
+      expect(a.analysis.grid).toMatchObject({ nx: 256, ny: 256 });
+      expect(a.masking.u.fraction).toBe(1); // never written: every value is missing
+    },
+  );
 
   it.runIf(runNcgen)(
     'analyses a file from disk with a mapping, a window and parameters, as text and as JSON',
@@ -145,9 +189,9 @@ describe('stria analyze', () => {
     },
   );
 
-  it.runIf(runNcgen)('names a missing variable with exit code 1', async () => {
+  it.runIf(runNcgen)('names a missing variable with exit code 2', async () => {
     const r = await run([jetFile('nc4'), '--map', 'zeta=VORT']);
-    expect(r.code).toBe(1);
+    expect(r.code).toBe(2);
     expect(r.err).toContain(
       'missing variable: the mapping names "VORT" for zeta, but the file has "t", "y", "x", "U", "W"',
     );

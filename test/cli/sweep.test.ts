@@ -1,7 +1,7 @@
 import { appendFileSync, cpSync, existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { resultKey, parseSweepRecord, type SweepRecord } from '../../lib/sweep/sweepRecord';
+import { resultKey, parseSweepRecord, sealRecord, type SweepRecord } from '../../lib/sweep/sweepRecord';
 import { parseCsv } from '../../lib/io/csv';
 import { scratchDir, stria, striaAsync, striaHere, TINY } from './support/stria';
 
@@ -128,8 +128,12 @@ describe('stria sweep', () => {
     const other = join(dir, 'tampered');
     cpSync(join(dir, 'all'), other, { recursive: true });
     const lines = readFileSync(join(other, 'runs.jsonl'), 'utf8').split('\n');
-    const changed = JSON.parse(lines[0]);
-    changed.summary.u_rms *= 1 + 2 ** -52;
+    // Another result for the same run, as a different Stria would compute it: a whole line, sealed.
+    const { digest: _, ...parsed } = JSON.parse(lines[0]);
+    const changed = sealRecord({
+      ...parsed,
+      summary: { ...parsed.summary, u_rms: parsed.summary.u_rms * (1 + 2 ** -52) },
+    });
     lines[0] = JSON.stringify(changed);
     writeFileSync(join(other, 'runs.jsonl'), lines.join('\n'));
     const out = join(dir, 'conflict');

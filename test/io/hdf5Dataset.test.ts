@@ -100,6 +100,19 @@ describe.runIf(runNcgen)('netCDF-4 (HDF5) through the dataset interface (files w
         expect(Array.from(h5.readAll(v.name))).toEqual(Array.from(nc3.readAll(v.name)));
       }
       for (const t of [0, 3, 4]) expect(Array.from(h5.readRecord('u', t))).toEqual(Array.from(nc3.readRecord('u', t)));
+      // A range of a record (one row, a run across rows, a piece of a row) is that slice of it, in both readers.
+      const whole = Array.from(nc3.readRecord('u', 3));
+      for (const [start, count] of [
+        [9, 9],
+        [5, 20],
+        [60, 3],
+        [0, 63],
+      ]) {
+        const slice = whole.slice(start, start + count);
+        expect(Array.from(h5.readRecord('u', 3, { range: { start, count } })), `${start}+${count}`).toEqual(slice);
+        expect(Array.from(nc3.readRecord('u', 3, { range: { start, count } }))).toEqual(slice);
+      }
+      expect(() => h5.readRecord('u', 3, { range: { start: 60, count: 4 } })).toThrow(/not within a record of 63/);
     });
   }
 
@@ -156,6 +169,34 @@ describe.runIf(runNcgen)('netCDF-4 (HDF5) through the dataset interface (files w
     );
     const r = openDataset(memorySource(ncgen(text, 'nc4')));
     expect(r.notes).toContain('the group "extra" was not read: only the root group of a netCDF-4 file is');
+  });
+
+  it('names each attribute it cannot decode with its variable, and a named type as a type', () => {
+    const text = `netcdf t {
+types:
+  compound pair { int a ; double b ; } ;
+dimensions:
+  y = 2 ;
+variables:
+  double u(y) ; pair u:meta = {1, 2.5} ;
+  double v(y) ; pair v:meta = {1, 2.5} ;
+data:
+  u = 1, 2 ;
+  v = 3, 4 ;
+}
+`;
+    const r = openDataset(memorySource(ncgen(text, 'nc4')));
+    const about = (name: string) =>
+      `the attribute "meta" of "${name}" has a type the HDF5 reader cannot decode (such as a compound type): left out`;
+    expect(r.notes).toEqual(
+      expect.arrayContaining([
+        about('u'),
+        about('v'),
+        '"pair" is a named data type (a netCDF-4 user-defined type), not a variable: not read',
+      ]),
+    );
+    expect(r.notes.some((n) => n.includes('group'))).toBe(false);
+    expect(Array.from(r.readAll('v'))).toEqual([3, 4]);
   });
 
   it('refuses a truncated file with the size its superblock states', () => {

@@ -105,6 +105,11 @@ describe('run file', () => {
     const g = fileObject();
     g.params.wobble = 3;
     expect(refusal(JSON.stringify(g)).field).toBe('params.wobble');
+    // Keys a JSON parser keeps but a schema library may drop unseen are unknown keys like any other.
+    for (const key of ['__proto__', 'constructor', 'prototype']) {
+      const text = JSON.stringify(fileObject()).replace('"params":{', `"params":{"${key}":{"nx":64},`);
+      expect(refusal(text).field, key).toBe(`params.${key}`);
+    }
   });
 
   it('refuses a spectrum with non-finite values or energy on modes the model never holds', () => {

@@ -36,6 +36,12 @@ export const BOUNDARY_RUNS: readonly BoundaryRun[] = [
   { id: 'runLink', boundary: 'shared links: decodeRunLink (src/share/runLink.ts)', runs: 2000, seed: 1108 },
   { id: 'netcdf', boundary: 'NetCDF bytes: readNetcdf (lib/io/netcdfRead.ts)', runs: 2000, seed: 1109 },
   {
+    id: 'userFile',
+    boundary: "users' NetCDF-3 and netCDF-4 files: analyzeFile (lib/userfile/analyzeFile.ts)",
+    runs: 1000,
+    seed: 1111,
+  },
+  {
     id: 'cliWords',
     boundary: 'command-line words: parseArgs, parseSets, parseByteSize (cli/)',
     runs: 1000,

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { isInputError } from '../../lib/inputError';
 import { DEFAULT_PARAMS } from '../../lib/model/params';
-import { resolveRunPlan } from '../../lib/run/runPlan';
+import { MAX_RUN_STEPS, resolveRunPlan } from '../../lib/run/runPlan';
 
 const p = { ...DEFAULT_PARAMS, mu: 0.02, dt: 0.01 };
 
@@ -41,5 +41,22 @@ describe('run plans', () => {
     expect(refused({ steps: 5, steadyTolerance: 0.1 })).toBe('steadyTolerance');
     expect(refused({ untilSteady: true, maxTime: 30 })).toBe('maxTime');
     expect(() => resolveRunPlan({ ...p, mu: 0 }, { untilSteady: true })).toThrow(/steadyWindow/);
+  });
+
+  it('refuse a run that would count more than MAX_RUN_STEPS steps, by the least count its dt gives', () => {
+    expect(MAX_RUN_STEPS).toBe(2147483647); // the largest 32-bit signed integer, the NetCDF step type
+    expect(resolveRunPlan(p, { steps: MAX_RUN_STEPS }).stop).toEqual({ kind: 'steps', steps: MAX_RUN_STEPS });
+    expect(refused({ steps: MAX_RUN_STEPS + 1 })).toBe('steps');
+    // until: at least (T − start)/dt steps, dt being the largest step; here 0.01 per step.
+    expect(resolveRunPlan(p, { until: 2e7 }).stop.kind).toBe('until');
+    expect(refused({ until: 2.2e7 })).toBe('until');
+    expect(refused({ untilSteady: true, maxTime: 3e7 })).toBe('maxTime');
+    // A resumed run counts from where it starts.
+    expect(() => resolveRunPlan(p, { steps: 10 }, 0, MAX_RUN_STEPS - 5)).toThrow(
+      /steps 10 is beyond the most a run may count, 2147483647, from its start at step 2147483642/,
+    );
+    expect(() => resolveRunPlan({ ...p, dt: 1e-300 }, { until: 1 })).toThrow(
+      'until 1 means a step count of at least 1e+300 at dt = 1e-300, beyond the most a run may count, 2147483647: give a larger dt or a shorter run',
+    );
   });
 });

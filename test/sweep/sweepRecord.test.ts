@@ -1,6 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { runSweepJob } from '../../lib/sweep/runSweepJob';
-import { formatSweepRecord, joinRecords, parseSweepRecord, type SweepRecord } from '../../lib/sweep/sweepRecord';
+import {
+  formatSweepRecord,
+  joinRecords,
+  parseSweepRecord,
+  sealRecord,
+  type SweepRecord,
+} from '../../lib/sweep/sweepRecord';
 import { expandSweep } from '../../lib/sweep/sweepRuns';
 import { parseSweepSpec } from '../../lib/sweep/sweepSpec';
 import { sweepFits } from '../../lib/sweep/sweepFits';
@@ -24,6 +30,21 @@ describe('sweep records', () => {
     // A line of the journal format before the detector's verdicts is refused by its version.
     expect(() => parseSweepRecord('{"format":"stria-sweep-run","version":1,"id":"x"}')).toThrow(/^version: must be 2/);
     expect(() => parseSweepRecord('{"format":')).toThrow(/not JSON/);
+  });
+
+  it('refuse a line changed after it was written: by its digest, and by its run id', () => {
+    const line = JSON.parse(formatSweepRecord(records[0]));
+    const edited = { ...line, summary: { ...line.summary, u_rms: line.summary.u_rms * 1.5 } };
+    expect(() => parseSweepRecord(JSON.stringify(edited))).toThrow(/^digest: does not match the line/);
+    expect(() => parseSweepRecord(JSON.stringify({ ...line, digest: undefined }))).toThrow(/^digest: missing/);
+    // A line whose digest was made again after the edit still names a run its parameters are not.
+    const { digest: _, ...rest } = { ...line, params: { ...line.params, beta: 7 } };
+    expect(() => parseSweepRecord(JSON.stringify(sealRecord(rest)))).toThrow(
+      new RegExp(`^id: ${line.id} is not the id of the line's parameters and plan`),
+    );
+    // A version-1 line, written before lines carried a digest and the detector's verdicts, is refused by its version.
+    const { digest: __, ...v1 } = { ...line, version: 1 };
+    expect(() => parseSweepRecord(JSON.stringify(v1))).toThrow(/^version: must be 2/);
   });
 
   it('join by id, keep one of each, and refuse a disagreement naming the run', () => {

@@ -45,6 +45,11 @@ describe('sweep spec', () => {
     expect(refusedField({ ...good, extra: 1 })).toBe('extra');
     expect(refusedField({ ...good, version: 2 })).toBe('version');
     expect(refusedField({ ...good, base: { ...base, kf: 'eight' } })).toBe('base.kf');
+    // Keys a JSON parser keeps but a schema library may drop unseen are unknown parameters like any other.
+    for (const key of ['__proto__', 'constructor'])
+      expect(refusedField(JSON.parse(JSON.stringify(good).replace('"base":{', `"base":{"${key}":{"nx":64},`)))).toBe(
+        `base.${key}`,
+      );
     expect(refusedField({ ...good, average: 40 })).toBe('average');
     // A swept value the model refuses is named by its axis and point.
     expect(refusedField({ ...good, vary: [{ param: 'kf', values: [8, 40] }] })).toBe('vary.0');

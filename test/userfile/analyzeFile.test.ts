@@ -143,6 +143,47 @@ describe.runIf(runNcgen)('stria analyze, the library: files written by ncgen', (
     expect(a.skipped.map((s) => s.diagnostic)).toContain('spectra and spectral flux');
   });
 
+  it('reads the eddy profiles stored beside ū, and takes U_rms from ū and EKE', () => {
+    const ubar = Array.from({ length: nt * ny }, (_, k) => staircaseProfile((k % ny) * dy, L, beta, 5 * dy).u);
+    const eke = Array.from({ length: nt * ny }, (_, k) => 0.5 + 0.25 * Math.cos((2 * Math.PI * (k % ny)) / ny));
+    const upvp = Array.from({ length: nt * ny }, (_, k) => 0.1 * Math.sin((2 * Math.PI * (k % ny)) / ny));
+    const profile = (name: string, units: string, data: number[]): CdlVariable => ({
+      name,
+      type: 'double',
+      dims: ['time', 'y'],
+      attrs: { units },
+      data,
+    });
+    const text = cdl({
+      dims: [
+        { name: 'time', size: 'unlimited' },
+        { name: 'y', size: ny },
+      ],
+      vars: [
+        {
+          name: 'y',
+          type: 'double',
+          dims: ['y'],
+          attrs: { units: 'm', modulo: Ly },
+          data: Array.from({ length: ny }, (_, j) => j * dy),
+        },
+        profile('ubar', 'm s-1', ubar),
+        profile('upvp', 'm2 s-2', upvp),
+        profile('eke', 'J kg-1', eke),
+      ],
+    });
+    const r = analyzeFile(memorySource(ncgen(text, 'nc3')), { beta });
+    const a = r.analysis;
+    expect(Object.keys(r.file.fields).sort()).toEqual(['eke', 'ubar', 'upvp']);
+    // ⟨u² + v²⟩ = ⟨ū²⟩ + 2⟨EKE⟩ with v̄ = 0 [derived]; the cosine averages out over whole periods.
+    const u2 = ubar.slice(0, ny).reduce((s, x) => s + x * x, 0) / ny;
+    expect(a.uRms!.kind).toBe('zonal mean and eddy kinetic energy');
+    expect(a.uRms!.value).toBeCloseTo(Math.sqrt(u2 + 2 * 0.5), 12);
+    expect(a.profiles.upvp![7]).toBeCloseTo(upvp[7], 15);
+    expect(a.profiles.eke![3]).toBeCloseTo(eke[3], 15);
+    expect(a.computed).toEqual(expect.arrayContaining(['eddy momentum flux u′v′', 'eddy kinetic energy']));
+  });
+
   it('counts the jets of a longitude/latitude field on the tangent plane, and says the sphere is approximated', () => {
     // Five jets across 20°N–70°N, latitude stored north to south; u = cos(2π·5(φ − 20)/50)·10 m/s plus a wave in λ.
     const [nlon, nlat] = [72, 101];
@@ -197,6 +238,12 @@ describe.runIf(runNcgen)('stria analyze, the library: files written by ncgen', (
     expect(deg.analysis.skipped.find((s) => s.diagnostic === 'Rhines scale, zonostrophy index')?.reason).toBe(
       'the grid is in degrees: lengths need the tangent plane',
     );
+    // Its numbers are labelled in the file's own units: m/s for the wind, degrees for lengths.
+    expect(deg.comparison.labels).toMatchObject({ velocity: 'm/s', length: '°', wavenumber: 'rad/°' });
+    const degText = fileAnalysisText(deg, 'winds.nc');
+    expect(degText).not.toContain('model');
+    expect(degText).toMatch(/rms velocity U +\d[\d.e-]* +— +— +m\/s\n/);
+    expect(degText).toMatch(/jet spacing vs the Rhines spacing +\d[\d.e-]* +— +— +°\n/);
   });
 
   it('masks fill values and missing_value, counts them, and never averages them in', () => {

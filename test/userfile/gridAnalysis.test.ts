@@ -81,6 +81,31 @@ describe("analysis of a user's records", () => {
     expect(a.window).toMatchObject({ start: 0, end: R, count: R, timeStart: 0 });
   });
 
+  it('inverts a vorticity-only record for ψ, u and v on a doubly periodic grid', () => {
+    const f = randomGridFields({ nx, ny, Lx, Ly, kd: 0, maxIx: 8, maxM: 8, seed: 11 });
+    const direct = new ZonalMeanPlan({ nx, ny, Lx, Ly }, { beta }).compute(f);
+    const a = analyzeUserRecords(
+      arraySource({ nx, ny, dx, dy }, ['zeta'], 1, () => f),
+      { beta },
+    );
+    expect(a.fields).toEqual({ u: 'psi', v: 'psi', zeta: 'file', psi: 'inversion', q: 'zeta' });
+    // u = −ψ_y, v = ψ_x of ψ = ∇⁻²ζ, exact for a band-limited field (the mean of ψ does not enter).
+    expect(maxAbsDiff(a.profiles.ubar as number[], direct.ubar)).toBeLessThan(1e-12);
+    expect(maxAbsDiff(a.profiles.upvp as number[], direct.upvpPlain)).toBeLessThan(1e-12);
+    expect(maxAbsDiff(a.profiles.eke as number[], direct.ekePlain)).toBeLessThan(1e-12);
+    let s2 = 0;
+    for (let k = 0; k < nx * ny; k++) s2 += f.u[k] ** 2 + f.v[k] ** 2;
+    expect(a.uRms!.kind).toBe('u and v');
+    expect(Math.abs(a.uRms!.value / Math.sqrt(s2 / (nx * ny)) - 1)).toBeLessThan(1e-12);
+    // A bounded grid cannot be inverted: u and v stay unavailable, and the report says why.
+    const bounded = analyzeUserRecords(
+      arraySource({ nx, ny, dx, dy, periodicY: false }, ['zeta'], 1, () => f),
+      { beta },
+    );
+    expect(bounded.fields.u).toBeNull();
+    expect(bounded.uRms).toBeNull();
+  });
+
   it('derives ζ from u and v, and ψ by inversion when k_d ≠ 0, to form q', () => {
     const kd = 2;
     const f = randomGridFields({ nx, ny, Lx, Ly, kd, maxIx: 8, maxM: 8, seed: 7 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { encodeCsv } from '../../../lib/io/csv';
-import { formatSweepRecord } from '../../../lib/sweep/sweepRecord';
+import { formatSweepRecord, sealRecord } from '../../../lib/sweep/sweepRecord';
 import { expandSweep } from '../../../lib/sweep/sweepRuns';
 import { parseSweepSpec } from '../../../lib/sweep/sweepSpec';
 import { runSweepJob } from '../../../lib/sweep/runSweepJob';
@@ -25,6 +25,16 @@ describe('parseResults', () => {
     expect(parsed.rows).toEqual(rows);
     expect(parsed.records?.length).toBe(2);
     expect(parseResults('runs.jsonl', records.map(formatSweepRecord).join('\n') + '\n').rows).toEqual(rows);
+  });
+
+  it('counts a run journaled twice once, as the command line does, and refuses two that disagree', () => {
+    const again = records.map((r) => sealRecord({ ...r, wall_seconds: 5, finished_at: '2026-01-02T00:00:00Z' }));
+    const text = [...records, ...again].map((r) => JSON.stringify(r)).join('\n') + '\n';
+    expect(parseResults('runs.jsonl', text).rows).toEqual(rows);
+    const changed = sealRecord({ ...records[0], summary: { ...records[0].summary, u_rms: 1 } });
+    expect(() =>
+      parseResults('runs.jsonl', [...records, changed].map((r) => JSON.stringify(r)).join('\n') + '\n'),
+    ).toThrow(new RegExp(`runs.jsonl: run ${records[0].id} differs`));
   });
 
   it('reads table.csv with numbers as numbers and empty fields as null', () => {
