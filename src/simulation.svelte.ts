@@ -140,6 +140,12 @@ export class SimulationClient {
     return { ...status, epoch: status.epoch + this.diagEpochBase };
   }
 
+  /** Start the time means again from the next sample (the rest of the diagnostics' record stays). */
+  async restartMeans(): Promise<MonitorStatus> {
+    const status = await this.link.call((api) => api.restartMeans());
+    return { ...status, epoch: status.epoch + this.diagEpochBase };
+  }
+
   summary(): Promise<RunSummary> {
     return this.link.call((api) => api.summary(), true);
   }

@@ -18,10 +18,12 @@ import { DiagnosticsPublisher } from './diagnosticsPublisher';
 import { snapshotExport, zonalCsvExport, zonalNetcdfExport, type ExportedFile } from './runExports';
 import { macrotask } from './macrotask';
 import { RescuePoint } from './rescuePoint';
+import { stateReport } from './stateReport';
 import type {
   BlowUpStop,
   ExportKind,
   InitInfo,
+  ParamChange,
   ReconfigureResult,
   SimulationApi,
   Snapshot,
@@ -64,6 +66,10 @@ export class SimulationHost implements SimulationApi {
   private spareBudget: Float64Array | null = null;
   private readonly rows = new BudgetRowBuffer();
   private readonly diagnostics = new DiagnosticsPublisher();
+  /** The changes of parameters within this run (epoch), for the views to mark on their time axes. */
+  private changes: ParamChange[] = [];
+  /** The readouts of the state while this model has taken no step yet (a loaded run, new parameters). */
+  private unstepped: StepReport | null = null;
   /** The next slice of play, queued behind whatever messages are waiting. */
   private readonly nextSlice = macrotask(() => this.slice());
 
@@ -74,7 +80,8 @@ export class SimulationHost implements SimulationApi {
   }
 
   async restore(cp: Checkpoint): Promise<InitInfo> {
-    return this.begin(Model.restore(cp));
+    // A loaded run is shown at once: its readouts and a first sample of its diagnostics.
+    return this.begin(Model.restore(cp), true);
   }
 
   async restartHalved(): Promise<InitInfo> {
@@ -132,19 +139,35 @@ export class SimulationHost implements SimulationApi {
       if (isInputError(e, 'parameters')) return { applied: false, issues: e.issues };
       throw e;
     }
-    const old = model.params;
+    const old = { ...model.params };
     const next = model.reconfigure(changes);
     const how =
       next === model ? 'inPlace' : next.params.Lx !== old.Lx || next.params.Ly !== old.Ly ? 'fresh' : 'regrid';
-    if (how === 'fresh') this.newEpoch();
     this.model = next;
     this.rescue.take(next);
-    // Time means across a change of parameters would mix two runs: the diagnostics start again.
-    this.diagnostics.restart(next);
+    let diagnostics: 'kept' | 'restarted' = 'restarted';
+    if (how === 'fresh') {
+      this.newEpoch();
+      this.diagnostics.restart(next);
+    } else {
+      // Same domain: the history goes on (a new grid restarts the profiles, which change length).
+      if (how === 'inPlace' && this.diagnostics.retune(next)) diagnostics = 'kept';
+      else this.diagnostics.restart(next, true);
+      const keys = (Object.keys(next.params) as (keyof ModelParams)[]).filter((k) => next.params[k] !== old[k]);
+      this.changes.push({ time: next.time, steps: next.steps, keys, how, diagnostics });
+    }
+    this.unstepped = this.stateReport(next);
     // New parameters may well cure a blow-up (a smaller dt, more hyperviscosity): let it try again.
     this.clearStop();
     this.changed();
-    return { applied: true, how, params: { ...next.params } };
+    return { applied: true, how, params: { ...next.params }, diagnostics };
+  }
+
+  async restartMeans(): Promise<MonitorStatus> {
+    this.requireModel();
+    this.diagnostics.restartMeans();
+    this.changed();
+    return this.diagnostics.status();
   }
 
   async setField(name: FieldName): Promise<void> {
@@ -212,14 +235,15 @@ export class SimulationHost implements SimulationApi {
     p?.reject(new Error('simulation disposed'));
   }
 
-  private begin(model: Model): InitInfo {
+  private begin(model: Model, sampleNow = false): InitInfo {
     this.model = model;
     this.playing = false;
     this.until = null;
     this.clearStop();
     this.rescue.take(model);
     this.newEpoch();
-    this.diagnostics.restart(model);
+    this.diagnostics.restart(model, sampleNow);
+    this.unstepped = this.stateReport(model);
     this.changed();
     return { params: { ...model.params }, forcedModes: model.forcedModes };
   }
@@ -227,9 +251,16 @@ export class SimulationHost implements SimulationApi {
   private newEpoch(): void {
     this.epoch++;
     this.rows.clear();
+    this.changes = [];
+  }
+
+  /** The readouts of the state as it stands (stateReport.ts), or null where they cannot be formed. */
+  private stateReport(model: Model): StepReport | null {
+    return stateReport(model, this.diagnostics.current.monitor.snap);
   }
 
   private stepAndRecord(model: Model): void {
+    this.unstepped = null;
     model.step(1);
     this.rescue.afterStep(model);
     this.rows.push(model.report);
@@ -328,7 +359,8 @@ export class SimulationHost implements SimulationApi {
       params: { ...model.params },
       time: model.time,
       steps: model.steps,
-      report: copyReport(model.report),
+      report: this.unstepped ? copyReport(this.unstepped) : copyReport(model.report),
+      changes: this.changes.map((c) => ({ ...c, keys: [...c.keys] })),
       budget,
       checksum: stateChecksum(model.qHat),
       playing: this.playing,
