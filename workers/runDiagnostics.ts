@@ -174,7 +174,7 @@ export class RunDiagnostics {
   }
 
   status(epoch: number): MonitorStatus {
-    const { summary } = this.current();
+    const { summary, structure } = this.current();
     return {
       epoch,
       since: this.since,
@@ -183,6 +183,7 @@ export class RunDiagnostics {
       lastSample: this.lastSample,
       window: this.window ? { ...this.window } : null,
       jetCount: summary.jet_count,
+      jetReason: structure?.jets.reason ?? null,
       staircaseIndex: summary.staircase_index,
       summary,
     };
