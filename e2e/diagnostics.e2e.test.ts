@@ -47,7 +47,7 @@ describe('Zonal, Hovmöller, Spectra and Flux views in Chromium', () => {
 
   it('counts the jets of the time-mean ū among the readouts', async () => {
     await expect
-      .poll(async () => Number(await app.page.getByTestId('model-jets').innerText()))
+      .poll(async () => Number(await app.page.getByTestId('model-jets').getAttribute('data-count')))
       .toBeGreaterThanOrEqual(2);
   });
 
