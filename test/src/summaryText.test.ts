@@ -7,7 +7,7 @@ describe('summary text: one formatter for every place that quotes a run', () => 
     expect(withError(1.5708, 0.2)).toBe('1.57 ± 0.20');
     expect(withError(123.4, 17)).toBe('123 ± 17');
     expect(withError(1234.5, 170)).toBe('1230 ± 170');
-    expect(withError(0.00480, 0.00086)).toBe('0.00480 ± 0.00086');
+    expect(withError(0.0048, 0.00086)).toBe('0.00480 ± 0.00086');
     expect(withError(3.2, null)).toBe('3.2');
     expect(withError(null, 0.1)).toBe('—');
     expect(withError(2e-7, 3e-8)).toBe('2.00e-7 ± 3.0e-8');
