@@ -150,11 +150,11 @@ export class SimulationHost implements SimulationApi {
       this.newEpoch();
       this.diagnostics.restart(next);
     } else {
-      // Same domain: the history goes on (a new grid restarts the profiles, which change length).
-      if (how === 'inPlace' && this.diagnostics.retune(next)) diagnostics = 'kept';
-      else this.diagnostics.restart(next, true);
       const keys = (Object.keys(next.params) as (keyof ModelParams)[]).filter((k) => next.params[k] !== old[k]);
-      this.changes.push({ time: next.time, steps: next.steps, keys, how, diagnostics });
+      // Same domain: the history goes on (a new grid restarts the profiles, which change length).
+      if (how === 'inPlace' && (keys.length === 0 || this.diagnostics.retune(next))) diagnostics = 'kept';
+      else this.diagnostics.restart(next, true);
+      if (keys.length > 0) this.changes.push({ time: next.time, steps: next.steps, keys, how, diagnostics });
     }
     this.unstepped = this.stateReport(next);
     // New parameters may well cure a blow-up (a smaller dt, more hyperviscosity): let it try again.
