@@ -261,3 +261,16 @@ describe('stria plan', () => {
     );
   });
 });
+
+describe('stria plan outputs', () => {
+  it('refuses to replace a report that exists unless --overwrite, and writes nothing', () => {
+    const out = join(dir, 'exists.md');
+    writeFileSync(out, 'mine');
+    const r = stria(['plan', '--preset', 'jupiter', '--report', out]);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/--report .*exists\.md already exists: give --overwrite to replace it/);
+    expect(readFileSync(out, 'utf8')).toBe('mine');
+    expect(stria(['plan', '--preset', 'jupiter', '--report', out, '--overwrite']).status).toBe(0);
+    expect(readFileSync(out, 'utf8')).toMatch(/^#/);
+  });
+});
