@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parseSweepRecord } from '../lib/sweep/sweepRecord';
 import { expandSweep } from '../lib/sweep/sweepRuns';
 import { parseSweepSpec } from '../lib/sweep/sweepSpec';
+import { RHINES_EXAMPLE } from '../lib/sweep/rhinesExample';
 import { runSweepJob } from '../lib/sweep/runSweepJob';
 import { launchChromium, type BrowserSession } from './support/browser';
 import { inkPixels, openApp, openView, screenshot, type AppPage } from './support/app';
@@ -30,6 +31,18 @@ describe('Sweep view in Chromium', () => {
 
   afterAll(async () => {
     await session?.close();
+  });
+
+  it('opens with the sweep that recovers the Rhines scaling, on every core the browser offers', async () => {
+    const { page } = app;
+    // lib/sweep/rhinesExample.ts: five β from 10 to 160 at 128², to t = 250 (the README's sweep).
+    const shown = JSON.parse(await page.getByTestId('sweep-spec').inputValue()) as Record<string, unknown>;
+    expect({ ...shown, title: undefined }).toEqual({ ...RHINES_EXAMPLE, title: undefined });
+    await expect(page.getByTestId('sweep-spec-check').innerText()).resolves.toMatch(
+      /^5 runs: beta = 10; beta = 20; beta = 40; beta = 80; beta = 160$/,
+    );
+    const cores = await page.evaluate(() => navigator.hardwareConcurrency);
+    expect(Number(await page.getByTestId('sweep-workers').getAttribute('data-count'))).toBe(cores);
   });
 
   it('checks the spec as the command line does, naming the bad field', async () => {
