@@ -1,5 +1,7 @@
+import { readFile } from 'node:fs/promises';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { parseCsv } from '../lib/io/csv';
 import { ncgen, runNcgen } from '../test/io/ncgenTool';
 import { launchChromium, type BrowserSession } from './support/browser';
 import { canvasSample, inkPixels, openApp, openView, screenshot, status, type AppPage } from './support/app';
@@ -150,6 +152,32 @@ describe('Compare view in Chromium', () => {
     await expect(page.getByTestId('compare-pane-a-rbeta').innerText()).resolves.toBe('—');
     expect(await page.getByTestId('compare-pair').innerText()).not.toMatch(RAW_NOTATION);
     await screenshot(page, 'compare-shared-axes.png');
+  });
+
+  it('exports both panes as one PNG and their profiles and spectra as CSV', async () => {
+    const { page } = app;
+    const get = async (testid: string) => {
+      const [d] = await Promise.all([page.waitForEvent('download'), page.getByTestId(testid).click()]);
+      return { name: d.suggestedFilename(), bytes: await readFile(await d.path()) };
+    };
+    const image = await get('export-view-png');
+    expect(image.name).toMatch(/^stria-compare-.*\.png$/);
+    expect(Array.from(image.bytes.subarray(1, 4))).toEqual([0x50, 0x4e, 0x47]);
+    expect(image.bytes.readUInt32BE(16)).toBeGreaterThan(600);
+    const profiles = parseCsv((await get('export-compare-profiles')).bytes);
+    expect(profiles.header).toEqual(['y', 'A_ubar_latest', 'A_ubar_time_mean', 'B_ubar_latest', 'B_ubar_time_mean']);
+    expect(profiles.rows.length).toBe(128);
+    const spectra = parseCsv((await get('export-compare-spectra')).bytes);
+    expect(spectra.header).toEqual([
+      'k',
+      'A_E_total',
+      'A_E_zonal',
+      'A_E_residual',
+      'B_E_total',
+      'B_E_zonal',
+      'B_E_residual',
+    ]);
+    expect(spectra.rows.length).toBeGreaterThan(20);
   });
 
   it.runIf(runNcgen)(

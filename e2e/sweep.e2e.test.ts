@@ -1,5 +1,6 @@
 import { readFile } from 'node:fs/promises';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { parseCsv } from '../lib/io/csv';
 import { parseSweepRecord } from '../lib/sweep/sweepRecord';
 import { expandSweep } from '../lib/sweep/sweepRuns';
 import { parseSweepSpec } from '../lib/sweep/sweepSpec';
@@ -122,6 +123,23 @@ describe('Sweep view in Chromium', () => {
       buffer: Buffer.from('{"not":"a record"}\n'),
     });
     await expect(page.getByTestId('sweep-load-error').innerText()).resolves.toMatch(/line 1/);
+  });
+
+  it('exports the scaling charts as PNG and the table behind them as CSV', async () => {
+    const { page } = app;
+    const get = async (testid: string) => {
+      const [d] = await Promise.all([page.waitForEvent('download'), page.getByTestId(testid).click()]);
+      return { name: d.suggestedFilename(), bytes: await readFile(await d.path()) };
+    };
+    const image = await get('export-view-png');
+    expect(image.name).toBe('stria-sweep.png');
+    expect(Array.from(image.bytes.subarray(1, 4))).toEqual([0x50, 0x4e, 0x47]);
+    expect(image.bytes.readUInt32BE(20)).toBeGreaterThan(300);
+    const csv = parseCsv((await get('export-sweep-csv')).bytes);
+    expect(csv.header).toContain('jet_spacing');
+    expect(csv.header).toContain('rhines_length');
+    // The results shown: the three loaded runs (the refused file left them in place).
+    expect(csv.rows.length).toBe(3);
   });
 
   it('ran without page errors or console warnings', () => {
