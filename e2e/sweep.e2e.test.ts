@@ -117,6 +117,11 @@ describe('Sweep view in Chromium', () => {
       .getByTestId('sweep-load')
       .setInputFiles({ name: 'runs.jsonl', mimeType: 'application/jsonl', buffer: Buffer.from(jsonl) });
     await expect(page.getByTestId('sweep-table').locator('tbody tr').count()).resolves.toBe(3);
+    // Each headline number with its standard error, and the detector's verdict beside the jet count.
+    const head = await page.getByTestId('sweep-table').locator('thead').innerText();
+    for (const c of ['jet_verdict', 'jet_spacing ± std. error', 'u_rms ± std. error', 'staircase_index ± std. error'])
+      expect(head).toContain(c);
+    await expect(page.getByTestId('sweep-table').locator('tbody tr').first().innerText()).resolves.toMatch(/\d ± \d/);
     await page.getByTestId('sweep-load').setInputFiles({
       name: 'runs.jsonl',
       mimeType: 'application/jsonl',
