@@ -213,6 +213,21 @@ describe('Compare view in Chromium', () => {
     },
   );
 
+  it('runs both to one model time and holds them there', async () => {
+    const { page } = app;
+    await page.getByTestId('compare-until').fill('3');
+    await page.getByTestId('compare-until').press('Enter');
+    await page.getByTestId('compare-start').click();
+    const time = async (pane: string) => Number(await page.getByTestId(pane).getAttribute('data-time'));
+    for (const pane of ['compare-pane-a', 'compare-pane-b'])
+      await expect.poll(() => time(pane), { timeout: 60_000 }).toBeGreaterThanOrEqual(3 - 1e-9);
+    // Each stops at its first step reaching t = 3, so within one step (dt ≤ 0.02, the scenario's largest) past it.
+    for (const pane of ['compare-pane-a', 'compare-pane-b']) expect(await time(pane)).toBeLessThanOrEqual(3.02 + 1e-9);
+    const a = await steps(app, 'compare-pane-a');
+    await page.waitForTimeout(1500);
+    expect(await steps(app, 'compare-pane-a')).toBe(a);
+  });
+
   it('ran without page errors or console warnings', () => {
     expect(app.problems).toEqual([]);
   });
