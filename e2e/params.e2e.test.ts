@@ -27,6 +27,12 @@ describe('Parameter controls in Chromium', () => {
     await session?.close();
   });
 
+  it('names every parameter without raw sub- or superscript notation (k_d, μ_ls, 1/L_d set as subscripts)', async () => {
+    const panel = app.page.locator('section.params');
+    expect(await panel.innerText()).not.toMatch(/[\p{L}\d)]_[\p{L}{]|\^\{/u);
+    expect(await panel.locator('.symbol sub').count()).toBeGreaterThan(3);
+  });
+
   it('refuses an out-of-range entry at the field with the reason, and the run goes on unchanged', async () => {
     const { page } = app;
     await waitForSteps(page, 20);
