@@ -16,13 +16,17 @@ const PROPERTY_TIMEOUT_MS = 300_000;
 // Concurrent: each property runs in a worker thread of its own, two at a time (runBoundary.ts).
 describe.concurrent('input boundaries under random and malformed inputs', () => {
   for (const b of BOUNDARY_RUNS) {
-    it(`${b.id}: ${b.boundary}`, async () => {
-      const r = await runBoundary(new URL(`./boundaries/${b.id}.ts`, import.meta.url), b.runs, b.seed, CASE_LIMIT_MS);
-      results.set(b.id, r);
-      expect(r.hung, 'a case hung').toBeNull();
-      expect(r.failed, `${r.error}\ncounterexample: ${r.counterexample}`).toBe(false);
-      expect(r.numRuns).toBe(b.runs);
-    }, PROPERTY_TIMEOUT_MS);
+    it(
+      `${b.id}: ${b.boundary}`,
+      async () => {
+        const r = await runBoundary(new URL(`./boundaries/${b.id}.ts`, import.meta.url), b.runs, b.seed, CASE_LIMIT_MS);
+        results.set(b.id, r);
+        expect(r.hung, 'a case hung').toBeNull();
+        expect(r.failed, `${r.error}\ncounterexample: ${r.counterexample}`).toBe(false);
+        expect(r.numRuns).toBe(b.runs);
+      },
+      PROPERTY_TIMEOUT_MS,
+    );
   }
 });
 
