@@ -45,6 +45,29 @@ describe('memory estimate of a measured run', () => {
     }
   });
 
+  it('counts every typed array of a two-layer model and its measurement, exactly', () => {
+    for (const [nx, ny] of sizes) {
+      const model = new Model({ nx, ny, kf: 8, dkf: 1.5, layers: 2, kd: 4, shear: 0.3 });
+      const est = estimateRunMemory(model.params);
+      const modelBytes = reachableArrayBytes(model).bytes;
+      expect(est.items[0], `${nx}×${ny} model`).toEqual({ what: 'model', bytes: modelBytes });
+      expect(modelMemory(nx, ny, forcedModesForCost(model.params), 2).totalBytes).toBe(modelBytes);
+      const run = new MonitoredRun(model, resolveRunPlan(model.params, { steps: 10 }));
+      expect(est.items[1]).toEqual({ what: 'measurement', bytes: reachableArrayBytes(run).bytes - modelBytes });
+      const s = run.saveState();
+      const acc =
+        stateBytes(s.monitor.budget) +
+        stateBytes(s.monitor.hovmoller) +
+        stateBytes(s.monitor.means) +
+        stateBytes(s.monitor.layers!.cycle) +
+        stateBytes(s.monitor.layers!.means);
+      expect(accumulatorBytes(ny, 2)).toBe(acc);
+    }
+    // About 440 bytes a point on a large square grid (lib/plan/cost.ts).
+    expect(modelMemory(1024, 1024, 0, 2).bytesPerPoint).toBeGreaterThan(420);
+    expect(modelMemory(1024, 1024, 0, 2).bytesPerPoint).toBeLessThan(460);
+  });
+
   it('counts the accumulators as a saved measurement holds them (the retry checkpoint)', () => {
     const model = new Model({ nx: 64, ny: 64, kf: 8, dkf: 1.5 });
     const run = new MonitoredRun(model, resolveRunPlan(model.params, { steps: 10 }));
