@@ -1,5 +1,6 @@
 import { RunMonitor } from '../analysis/runMonitor';
 import { summarize, type RunSummary } from '../analysis/summary';
+import type { LayerZonalMeans } from '../analysis/layerZonalMean';
 import type { ZonalMeans } from '../analysis/zonalMean';
 import { reachedTime } from '../model/clock';
 import type { Model } from '../model/model';
@@ -16,8 +17,11 @@ export type StopReason = 'steps' | 'until' | 'steady' | 'not-steady';
 export interface RunHooks {
   /** After every step (the model holds the new state). */
   onStep?(model: Model): void;
-  /** After every sample of the zonal means, at the sample's time. */
-  onSample?(time: number, steps: number, zonal: ZonalMeans): void;
+  /**
+   * After every sample of the zonal means, at the sample's time: those of the flow (two layers: the
+   * barotropic flow's) and, with two layers, the layers' own (else null).
+   */
+  onSample?(time: number, steps: number, zonal: ZonalMeans, layers: LayerZonalMeans | null): void;
 }
 
 /** Where a run began: a resumed run keeps the sample times, steady windows and step count of the original. */
@@ -136,7 +140,7 @@ export class MonitoredRun {
         this.samplesTaken++;
         this.nextSample = this.startTime + (this.samplesTaken + 1) * this.plan.sampleEvery;
         const z = this.monitor.sample(m.qHat, m.time);
-        this.hooks.onSample?.(m.time, m.steps, z);
+        this.hooks.onSample?.(m.time, m.steps, z, this.monitor.layers?.latest ?? null);
       }
       this.reason = this.stopNow();
     }

@@ -29,7 +29,7 @@ import { TIME_MEAN_CAP } from './monitoredRun';
  *                       text the same way
  * Two layers (params.layers = 2): the model's own count (cost.ts), a state of 4S, and the layer
  * monitor in the measurement: a layer snapshot plan (grid, two-layer linear operator, transform,
- * spectrum 2S), the layers' fields 10N, their zonal means and profile plans (42·ny), the energy
+ * spectrum 2S), the layers' fields 10N, their zonal means and profile plans (43·ny), the energy
  * cycle series (CYCLE_TERMS + 4 columns of B + 1, with B = 4096) and the time means of 13 layer
  * profiles (256·13·ny + 3·256, and 13·ny means); the snapshot file holds both layers (a layer
  * snapshot plan, 10N fields, a record of 10N + 1.5), the zonal-mean file 11·ny + 1.5.
@@ -111,10 +111,10 @@ export function estimateRunMemory(
   // Zonal means (9, and the 3 plain eddy means) and time-mean profiles (8), three profile transforms
   // (4 each), y, jet amplitudes, gradient.
   const profiles = D * (12 * ny + MEAN_PROFILES.length * ny + 3 * 4 * ny + ny + (ny / 2 + 1) + ny);
-  // Two layers: the layer plan, both layers' fields, their zonal means (2 × 12 + 4 profiles), the
+  // Two layers: the layer plan, both layers' fields, their zonal means (2 × 12 + 5 profiles), the
   // plans of the layer zonal means (2 × (y + a profile transform) + a profile transform) and the means.
   const layerPlan = layers === 2 ? layerPlanBytes(model, S) : 0;
-  const layerMonitor = layers === 2 ? layerPlan + D * (10 * N + 28 * ny + 14 * ny + LAYER_PROFILES.length * ny) : 0;
+  const layerMonitor = layers === 2 ? layerPlan + D * (10 * N + 29 * ny + 14 * ny + LAYER_PROFILES.length * ny) : 0;
   const items: MemoryItem[] = [
     { what: 'model', bytes: model.totalBytes },
     { what: 'measurement', bytes: plan + D * 5 * N + acc + profiles + layerMonitor },
