@@ -125,7 +125,14 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   if (!(progressSeconds >= 0)) throw new UsageError(`--progress-seconds must be ≥ 0, got ${progressSeconds}`);
   if (report) io.err.write(`stria plan: report written to ${report}\n`);
   const paramsOut = o['matched-params'] as string | undefined;
-  if (paramsOut !== undefined) {
+  const twoLayer = analysis.baroclinic?.matched;
+  if (paramsOut !== undefined && analysis.baroclinic) {
+    if (!twoLayer) throw new Error(`no matched run can be made for this plan: ${analysis.baroclinic.matchedError}`);
+    writeFileSync(paramsOut, encodeParamsFile(baroclinicParamsFile(analysis)));
+    io.err.write(
+      `stria plan: the matched two-layer run's parameters written to ${paramsOut}; run it with stria run ${paramsOut} --until ${twoLayer.runLength}\n`,
+    );
+  } else if (paramsOut !== undefined) {
     if (!analysis.matched) throw new Error(`no matched run can be made for this plan: ${analysis.matchedError}`);
     writeFileSync(paramsOut, encodeParamsFile(matchedParamsFile(analysis)));
     io.err.write(
@@ -200,6 +207,25 @@ export function matchedParamsFile(a: PlanAnalysis): ParamsFile {
     units:
       a.plan.units === 'physical'
         ? { kind: 'physical', metresPerLength: a.scaling.length, secondsPerTime: a.scaling.time }
+        : { kind: 'model' },
+  };
+}
+
+/**
+ * The matched two-layer run of a baroclinic plan as a parameter file. Its model units keep L_d/dy and
+ * take U = (U₁ − U₂)/2 = 1 (baroclinicPlan.ts), so one length unit is the planned L_d over the matched
+ * one, and one time unit that length over the planned U.
+ */
+export function baroclinicParamsFile(a: PlanAnalysis): ParamsFile {
+  const b = a.baroclinic!;
+  const m = b.matched!;
+  const metres = a.plan.Ld * m.params.kd;
+  return {
+    title: `matched two-layer run of ${a.plan.input.title ?? 'the plan'}`.slice(0, 200),
+    params: { ...m.params },
+    units:
+      a.plan.units === 'physical'
+        ? { kind: 'physical', metresPerLength: metres, secondsPerTime: metres / (b.shear / 2) }
         : { kind: 'model' },
   };
 }

@@ -8,7 +8,11 @@ import { resolvePlan } from '../../lib/plan/resolvePlan';
 import { planReportMarkdown } from '../../lib/plan/planReport';
 import { InputError } from '../../lib/inputError';
 import { validateParams } from '../../lib/model/validateParams';
-import { striaHere } from '../cli/support/stria';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { decodeParamsFile } from '../../lib/io/paramsFile';
+import { planInputFromModelParams } from '../../lib/plan/modelPlanInput';
+import { scratchDir, striaHere } from '../cli/support/stria';
 import { expectQuoted } from './quoted';
 
 /**
@@ -139,5 +143,26 @@ describe('the baroclinic drive of the planner', () => {
     const out = JSON.parse(json.stdout);
     expect(out.baroclinic.predictions.xi.value).toBeGreaterThan(1);
     expect(out.baroclinic.matched.params.layers).toBe(2);
+  });
+
+  it('is what the model keys layers = 2, shear and kd plan, and stria plan writes its matched parameters', async () => {
+    const { input } = planInputFromModelParams({ layers: 2, shear: 3, kd: 8, depth_ratio: 0.5 });
+    expect(input.drive).toEqual({ kind: 'baroclinic', shear: 3, depthRatio: 0.5 });
+    expect(planInputFromModelParams({ kd: 8 }).input.drive.kind).toBe('injection');
+    const dir = scratchDir('baroclinic-plan');
+    const file = join(dir, 'matched.json');
+    const r = await striaHere([
+      'plan',
+      ...['--set', 'layers=2', '--set', 'shear=3', '--set', 'kd=8', '--set', 'nx=64', '--set', 'ny=64'],
+      '--matched-params',
+      file,
+    ]);
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.stderr).toMatch(/matched two-layer run's parameters written/);
+    const written = decodeParamsFile(JSON.parse(readFileSync(file, 'utf8')));
+    expect(written.params).toMatchObject({ layers: 2, forcing: 'none', shear: 2 });
+    // ξ = δk_d²ΔU/((1 + δ)β) = 0.5·64·3/40 = 2.4 with the default β = 40 [derived], kept by the matched run.
+    const p = written.params as { kd: number; shear: number; beta: number };
+    expect((0.5 * p.kd * p.kd * p.shear) / p.beta).toBeCloseTo(2.4, 12);
   });
 });
