@@ -83,6 +83,8 @@ export function planJson(a: PlanAnalysis, measured: RunSummary | null): unknown 
                 wall_seconds: a.baroclinic.matched.cost.wallSeconds,
                 within_target: a.baroclinic.matched.withinTarget,
                 kept: a.baroclinic.matched.kept,
+                predicted: a.baroclinic.matched.predicted,
+                measured,
                 notes: a.baroclinic.matched.notes,
               }
             : null,
@@ -145,10 +147,15 @@ export function planText(a: PlanAnalysis): string {
 
 /** The matched run's measurement beside its predictions, under the run summary's keys. */
 export function matchedComparisonText(m: MatchedRun, measured: RunSummary): string {
-  const pred = headline(m.predictions) as Record<string, unknown>;
+  return keyedComparisonText(headline(m.predictions), measured);
+}
+
+/** Predictions beside a run's measurement, key by key (the run summary's keys). */
+export function keyedComparisonText(predicted: object, measured: RunSummary): string {
+  const pred = predicted as Record<string, unknown>;
   const meas = measured as unknown as Record<string, unknown>;
   const lines = ['', `  ${'quantity'.padEnd(18)}  ${'predicted'.padEnd(14)}  measured`];
-  for (const k of HEADLINE_KEYS) lines.push(`  ${k.padEnd(18)}  ${show(pred[k]).padEnd(14)}  ${show(meas[k])}`);
+  for (const k of Object.keys(pred)) lines.push(`  ${k.padEnd(18)}  ${show(pred[k]).padEnd(14)}  ${show(meas[k])}`);
   return `${lines.join('\n')}\n`;
 }
 

@@ -17,7 +17,7 @@ import { isInputError } from '../../lib/inputError';
 import { UsageError, type OptionSpec, type ParsedArgs } from '../args';
 import { EXIT_FAILED, EXIT_INTERRUPTED, EXIT_OK, type Command, type CommandIO } from '../command';
 import { planInputFrom } from '../planInputArgs';
-import { matchedComparisonText, planJson, planText } from '../planOutput';
+import { keyedComparisonText, matchedComparisonText, planJson, planText } from '../planOutput';
 import { DEFAULT_PROGRESS_SECONDS, ProgressLines } from '../progressLines';
 import { Breather } from '../breather';
 import { ProgressBar } from '../progressBar';
@@ -143,9 +143,24 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   if (!o.json) io.out.write(planText(analysis));
   let measured: RunSummary | null = null;
   let status = EXIT_OK;
-  if (o.matched) {
+  if (o.matched && analysis.baroclinic) {
+    if (!twoLayer) throw new Error(`no matched run can be made for this plan: ${analysis.baroclinic.matchedError}`);
+    const result = await runMatched(
+      { params: twoLayer.params, runLength: twoLayer.runLength, cost: twoLayer.cost },
+      io,
+      progressSeconds,
+    );
+    measured = result.summary;
+    status = result.status;
+    if (!o.json) io.out.write(keyedComparisonText(twoLayer.predicted, measured));
+  } else if (o.matched) {
     if (!analysis.matched) throw new Error(`no matched run can be made for this plan: ${analysis.matchedError}`);
-    const result = await runMatched(analysis.matched, io, progressSeconds);
+    const m = analysis.matched;
+    const result = await runMatched(
+      { params: m.params, runLength: m.plan.runLength, cost: m.cost },
+      io,
+      progressSeconds,
+    );
     measured = result.summary;
     status = result.status;
     if (!o.json) io.out.write(matchedComparisonText(analysis.matched, measured));
@@ -156,12 +171,12 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
 
 /** The matched run from rest for its planned length, averaged over its second half. */
 async function runMatched(
-  m: MatchedRun,
+  m: { params: MatchedRun['params']; runLength: number; cost: MatchedRun['cost'] },
   io: CommandIO,
   progressSeconds: number,
 ): Promise<{ summary: RunSummary; status: number }> {
   const model = new Model(m.params);
-  const length = m.plan.runLength;
+  const length = m.runLength;
   const run = new MonitoredRun(
     model,
     resolveRunPlan(model.params, {

@@ -30,6 +30,8 @@ export type BaroclinicCheck = PlanCheck & { id: BaroclinicCheckId };
 export interface BaroclinicMatched {
   /** The matched run's model parameters (two layers, no stirring), accepted by validateParams. */
   params: ModelParams;
+  /** Held & Larichev's predictions for it, under the run summary's keys (`matchedHeadline`). */
+  predicted: BaroclinicHeadline;
   runLength: number;
   cost: RunCost;
   withinTarget: boolean;
@@ -311,6 +313,9 @@ function matchedBaroclinic(
       mu_ls: 0,
       k_ls: 0,
       forcing: 'none',
+      // The small random start lies on the annulus k_f ± δk (model.ts): around the fastest-growing mode.
+      kf: mc.kMode,
+      dkf: Math.max(0.5 * mc.kMode, 1),
       Lx,
       Ly,
       nx,
@@ -335,7 +340,15 @@ function matchedBaroclinic(
       );
     if (runLength < (plan.runLength / eddyTime) * Ld)
       notes.push('run length shortened to the time needed to grow and reach a steady state');
-    best = { params, runLength, cost, withinTarget: cost.wallSeconds <= target, kept, notes };
+    best = {
+      params,
+      predicted: matchedHeadline(params),
+      runLength,
+      cost,
+      withinTarget: cost.wallSeconds <= target,
+      kept,
+      notes,
+    };
     if (best.withinTarget) return best;
   }
   if (!best)
@@ -346,4 +359,36 @@ function matchedBaroclinic(
     `no grid fits the target of ${fmt(target)} s while keeping ${fmt(floor)} jets; the smallest takes ${fmt(best.cost.wallSeconds)} s`,
   );
   return best;
+}
+
+/** Held & Larichev's predictions under the run summary's keys (summary.ts), in the run's model units. */
+export interface BaroclinicHeadline {
+  supercriticality: number;
+  eddy_velocity: number;
+  eddy_diffusivity: number;
+  heat_flux: number;
+  jet_spacing: number;
+  jet_count: number;
+}
+
+/**
+ * What Held & Larichev's scalings predict for a two-layer run's summary: ξ, V ≈ ξU, D ≈ ξ²Uλ (the
+ * summary's D = ⟨v₁′τ′⟩/(U₁ − U₂), so the heat flux is D·(U₁ − U₂)), jet spacing 2πλξ and the jets in
+ * Ly, with U = (U₁ − U₂)/2 and λ = 1/k_d. Order-one prefactors (baroclinicScales.ts).
+ */
+export function matchedHeadline(
+  p: Pick<ModelParams, 'shear' | 'depth_ratio' | 'beta' | 'kd' | 'Ly'>,
+): BaroclinicHeadline {
+  const Ld = 1 / p.kd;
+  const xi = criticality(p.shear, p.depth_ratio, p.beta, Ld);
+  const D = heldLarichevDiffusivity(xi, p.shear, Ld);
+  const Lj = heldLarichevJetSpacing(xi, Ld);
+  return {
+    supercriticality: xi,
+    eddy_velocity: heldLarichevVelocity(p.shear, p.depth_ratio, p.beta, Ld),
+    eddy_diffusivity: D,
+    heat_flux: D * p.shear,
+    jet_spacing: Lj,
+    jet_count: p.Ly / Lj,
+  };
 }

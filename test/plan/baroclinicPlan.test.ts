@@ -7,7 +7,7 @@ import { criticalShear, mostUnstable } from '../../lib/plan/linearStability';
 import { resolvePlan } from '../../lib/plan/resolvePlan';
 import { planReportMarkdown } from '../../lib/plan/planReport';
 import { InputError } from '../../lib/inputError';
-import { validateParams } from '../../lib/model/validateParams';
+import { keptRadius, validateParams } from '../../lib/model/validateParams';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { decodeParamsFile } from '../../lib/io/paramsFile';
@@ -123,6 +123,10 @@ describe('the baroclinic drive of the planner', () => {
     expect(1 / p.kd / (p.Ly / p.ny) / (1 / ((32 * Math.PI) / 256)) - 1).toBeCloseTo(0, 12);
     // The drag in eddy units μλ/U: planned (1/20)·1/(1/2), matched μ/k_d with U = 1.
     expect(p.mu / p.kd / ((1 / 20) * 2) - 1).toBeCloseTo(0, 12);
+    // Its small random start lies on an annulus around the fastest-growing mode, inside the grid.
+    expect(p.kf + p.dkf).toBeLessThan(keptRadius(p));
+    expect(m.predicted.supercriticality / planned - 1).toBeCloseTo(0, 12);
+    expect(m.predicted.heat_flux).toBeCloseTo(m.predicted.eddy_diffusivity * p.shear, 12);
     const byLabel = Object.fromEntries(m.kept.map((k) => [k.label, k.kept]));
     expect(byLabel['criticality ξ']).toBe(true);
     expect(byLabel['jets per domain Ly/L_j']).toBe(false);
@@ -164,5 +168,20 @@ describe('the baroclinic drive of the planner', () => {
     // ξ = δk_d²ΔU/((1 + δ)β) = 0.5·64·3/40 = 2.4 with the default β = 40 [derived], kept by the matched run.
     const p = written.params as { kd: number; shear: number; beta: number };
     expect((0.5 * p.kd * p.kd * p.shear) / p.beta).toBeCloseTo(2.4, 12);
+  });
+
+  it('runs the matched two-layer run with --matched: eddies grow and carry heat down the imposed gradient', async () => {
+    const r = await striaHere([
+      'plan',
+      ...['--set', 'layers=2', '--set', 'shear=3', '--set', 'kd=8', '--set', 'nx=32', '--set', 'ny=32'],
+      ...['--set', 'mu=0.5', '--matched', '--json'],
+    ]);
+    expect(r.status, r.stderr).toBe(0);
+    const m = JSON.parse(r.stdout).baroclinic.matched;
+    expect(m.measured.supercriticality).toBeCloseTo(m.predicted.supercriticality, 12);
+    // Growth from the shear needs a positive generation F₁h₁ΔU⟨v₁′τ′⟩, so a positive heat flux
+    // [derived: the energy cycle of docs/two-layer.md].
+    expect(m.measured.heat_flux).toBeGreaterThan(0);
+    expect(m.measured.energy_generation).toBeGreaterThan(0);
   });
 });
