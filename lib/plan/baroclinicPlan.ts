@@ -1,5 +1,6 @@
 import { DEFAULT_PARAMS, SIZE_MAX, SIZE_MIN, type ModelParams } from '../model/params';
 import { keptRadius, validateParams } from '../model/validateParams';
+import { InputError } from '../inputError';
 import {
   criticality,
   heldLarichevDiffusivity,
@@ -188,8 +189,10 @@ export function analyseBaroclinic(
   try {
     matched = matchedBaroclinic(plan, shear, depthRatio, c, opts.targetWallSeconds ?? 600, speed, ref);
   } catch (e) {
-    if (!(e instanceof RangeError)) throw e;
-    matchedError = e.message;
+    // A matched run the model would refuse (a scaled value out of its range) is reported, not thrown.
+    if (e instanceof InputError) matchedError = `the matched run is outside the model's range: ${e.message}`;
+    else if (e instanceof RangeError) matchedError = e.message;
+    else throw e;
   }
   return { shear, depthRatio, predictions, checks, cost, matched, matchedError };
 }

@@ -154,7 +154,8 @@ export const PlanInputSchema = v.strictObject({
   cfl: v.optional(
     v.pipe(
       v.number('CFL number'),
-      v.check((c) => Number.isFinite(c) && c > 0 && c <= 1.2, 'out of range (CFL number: > 0 and ≤ 1.2)'),
+      // The model's adaptive-step range (validateParams.ts): a planned run must be one the model takes.
+      v.check((c) => Number.isFinite(c) && c >= 0.01 && c <= 1.2, 'out of range (CFL number: 0.01 to 1.2)'),
     ),
   ),
   rhines: v.optional(

@@ -80,7 +80,12 @@ describe('plan input validation', () => {
       { hyperviscosity: { order: 2.5, gridDampingTime: 1 } },
       /hyperviscosity\.order = 2\.5: must be an integer from 1 to 8/,
     ],
-    ['a CFL number too large', { cfl: 2 }, /cfl = 2: out of range \(CFL number: > 0 and ≤ 1\.2\)/],
+    ['a CFL number too large', { cfl: 2 }, /cfl = 2: out of range \(CFL number: 0\.01 to 1\.2\)/],
+    [
+      'a CFL number too small for the model',
+      { cfl: 1e-5 },
+      /cfl = 0\.00001: out of range \(CFL number: 0\.01 to 1\.2\)/,
+    ],
     ['an unknown Rhines convention', { rhines: 'L' }, /rhines = "L": must be one of "kR", "sqrtUbeta"/],
     ['a string for a number', { dragTime: '1e6' }, /dragTime = "1e6"/],
     ['an unknown field', { gamma: 3 }, /gamma = "gamma": is not a plan field/],
