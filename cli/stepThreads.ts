@@ -1,11 +1,5 @@
-import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
 import { StepThreads } from '../lib/model/threadTeam';
-
-/** Threads a single run takes by default: every core, the calling thread taking a share. */
-export function defaultThreads(): number {
-  return Math.max(1, availableParallelism());
-}
 
 /** Helper threads for a model's step on the command line (Node worker_threads). */
 export interface NodeStepThreads {

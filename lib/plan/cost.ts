@@ -62,6 +62,7 @@ export function modelMemory(nx: number, ny: number, forcedModes: number): Memory
   const rows: Array<[string, string, number, number]> = [
     ['Stepper', 'state q̂ and RK stages a, b, c, d, w', 6 * 2 * S, 8],
     ['Stepper', 'kick pair', 2, 8],
+    ['Stepper', 'phase arguments and the speed maxima of up to 64 threads', 2 + 2 * 64, 8],
     ['LinearOperator', 'rates 1/K², drag, hyper, large-scale, wave', 5 * S, 8],
     ['LinearOperator', 'propagators e^{L dt/2}, e^{L dt}', 2 * 2 * S, 8],
     ['LinearOperator', 'kept mask', S, 1],

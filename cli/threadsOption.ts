@@ -1,0 +1,29 @@
+import { availableParallelism } from 'node:os';
+import { MAX_THREADS } from '../lib/model/stepTeam';
+import { UsageError, type OptionSpec, type ParsedArgs } from './args';
+
+/**
+ * Grids below this many points step on one thread unless --threads says otherwise: their phases
+ * last a few microseconds, less than it takes threads to meet, and a helper thread takes about
+ * half a second to start.
+ */
+export const SMALL_GRID_POINTS = 128 * 128;
+
+/** `--threads N` of the commands that run one model (docs/cli.md, docs/threads.md). */
+export const THREADS_OPTION: OptionSpec = {
+  name: 'threads',
+  kind: 'count',
+  value: 'N',
+  help: `threads the step runs on, this one included (default: every core,\none below ${Math.sqrt(SMALL_GRID_POINTS)}²; at most ${MAX_THREADS}); the results are the same bits on any number`,
+};
+
+/** Threads a single run takes: --threads, else every core (one on a small grid). */
+export function threadsFor(o: ParsedArgs['options'], grid: { nx: number; ny: number }): number {
+  const asked = o.threads as number | undefined;
+  if (asked !== undefined) {
+    if (asked > MAX_THREADS) throw new UsageError(`--threads ${asked}: at most ${MAX_THREADS}`);
+    return asked;
+  }
+  if (grid.nx * grid.ny < SMALL_GRID_POINTS) return 1;
+  return Math.min(MAX_THREADS, Math.max(1, availableParallelism()));
+}
