@@ -2,6 +2,7 @@ import { RunMonitor } from '../lib/analysis/runMonitor';
 import { summarize, type RunSummary } from '../lib/analysis/summary';
 import { Model } from '../lib/model/model';
 import type { ModelParams } from '../lib/model/params';
+import type { StepThreads } from '../lib/model/threadTeam';
 import { DEFAULT_SCENARIO_ID, scenarioById } from '../lib/plan/demoScenarios';
 
 /**
@@ -20,6 +21,8 @@ const GIVE_UP = 400;
 
 export interface TimeToJets {
   n: number;
+  /** Threads the run stepped on, the calling one included. */
+  threads: number;
   wall_seconds: number;
   model_time: number;
   steps: number;
@@ -29,11 +32,18 @@ export interface TimeToJets {
   accuracy: { span: number; error_dt: number; error_half: number; observed_order: number };
 }
 
-/** The default scenario at n × n, run from rest until jets show (or GIVE_UP time units). */
-export function timeToJets(n = 256, log: (s: string) => void = () => {}): TimeToJets {
+/**
+ * The default scenario at n × n on `threads` (null: the calling thread alone), run from rest until
+ * jets show (or GIVE_UP time units).
+ */
+export function timeToJets(
+  n = 256,
+  log: (s: string) => void = () => {},
+  threads: StepThreads | null = null,
+): TimeToJets {
   const scenario = scenarioById(DEFAULT_SCENARIO_ID);
   if (!scenario) throw new Error('no default scenario');
-  const model = new Model({ ...scenario.params, nx: n, ny: n });
+  const model = new Model({ ...scenario.params, nx: n, ny: n }, false, threads);
   const monitor = new RunMonitor(model.params, { window: { kind: 'last', span: WINDOW, cap: 256 } });
   const t0 = performance.now();
   let nextSample = 0;
@@ -55,14 +65,17 @@ export function timeToJets(n = 256, log: (s: string) => void = () => {}): TimeTo
     }
   }
   const wall = (performance.now() - t0) / 1000;
+  const count = model.threadCount;
+  model.useThreads(null);
   return {
     n,
+    threads: count,
     wall_seconds: wall,
     model_time: model.time,
     steps: model.steps,
     summary,
     dt: model.dt,
-    accuracy: stepAccuracy(model),
+    accuracy: stepAccuracy(model, threads),
   };
 }
 
@@ -72,15 +85,17 @@ export function timeToJets(n = 256, log: (s: string) => void = () => {}): TimeTo
  * dt/4, and return the relative differences |q_dt − q_dt/2|/|q| and |q_dt/2 − q_dt/4|/|q|. Their
  * ratio gives the observed order (4 for RK4 in its asymptotic range).
  */
-function stepAccuracy(model: Model, span = 2): TimeToJets['accuracy'] {
+function stepAccuracy(model: Model, threads: StepThreads | null, span = 2): TimeToJets['accuracy'] {
   const cp = model.checkpoint();
   const dt = model.dt;
   const steps = Math.max(1, Math.round(span / dt));
   const run = (k: number) => {
     const p: ModelParams = { ...cp.params, forcing: 'none', cfl: 0, dt: dt / k };
-    const m = Model.restore({ ...cp, params: p, dt: dt / k });
+    const m = Model.restore({ ...cp, params: p, dt: dt / k }, threads);
     m.step(steps * k);
-    return m.qHat;
+    const q = Float64Array.from(m.qHat);
+    m.useThreads(null);
+    return q;
   };
   const a = run(1);
   const b = run(2);
