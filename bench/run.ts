@@ -14,6 +14,8 @@
  *                      --threads N): wall and model time, and the scheme's error at that step against
  *                      half and quarter steps
  *   --draw             the Field figure's draw time at 512² (or --n N) in Debian's Chromium
+ *   --scaling-law      the README's Rhines-scaling sweep through `stria sweep` on every core (--jobs J):
+ *                      wall time and the fitted exponent of jet spacing against the Rhines length
  */
 import { referenceUnavailable, runReference, type ReferenceTiming } from './reference';
 import { timeStep, type StepTiming } from './stepBench';
@@ -21,6 +23,7 @@ import { fitScaling } from './scaling';
 import { median } from './timing';
 import { MIN_JETS, MIN_STAIRCASE, timeToJets } from './timeToJets';
 import { timeFieldDraw } from './drawBench';
+import { scalingLaw } from './scalingLaw';
 import { availableParallelism } from 'node:os';
 import { startStepThreads, type NodeStepThreads } from '../cli/stepThreads';
 import type { StepThreads } from '../lib/model/threadTeam';
@@ -72,6 +75,19 @@ if (has('--time-to-jets')) {
     },
     `  ${r.wall_seconds.toFixed(1)} s wall on ${r.threads} thread${r.threads > 1 ? 's' : ''}, model time ${r.model_time.toFixed(1)}, ${r.steps} steps: ${s.jet_count} jets, staircase index ${s.staircase_index?.toFixed(3)}, R_β ${s.zonostrophy_index?.toFixed(2)}\n` +
       `  scheme error over ${r.accuracy.span.toFixed(2)} T at dt = ${r.dt.toPrecision(3)}: ${r.accuracy.error_dt.toExponential(2)} relative (dt/2: ${r.accuracy.error_half.toExponential(2)}, observed order ${r.accuracy.observed_order.toFixed(2)})`,
+  );
+  await finish();
+}
+
+if (has('--scaling-law')) {
+  const jobs = Number(value('--jobs') ?? availableParallelism());
+  if (!json) console.log(`Rhines-scaling sweep (lib/sweep/rhinesExample.ts) through stria sweep on ${jobs} workers`);
+  const r = scalingLaw(jobs);
+  const f = r.fits.jet_spacing_vs_rhines_length;
+  const ci = f.exponent_ci;
+  emit(
+    { kind: 'scaling_law', ...r },
+    `  ${r.runs} runs in ${r.wall_seconds.toFixed(0)} s wall: jet_spacing ∝ rhines_length^b, b = ${f.exponent?.toFixed(2)} [${ci?.[0].toFixed(2)}, ${ci?.[1].toFixed(2)}] (${((f.level ?? 0.95) * 100).toFixed(0)} % bootstrap interval), prefactor at b = 1: ${f.prefactor_at_exponent_1?.toFixed(2)}${ci && ci[0] <= 1 && ci[1] >= 1 && ci[0] > 0 ? ' — the Rhines scaling' : ''}`,
   );
   await finish();
 }

@@ -4,6 +4,7 @@ import { RATIO_LABELS, type MatchedRun } from '../lib/plan/matchedRun';
 import { duration, fmt, withUnit } from '../lib/plan/format';
 import type { PlanPredictions } from '../lib/plan/predictions';
 import { regimeLabel } from '../lib/plan/predictions';
+import { verdicts } from '../lib/plan/verdict';
 
 /**
  * What `stria plan` prints. The headline numbers use the run summary's keys, so a prediction and the
@@ -22,16 +23,6 @@ export function headline(p: PlanPredictions) {
     jet_spacing: p.jetSpacingRhines.value,
   };
 }
-
-export const HEADLINE_KEYS = [
-  'regime',
-  'jet_count',
-  'u_rms',
-  'k_rhines',
-  'k_beta',
-  'zonostrophy_index',
-  'jet_spacing',
-] as const;
 
 export function planJson(a: PlanAnalysis, measured: RunSummary | null): unknown {
   const p = a.predictions;
@@ -62,6 +53,7 @@ export function planJson(a: PlanAnalysis, measured: RunSummary | null): unknown 
           within_target: a.matched.withinTarget,
           predicted: headline(a.matched.predictions),
           measured,
+          verdicts: measured ? verdicts(a.matched.predictions, measured) : null,
           // The physical size of the matched run's model units (the plan's scaling), or null in model units.
           physical_units:
             a.plan.units === 'physical'
@@ -102,12 +94,34 @@ export function planText(a: PlanAnalysis): string {
   return `${lines.join('\n')}\n`;
 }
 
-/** The matched run's measurement beside its predictions, under the run summary's keys. */
+/**
+ * The matched run's measurement beside its predictions, under the run summary's keys, with the
+ * verdict of each row (lib/plan/verdict.ts): measured ± its standard error, the tolerance, and what
+ * to change when it does not agree.
+ */
 export function matchedComparisonText(m: MatchedRun, measured: RunSummary): string {
-  const pred = headline(m.predictions) as Record<string, unknown>;
-  const meas = measured as unknown as Record<string, unknown>;
-  const lines = ['', `  ${'quantity'.padEnd(18)}  ${'predicted'.padEnd(14)}  measured`];
-  for (const k of HEADLINE_KEYS) lines.push(`  ${k.padEnd(18)}  ${show(pred[k]).padEnd(14)}  ${show(meas[k])}`);
+  const rows = verdicts(m.predictions, measured);
+  const w = [18, 14, 24, 15];
+  const lines = [
+    '',
+    `  ${'quantity'.padEnd(w[0])}  ${'predicted'.padEnd(w[1])}  ${'measured ± std. error'.padEnd(w[2])}  ${'verdict'.padEnd(w[3])}  why`,
+  ];
+  for (const r of rows) {
+    const meas =
+      r.stderr !== null && typeof r.measured === 'number'
+        ? `${show(r.measured)} ± ${show(r.stderr)}`
+        : show(r.measured);
+    lines.push(
+      `  ${r.key.padEnd(w[0])}  ${show(r.predicted).padEnd(w[1])}  ${meas.padEnd(w[2])}  ${r.verdict.padEnd(w[3])}  ${r.note}`,
+    );
+  }
+  lines.push(
+    '',
+    `  A row agrees when |ln(measured/predicted)| ≤ 2·((σ/measured)² + r²)^½: σ the measurement's standard error, r the scaling's own scatter (${rows
+      .filter((r) => r.key !== 'regime')
+      .map((r) => `${r.key} ${r.scatter}`)
+      .join(', ')}; sources in lib/plan/verdict.ts and docs/significance.md).`,
+  );
   return `${lines.join('\n')}\n`;
 }
 

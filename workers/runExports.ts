@@ -46,7 +46,11 @@ export function zonalNetcdfExport(model: Model, diag: RunDiagnostics): ExportedF
   const frames = diag.frames.frameList();
   if (frames.length === 0)
     throw new RangeError('no zonal-mean samples yet: let the run go on for a sample interval first');
-  const bytes = encodeZonalMeanFile(runInfo(model, 'export the zonal-mean time series'), frames);
+  // The summary over the views' window goes with the series: its numbers, standard errors and verdicts.
+  const bytes = encodeZonalMeanFile(
+    { ...runInfo(model, 'export the zonal-mean time series'), summary: diag.summary(model) },
+    frames,
+  );
   return {
     name: `stria-zonal-${stamp(model.time)}.nc`,
     mime: 'application/x-netcdf',

@@ -1,4 +1,5 @@
 import { writeFileSync } from 'node:fs';
+import { guardOutputs, type OutputPath } from '../outputGuard';
 import { extname } from 'node:path';
 import type { RunSummary } from '../../lib/analysis/summary';
 import { encodeParamsFile, type ParamsFile } from '../../lib/io/paramsFile';
@@ -60,6 +61,11 @@ const options: OptionSpec[] = [
     value: 'FILE',
     help: 'write the printable plan report: FILE.md (Markdown) or FILE.html',
   },
+  {
+    name: 'overwrite',
+    kind: 'flag',
+    help: 'replace a report or parameter file that already exists\n(without it the command refuses to)',
+  },
 ];
 
 export const planCommand: Command = {
@@ -91,6 +97,15 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   const report = o.report as string | undefined;
   if (report !== undefined && !['.md', '.html'].includes(extname(report).toLowerCase()))
     throw new UsageError(`--report ${report}: the file name must end in .md or .html`);
+  // Before anything is written: the report and the parameter file are files of their own, none replaced unasked.
+  const outputs: OutputPath[] = [];
+  if (report !== undefined) outputs.push({ option: '--report', path: report, kind: 'file' });
+  const paramsFile = o['matched-params'] as string | undefined;
+  if (paramsFile !== undefined) outputs.push({ option: '--matched-params', path: paramsFile, kind: 'file' });
+  guardOutputs(outputs, args.positionals[0] ? [{ option: 'PLANFILE', path: args.positionals[0] }] : [], {
+    overwrite: o.overwrite === true,
+    choices: '--overwrite to replace it, or another file name',
+  });
   const target = o['target-seconds'] as number | undefined;
   if (target !== undefined && !(target > 0)) throw new UsageError(`--target-seconds must be > 0, got ${target}`);
   const { input, setPaths, defaulted } = planInputFrom(

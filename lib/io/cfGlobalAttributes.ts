@@ -1,3 +1,4 @@
+import type { RunSummary } from '../analysis/summary';
 import type { ModelParams } from '../model/params';
 import { checkUnitSystem, MODEL_UNITS, type UnitSystem } from './cfUnits';
 import { ncDouble, ncInt, ncText, type NcAttribute } from './netcdf3Types';
@@ -36,6 +37,12 @@ export interface StriaRunInfo {
   units?: UnitSystem;
   /** Threads the run that began the file stepped on (stria_threads), when known. */
   threads?: number;
+  /**
+   * The run summary over the file's window, when the file is written whole at the end (the app's
+   * exports): its numbers, standard errors and verdicts as `stria_summary_<key>` attributes, model
+   * units (docs/significance.md).
+   */
+  summary?: RunSummary;
 }
 
 export type StriaFileKind = 'snapshots' | 'zonal_means';
@@ -116,6 +123,12 @@ export function striaGlobalAttributes(run: StriaRunInfo, kind: StriaFileKind, de
       throw new RangeError(
         `parameter "${key}" has a value of type ${typeof value}; only numbers, booleans and strings go into a file`,
       );
+  }
+  for (const [key, value] of Object.entries(run.summary ?? {})) {
+    const name = `stria_summary_${key}`;
+    if (typeof value === 'number' && Number.isFinite(value)) attrs.push(ncDouble(name, value));
+    else if (typeof value === 'boolean') attrs.push(ncInt(name, value ? 1 : 0));
+    else if (typeof value === 'string') attrs.push(ncText(name, value));
   }
   return attrs;
 }

@@ -56,7 +56,8 @@ export function planInputFromModelParams(
       grid: { kind: 'points', nx: p.nx, ny: p.ny },
       hyperviscosity: { order: p.nu_order, gridDampingTime: 1 / (nu * Math.pow(kMax, 2 * p.nu_order)) },
       runLength: runLength ?? (2 * THRESHOLDS.steadyMultiple) / (2 * p.mu),
-      cfl: p.cfl,
+      // A fixed-step run (cfl 0) is planned at the default CFL number: the planner sizes steps by it.
+      cfl: p.cfl > 0 ? p.cfl : DEFAULT_PARAMS.cfl,
     },
     defaulted,
   };

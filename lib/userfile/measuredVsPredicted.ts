@@ -4,6 +4,7 @@ import { regimeOf, staircaseSpacing } from '../analysis/scales';
 import type { PlanInput, UnitSystem } from '../plan/planInput';
 import { predictPlan, type PlanPredictions, type PredictionId, type Quantity } from '../plan/predictions';
 import { REFERENCES } from '../plan/references';
+import { judge, type Verdict, type VerdictKey } from '../plan/verdict';
 import { resolvePlan } from '../plan/resolvePlan';
 import { fileUnitLabels, type UnitLabels } from './unitLabels';
 
@@ -24,6 +25,9 @@ export interface ComparisonRow {
   predicted: number | null;
   /** measured / predicted. */
   ratio: number | null;
+  /** The verdict of the row (lib/plan/verdict.ts) where the planner predicts it, and why. */
+  verdict?: Verdict;
+  verdictNote?: string;
   /** The regime's name, for the regime row. */
   measuredText?: string;
   predictedText?: string;
@@ -172,6 +176,23 @@ export function measuredVsPredicted(
       'L = 720^{1/4}(U_rms/β)^½ with the measured U_rms',
       REFERENCES.staircase,
     );
+  }
+  // Verdicts where a row is a prediction of the planner with a known scatter (lib/plan/verdict.ts).
+  const judged: Record<string, [Exclude<VerdictKey, 'regime'>, number | null]> = {
+    U: ['u_rms', null],
+    kR: ['k_rhines', null],
+    R_beta: ['zonostrophy_index', null],
+    spacingRhines: ['jet_spacing', a.jets?.spacingStderr ?? null],
+    jetsRhines: ['jet_count', null],
+  };
+  for (const row of rows) {
+    const j = judged[row.id];
+    if (!j || row.predicted === null) continue;
+    const v = judge(j[0], row.predicted, row.measured, j[1], {
+      missing: a.jets?.verdict === 'too-short' ? 'the records are too few for the jet detector' : undefined,
+    });
+    row.verdict = v.verdict;
+    row.verdictNote = v.note;
   }
   return { units, labels, rows, missing: missing ? `no planner predictions: ${missing}` : null };
 }

@@ -102,16 +102,22 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
 /** The rows as a fixed-width table, each number's unit in the file's own units. */
 export function comparisonTable(rows: readonly ComparisonRow[], labels: UnitLabels): string[] {
   const cell = (x: number | null, text?: string) => (x === null ? '—' : fmt(x) + (text ? ` (${text})` : ''));
-  const head = ['quantity', 'measured', 'predicted', 'ratio', 'unit'];
+  const head = ['quantity', 'measured', 'predicted', 'ratio', 'unit', 'verdict'];
   const body = rows.map((r) => [
     r.label,
     cell(r.measured, r.measuredText),
     cell(r.predicted, r.predictedText),
     r.ratio === null ? '—' : fmt(r.ratio, 3),
     labels[r.quantity],
+    r.verdict ?? '',
   ]);
   const w = head.map((h, i) => Math.max(h.length, ...body.map((b) => b[i].length)));
-  const line = (c: string[]) => '  ' + c.map((x, i) => (i === 0 ? x.padEnd(w[i]) : x.padStart(w[i]))).join('  ');
+  const line = (c: string[]) =>
+    '  ' +
+    c
+      .map((x, i) => (i === 0 || i === c.length - 1 ? x.padEnd(w[i]) : x.padStart(w[i])))
+      .join('  ')
+      .trimEnd();
   return [line(head), ...body.map(line)];
 }
 

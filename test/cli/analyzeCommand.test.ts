@@ -176,7 +176,9 @@ data:
         expect(text.out).toMatch(
           /energy spectrum slope, inverse cascade range \(theory −5\/3\): not fitted: no forcing wavenumber/,
         );
-        expect(text.out).toMatch(/Measured beside the planner\n {2}quantity +measured +predicted +ratio +unit\n/);
+        expect(text.out).toMatch(
+          /Measured beside the planner\n {2}quantity +measured +predicted +ratio +unit +verdict\n/,
+        );
         const json = await run([path, '--map', 'u=U,v=W', '--beta', '2e-11', '--records', '-2:', '--json']);
         expect(json.code).toBe(0);
         const r = JSON.parse(json.out);

@@ -49,8 +49,23 @@ describe('stria plan', () => {
     for (const k of SUMMARY_KEYS) expect(m.measured).toHaveProperty(k);
     expect(m.measured.time).toBeGreaterThanOrEqual(m.run_length - 1e-3 * m.params.dt); // the clock's tolerance
     expect(m.predicted.k_beta).toBeCloseTo(m.measured.k_beta, 6); // white forcing injects ε exactly
+    // Every row has a verdict (lib/plan/verdict.ts), and the text says the rule.
+    expect(m.verdicts.map((v: { key: string }) => v.key)).toEqual([
+      'u_rms',
+      'k_rhines',
+      'k_beta',
+      'zonostrophy_index',
+      'jet_spacing',
+      'jet_count',
+      'regime',
+    ]);
+    for (const v of m.verdicts) expect(['agrees', 'does not agree', 'cannot tell']).toContain(v.verdict);
+    expect(m.verdicts.find((v: { key: string }) => v.key === 'k_beta').verdict).toBe(
+      m.measured.steady ? 'agrees' : 'cannot tell',
+    );
     const text = stria(['plan', file, '--matched']);
-    expect(text.stdout).toMatch(/quantity +predicted +measured\n +regime/);
+    expect(text.stdout).toMatch(/quantity +predicted +measured ± std\. error +verdict +why\n +u_rms/);
+    expect(text.stdout).toContain('A row agrees when |ln(measured/predicted)| ≤ 2·((σ/measured)² + r²)^½');
   });
 
   it('takes the model-unit keys of stria run, the rest from the defaults, and says which', async () => {
@@ -183,7 +198,7 @@ describe('stria plan', () => {
     const first = (test: (e: ['out' | 'err', string]) => boolean) => events.findIndex(test);
     const plan = first(([to, t]) => to === 'out' && /Predictions:[\s\S]*Checks:/.test(t));
     const progress = first(([to, t]) => to === 'err' && /^stria plan: matched run: \d+% t = /.test(t));
-    const comparison = first(([to, t]) => to === 'out' && /quantity +predicted +measured/.test(t));
+    const comparison = first(([to, t]) => to === 'out' && /quantity +predicted +measured ± std\. error/.test(t));
     expect(plan).toBeGreaterThanOrEqual(0);
     expect(progress).toBeGreaterThan(plan);
     expect(comparison).toBeGreaterThan(progress);
@@ -244,5 +259,18 @@ describe('stria plan', () => {
     expect(stria(['plan', '--preset', 'jupiter', '--report', join(dir, 'x.pdf')]).stderr).toMatch(
       /--report .*\.md or \.html/,
     );
+  });
+});
+
+describe('stria plan outputs', () => {
+  it('refuses to replace a report that exists unless --overwrite, and writes nothing', () => {
+    const out = join(dir, 'exists.md');
+    writeFileSync(out, 'mine');
+    const r = stria(['plan', '--preset', 'jupiter', '--report', out]);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/--report .*exists\.md already exists: give --overwrite to replace it/);
+    expect(readFileSync(out, 'utf8')).toBe('mine');
+    expect(stria(['plan', '--preset', 'jupiter', '--report', out, '--overwrite']).status).toBe(0);
+    expect(readFileSync(out, 'utf8')).toMatch(/^#/);
   });
 });

@@ -88,3 +88,29 @@ describe('striaGlobalAttributes', () => {
     ).toThrow(/metresPerLength/);
   });
 });
+
+describe('the run summary in a file written whole', () => {
+  it('goes into stria_summary_<key> attributes: numbers as doubles, flags as ints, words as text, nulls left out', () => {
+    const attrs = striaGlobalAttributes(
+      {
+        params: { ...DEFAULT_PARAMS },
+        striaVersion: '0.1.0',
+        createdAt: '2026-01-01T00:00:00Z',
+        summary: {
+          jet_count: 4,
+          jet_spacing_stderr: 0.1,
+          steady: true,
+          jet_verdict: 'jets',
+          staircase_index: null,
+        } as never,
+      },
+      'zonal_means',
+      't',
+    );
+    const by = (n: string) => attrs.find((a) => a.name === n);
+    expect(by('stria_summary_jet_count')).toMatchObject({ type: 'double', value: 4 });
+    expect(by('stria_summary_steady')).toMatchObject({ type: 'int', value: 1 });
+    expect(by('stria_summary_jet_verdict')).toMatchObject({ value: 'jets' });
+    expect(by('stria_summary_staircase_index')).toBeUndefined();
+  });
+});
