@@ -6,6 +6,7 @@ import { Model } from '../lib/model/model';
 import { reachedTime } from '../lib/model/clock';
 import type { ModelParams } from '../lib/model/params';
 import { BlowUpError } from '../lib/model/stepper';
+import { ThreadTeamError } from '../lib/model/threadTeam';
 import { validateParams } from '../lib/model/validateParams';
 import type { RunSummary } from '../lib/analysis/summary';
 import { blowUpReport, retryCheckpoint, retryRecord } from '../lib/run/blowUpRetry';
@@ -18,6 +19,7 @@ import { DiagnosticsPublisher } from './diagnosticsPublisher';
 import { snapshotExport, zonalCsvExport, zonalNetcdfExport, type ExportedFile } from './runExports';
 import { macrotask } from './macrotask';
 import { RescuePoint } from './rescuePoint';
+import { ThreadChoice, type ThreadsInfo } from './threadChoice';
 import type {
   BlowUpStop,
   ExportKind,
@@ -64,6 +66,8 @@ export class SimulationHost implements SimulationApi {
   private spareBudget: Float64Array | null = null;
   private readonly rows = new BudgetRowBuffer();
   private readonly diagnostics = new DiagnosticsPublisher();
+  /** The threads the step runs on (docs/threads.md): one until setThreads asks for more. */
+  private readonly threads = new ThreadChoice();
   /** The next slice of play, queued behind whatever messages are waiting. */
   private readonly nextSlice = macrotask(() => this.slice());
 
@@ -84,6 +88,12 @@ export class SimulationHost implements SimulationApi {
     if (this.blowUp.refused) throw new RangeError(`restartHalved: ${this.blowUp.refused}`);
     const info = this.begin(Model.restore(cp));
     await this.play();
+    return info;
+  }
+
+  async setThreads(count: number): Promise<ThreadsInfo> {
+    const info = await this.threads.set(count, () => this.model);
+    if (this.model) this.changed();
     return info;
   }
 
@@ -204,6 +214,7 @@ export class SimulationHost implements SimulationApi {
   async dispose(): Promise<void> {
     this.playing = false;
     this.model = null;
+    this.threads.close();
     this.rescue.clear();
     this.clearStop();
     this.nextSlice.close();
@@ -213,6 +224,7 @@ export class SimulationHost implements SimulationApi {
   }
 
   private begin(model: Model): InitInfo {
+    this.threads.apply(model);
     this.model = model;
     this.playing = false;
     this.until = null;
@@ -259,6 +271,11 @@ export class SimulationHost implements SimulationApi {
     try {
       run();
     } catch (e) {
+      // A helper thread failed: the step left the state as it was and the model goes on alone.
+      if (e instanceof ThreadTeamError) {
+        this.threads.failed(e.message);
+        return;
+      }
       this.playing = false;
       this.until = null;
       this.stopped = e instanceof Error ? e.message : String(e);
@@ -331,6 +348,7 @@ export class SimulationHost implements SimulationApi {
       report: copyReport(model.report),
       budget,
       checksum: stateChecksum(model.qHat),
+      threads: this.threads.info(model),
       playing: this.playing,
       until: this.until,
       stopped: this.stopped,

@@ -63,10 +63,17 @@ export class StepThreads {
   private current: ThreadTeam | null = null;
   private broken = false;
 
-  /** `post(i, message)` sends a message to helper thread i (0-based); SharedArrayBuffers go shared. */
+  /**
+   * `post(i, message)` sends a message to helper thread i (0-based); SharedArrayBuffers go shared.
+   * `waitForJoin`: whether `join` waits until the helpers have built their side. A browser worker
+   * delivers what it posts only once it returns to its event loop, so there the calling thread must
+   * not block right after inviting: the helpers then join while it is between tasks, and the first
+   * phase waits for them as any phase does (a helper that cannot build its side fails that phase).
+   */
   constructor(
     readonly helpers: number,
     private readonly post: (helper: number, message: TeamInvitation) => void,
+    private readonly waitForJoin = true,
   ) {
     if (!(Number.isInteger(helpers) && helpers >= 0 && helpers < MAX_THREADS))
       throw new RangeError(`StepThreads: ${helpers} helper threads (at most ${MAX_THREADS - 1})`);
@@ -93,7 +100,7 @@ export class StepThreads {
         members: this.helpers + 1,
       });
     }
-    team.awaitReady();
+    if (this.waitForJoin) team.awaitReady();
     return team;
   }
 
@@ -214,7 +221,8 @@ export function joinStepTeam(invitation: TeamInvitation): void {
     fail(ctl, READY);
     throw e;
   }
-  let gen = Atomics.load(ctl, GEN);
+  // Every generation from the team's first: phases may have been dispatched before this helper joined.
+  let gen = 0;
   arrive(ctl, READY, members - 1);
   for (;;) {
     gen = awaitGeneration(ctl, gen);

@@ -134,4 +134,39 @@ describe('threads', () => {
     await w.terminate();
     expect(errors.map((e) => e.message).join()).toMatch(/does not match/);
   });
+
+  // The app's way (workers/webStepThreads.ts): join does not wait for the helpers, so phases may be
+  // dispatched before a helper has built its side; it serves them from the team's first generation.
+  it('helpers that join after the first phases were dispatched give the same bits', async () => {
+    const w = new Worker(new URL('../../cli/stepThread.js', import.meta.url));
+    await new Promise((resolve) => w.once('message', resolve));
+    const late = new StepThreads(1, (_, message) => setTimeout(() => w.postMessage(message), 200), false);
+    const m = new Model(ONE_LAYER);
+    m.useThreads(late);
+    expect(m.threadCount).toBe(2);
+    await new Promise((resolve) => setTimeout(resolve, 400));
+    m.step(10);
+    const solo = new Model(ONE_LAYER);
+    solo.step(10);
+    expect(fingerprint(m)).toBe(fingerprint(solo));
+    // A failure before joining is met by the first phase: a ThreadTeamError, the state as it was.
+    const lossy = new StepThreads(
+      1,
+      (_, message) => w.postMessage({ ...message, buffers: message.buffers.slice(0, -1) }),
+      false,
+    );
+    const errors: Error[] = [];
+    w.on('error', (e) => errors.push(e));
+    const state = (x: Model) => `${stateChecksum(x.qHat)} ${x.time} ${x.dt} ${x.steps}`;
+    const before = state(m);
+    m.useThreads(lossy);
+    await new Promise((resolve) => setTimeout(resolve, 400));
+    expect(() => m.step(1)).toThrow(ThreadTeamError);
+    expect(state(m)).toBe(before);
+    expect(m.threadCount).toBe(1);
+    m.step(1);
+    solo.step(1);
+    expect(fingerprint(m)).toBe(fingerprint(solo));
+    await w.terminate();
+  });
 });
