@@ -1,13 +1,6 @@
 import { availableParallelism } from 'node:os';
-import { MAX_THREADS } from '../lib/model/stepTeam';
+import { MAX_THREADS, SMALL_GRID_POINTS } from '../lib/model/stepTeam';
 import { UsageError, type OptionSpec, type ParsedArgs } from './args';
-
-/**
- * Grids below this many points step on one thread unless --threads says otherwise: their phases
- * last a few microseconds, less than it takes threads to meet, and a helper thread takes about
- * half a second to start.
- */
-export const SMALL_GRID_POINTS = 128 * 128;
 
 /** `--threads N` of the commands that run one model (docs/cli.md, docs/threads.md). */
 export const THREADS_OPTION: OptionSpec = {

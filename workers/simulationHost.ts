@@ -148,6 +148,8 @@ export class SimulationHost implements SimulationApi {
       next === model ? 'inPlace' : next.params.Lx !== old.Lx || next.params.Ly !== old.Ly ? 'fresh' : 'regrid';
     if (how === 'fresh') this.newEpoch();
     this.model = next;
+    // A new grid may cross the size below which the step runs on one thread.
+    this.threads.apply(next);
     this.rescue.take(next);
     // Time means across a change of parameters would mix two runs: the diagnostics start again.
     this.diagnostics.restart(next);

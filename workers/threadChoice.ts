@@ -1,5 +1,5 @@
 import type { Model } from '../lib/model/model';
-import { MAX_THREADS } from '../lib/model/stepTeam';
+import { MAX_THREADS, SMALL_GRID_POINTS } from '../lib/model/stepTeam';
 import { canShareMemory, startWebStepThreads, type WebStepThreads } from './webStepThreads';
 
 /** The threads the app's step runs on, as the simulation worker reports them. */
@@ -17,6 +17,10 @@ export interface ThreadsInfo {
  * model put on them. The bits do not depend on the count (docs/threads.md), so a change takes
  * effect between two steps and the run goes on as it was.
  */
+function small(model: Model): boolean {
+  return model.params.nx * model.params.ny < SMALL_GRID_POINTS;
+}
+
 export class ThreadChoice {
   private asked = 1;
   private helpers: WebStepThreads | null = null;
@@ -65,7 +69,8 @@ export class ThreadChoice {
 
   /** Put `model` (a new run, or the present one) on the chosen threads; a failure leaves it on one. */
   apply(model: Model | null): ThreadsInfo {
-    if (model && this.helpers) {
+    if (model && small(model)) model.useThreads(null);
+    else if (model && this.helpers) {
       try {
         model.useThreads(this.helpers.threads);
       } catch (e) {
@@ -89,7 +94,11 @@ export class ThreadChoice {
     const said = this.helpers?.lastError();
     const note =
       this.note ??
-      (this.starting ? 'the helper threads are starting' : `the helper threads failed${said ? ` (${said})` : ''}`);
+      (model && small(model)
+        ? `grids below ${Math.sqrt(SMALL_GRID_POINTS)}² step on one, their passes being shorter than it takes threads to meet`
+        : this.starting
+          ? 'the helper threads are starting'
+          : `the helper threads failed${said ? ` (${said})` : ''}`);
     return { asked: this.asked, running, note };
   }
 

@@ -33,6 +33,12 @@ export class SoloTeam implements StepTeam {
 /** Phase 0 is the team's own: helpers leave the team (threadTeam.ts); no step uses it. */
 export const LEAVE_PHASE = 0;
 
+/**
+ * Grids below this many points step on one thread unless the user insists: their phases last a few
+ * microseconds, less than it takes threads to meet, and on a busy machine far less.
+ */
+export const SMALL_GRID_POINTS = 128 * 128;
+
 /** Most threads a step takes (the per-member slots of the speed maxima are sized for it). */
 export const MAX_THREADS = 64;
 
