@@ -1,6 +1,18 @@
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchChromium, type BrowserSession } from './support/browser';
-import { openApp, readText, screenshot, status, steps, waitForSteps, type AppPage } from './support/app';
+import { openApp, openView, readText, screenshot, status, steps, waitForSteps, type AppPage } from './support/app';
+
+/** Choose a grid size and wait until the run has moved to it. */
+async function selectGrid(page: Page, axis: 'nx' | 'ny', n: number): Promise<void> {
+  await page.locator(`#param-${axis}`).selectOption(String(n));
+  await expect
+    .poll(async () => {
+      const m = /New grid (\d+) × (\d+)/.exec(await readText(page, 'param-notice'));
+      return m ? Number(m[axis === 'nx' ? 1 : 2]) : null;
+    })
+    .toBe(n);
+}
 
 describe('Parameter controls in Chromium', () => {
   let session: BrowserSession;
@@ -13,6 +25,12 @@ describe('Parameter controls in Chromium', () => {
 
   afterAll(async () => {
     await session?.close();
+  });
+
+  it('names every parameter without raw sub- or superscript notation (k_d, μ_ls, 1/L_d set as subscripts)', async () => {
+    const panel = app.page.locator('section.params');
+    expect(await panel.innerText()).not.toMatch(/[\p{L}\d)]_[\p{L}{]|\^\{/u);
+    expect(await panel.locator('.symbol sub').count()).toBeGreaterThan(3);
   });
 
   it('refuses an out-of-range entry at the field with the reason, and the run goes on unchanged', async () => {
@@ -50,8 +68,13 @@ describe('Parameter controls in Chromium', () => {
     await expect.poll(() => page.getByTestId('error-nx').count()).toBe(0);
   });
 
-  it('changes β mid-run without a restart, and the link follows', async () => {
+  it('changes β mid-run without a restart, and the link follows; the diagnostics keep their history and mark the change', async () => {
     const { page } = app;
+    await openView(page, 'hovmoller');
+    await page.getByTestId('hovmoller-caption').waitFor();
+    await waitForSteps(page, (await steps(page)) + 200);
+    const columnsBefore = Number(await page.getByTestId('hovmoller-caption').getAttribute('data-columns'));
+    expect(columnsBefore).toBeGreaterThan(2);
     const before = await steps(page);
     const beta = page.locator('#param-beta');
     await beta.fill('30');
@@ -63,13 +86,47 @@ describe('Parameter controls in Chromium', () => {
     expect(await steps(page)).toBeGreaterThanOrEqual(before);
     await expect(page.getByTestId('scenario').inputValue()).resolves.toBe('');
     await expect(readText(page, 'scenario-description')).resolves.toMatch(/changed from a scenario/);
+    await expect(readText(page, 'param-notice')).resolves.toMatch(/beta changed at t = [\d.]+: the diagnostics go on/);
+    // The Hovmöller record goes on from where it was (no restart) and marks the change on its time axis.
+    await expect
+      .poll(async () => Number(await page.getByTestId('hovmoller-caption').getAttribute('data-columns')))
+      .toBeGreaterThan(columnsBefore);
+    await expect(page.getByTestId('hovmoller-caption').getAttribute('data-changes')).resolves.toBe('1');
+    // The time means span the change until asked to restart.
+    await expect(readText(page, 'means-span-change')).resolves.toMatch(/span the change of beta at t = /);
+    await page.getByTestId('restart-means').click();
+    await expect.poll(() => page.getByTestId('means-span-change').count()).toBe(0);
+    await screenshot(page, 'change-marked.png');
+    await openView(page, 'field');
+  });
+
+  it('rescales ν when the grid changes, unless ν was set by hand, and says so beside ν', async () => {
+    const { page } = app;
+    const nu = page.locator('#param-nu');
+    const nu0 = Number(await nu.inputValue());
+    await selectGrid(page, 'ny', 256);
+    await selectGrid(page, 'nx', 256);
+    // On 256² the kept radius doubles (42 → 85): ν falls by about (42/85)^16 at order 8 [derived: gridHyperviscosity.ts].
+    await expect.poll(async () => Number(await nu.inputValue())).toBeLessThan(nu0 * 1e-4);
+    await expect(readText(page, 'note-nu')).resolves.toMatch(/ν follows the grid/);
+    await expect(readText(page, 'param-notice')).resolves.toMatch(/start again there\. ν follows the grid/);
+    // Set by hand, it stays at the next change of grid.
+    await nu.fill('1e-30');
+    await nu.press('Enter');
+    await expect.poll(() => page.evaluate(() => location.hash)).toMatch(/nu=1e-30/);
+    await selectGrid(page, 'ny', 128);
+    await expect(readText(page, 'note-nu')).resolves.toMatch(/as you set it by hand/);
+    expect(await nu.inputValue()).toBe('1e-30');
+    await selectGrid(page, 'nx', 128);
   });
 
   it('moves the run to a finer grid, carrying the state over', async () => {
     const { page } = app;
     const before = await steps(page);
     await page.locator('#param-nx').selectOption('256');
-    await expect(readText(page, 'param-notice')).resolves.toMatch(/New grid 256 × 128: the run goes on/);
+    await expect
+      .poll(() => readText(page, 'param-notice'))
+      .toMatch(/New grid 256 × 128 at t = [\d.]+: the run goes on/);
     expect(await steps(page)).toBeGreaterThanOrEqual(before);
     await waitForSteps(page, before + 10);
     await expect(page.locator('[data-testid=field-canvas]').getAttribute('aria-label')).resolves.toMatch(

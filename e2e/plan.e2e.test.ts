@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analysePlan } from '../lib/plan/analysePlan';
 import { parsePlanFile } from '../lib/plan/planFile';
 import { planPreset } from '../lib/plan/planPresets';
+import { mathPieces } from '../src/components/mathText';
 import { launchChromium, type BrowserSession } from './support/browser';
 import { openApp, openView, screenshot, type AppPage } from './support/app';
 
@@ -37,12 +38,16 @@ describe('Plan view in Chromium', () => {
       const want = expected[id as keyof typeof expected].value;
       expect(Math.abs(value - want), id).toBeLessThanOrEqual(8 * Number.EPSILON * Math.abs(want));
     }
-    // Hovering a prediction shows its formula and source.
+    // Hovering a prediction shows its formula (sub- and superscripts set as such: mathText.ts) and source.
     const kR = page.getByTestId('prediction-kR').getByRole('button');
     await kR.hover();
-    await expect(page.getByTestId('prediction-kR').getByRole('tooltip').innerText()).resolves.toContain(
-      expected.kR.formula,
+    const tip = page.getByTestId('prediction-kR').getByRole('tooltip');
+    await expect(tip.innerText()).resolves.toContain(
+      mathPieces(expected.kR.formula)
+        .map((p) => p.text)
+        .join(''),
     );
+    await expect(tip.locator('sub').first().innerText()).resolves.toBe('R');
     // The preset says which constants are real and which are made up.
     await expect(
       page
@@ -100,6 +105,12 @@ describe('Plan view in Chromium', () => {
     // The matched run is in units where the planned U is 1.
     expect(u).toBeGreaterThan(0.2);
     expect(u).toBeLessThan(2);
+    // Every row carries the verdict `stria plan --matched` prints (lib/plan/verdict.ts) and its reason.
+    for (const key of ['regime', 'jet_count', 'jet_spacing', 'u_rms', 'k_rhines', 'k_beta', 'zonostrophy_index']) {
+      const row = page.getByTestId(`measured-${key}`);
+      expect(['agrees', 'does not agree', 'cannot tell']).toContain(await row.getAttribute('data-verdict'));
+      expect((await row.locator('td.why').innerText()).length).toBeGreaterThan(5);
+    }
     await screenshot(page, 'plan-matched.png');
   }, 200_000);
 

@@ -1,8 +1,10 @@
 import { readFile } from 'node:fs/promises';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { parseCsv } from '../lib/io/csv';
 import { parseSweepRecord } from '../lib/sweep/sweepRecord';
 import { expandSweep } from '../lib/sweep/sweepRuns';
 import { parseSweepSpec } from '../lib/sweep/sweepSpec';
+import { RHINES_EXAMPLE } from '../lib/sweep/rhinesExample';
 import { runSweepJob } from '../lib/sweep/runSweepJob';
 import { launchChromium, type BrowserSession } from './support/browser';
 import { inkPixels, openApp, openView, screenshot, type AppPage } from './support/app';
@@ -30,6 +32,18 @@ describe('Sweep view in Chromium', () => {
 
   afterAll(async () => {
     await session?.close();
+  });
+
+  it('opens with the sweep that recovers the Rhines scaling, on every core the browser offers', async () => {
+    const { page } = app;
+    // lib/sweep/rhinesExample.ts: five β from 10 to 160 at 128², to t = 250 (the README's sweep).
+    const shown = JSON.parse(await page.getByTestId('sweep-spec').inputValue()) as Record<string, unknown>;
+    expect({ ...shown, title: undefined }).toEqual({ ...RHINES_EXAMPLE, title: undefined });
+    await expect(page.getByTestId('sweep-spec-check').innerText()).resolves.toMatch(
+      /^5 runs: beta = 10; beta = 20; beta = 40; beta = 80; beta = 160$/,
+    );
+    const cores = await page.evaluate(() => navigator.hardwareConcurrency);
+    expect(Number(await page.getByTestId('sweep-workers').getAttribute('data-count'))).toBe(cores);
   });
 
   it('checks the spec as the command line does, naming the bad field', async () => {
@@ -103,12 +117,34 @@ describe('Sweep view in Chromium', () => {
       .getByTestId('sweep-load')
       .setInputFiles({ name: 'runs.jsonl', mimeType: 'application/jsonl', buffer: Buffer.from(jsonl) });
     await expect(page.getByTestId('sweep-table').locator('tbody tr').count()).resolves.toBe(3);
+    // Each headline number with its standard error, and the detector's verdict beside the jet count.
+    const head = await page.getByTestId('sweep-table').locator('thead').innerText();
+    for (const c of ['jet_verdict', 'jet_spacing ± std. error', 'u_rms ± std. error', 'staircase_index ± std. error'])
+      expect(head).toContain(c);
+    await expect(page.getByTestId('sweep-table').locator('tbody tr').first().innerText()).resolves.toMatch(/\d ± \d/);
     await page.getByTestId('sweep-load').setInputFiles({
       name: 'runs.jsonl',
       mimeType: 'application/jsonl',
       buffer: Buffer.from('{"not":"a record"}\n'),
     });
     await expect(page.getByTestId('sweep-load-error').innerText()).resolves.toMatch(/line 1/);
+  });
+
+  it('exports the scaling charts as PNG and the table behind them as CSV', async () => {
+    const { page } = app;
+    const get = async (testid: string) => {
+      const [d] = await Promise.all([page.waitForEvent('download'), page.getByTestId(testid).click()]);
+      return { name: d.suggestedFilename(), bytes: await readFile(await d.path()) };
+    };
+    const image = await get('export-view-png');
+    expect(image.name).toBe('stria-sweep.png');
+    expect(Array.from(image.bytes.subarray(1, 4))).toEqual([0x50, 0x4e, 0x47]);
+    expect(image.bytes.readUInt32BE(20)).toBeGreaterThan(300);
+    const csv = parseCsv((await get('export-sweep-csv')).bytes);
+    expect(csv.header).toContain('jet_spacing');
+    expect(csv.header).toContain('rhines_length');
+    // The results shown: the three loaded runs (the refused file left them in place).
+    expect(csv.rows.length).toBe(3);
   });
 
   it('ran without page errors or console warnings', () => {

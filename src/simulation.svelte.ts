@@ -47,6 +47,8 @@ export class SimulationClient {
   budgetVersion = $state(0);
   stepsPerSecond = $state(0);
   error = $state<string | null>(null);
+  /** The user set ν by hand in this run: a new grid then keeps it instead of rescaling it (controls/gridChange.ts). */
+  nuByHand = $state(false);
   /** The last time the worker died and the run was resumed in a new one, for the page to say; null otherwise. */
   recovery = $state.raw<Recovery | null>(null);
   readonly budget = new BudgetHistory();
@@ -85,6 +87,7 @@ export class SimulationClient {
   async start(params: Partial<ModelParams>, autoplay = true, sampling?: SamplingOptions): Promise<void> {
     this.begun = { ...params };
     this.sampling = { ...sampling };
+    this.nuByHand = false;
     this.kept.forget();
     await this.guard(async (link) => {
       await link.call((api) => api.init(params, sampling), true);
@@ -99,6 +102,7 @@ export class SimulationClient {
     const link = this.link;
     this.kept.forget();
     this.begun = { ...cp.params };
+    this.nuByHand = false;
     await link.call((api) => api.restore(transfer(cp, [cp.qHat.buffer])), true);
     if (autoplay) await link.call((api) => api.play());
     this.error = null;
@@ -151,6 +155,12 @@ export class SimulationClient {
   async setSampling(options: SamplingOptions): Promise<MonitorStatus> {
     const status = await this.link.call((api) => api.setSampling(options));
     this.sampling = { ...this.sampling, ...options };
+    return { ...status, epoch: status.epoch + this.diagEpochBase };
+  }
+
+  /** Start the time means again from the next sample (the rest of the diagnostics' record stays). */
+  async restartMeans(): Promise<MonitorStatus> {
+    const status = await this.link.call((api) => api.restartMeans());
     return { ...status, epoch: status.epoch + this.diagEpochBase };
   }
 

@@ -63,6 +63,8 @@ export interface MonitorStatus {
    * first sample and while the window is too short to tell (= summary.jet_count).
    */
   jetCount: number | null;
+  /** Why the detector decided as it did (jetDetector.ts `reason`), null before the first sample. */
+  jetReason: string | null;
   /** Sharpness index of the staircase of the time-mean q̄ + βy (null when β = 0 or no sample yet). */
   staircaseIndex: number | null;
   /** The run summary over the same window (summary.ts): the numbers every view and file quotes. */

@@ -37,14 +37,43 @@ export class DiagnosticsPublisher {
     return this.diag;
   }
 
-  /** Start afresh for the model as it is (a new run, new parameters, a new sample interval). */
-  restart(model: Model): void {
+  /**
+   * Start afresh for the model as it is (a new run, a new grid, a new sample interval); `sampleNow`
+   * samples the state at once (a loaded run or a new grid: something to show before the next sample).
+   */
+  restart(model: Model, sampleNow = false): void {
     const p = model.params;
     const sampleEvery = this.options.sampleEvery ?? defaultSampleEvery(p);
     const meanSpan = Math.max(this.options.meanSpan ?? defaultMeanSpan(p), sampleEvery);
     const spectralAverage = this.options.spectralAverage ?? DEFAULT_SPECTRAL_AVERAGE;
     this.diag = new RunDiagnostics(p, model.time, { sampleEvery, meanSpan, spectralAverage });
+    if (sampleNow) this.diag.sampleNow(model, this.needs);
     this.epoch++;
+    for (const k of KINDS) this.dirty[k] = true;
+  }
+
+  /**
+   * New parameters on the same grid and domain: the diagnostics go on with their history
+   * (RunDiagnostics.retune) at the sample interval in force, which is kept even when the new step
+   * would give another default. Only a step longer than the interval, which could not keep it,
+   * restarts them. Returns whether the history was kept.
+   */
+  retune(model: Model): boolean {
+    const d = this.diag;
+    if (!d || model.params.dt > d.sampling.sampleEvery) {
+      this.restart(model, true);
+      return false;
+    }
+    if (this.options.sampleEvery == null) this.options = { ...this.options, sampleEvery: d.sampling.sampleEvery };
+    if (this.options.meanSpan == null) this.options = { ...this.options, meanSpan: d.sampling.meanSpan };
+    d.retune(model.params, model);
+    for (const k of KINDS) this.dirty[k] = true;
+    return true;
+  }
+
+  /** The time means start again from the next sample; the rest of the record stays. */
+  restartMeans(): void {
+    this.current.restartMeans();
     for (const k of KINDS) this.dirty[k] = true;
   }
 

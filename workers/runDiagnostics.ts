@@ -45,13 +45,15 @@ export class RunDiagnostics {
   readonly since: number;
   private taken = 0;
   private barotropic: Float64Array | undefined;
+  /** The next sample is due at since + nextIndex·sampleEvery (index 0 only when sampled at the start). */
+  private nextIndex = 1;
   private next: number;
   private worked: { structure: Structure | null; latest: JetReport | null; summary: RunSummary } | null = null;
   private model: { time: number; steps: number } = { time: 0, steps: 0 };
   lastSample: number | null = null;
 
   constructor(
-    readonly params: ModelParams,
+    public params: ModelParams,
     start: number,
     readonly sampling: Sampling,
   ) {
@@ -90,8 +92,24 @@ export class RunDiagnostics {
     this.monitor.step(model.report);
     this.model = { time: model.time, steps: model.steps };
     if (!reachedTime(model.time, this.next, model.dt)) return false;
+    this.nextIndex++;
+    this.next = this.since + this.nextIndex * this.sampling.sampleEvery;
+    this.take(model, wants);
+    return true;
+  }
+
+  /**
+   * Sample the state as it is, at the start of the diagnostics (a loaded run, a new grid), so that
+   * the views and readouts show it at once; the next samples follow at since + k·sampleEvery.
+   */
+  sampleNow(model: Model, wants: { spectra: boolean; spectra2d: boolean; flux: boolean }): void {
+    if (this.taken > 0 || model.time !== this.since) return;
+    this.model = { time: model.time, steps: model.steps };
+    this.take(model, wants);
+  }
+
+  private take(model: Model, wants: { spectra: boolean; spectra2d: boolean; flux: boolean }): void {
     this.taken++;
-    this.next = this.since + (this.taken + 1) * this.sampling.sampleEvery;
     const t = model.time;
     const q = this.sampled(model);
     const z = this.monitor.sample(q, t);
@@ -100,7 +118,27 @@ export class RunDiagnostics {
     this.worked = null;
     if (wants.spectra) this.spectral.addSpectra(q, t, wants.spectra2d);
     if (wants.flux) this.spectral.addFlux(q, t);
-    return true;
+  }
+
+  /**
+   * New parameters on the same grid and domain (a change mid-run): the record goes on (RunMonitor.retune:
+   * budget series, Hovmöller, time means and the zonal-mean frames are kept; the steady-state test
+   * starts again); the spectral plans follow a new k_d.
+   */
+  retune(params: ModelParams, model: Model): void {
+    this.params = params;
+    const snap = this.monitor.snap;
+    this.monitor.retune(monitoredParams(params), model.time);
+    this.barotropic = undefined;
+    if (this.monitor.snap !== snap) this.spectral.retune(this.monitor.snap);
+    this.model = { time: model.time, steps: model.steps };
+    this.worked = null;
+  }
+
+  /** The time means start again from the next sample (the rest of the record stays). */
+  restartMeans(): void {
+    this.monitor.setWindow(meanWindow(this.sampling.meanSpan));
+    this.worked = null;
   }
 
   /**
@@ -136,7 +174,7 @@ export class RunDiagnostics {
   }
 
   status(epoch: number): MonitorStatus {
-    const { summary } = this.current();
+    const { summary, structure } = this.current();
     return {
       epoch,
       since: this.since,
@@ -145,6 +183,7 @@ export class RunDiagnostics {
       lastSample: this.lastSample,
       window: this.window ? { ...this.window } : null,
       jetCount: summary.jet_count,
+      jetReason: structure?.jets.reason ?? null,
       staircaseIndex: summary.staircase_index,
       summary,
     };

@@ -41,10 +41,14 @@ export interface SimulationApi {
   /** Play until the model time reaches `time` (the first step ending at or after it), then pause. */
   runUntil(time: number): Promise<void>;
   /**
-   * Change parameters without stopping: physical ones in place; a new grid carries the state over,
-   * truncated or padded; a new domain starts afresh. Refused changes leave the run as it was.
+   * Change parameters without stopping: physical ones in place, and the diagnostics go on with their
+   * history (the change is listed in `Snapshot.changes`; the time means then span it until
+   * `restartMeans`); a new grid carries the state over, truncated or padded, and restarts the
+   * diagnostics; a new domain starts afresh. Refused changes leave the run as it was.
    */
   reconfigure(changes: Partial<ModelParams>): Promise<ReconfigureResult>;
+  /** Start the time means again from the next sample (after a change of parameters, say); the rest of the record stays. */
+  restartMeans(): Promise<MonitorStatus>;
   /** Which field the snapshots carry (u by default); answers a waiting request with it at once. */
   setField(name: FieldName): Promise<void>;
   /** Which diagnostics the shown views need (computed only then); answers a waiting request at once. */
@@ -101,8 +105,25 @@ export interface InitInfo {
  * a new run from t = 0).
  */
 export type ReconfigureResult =
-  | { applied: true; how: 'inPlace' | 'regrid' | 'fresh'; params: ModelParams }
+  | {
+      applied: true;
+      how: 'inPlace' | 'regrid' | 'fresh';
+      params: ModelParams;
+      /** Whether the diagnostics kept their history ('kept': physical parameters) or started again. */
+      diagnostics: 'kept' | 'restarted';
+    }
   | { applied: false; issues: InputIssue[] };
+
+/** A change of parameters within a run, at model time `time` after `steps` steps. */
+export interface ParamChange {
+  time: number;
+  steps: number;
+  /** The parameters that changed. */
+  keys: (keyof ModelParams)[];
+  how: 'inPlace' | 'regrid';
+  /** Whether the diagnostics kept their history across it or started again there. */
+  diagnostics: 'kept' | 'restarted';
+}
 
 /** A blow-up, and the offer to go back to the last checkpoint with the step halved. */
 export interface BlowUpStop {
@@ -139,8 +160,13 @@ export interface Snapshot {
   params: ModelParams;
   time: number;
   steps: number;
-  /** The report of the last step (all zeros before the first step). */
+  /**
+   * The report of the last step; before this model's first step (a new or loaded run, new
+   * parameters), the readouts of the state itself (energies and CFL number, rates zero).
+   */
   report: StepReport;
+  /** The changes of parameters within this run so far, oldest first. */
+  changes: ParamChange[];
   /** Budget rows of the steps since the previous snapshot, oldest first. */
   budget: BudgetRows;
   /** Fingerprint of the state's bits (stateChecksum, lib/io/digest.ts). */

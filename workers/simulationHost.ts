@@ -20,10 +20,12 @@ import { snapshotExport, zonalCsvExport, zonalNetcdfExport, type ExportedFile } 
 import { macrotask } from './macrotask';
 import { RescuePoint } from './rescuePoint';
 import { ThreadChoice, type ThreadsInfo } from './threadChoice';
+import { stateReport } from './stateReport';
 import type {
   BlowUpStop,
   ExportKind,
   InitInfo,
+  ParamChange,
   ReconfigureResult,
   SimulationApi,
   Snapshot,
@@ -68,6 +70,10 @@ export class SimulationHost implements SimulationApi {
   private readonly diagnostics = new DiagnosticsPublisher();
   /** The threads the step runs on (docs/threads.md): one until setThreads asks for more. */
   private readonly threads = new ThreadChoice();
+  /** The changes of parameters within this run (epoch), for the views to mark on their time axes. */
+  private changes: ParamChange[] = [];
+  /** The readouts of the state while this model has taken no step yet (a loaded run, new parameters). */
+  private unstepped: StepReport | null = null;
   /** The next slice of play, queued behind whatever messages are waiting. */
   private readonly nextSlice = macrotask(() => this.slice());
 
@@ -78,7 +84,8 @@ export class SimulationHost implements SimulationApi {
   }
 
   async restore(cp: Checkpoint): Promise<InitInfo> {
-    return this.begin(Model.restore(cp));
+    // A loaded run is shown at once: its readouts and a first sample of its diagnostics.
+    return this.begin(Model.restore(cp), true);
   }
 
   async restartHalved(): Promise<InitInfo> {
@@ -142,21 +149,37 @@ export class SimulationHost implements SimulationApi {
       if (isInputError(e, 'parameters')) return { applied: false, issues: e.issues };
       throw e;
     }
-    const old = model.params;
+    const old = { ...model.params };
     const next = model.reconfigure(changes);
     const how =
       next === model ? 'inPlace' : next.params.Lx !== old.Lx || next.params.Ly !== old.Ly ? 'fresh' : 'regrid';
-    if (how === 'fresh') this.newEpoch();
     this.model = next;
     // A new grid may cross the size below which the step runs on one thread.
     this.threads.apply(next);
     this.rescue.take(next);
-    // Time means across a change of parameters would mix two runs: the diagnostics start again.
-    this.diagnostics.restart(next);
+    let diagnostics: 'kept' | 'restarted' = 'restarted';
+    if (how === 'fresh') {
+      this.newEpoch();
+      this.diagnostics.restart(next);
+    } else {
+      const keys = (Object.keys(next.params) as (keyof ModelParams)[]).filter((k) => next.params[k] !== old[k]);
+      // Same domain: the history goes on (a new grid restarts the profiles, which change length).
+      if (how === 'inPlace' && (keys.length === 0 || this.diagnostics.retune(next))) diagnostics = 'kept';
+      else this.diagnostics.restart(next, true);
+      if (keys.length > 0) this.changes.push({ time: next.time, steps: next.steps, keys, how, diagnostics });
+    }
+    this.unstepped = this.stateReport(next);
     // New parameters may well cure a blow-up (a smaller dt, more hyperviscosity): let it try again.
     this.clearStop();
     this.changed();
-    return { applied: true, how, params: { ...next.params } };
+    return { applied: true, how, params: { ...next.params }, diagnostics };
+  }
+
+  async restartMeans(): Promise<MonitorStatus> {
+    this.requireModel();
+    this.diagnostics.restartMeans();
+    this.changed();
+    return this.diagnostics.status();
   }
 
   async setField(name: FieldName): Promise<void> {
@@ -225,7 +248,7 @@ export class SimulationHost implements SimulationApi {
     p?.reject(new Error('simulation disposed'));
   }
 
-  private begin(model: Model): InitInfo {
+  private begin(model: Model, sampleNow = false): InitInfo {
     this.threads.apply(model);
     this.model = model;
     this.playing = false;
@@ -233,7 +256,8 @@ export class SimulationHost implements SimulationApi {
     this.clearStop();
     this.rescue.take(model);
     this.newEpoch();
-    this.diagnostics.restart(model);
+    this.diagnostics.restart(model, sampleNow);
+    this.unstepped = this.stateReport(model);
     this.changed();
     return { params: { ...model.params }, forcedModes: model.forcedModes };
   }
@@ -241,9 +265,16 @@ export class SimulationHost implements SimulationApi {
   private newEpoch(): void {
     this.epoch++;
     this.rows.clear();
+    this.changes = [];
+  }
+
+  /** The readouts of the state as it stands (stateReport.ts), or null where they cannot be formed. */
+  private stateReport(model: Model): StepReport | null {
+    return stateReport(model, this.diagnostics.current.monitor.snap);
   }
 
   private stepAndRecord(model: Model): void {
+    this.unstepped = null;
     model.step(1);
     this.rescue.afterStep(model);
     this.rows.push(model.report);
@@ -347,7 +378,8 @@ export class SimulationHost implements SimulationApi {
       params: { ...model.params },
       time: model.time,
       steps: model.steps,
-      report: copyReport(model.report),
+      report: this.unstepped ? copyReport(this.unstepped) : copyReport(model.report),
+      changes: this.changes.map((c) => ({ ...c, keys: [...c.keys] })),
       budget,
       checksum: stateChecksum(model.qHat),
       threads: this.threads.info(model),

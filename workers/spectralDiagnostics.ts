@@ -25,9 +25,20 @@ export class SpectralDiagnostics {
   private convCount = 0;
 
   constructor(
-    private readonly snap: SnapshotPlan,
+    private snap: SnapshotPlan,
     private average: number,
   ) {}
+
+  /**
+   * A new snapshot plan (new parameters that change the spectra, k_d): the plans and the recent means
+   * start again; the eddy-to-mean conversion series goes on (it is a time series of the run).
+   */
+  retune(snap: SnapshotPlan): void {
+    this.snap = snap;
+    this.spectraPlan = this.fluxPlan = null;
+    this.spectra = this.flux = null;
+    this.means = this.mean2d = this.fluxMeans = null;
+  }
 
   get spectraCount(): number {
     return this.means?.E.count ?? 0;

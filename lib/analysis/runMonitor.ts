@@ -49,17 +49,18 @@ export interface RunMonitorOptions {
  * the detector's sampling errors right). Model units throughout.
  */
 export class RunMonitor {
-  readonly params: ModelParams;
-  readonly snap: SnapshotPlan;
-  readonly zonal: ZonalMeanPlan;
+  /** The parameters in force (replaced by `retune`, with the plans below that depend on them). */
+  params: ModelParams;
+  snap: SnapshotPlan;
+  zonal: ZonalMeanPlan;
   readonly budget: BudgetSeries;
   readonly hovmoller: HovmollerAccumulator;
   /** The time means over the window (a new, empty one after `setWindow`). */
   means: ProfileTimeMean<MeanProfile>;
   window: TimeWindow;
-  readonly steady: SteadyCriterion;
+  steady: SteadyCriterion;
   /** The one detector of jets and staircase steps for this grid (jetDetector.ts). */
-  readonly detector: StructureDetector;
+  detector: StructureDetector;
   /** The zonal means of the last sample, and the time means at the last `meanProfiles` call. */
   readonly latest: ZonalMeans;
   readonly mean: Record<MeanProfile, Float64Array>;
@@ -105,6 +106,25 @@ export class RunMonitor {
   /** Number of samples taken. */
   get sampleCount(): number {
     return this.samples;
+  }
+
+  /**
+   * New parameters on the same grid and domain, from time t on: the record so far (budget series,
+   * Hovmöller, time means) is kept, so a change mid-run does not erase the history; the zonal means,
+   * the detector and the snapshot plan follow the new β, μ and k_d, and the steady-state test starts
+   * again at t (new parameters move the steady state, so it must be reached anew). The time means
+   * then mix the two settings until the caller restarts them (`setWindow`). RangeError for another
+   * grid or domain, whose profiles would not line up.
+   */
+  retune(params: ModelParams, t: number, steady: SteadyTest = defaultSteadyTest(params)): void {
+    const old = this.params;
+    if (params.nx !== old.nx || params.ny !== old.ny || params.Lx !== old.Lx || params.Ly !== old.Ly)
+      throw new RangeError('RunMonitor.retune: the grid and domain must stay the same');
+    this.params = params;
+    if (!this.snap.fits(params)) this.snap = new SnapshotPlan(params);
+    this.zonal = new ZonalMeanPlan(params, { beta: params.beta, band: Math.floor(params.ny / 3) });
+    this.detector = runDetector(params);
+    this.steady = new SteadyCriterion(t, steady.window, steady.tolerance);
   }
 
   /** A new averaging window: the time means start again from the next sample. */

@@ -1,6 +1,6 @@
 import { drawHeatmapFigure, type FigureLayout } from './drawHeatmapFigure';
 
-export { figureLayout, type Box, type FigureLayout } from './drawHeatmapFigure';
+export { FIGURE_MARGINS, figureLayout, type Box, type FigureLayout } from './drawHeatmapFigure';
 
 export interface FigureText {
   /** e.g. "ζ  relative vorticity ∇²ψ" */

@@ -22,6 +22,8 @@ const RIGHT = 86;
 const TOP = 28;
 const BOTTOM = 42;
 const BAR_GAP = 14;
+/** The height a figure adds to its plot (title above, axis below), CSS px. */
+export const FIGURE_MARGINS = TOP + BOTTOM;
 const BAR_WIDTH = 14;
 
 function layoutFor(w: number, h: number): FigureLayout {

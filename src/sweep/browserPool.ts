@@ -3,9 +3,12 @@ import type { SweepRecord } from '../../lib/sweep/sweepRecord';
 import type { SweepJob } from '../../lib/sweep/sweepRuns';
 import type { SimulationApi } from '../../workers/simulationApi';
 
-/** Workers for a sweep: one per core but one (left for the page and the simulation), at least 1. */
+/**
+ * Workers for a sweep: one per core the browser reports (the run on screen is paused while a sweep
+ * runs, so the page leaves the cores to it), 2 when the browser does not say.
+ */
 export function poolSize(): number {
-  return Math.max(1, (navigator.hardwareConcurrency || 2) - 1);
+  return Math.max(1, navigator.hardwareConcurrency || 2);
 }
 
 export interface PoolEvents {

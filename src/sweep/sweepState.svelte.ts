@@ -4,23 +4,19 @@ import type { SweepRecord } from '../../lib/sweep/sweepRecord';
 import type { SweepJob } from '../../lib/sweep/sweepRuns';
 import { tableRows, type TableRow } from '../../lib/sweep/sweepTable';
 import type { ScalingFitOptions } from '../../lib/analysis/scalingFit';
+import { RHINES_EXAMPLE } from '../../lib/sweep/rhinesExample';
 import { SweepPool } from './browserPool';
 
-/** The tiny sweep the editor opens with: three values of β at 64², long enough for jets to form. */
-export const STARTER_SPEC = `{
-  "format": "stria-sweep",
-  "version": 1,
-  "title": "Jet spacing against the Rhines length: beta at 64 x 64",
-  "preset": "jets",
-  "base": { "nx": 64, "ny": 64, "kf": 12, "dkf": 2, "nu": 2e-21 },
-  "vary": [{ "param": "beta", "values": [20, 40, 80] }],
-  "replicas": 1,
-  "length": { "until": 100 },
-  "average": 50,
-  "sampleEvery": 0.5,
-  "fits": { "resamples": 1000, "seed": 1 }
-}
-`;
+/**
+ * The sweep the editor opens with: the one that shows the Rhines scaling (lib/sweep/rhinesExample.ts,
+ * the README's and `npm run bench -- --scaling-law`'s): five β from 10 to 160 at 128², each to t = 250,
+ * whose fitted exponent of jet spacing against the Rhines length has an interval holding 1 and not 0.
+ */
+export const STARTER_SPEC = `${JSON.stringify(
+  { ...RHINES_EXAMPLE, title: 'Jet spacing against the Rhines length: five beta from 10 to 160 at 128 x 128' },
+  null,
+  2,
+)}\n`;
 
 /**
  * The Sweep view's state, kept while the view is closed (a sweep goes on in its workers meanwhile):

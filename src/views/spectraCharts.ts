@@ -50,7 +50,13 @@ export function spectraMarks(p: ModelParams, Urms: number): ChartMark[] {
  * C_K ε^{2/3} k^{−5/3} below k_f, a k^{−3} line through the measured E at the first complete shell
  * past the annulus, C_Z β² k^{−5} below k_f — and the power law fitted over [kLo, kHi].
  */
-export function spectraFigure(s: SpectraPayload, p: ModelParams, band: [number, number], Urms: number): SpectraFigure {
+export function spectraFigure(
+  s: SpectraPayload,
+  p: ModelParams,
+  band: [number, number],
+  Urms: number,
+  fitOf: 'E' | 'EZonal' = 'E',
+): SpectraFigure {
   const k = Array.from(s.k);
   const E = density(s.E, s.dk);
   const below = (x: number) => x <= p.kf;
@@ -66,7 +72,7 @@ export function spectraFigure(s: SpectraPayload, p: ModelParams, band: [number, 
   try {
     fit = fitPowerLaw(
       s.k,
-      s.E.map((e) => e / s.dk),
+      s[fitOf].map((e) => e / s.dk),
       band[0],
       band[1],
     );

@@ -81,22 +81,81 @@ describe('SimulationHost diagnostics', () => {
     expect(later.diagnostics.flux?.conversion.length).toBe(2);
   });
 
-  it('restarts the diagnostics when the parameters change, and refuses bad sampling', async () => {
+  it('keeps the diagnostic history across a change of physical parameters, marks it, and restarts the means only when asked', async () => {
     host = new SimulationHost();
     await host.init(SMALL, { sampleEvery: EVERY });
+    await host.setDiagnostics({ zonal: true, hovmoller: true, spectra: false, spectra2d: false, flux: false });
     const s0 = await stepsThenSnapshot(host, 8, 0);
     expect(s0.diagnostics.status.samples).toBe(2);
-    await host.reconfigure({ beta: 20 });
-    const s1 = await host.nextSnapshot({ after: s0.version });
-    expect(s1.diagnostics.status.epoch).toBeGreaterThan(s0.diagnostics.status.epoch);
-    expect(s1.diagnostics.status.samples).toBe(0);
-    expect(s1.diagnostics.status.since).toBe(s0.time);
+    expect(s0.changes).toEqual([]);
+    const r = await host.reconfigure({ beta: 20 });
+    expect(r).toMatchObject({ applied: true, how: 'inPlace', diagnostics: 'kept' });
+    const s1 = await stepsThenSnapshot(host, 4, s0.version);
+    // Same record: same epoch, the samples and the Hovmöller columns go on.
+    expect(s1.diagnostics.status.epoch).toBe(s0.diagnostics.status.epoch);
+    expect(s1.diagnostics.status.samples).toBe(3);
+    expect(s1.diagnostics.hovmoller?.columns).toBe(3);
+    expect(s1.diagnostics.zonal?.window.count).toBe(3);
+    expect(s1.diagnostics.zonal?.beta).toBe(20);
+    expect(s1.changes).toEqual([{ time: s0.time, steps: 8, keys: ['beta'], how: 'inPlace', diagnostics: 'kept' }]);
+    // The steady-state test starts again at the change: new parameters move the steady state.
+    expect(s1.diagnostics.status.summary.steady).toBe(false);
+    // Asked to, the means start again; the record (samples, Hovmöller) stays.
+    const st = await host.restartMeans();
+    expect(st.samples).toBe(3);
+    expect(st.window).toBeNull();
+    const s2 = await stepsThenSnapshot(host, 4, s1.version);
+    expect(s2.diagnostics.zonal?.window.count).toBe(1);
+    expect(s2.diagnostics.hovmoller?.columns).toBe(4);
     await expect(host.setSampling({ sampleEvery: -1 })).rejects.toThrow(/sampleEvery/);
     await expect(host.setSampling({ spectralAverage: 2.5 })).rejects.toThrow(/spectralAverage/);
     // A new window keeps the samples count but starts the means again.
-    const st = await host.setSampling({ meanSpan: 0.5 });
-    expect(st.meanSpan).toBe(0.5);
-    expect(st.epoch).toBe(s1.diagnostics.status.epoch);
+    const w = await host.setSampling({ meanSpan: 0.5 });
+    expect(w.meanSpan).toBe(0.5);
+    expect(w.epoch).toBe(s1.diagnostics.status.epoch);
+  });
+
+  it('restarts the diagnostics on a new grid, says so, and samples the new grid at once', async () => {
+    host = new SimulationHost();
+    await host.init(SMALL, { sampleEvery: EVERY });
+    const s0 = await stepsThenSnapshot(host, 8, 0);
+    const r = await host.reconfigure({ ny: 64 });
+    expect(r).toMatchObject({ applied: true, how: 'regrid', diagnostics: 'restarted' });
+    const s1 = await host.nextSnapshot({ after: s0.version });
+    expect(s1.diagnostics.status.epoch).toBeGreaterThan(s0.diagnostics.status.epoch);
+    expect(s1.diagnostics.status.samples).toBe(1);
+    expect(s1.diagnostics.status.since).toBe(s0.time);
+    expect(s1.changes).toEqual([{ time: s0.time, steps: 8, keys: ['ny'], how: 'regrid', diagnostics: 'restarted' }]);
+  });
+
+  it('shows a loaded state at once: its energies and CFL number as its next step reports them, and a first sample', async () => {
+    host = new SimulationHost();
+    await host.init(SMALL, { sampleEvery: EVERY });
+    await stepsThenSnapshot(host, 10, 0);
+    const cp = await host.checkpoint();
+    const other = new SimulationHost();
+    try {
+      await other.restore(cp);
+      await other.setDiagnostics({ zonal: true, hovmoller: true, spectra: false, spectra2d: false, flux: false });
+      const s = await other.nextSnapshot({ after: 0 });
+      expect(s.steps).toBe(10);
+      expect(s.diagnostics.status.samples).toBe(1);
+      expect(s.diagnostics.zonal?.window.count).toBe(1);
+      expect(s.diagnostics.hovmoller?.columns).toBe(1);
+      // The next step's report gives the same quantities at its start: grid means against spectral
+      // sums, equal by Parseval to round-off [derived: lib/model/grid.ts normalisation].
+      const next = await other.stepOnce();
+      for (const [shown, stepped] of [
+        [s.report.energy.value, next.energy.value],
+        [s.report.kinetic, next.kinetic],
+        [s.report.enstrophy.value, next.enstrophy.value],
+        [s.report.cfl, next.cfl],
+      ])
+        expect(Math.abs(shown - stepped)).toBeLessThanOrEqual(1e-12 * Math.abs(stepped));
+      expect(s.report.energy.value).toBeGreaterThan(0);
+    } finally {
+      await other.dispose();
+    }
   });
 
   it('exports the state and the zonal means as files that read back', async () => {
