@@ -6,7 +6,7 @@ import type { StepThreads } from '../lib/model/threadTeam';
 import { DEFAULT_SCENARIO_ID, scenarioById } from '../lib/plan/demoScenarios';
 
 /**
- * Jets are "on screen" when the time-mean zonal flow of the last WINDOW time units has at least
+ * Jets are "on screen" when the time-mean zonal flow of the last window (below) time units has at least
  * MIN_JETS eastward jets and the total PV a staircase index of at least MIN_STAIRCASE
  * (docs/staircase.md). In the default scenario the index stays at or below 0.03 until bands of u
  * appear (t ≈ 30) and levels off at 0.10–0.16 once four or five jets hold (measured at 128² over
@@ -14,7 +14,11 @@ import { DEFAULT_SCENARIO_ID, scenarioById } from '../lib/plan/demoScenarios';
  */
 export const MIN_JETS = 3;
 export const MIN_STAIRCASE = 0.08;
-const WINDOW = 20;
+/**
+ * The time-mean window: at least 20 time units, and at least the flow's memory 1/μ, below which the
+ * jet detector's significance test does not judge (lib/analysis/jetDetector.ts).
+ */
+const MIN_WINDOW = 20;
 const SAMPLE_EVERY = 0.5;
 const CHECK_EVERY = 5;
 const GIVE_UP = 400;
@@ -44,7 +48,11 @@ export function timeToJets(
   const scenario = scenarioById(DEFAULT_SCENARIO_ID);
   if (!scenario) throw new Error('no default scenario');
   const model = new Model({ ...scenario.params, nx: n, ny: n }, false, threads);
-  const monitor = new RunMonitor(model.params, { window: { kind: 'last', span: WINDOW, cap: 256 } });
+  const mu = model.params.mu;
+  const window = Math.max(MIN_WINDOW, mu > 0 ? 1 / mu : MIN_WINDOW);
+  const monitor = new RunMonitor(model.params, {
+    window: { kind: 'last', span: window, cap: Math.ceil(window / SAMPLE_EVERY) + 8 },
+  });
   const t0 = performance.now();
   let nextSample = 0;
   let nextCheck = CHECK_EVERY;
