@@ -62,6 +62,27 @@ export function planJson(a: PlanAnalysis, measured: RunSummary | null): unknown 
         }
       : null,
     matched_error: a.matchedError,
+    baroclinic: a.baroclinic
+      ? {
+          shear: a.baroclinic.shear,
+          depth_ratio: a.baroclinic.depthRatio,
+          predictions: Object.fromEntries(a.baroclinic.predictions.map((q) => [q.id, q])),
+          matched: a.baroclinic.matched
+            ? {
+                params: a.baroclinic.matched.params,
+                run_length: a.baroclinic.matched.runLength,
+                steps: a.baroclinic.matched.cost.steps,
+                wall_seconds: a.baroclinic.matched.cost.wallSeconds,
+                within_target: a.baroclinic.matched.withinTarget,
+                kept: a.baroclinic.matched.kept,
+                predicted: a.baroclinic.matched.predicted,
+                measured,
+                notes: a.baroclinic.matched.notes,
+              }
+            : null,
+          matched_error: a.baroclinic.matchedError,
+        }
+      : null,
   };
 }
 
@@ -80,12 +101,34 @@ export function planText(a: PlanAnalysis): string {
     q.text ? `${q.text}, R_β = ${fmt(q.value)}` : withUnit(q.value, q.quantity, u),
   ]);
   const w = Math.max(...rows.map((r) => r[0].length));
-  lines.push(...rows.map(([k, x]) => `  ${k.padEnd(w)}  ${x}`), '', 'Checks:');
+  lines.push(...rows.map(([k, x]) => `  ${k.padEnd(w)}  ${x}`));
+  const b = a.baroclinic;
+  if (b) {
+    lines.push(
+      '',
+      `Baroclinic drive (two layers): shear U₁ − U₂ = ${withUnit(b.shear, 'velocity', u)}, δ = ${fmt(b.depthRatio)}`,
+    );
+    const br = b.predictions.map((q) => [
+      `${q.label} (${q.symbol})`,
+      q.text ? `${q.text}, ξ = ${fmt(q.value)}` : withUnit(q.value, q.quantity, u),
+    ]);
+    const bw = Math.max(...br.map((r) => r[0].length));
+    lines.push(...br.map(([k, x]) => `  ${k.padEnd(bw)}  ${x}`));
+    lines.push("  (Held & Larichev's scalings carry order-one prefactors; their simulations vary faster with ξ)");
+  }
+  lines.push('', 'Checks:');
   for (const c of a.checks)
     lines.push(`  [${c.severity}] ${c.title}: ${c.message}${c.fix ? `\n          fix: ${c.fix}` : ''}`);
   lines.push('', `Cost with Stria's model: ${a.cost.steps} steps, ${duration(a.cost.wallSeconds)} here`);
   const m = a.matched;
-  if (!m) lines.push(`Matched cheap run: none (${a.matchedError})`);
+  const bm = b?.matched;
+  if (b && bm)
+    lines.push(
+      `Matched two-layer run: ${bm.params.nx} × ${bm.params.ny}, ${bm.cost.steps} steps, about ${duration(bm.cost.wallSeconds)} (model units: ${bm.kept.map((k) => `${k.label} ${k.kept ? 'kept' : `${fmt(k.planned)} → ${fmt(k.matched)}`}`).join('; ')})`,
+      ...bm.notes.map((n) => `  ${n}`),
+    );
+  else if (b) lines.push(`Matched two-layer run: none (${b.matchedError})`);
+  else if (!m) lines.push(`Matched cheap run: none (${a.matchedError})`);
   else {
     lines.push(
       `Matched cheap run: ${m.params.nx} × ${m.params.ny}, ${m.cost.steps} steps, about ${duration(m.cost.wallSeconds)} (model units; ${m.gives === 'none' ? 'every ratio kept' : `the ratio that gave last: ${RATIO_LABELS[m.gives]}`})`,
@@ -122,6 +165,15 @@ export function matchedComparisonText(m: MatchedRun, measured: RunSummary): stri
       .map((r) => `${r.key} ${r.scatter}`)
       .join(', ')}; sources in lib/plan/verdict.ts and docs/significance.md).`,
   );
+  return `${lines.join('\n')}\n`;
+}
+
+/** Predictions beside a run's measurement, key by key (the run summary's keys). */
+export function keyedComparisonText(predicted: object, measured: RunSummary): string {
+  const pred = predicted as Record<string, unknown>;
+  const meas = measured as unknown as Record<string, unknown>;
+  const lines = ['', `  ${'quantity'.padEnd(18)}  ${'predicted'.padEnd(14)}  measured`];
+  for (const k of Object.keys(pred)) lines.push(`  ${k.padEnd(18)}  ${show(pred[k]).padEnd(14)}  ${show(meas[k])}`);
   return `${lines.join('\n')}\n`;
 }
 

@@ -18,7 +18,7 @@ import { isInputError } from '../../lib/inputError';
 import { UsageError, type OptionSpec, type ParsedArgs } from '../args';
 import { EXIT_FAILED, EXIT_INTERRUPTED, EXIT_OK, type Command, type CommandIO } from '../command';
 import { planInputFrom } from '../planInputArgs';
-import { matchedComparisonText, planJson, planText } from '../planOutput';
+import { keyedComparisonText, matchedComparisonText, planJson, planText } from '../planOutput';
 import { DEFAULT_PROGRESS_SECONDS, ProgressLines } from '../progressLines';
 import { Breather } from '../breather';
 import { ProgressBar } from '../progressBar';
@@ -140,7 +140,14 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   if (!(progressSeconds >= 0)) throw new UsageError(`--progress-seconds must be ≥ 0, got ${progressSeconds}`);
   if (report) io.err.write(`stria plan: report written to ${report}\n`);
   const paramsOut = o['matched-params'] as string | undefined;
-  if (paramsOut !== undefined) {
+  const twoLayer = analysis.baroclinic?.matched;
+  if (paramsOut !== undefined && analysis.baroclinic) {
+    if (!twoLayer) throw new Error(`no matched run can be made for this plan: ${analysis.baroclinic.matchedError}`);
+    writeFileSync(paramsOut, encodeParamsFile(baroclinicParamsFile(analysis)));
+    io.err.write(
+      `stria plan: the matched two-layer run's parameters written to ${paramsOut}; run it with stria run ${paramsOut} --until ${twoLayer.runLength}\n`,
+    );
+  } else if (paramsOut !== undefined) {
     if (!analysis.matched) throw new Error(`no matched run can be made for this plan: ${analysis.matchedError}`);
     writeFileSync(paramsOut, encodeParamsFile(matchedParamsFile(analysis)));
     io.err.write(
@@ -151,9 +158,24 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
   if (!o.json) io.out.write(planText(analysis));
   let measured: RunSummary | null = null;
   let status = EXIT_OK;
-  if (o.matched) {
+  if (o.matched && analysis.baroclinic) {
+    if (!twoLayer) throw new Error(`no matched run can be made for this plan: ${analysis.baroclinic.matchedError}`);
+    const result = await runMatched(
+      { params: twoLayer.params, runLength: twoLayer.runLength, cost: twoLayer.cost },
+      io,
+      progressSeconds,
+    );
+    measured = result.summary;
+    status = result.status;
+    if (!o.json) io.out.write(keyedComparisonText(twoLayer.predicted, measured));
+  } else if (o.matched) {
     if (!analysis.matched) throw new Error(`no matched run can be made for this plan: ${analysis.matchedError}`);
-    const result = await runMatched(analysis.matched, io, progressSeconds);
+    const m = analysis.matched;
+    const result = await runMatched(
+      { params: m.params, runLength: m.plan.runLength, cost: m.cost },
+      io,
+      progressSeconds,
+    );
     measured = result.summary;
     status = result.status;
     if (!o.json) io.out.write(matchedComparisonText(analysis.matched, measured));
@@ -164,12 +186,12 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
 
 /** The matched run from rest for its planned length, averaged over its second half. */
 async function runMatched(
-  m: MatchedRun,
+  m: { params: MatchedRun['params']; runLength: number; cost: MatchedRun['cost'] },
   io: CommandIO,
   progressSeconds: number,
 ): Promise<{ summary: RunSummary; status: number }> {
   const model = new Model(m.params);
-  const length = m.plan.runLength;
+  const length = m.runLength;
   const run = new MonitoredRun(
     model,
     resolveRunPlan(model.params, {
@@ -215,6 +237,25 @@ export function matchedParamsFile(a: PlanAnalysis): ParamsFile {
     units:
       a.plan.units === 'physical'
         ? { kind: 'physical', metresPerLength: a.scaling.length, secondsPerTime: a.scaling.time }
+        : { kind: 'model' },
+  };
+}
+
+/**
+ * The matched two-layer run of a baroclinic plan as a parameter file. Its model units keep L_d/dy and
+ * take U = (U₁ − U₂)/2 = 1 (baroclinicPlan.ts), so one length unit is the planned L_d over the matched
+ * one, and one time unit that length over the planned U.
+ */
+export function baroclinicParamsFile(a: PlanAnalysis): ParamsFile {
+  const b = a.baroclinic!;
+  const m = b.matched!;
+  const metres = a.plan.Ld * m.params.kd;
+  return {
+    title: `matched two-layer run of ${a.plan.input.title ?? 'the plan'}`.slice(0, 200),
+    params: { ...m.params },
+    units:
+      a.plan.units === 'physical'
+        ? { kind: 'physical', metresPerLength: metres, secondsPerTime: metres / (b.shear / 2) }
         : { kind: 'model' },
   };
 }

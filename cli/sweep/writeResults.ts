@@ -26,9 +26,20 @@ export function fitsText(fits: SweepFits): string {
   const one = (name: string, f: FitReport) => {
     if (f.error !== null) return `${name}: no fit (${f.error})`;
     const ci = (c: [number, number] | null) => (c && Number.isFinite(c[0]) ? ` [${g(c[0])}, ${g(c[1])}]` : '');
-    return `${name}: exponent ${g(f.exponent!)}${ci(f.exponent_ci)}, prefactor ${g(f.prefactor!)}${ci(f.prefactor_ci)}; at exponent 1, prefactor ${g(f.prefactor_at_exponent_1!)}${ci(f.prefactor_at_exponent_1_ci)} (${f.n} runs, ${Math.round(f.level * 100)}% bootstrap intervals)`;
+    return `${name}: exponent ${g(f.exponent!)}${ci(f.exponent_ci)}, prefactor ${g(f.prefactor!)}${ci(f.prefactor_ci)}; at exponent ${f.fixed_exponent ?? 1}, prefactor ${g(f.prefactor_at_fixed_exponent ?? f.prefactor_at_exponent_1!)}${ci(f.prefactor_at_fixed_exponent_ci ?? f.prefactor_at_exponent_1_ci)} (${f.n} runs, ${Math.round(f.level * 100)}% bootstrap intervals)`;
   };
-  return `${one('jet_spacing ~ rhines_length', fits.jet_spacing_vs_rhines_length)}\n${one('u_rms ~ (eps/mu)^1/2', fits.u_rms_vs_balance_velocity)}\n`;
+  const lines = [
+    one('jet_spacing ~ rhines_length', fits.jet_spacing_vs_rhines_length),
+    one('u_rms ~ (eps/mu)^1/2', fits.u_rms_vs_balance_velocity),
+  ];
+  // The two-layer fits only when the sweep has two-layer runs (else they say why they cannot be made).
+  const baroclinic = fits.eddy_diffusivity_vs_supercriticality;
+  if (baroclinic.n > 0 || baroclinic.error === null)
+    lines.push(
+      one('D/(U lambda) ~ supercriticality', baroclinic),
+      one('V/U ~ supercriticality', fits.eddy_velocity_vs_supercriticality),
+    );
+  return `${lines.join('\n')}\n`;
 }
 
 const g = (x: number) => String(Number(x.toPrecision(4)));

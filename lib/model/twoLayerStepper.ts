@@ -1,4 +1,4 @@
-import { emptyReport, type StepReport } from './budget';
+import { emptyReport, emptyTwoLayerTerms, type StepReport } from './budget';
 import type { Forcing } from './forcing';
 import type { Grid } from './grid';
 import type { ModelParams } from './params';
@@ -114,7 +114,7 @@ export class TwoLayerStepper implements PhasedStep {
     this.kickLayers = { h1, h2, ib: lin.invK2Barotropic, ic: lin.invK2Baroclinic };
     this.report.energy.generation = 0;
     this.report.enstrophy.generation = 0;
-    this.report.layers = { kineticUpper: 0, kineticLower: 0, potential: 0, heatFlux: 0 };
+    this.report.layers = emptyTwoLayerTerms();
   }
 
   /** Advance one step. Throws BlowUpError (state unchanged) on a non-finite result or CFL > CFL_LIMIT. */

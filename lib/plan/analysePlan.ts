@@ -9,6 +9,7 @@
  *
  * Units, formulas and thresholds: docs/plan.md.
  */
+import { analyseBaroclinic, type BaroclinicAnalysis } from './baroclinicPlan';
 import { checkPlan, type PlanCheck } from './checks';
 import { forcedModesForCost, runCost, type RunCost } from './cost';
 import { matchedRun, type MatchedRun, type MatchedRunOptions } from './matchedRun';
@@ -30,6 +31,13 @@ export interface PlanAnalysis {
   matchedError: string | null;
   /** The same checks applied to the matched run. */
   matchedChecks: PlanCheck[];
+  /**
+   * A baroclinic drive (two layers, imposed shear; baroclinicPlan.ts): its predictions, checks, cost
+   * and matched run; null for a stirred plan. A baroclinic plan's `checks` are its own (the one-layer
+   * checks of the forcing do not apply), `cost` is the two-layer run's, and the one-layer `matched`
+   * is null (its matched run is `baroclinic.matched`).
+   */
+  baroclinic: BaroclinicAnalysis | null;
 }
 
 /**
@@ -39,6 +47,19 @@ export interface PlanAnalysis {
 export function analysePlan(input: unknown, opts: MatchedRunOptions = {}): PlanAnalysis {
   const plan = resolvePlan(input);
   const predictions = predictPlan(plan);
+  const baroclinic = analyseBaroclinic(plan, opts);
+  if (baroclinic)
+    return {
+      plan,
+      scaling: planScaling(plan),
+      predictions,
+      checks: baroclinic.checks,
+      cost: baroclinic.cost,
+      matched: null,
+      matchedError: 'a baroclinic plan has its own two-layer matched run (baroclinic.matched)',
+      matchedChecks: [],
+      baroclinic,
+    };
   const checks = checkPlan(plan, predictions);
   const modes = forcedModesForCost({ nx: plan.nx, ny: plan.ny, Lx: plan.Lx, Ly: plan.Ly, kf: plan.kf, dkf: plan.dkf });
   const cost = runCost(plan.nx, plan.ny, predictions.stepsPlanned.value, modes, opts.speed ?? 1, opts.reference);
@@ -59,5 +80,6 @@ export function analysePlan(input: unknown, opts: MatchedRunOptions = {}): PlanA
     matched,
     matchedError,
     matchedChecks: matched ? checkPlan(matched.plan, matched.predictions) : [],
+    baroclinic: null,
   };
 }

@@ -1,3 +1,4 @@
+import type { BaroclinicCheckId } from './baroclinicPlan';
 import { REFERENCES } from './references';
 import { fmt, withUnit } from './format';
 import { gridReaching, growthText } from './gridGrowth';
@@ -14,7 +15,8 @@ export type CheckId =
   | 'runLength'
   | 'arrestInDomain'
   | 'forcingAnnulus'
-  | 'deformation';
+  | 'deformation'
+  | BaroclinicCheckId;
 
 /** A number behind a check, with what it measures so the app can give its unit. */
 export interface CheckNumber {

@@ -1,4 +1,5 @@
 import { balanceVelocity } from '../analysis/scales';
+import { heldLarichevVelocity } from './baroclinicScales';
 import { keptRadius } from '../model/validateParams';
 import { pointsForSpacing } from './gridPoints';
 import type { UnitSystem, ValidPlanInput } from './planInput';
@@ -76,7 +77,15 @@ export function derivePlan(p: ValidPlanInput): ResolvedPlan {
   const mu = 1 / p.dragTime;
   let eps: number;
   let U: number;
-  if (p.drive.kind === 'velocity') {
+  if (p.drive.kind === 'baroclinic') {
+    // No stirring: the eddies' speed is Held & Larichev's V ≈ ξU (baroclinicPlan.ts), and ε the drag
+    // balance at it, so the one-layer predictions below read as estimates for the eddies.
+    U = heldLarichevVelocity(p.drive.shear, p.drive.depthRatio ?? 1, beta, Ld);
+    eps = mu * U * U;
+    derivations.push(
+      'baroclinic drive: U = V ≈ ξ·(U₁ − U₂)/2, the eddy speed of Held & Larichev (1996), and ε = μU² the drag balance at it; the forcing fields are not used (no stirring)',
+    );
+  } else if (p.drive.kind === 'velocity') {
     U = p.drive.U;
     eps = mu * U * U;
     derivations.push('ε = μU² from the energy balance dE/dt = ε − 2μE at the target rms velocity U');

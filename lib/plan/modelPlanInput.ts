@@ -19,6 +19,9 @@ export const PLAN_MODEL_KEYS = [
   'nx',
   'ny',
   'cfl',
+  'layers',
+  'shear',
+  'depth_ratio',
 ] as const;
 export type PlanModelKey = (typeof PLAN_MODEL_KEYS)[number];
 
@@ -29,7 +32,8 @@ export type PlanModelKey = (typeof PLAN_MODEL_KEYS)[number];
  *   mu → drag time 1/μ;  kf, dkf → forcing wavelength 2π/k_f and half-width δk/k_f;  Lx, Ly → domain;
  *   nx, ny → grid points;  nu, nu_order → order p and grid damping time τ = 1/(ν k_max^{2p}), with ν
  *   first rescaled to the grid when the grid is given and ν is not (scaledHyperviscosity), as
- *   `stria run` does;  cfl → CFL number.
+ *   `stria run` does;  cfl → CFL number;  layers = 2 → the baroclinic drive with shear U₁ − U₂ and
+ *   depth_ratio δ (no stirring: eps, kf and dkf then only fill the forcing fields the plan does not use).
  * The run length, which no model parameter holds, is `runLength` or two times to statistical steady
  * state, 2 · 5/(2μ) (spin-up, then as long again to average), as the matched run's.
  * Values are not checked here: validatePlanInput names any that are out of range.
@@ -49,7 +53,10 @@ export function planInputFromModelParams(
       units: 'model',
       rotation: { kind: 'beta', beta: p.beta },
       deformation: p.kd > 0 ? { kind: 'radius', Ld: 1 / p.kd } : { kind: 'none' },
-      drive: { kind: 'injection', eps: p.eps },
+      drive:
+        p.layers === 2
+          ? { kind: 'baroclinic', shear: p.shear, depthRatio: p.depth_ratio }
+          : { kind: 'injection', eps: p.eps },
       dragTime: 1 / p.mu,
       forcing: { wavelength: (2 * Math.PI) / p.kf, halfWidth: p.dkf / p.kf },
       domain: { Lx: p.Lx, Ly: p.Ly },

@@ -16,7 +16,9 @@ import { THRESHOLDS } from './thresholds';
  *                   directly, optionally with f [1/T]
  *   deformation     none (L_d = ∞), L_d [L], or layer depth H [L] and reduced gravity g′ [L/T²], giving
  *                   L_d = √(g′H)/|f|
- *   drive           energy injection rate ε [L²/T³], or a target rms velocity U [L/T] (then ε = μU²)
+ *   drive           energy injection rate ε [L²/T³], or a target rms velocity U [L/T] (then ε = μU²),
+ *                   or baroclinic: an imposed vertical shear U₁ − U₂ [L/T] between two layers of depth
+ *                   ratio δ = H₁/H₂ (default 1), no stirring (baroclinicPlan.ts); needs a deformation
  *   dragTime        1/μ [T], the damping time of the linear drag on vorticity
  *   forcing         wavelength λ_f [L] (k_f = 2π/λ_f) and the annulus half-width as a fraction δk/k_f
  *   domain          Lx, Ly [L] (doubly periodic; y is the jet-crossing direction)
@@ -32,7 +34,10 @@ export type RotationInput =
   { kind: 'planet'; planet: 'earth' | 'jupiter'; latitudeDeg: number } | { kind: 'beta'; beta: number; f?: number };
 export type DeformationInput =
   { kind: 'none' } | { kind: 'radius'; Ld: number } | { kind: 'layer'; H: number; gPrime: number };
-export type DriveInput = { kind: 'injection'; eps: number } | { kind: 'velocity'; U: number };
+export type DriveInput =
+  | { kind: 'injection'; eps: number }
+  | { kind: 'velocity'; U: number }
+  | { kind: 'baroclinic'; shear: number; depthRatio?: number };
 export type GridInput = { kind: 'points'; nx: number; ny: number } | { kind: 'spacing'; dx: number; dy: number };
 
 export interface PlanInput {
@@ -116,8 +121,13 @@ export const PlanInputSchema = v.strictObject({
     [
       v.strictObject({ kind: v.literal('injection'), eps: positive('energy injection rate ε') }),
       v.strictObject({ kind: v.literal('velocity'), U: positive('target rms velocity U') }),
+      v.strictObject({
+        kind: v.literal('baroclinic'),
+        shear: positive('vertical shear U₁ − U₂'),
+        depthRatio: v.optional(between('depth ratio δ = H₁/H₂', 1e-3, 1e3, false)),
+      }),
     ],
-    kindOf('{ kind: "injection", eps } or { kind: "velocity", U }'),
+    kindOf('{ kind: "injection", eps }, { kind: "velocity", U } or { kind: "baroclinic", shear, depthRatio? }'),
   ),
   dragTime: positive('drag damping time 1/μ'),
   forcing: v.strictObject({
@@ -215,6 +225,14 @@ export function validatePlanInput(input: unknown): ValidPlanInput {
           'L_d = √(g′H)/|f| needs f ≠ 0: give the rotation as a planet off the equator, give f, or give L_d directly',
       });
     }
+  }
+  if (p.drive.kind === 'baroclinic' && p.deformation.kind === 'none') {
+    issues.push({
+      field: 'deformation.kind',
+      value: 'none',
+      message:
+        'a baroclinic drive needs a deformation radius (two layers): give L_d, or a layer depth H and reduced gravity g′',
+    });
   }
   if (p.grid.kind === 'spacing') {
     for (const [axis, L, d] of [

@@ -8,7 +8,7 @@ import type { PlanInput } from './planInput';
  */
 export interface PlanPreset {
   /** Lower case words joined by hyphens, the style of the model's demo scenarios (`few-jets`). */
-  id: 'earth-atmosphere' | 'earth-ocean' | 'jupiter';
+  id: 'earth-atmosphere' | 'earth-ocean' | 'jupiter' | 'earth-ocean-two-layer' | 'earth-atmosphere-two-layer';
   title: string;
   description: string;
   /** The real constants the preset rests on, with their sources (see planets.ts). */
@@ -86,6 +86,48 @@ export const PLAN_PRESETS: readonly PlanPreset[] = Object.freeze([
       grid: { kind: 'points', nx: 2048, ny: 1024 },
       hyperviscosity: { order: 4, gridDampingTime: 6 * 3600 },
       runLength: 2e8,
+    },
+  },
+  {
+    id: 'earth-ocean-two-layer',
+    title: 'Earth ocean-like two-layer baroclinic flow at 45° S (demo)',
+    description:
+      'Two layers at 45° S of the real Earth, a thin upper one (H₁/H₂ = 1/4) sheared 5 cm/s over the lower, with a 15 km deformation radius and a 100-day bottom drag: eddies grow from the shear, carry heat poleward and gather into jets. The flow numbers are made up, of oceanic size but not taken from data; it is an idealisation, not the Southern Ocean.',
+    real: ['Earth Ω = 7.292115e-5 rad/s and mean radius 6 371 008.7714 m (Moritz 2000), giving f and β at 45° S'],
+    madeUp: MADE_UP_ALL,
+    input: {
+      units: 'physical',
+      title: 'Earth ocean-like two-layer baroclinic flow (demo)',
+      rotation: { kind: 'planet', planet: 'earth', latitudeDeg: -45 },
+      deformation: { kind: 'radius', Ld: 1.5e4 },
+      drive: { kind: 'baroclinic', shear: 0.05, depthRatio: 0.25 },
+      dragTime: 100 * DAY,
+      forcing: { wavelength: 1e5, halfWidth: 0.1 },
+      domain: { Lx: 2e6, Ly: 2e6 },
+      grid: { kind: 'points', nx: 512, ny: 512 },
+      hyperviscosity: { order: 4, gridDampingTime: DAY },
+      runLength: 3000 * DAY,
+    },
+  },
+  {
+    id: 'earth-atmosphere-two-layer',
+    title: 'Earth atmosphere-like two-layer baroclinic flow at 45° N (demo)',
+    description:
+      'Two equal layers at 45° N of the real Earth sheared 12 m/s, with a 500 km deformation radius and a 5-day surface drag: baroclinic eddies near criticality (ξ ≈ 1.5) and a few jets. The flow numbers are made up, of atmospheric size but not taken from data; it is an idealisation, not a forecast.',
+    real: ['Earth Ω = 7.292115e-5 rad/s and mean radius 6 371 008.7714 m (Moritz 2000), giving f and β at 45°'],
+    madeUp: MADE_UP_ALL,
+    input: {
+      units: 'physical',
+      title: 'Earth atmosphere-like two-layer baroclinic flow (demo)',
+      rotation: { kind: 'planet', planet: 'earth', latitudeDeg: 45 },
+      deformation: { kind: 'radius', Ld: 5e5 },
+      drive: { kind: 'baroclinic', shear: 12 },
+      dragTime: 5 * DAY,
+      forcing: { wavelength: 1e6, halfWidth: 0.1 },
+      domain: { Lx: 2.8e7, Ly: 1.6e7 },
+      grid: { kind: 'points', nx: 256, ny: 128 },
+      hyperviscosity: { order: 4, gridDampingTime: 3 * 3600 },
+      runLength: 500 * DAY,
     },
   },
 ] satisfies PlanPreset[]);

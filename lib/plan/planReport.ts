@@ -69,6 +69,7 @@ export function planReportBlocks(a: PlanAnalysis): Block[] {
         q.reference,
       ]),
     },
+    ...baroclinicBlocks(a),
     { type: 'heading', level: 2, text: 'Checks' },
     {
       type: 'table',
@@ -275,4 +276,47 @@ function enteredText(path: string, text: string, input: PlanAnalysis['plan']['in
   if (input.units !== 'physical' || (q !== 'length' && q !== 'time') || !Number.isFinite(x)) return text;
   const readable = withUnit(x, q, 'physical');
   return readable.startsWith(`${text} `) ? text : `${text} (${readable})`;
+}
+
+/** The baroclinic drive's predictions and matched two-layer run (baroclinicPlan.ts); none for a stirred plan. */
+function baroclinicBlocks(a: PlanAnalysis): Block[] {
+  const b = a.baroclinic;
+  if (!b) return [];
+  const u = a.plan.units;
+  const blocks: Block[] = [
+    { type: 'heading', level: 2, text: 'Baroclinic drive (two layers, imposed shear)' },
+    {
+      type: 'paragraph',
+      text: `Shear U₁ − U₂ = ${withUnit(b.shear, 'velocity', u)}, depth ratio δ = H₁/H₂ = ${fmt(b.depthRatio)}, drag on the lower layer. The one-layer predictions above take U as Held & Larichev's eddy velocity; those of the forcing do not apply (no stirring).`,
+    },
+    {
+      type: 'table',
+      head: ['prediction', 'symbol', 'value', 'formula', 'source'],
+      rows: b.predictions.map((q) => [
+        q.label,
+        q.symbol,
+        q.text ? `${q.text} (ξ = ${fmt(q.value)})` : withUnit(q.value, q.quantity, u),
+        q.formula,
+        q.reference,
+      ]),
+    },
+  ];
+  const m = b.matched;
+  blocks.push({ type: 'heading', level: 3, text: 'Matched two-layer run' });
+  if (!m) blocks.push({ type: 'paragraph', text: `None: ${b.matchedError}` });
+  else {
+    blocks.push(
+      {
+        type: 'paragraph',
+        text: `${m.params.nx} × ${m.params.ny}, model units (Lx = 2π, U = (U₁ − U₂)/2 = 1), shear ${fmt(m.params.shear)}, k_d ${fmt(m.params.kd)}, β ${fmt(m.params.beta)}, μ ${fmt(m.params.mu)}, run length ${fmt(m.runLength)}: ${m.cost.steps} steps, about ${duration(m.cost.wallSeconds)}.`,
+      },
+      {
+        type: 'table',
+        head: ['ratio', 'planned', 'matched', 'kept'],
+        rows: m.kept.map((k) => [k.label, fmt(k.planned), fmt(k.matched), k.kept ? 'yes' : 'no']),
+      },
+    );
+    if (m.notes.length) blocks.push({ type: 'list', items: m.notes });
+  }
+  return blocks;
 }

@@ -8,7 +8,13 @@ import type { TableRow } from './sweepTable';
  *     O(1) prefactor is the Rhines scaling of jets (Rhines 1975), so the prefactor at b = 1 is given too;
  *   u_rms against the drag balance (ε/μ)^½: u_rms = A ((ε/μ)^½)^b; b = 1, A = 1 when drag alone
  *     balances the injection, A < 1 by the share the hyperviscosity takes.
- * A fit that cannot be made (fewer than 3 usable runs, or one distinct x) says why instead.
+ * and, for two-layer runs (layers = 2), Held & Larichev's scalings against the criticality ξ (the
+ * summary's supercriticality; J. Atmos. Sci. 53, 946 (1996) [published], order-one prefactors, and
+ * their simulations vary faster with ξ, so the fitted exponents are the measurement):
+ *   eddy diffusivity D/(Uλ) against ξ: b = 2 in their scaling, so the prefactor at b = 2 is given;
+ *   eddy velocity V/U against ξ: b = 1; with U = (U₁ − U₂)/2 and λ = 1/k_d (sweepTable.ts).
+ * A fit that cannot be made (fewer than 3 usable runs, or one distinct x) says why instead; one-layer
+ * runs have no ξ and are left out of the last two.
  */
 export interface FitReport {
   law: string;
@@ -22,6 +28,10 @@ export interface FitReport {
   prefactor_ci: [number, number] | null;
   prefactor_at_exponent_1: number | null;
   prefactor_at_exponent_1_ci: [number, number] | null;
+  /** The exponent the prefactor below is fitted at (1, or 2 for the diffusivity); set by sweepFits. */
+  fixed_exponent?: number;
+  prefactor_at_fixed_exponent?: number | null;
+  prefactor_at_fixed_exponent_ci?: [number, number] | null;
   log_residual_rms: number | null;
   level: number;
   resamples: number;
@@ -32,6 +42,8 @@ export interface FitReport {
 export interface SweepFits {
   jet_spacing_vs_rhines_length: FitReport;
   u_rms_vs_balance_velocity: FitReport;
+  eddy_diffusivity_vs_supercriticality: FitReport;
+  eddy_velocity_vs_supercriticality: FitReport;
 }
 
 export function sweepFits(rows: readonly TableRow[], options: ScalingFitOptions = {}): SweepFits {
@@ -51,6 +63,21 @@ export function sweepFits(rows: readonly TableRow[], options: ScalingFitOptions 
       'u_rms = A · balance_velocity^b, balance_velocity = (eps/mu)^½',
       options,
     ),
+    eddy_diffusivity_vs_supercriticality: fitColumns(
+      done,
+      'supercriticality',
+      'diffusivity_scaled',
+      'diffusivity_scaled = A · supercriticality^b, diffusivity_scaled = eddy_diffusivity/(Uλ), U = shear/2, λ = 1/kd',
+      options,
+      2,
+    ),
+    eddy_velocity_vs_supercriticality: fitColumns(
+      done,
+      'supercriticality',
+      'velocity_scaled',
+      'velocity_scaled = A · supercriticality^b, velocity_scaled = eddy_velocity/U, U = shear/2',
+      options,
+    ),
   };
 }
 
@@ -60,6 +87,7 @@ function fitColumns(
   yName: string,
   law: string,
   options: ScalingFitOptions,
+  fixedExponent = 1,
 ): FitReport {
   const num = (v: unknown) => (typeof v === 'number' ? v : NaN);
   const x = rows.map((r) => num(r[xName]));
@@ -79,13 +107,17 @@ function fitColumns(
     prefactor_ci: null,
     prefactor_at_exponent_1: null,
     prefactor_at_exponent_1_ci: null,
+    fixed_exponent: fixedExponent,
+    prefactor_at_fixed_exponent: null,
+    prefactor_at_fixed_exponent_ci: null,
     log_residual_rms: null,
     level,
     resamples,
     degenerate_resamples: 0,
   };
   try {
-    const f = fitScaling(x, y, { ...options, fixedExponent: 1, yError: error(yName), xError: error(xName) });
+    const f = fitScaling(x, y, { ...options, fixedExponent, yError: error(yName), xError: error(xName) });
+    const one = fixedExponent === 1;
     return {
       ...empty,
       n: f.n,
@@ -94,8 +126,10 @@ function fitColumns(
       exponent_ci: f.exponentCI,
       prefactor: f.prefactor,
       prefactor_ci: f.prefactorCI,
-      prefactor_at_exponent_1: f.fixed!.prefactor,
-      prefactor_at_exponent_1_ci: f.fixed!.prefactorCI,
+      prefactor_at_exponent_1: one ? f.fixed!.prefactor : null,
+      prefactor_at_exponent_1_ci: one ? f.fixed!.prefactorCI : null,
+      prefactor_at_fixed_exponent: f.fixed!.prefactor,
+      prefactor_at_fixed_exponent_ci: f.fixed!.prefactorCI,
       log_residual_rms: f.logResidualRms,
       degenerate_resamples: f.degenerate,
       error: null,

@@ -9,6 +9,10 @@ import type { SweepRecord } from './sweepRecord';
  *   rhines_length     2π/k_R with the measured k_R = (β/2U)^½ (the summary's k_rhines), and its
  *                     standard error, rhines_length·δU/(2U) (the length goes as U^½) [derived]
  *   balance_velocity  (ε/μ)^½ from the parameters, the drag-balance rms velocity
+ * and, for two-layer runs (null otherwise), the summary's eddy diffusivity and velocity in Held &
+ * Larichev's units, U = shear/2 the thermal wind and λ = 1/kd (lib/plan/baroclinicScales.ts):
+ *   diffusivity_scaled  eddy_diffusivity/(Uλ), and its standard error scaled alike
+ *   velocity_scaled     eddy_velocity/U, and its standard error scaled alike
  * Missing numbers are null in JSON and empty fields in CSV (RFC 4180; docs/file-formats.md).
  */
 export type TableValue = number | string | boolean | null;
@@ -29,6 +33,10 @@ export function tableColumns(pointKeys: readonly string[]): string[] {
     'rhines_length',
     'rhines_length_stderr',
     'balance_velocity',
+    'diffusivity_scaled',
+    'diffusivity_scaled_stderr',
+    'velocity_scaled',
+    'velocity_scaled_stderr',
     'wall_seconds',
   ];
 }
@@ -55,6 +63,14 @@ export function tableRows(records: readonly SweepRecord[]): TableRow[] {
     row.rhines_length = L;
     row.rhines_length_stderr = L !== null && U !== null && dU !== null ? (L * dU) / (2 * U) : null;
     row.balance_velocity = r.params.mu > 0 ? balanceVelocity(r.params.eps, r.params.mu) : null;
+    const two = r.params.layers === 2 && r.params.shear !== 0 && r.params.kd > 0;
+    const Uth = two ? Math.abs(r.params.shear) / 2 : NaN;
+    const lambda = two ? 1 / r.params.kd : NaN;
+    const scaled = (x: number | null | undefined, by: number) => (two && typeof x === 'number' ? x / by : null);
+    row.diffusivity_scaled = scaled(r.summary.eddy_diffusivity, Uth * lambda);
+    row.diffusivity_scaled_stderr = scaled(r.summary.eddy_diffusivity_stderr, Uth * lambda);
+    row.velocity_scaled = scaled(r.summary.eddy_velocity, Uth);
+    row.velocity_scaled_stderr = scaled(r.summary.eddy_velocity_stderr, Uth);
     row.wall_seconds = r.wall_seconds;
     return row;
   });

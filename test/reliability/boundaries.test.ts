@@ -9,17 +9,24 @@ import { runBoundary, type BoundaryResult } from './support/runBoundary';
  * BlowUpError). The properties are in ./boundaries/, the counts in ./boundaryRuns.ts.
  */
 const results = new Map<string, BoundaryResult>();
+// A hang is caught per case (CASE_LIMIT_MS); the whole property only needs room for its hundreds of
+// cases on a loaded machine (a checkpoint case steps a model), so its limit is generous.
+const PROPERTY_TIMEOUT_MS = 300_000;
 
 // Concurrent: each property runs in a worker thread of its own, two at a time (runBoundary.ts).
 describe.concurrent('input boundaries under random and malformed inputs', () => {
   for (const b of BOUNDARY_RUNS) {
-    it(`${b.id}: ${b.boundary}`, async () => {
-      const r = await runBoundary(new URL(`./boundaries/${b.id}.ts`, import.meta.url), b.runs, b.seed, CASE_LIMIT_MS);
-      results.set(b.id, r);
-      expect(r.hung, 'a case hung').toBeNull();
-      expect(r.failed, `${r.error}\ncounterexample: ${r.counterexample}`).toBe(false);
-      expect(r.numRuns).toBe(b.runs);
-    });
+    it(
+      `${b.id}: ${b.boundary}`,
+      async () => {
+        const r = await runBoundary(new URL(`./boundaries/${b.id}.ts`, import.meta.url), b.runs, b.seed, CASE_LIMIT_MS);
+        results.set(b.id, r);
+        expect(r.hung, 'a case hung').toBeNull();
+        expect(r.failed, `${r.error}\ncounterexample: ${r.counterexample}`).toBe(false);
+        expect(r.numRuns).toBe(b.runs);
+      },
+      PROPERTY_TIMEOUT_MS,
+    );
   }
 });
 
