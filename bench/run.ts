@@ -8,8 +8,11 @@
  *   --rounds R         alternate Stria and the reference R times (default 3, 1 with --scaling), quote the median
  *                      of the paired ratios: a shared machine drifts between the two measurements
  *   --scaling          sizes 64..1024 and the fitted exponent of the cost against N² log N
- *   --time-to-jets     the default scenario at 256² from rest until jets show: wall and model time,
- *                      and the scheme's error at that step against half and quarter steps
+ *   --threads a,b      time the step on each of these thread counts (default 1), with the speed-up over
+ *                      one thread; the ratio to the reference is the one-thread step's
+ *   --time-to-jets     the default scenario at 256² from rest until jets show, on every core (or on
+ *                      --threads N): wall and model time, and the scheme's error at that step against
+ *                      half and quarter steps
  *   --draw             the Field figure's draw time at 512² (or --n N) in Debian's Chromium
  *   --scaling-law      the README's Rhines-scaling sweep through `stria sweep` on every core (--jobs J):
  *                      wall time and the fitted exponent of jet spacing against the Rhines length
@@ -22,6 +25,8 @@ import { MIN_JETS, MIN_STAIRCASE, timeToJets } from './timeToJets';
 import { timeFieldDraw } from './drawBench';
 import { scalingLaw } from './scalingLaw';
 import { availableParallelism } from 'node:os';
+import { startStepThreads, type NodeStepThreads } from '../cli/stepThreads';
+import type { StepThreads } from '../lib/model/threadTeam';
 
 const args = process.argv.slice(2);
 const has = (flag: string) => args.includes(flag);
@@ -33,9 +38,22 @@ const json = has('--json');
 const scaling = has('--scaling');
 const sizes = (value('--sizes') ?? (scaling ? '64,128,256,512,1024' : '128,256,512')).split(',').map(Number);
 
+const threadCounts = (value('--threads') ?? (has('--time-to-jets') ? String(availableParallelism()) : '1'))
+  .split(',')
+  .map(Number);
+if (threadCounts.some((t) => !(Number.isInteger(t) && t >= 1))) throw new Error('--threads: whole numbers ≥ 1');
+/** Helper threads for each count above one, started once (a helper takes about half a second to start). */
+const helperSets = new Map<number, NodeStepThreads>();
+for (const t of threadCounts) if (t > 1 && !helperSets.has(t)) helperSets.set(t, await startStepThreads(t));
+const threadsFor = (t: number): StepThreads | null => helperSets.get(t)?.threads ?? null;
+async function finish(): Promise<never> {
+  for (const h of helperSets.values()) await h.close();
+  process.exit(0);
+}
+
 function emit(obj: Record<string, unknown>, line: string): void {
   if (json) console.log(JSON.stringify(obj));
-  else console.log(line);
+  else if (line) console.log(line);
 }
 
 if (has('--time-to-jets')) {
@@ -44,7 +62,7 @@ if (has('--time-to-jets')) {
     console.log(
       `Time to jets: default scenario at ${n}², from rest, until ≥ ${MIN_JETS} jets and staircase index ≥ ${MIN_STAIRCASE}`,
     );
-  const r = timeToJets(n, json ? undefined : console.log);
+  const r = timeToJets(n, json ? undefined : console.log, threadsFor(threadCounts[0]));
   const s = r.summary;
   emit(
     {
@@ -55,10 +73,10 @@ if (has('--time-to-jets')) {
       staircase_index: s.staircase_index,
       zonostrophy_index: s.zonostrophy_index,
     },
-    `  ${r.wall_seconds.toFixed(1)} s wall, model time ${r.model_time.toFixed(1)}, ${r.steps} steps: ${s.jet_count} jets, staircase index ${s.staircase_index?.toFixed(3)}, R_β ${s.zonostrophy_index?.toFixed(2)}\n` +
+    `  ${r.wall_seconds.toFixed(1)} s wall on ${r.threads} thread${r.threads > 1 ? 's' : ''}, model time ${r.model_time.toFixed(1)}, ${r.steps} steps: ${s.jet_count} jets, staircase index ${s.staircase_index?.toFixed(3)}, R_β ${s.zonostrophy_index?.toFixed(2)}\n` +
       `  scheme error over ${r.accuracy.span.toFixed(2)} T at dt = ${r.dt.toPrecision(3)}: ${r.accuracy.error_dt.toExponential(2)} relative (dt/2: ${r.accuracy.error_half.toExponential(2)}, observed order ${r.accuracy.observed_order.toFixed(2)})`,
   );
-  process.exit(0);
+  await finish();
 }
 
 if (has('--scaling-law')) {
@@ -71,7 +89,7 @@ if (has('--scaling-law')) {
     { kind: 'scaling_law', ...r },
     `  ${r.runs} runs in ${r.wall_seconds.toFixed(0)} s wall: jet_spacing ∝ rhines_length^b, b = ${f.exponent?.toFixed(2)} [${ci?.[0].toFixed(2)}, ${ci?.[1].toFixed(2)}] (${((f.level ?? 0.95) * 100).toFixed(0)} % bootstrap interval), prefactor at b = 1: ${f.prefactor_at_exponent_1?.toFixed(2)}${ci && ci[0] <= 1 && ci[1] >= 1 && ci[0] > 0 ? ' — the Rhines scaling' : ''}`,
   );
-  process.exit(0);
+  await finish();
 }
 
 if (has('--draw')) {
@@ -80,23 +98,36 @@ if (has('--draw')) {
     { kind: 'draw', ...d },
     `Field figure draw time in Chromium at ${d.n}² (${d.frames} frames): median ${d.median_ms.toFixed(2)} ms, 95th percentile ${d.p95_ms.toFixed(2)} ms, max ${d.max_ms.toFixed(2)} ms`,
   );
-  process.exit(0);
+  await finish();
 }
 
 const why = has('--no-reference') ? 'not asked for' : referenceUnavailable();
 const rounds = why ? 1 : Math.max(1, Number(value('--rounds') ?? (scaling ? 1 : 3)));
 const ratiosBySize = new Map<number, number[]>();
-let timings: StepTiming[] = [];
+/** Every round's ms per step, by size and thread count. */
+const msBy = new Map<string, number[]>();
+const key = (n: number, t: number) => `${n}×${t}`;
+const oneThread = threadCounts.includes(1) ? 1 : threadCounts[0];
 for (let round = 1; round <= rounds; round++) {
   if (!json)
     console.log(
       `Stria step benchmark (scheme ifrk4, Node ${process.version}); median of timed batches${rounds > 1 ? `, round ${round} of ${rounds}` : ''}`,
     );
-  timings = [];
+  const timings: StepTiming[] = [];
   for (const n of sizes) {
-    const t = timeStep(n);
-    timings.push(t);
-    emit({ ...t, round }, `  n = ${String(n).padStart(4)}   ${t.ms_per_step.toFixed(3).padStart(9)} ms/step`);
+    const cells: string[] = [];
+    for (const t of threadCounts) {
+      const timing = timeStep(n, threadsFor(t));
+      timings.push(timing);
+      msBy.set(key(n, t), [...(msBy.get(key(n, t)) ?? []), timing.ms_per_step]);
+      const base = timings.find((x) => x.n === n && x.threads === 1);
+      const speedup = base && t > 1 ? base.ms_per_step / timing.ms_per_step : undefined;
+      emit({ ...timing, asked_threads: t, round, ...(speedup ? { speedup } : {}) }, '');
+      cells.push(
+        `${timing.ms_per_step.toFixed(3).padStart(9)} ms/step on ${timing.threads}${speedup ? ` (×${speedup.toFixed(2)})` : ''}`,
+      );
+    }
+    if (!json) console.log(`  n = ${String(n).padStart(4)} ${cells.join('   ')}`);
   }
   if (why) {
     if (why !== 'not asked for') emit({ kind: 'reference', skipped: why }, `  C/FFTW reference skipped: ${why}`);
@@ -104,9 +135,9 @@ for (let round = 1; round <= rounds; round++) {
   }
   // The reference runs right after Stria in every round, so each ratio pairs two close measurements.
   const ref: ReferenceTiming[] = runReference();
-  if (!json) console.log('C/FFTW reference step (same scheme, 20 real transforms per step), right after:');
+  if (!json) console.log('C/FFTW reference step (same scheme, 20 real transforms per step, one thread), right after:');
   for (const r of ref) {
-    const ours = timings.find((t) => t.n === r.n);
+    const ours = timings.find((t) => t.n === r.n && t.threads === oneThread);
     const ratio = ours ? ours.ms_per_step / r.ms_per_step : undefined;
     if (ratio !== undefined) ratiosBySize.set(r.n, [...(ratiosBySize.get(r.n) ?? []), ratio]);
     emit(
@@ -115,16 +146,20 @@ for (let round = 1; round <= rounds; round++) {
         round,
         n: r.n,
         reference_ms_per_step: r.ms_per_step,
+        stria_threads: oneThread,
         stria_ms_per_step: ours?.ms_per_step,
         ratio,
       },
       `  n = ${String(r.n).padStart(4)}   ${r.ms_per_step.toFixed(3).padStart(9)} ms/step` +
-        (ratio ? `   Stria/reference = ${ratio.toFixed(2)}` : ''),
+        (ratio ? `   Stria on ${oneThread}/reference = ${ratio.toFixed(2)}` : ''),
     );
   }
 }
 if (ratiosBySize.size > 0) {
-  if (!json) console.log(`Stria/reference over ${rounds} round${rounds > 1 ? 's' : ''}: median (lowest–highest)`);
+  if (!json)
+    console.log(
+      `Stria on ${oneThread}/reference over ${rounds} round${rounds > 1 ? 's' : ''}: median (lowest–highest)`,
+    );
   for (const [n, rs] of ratiosBySize) {
     emit(
       { kind: 'ratio', n, rounds: rs.length, median: median(rs), min: Math.min(...rs), max: Math.max(...rs) },
@@ -133,10 +168,30 @@ if (ratiosBySize.size > 0) {
   }
 }
 
-if (scaling && timings.length >= 2) {
-  const fit = fitScaling(timings);
-  emit(
-    { kind: 'scaling', exponent_N: fit.exponentN, exponent_N2logN: fit.exponentN2logN, sizes },
-    `  cost ∝ N^${fit.exponentN.toFixed(3)}; against N² log N the exponent is ${fit.exponentN2logN.toFixed(3)} (1 means exactly N² log N)`,
-  );
+if (threadCounts.length > 1 && rounds > 1) {
+  if (!json) console.log(`Over ${rounds} rounds: median ms per step (speed-up over one thread, of the medians)`);
+  for (const n of sizes) {
+    const one = msBy.get(key(n, 1));
+    const cells = threadCounts.map((t) => {
+      const ms = median(msBy.get(key(n, t)) ?? []);
+      const speedup = one && t > 1 ? median(one) / ms : undefined;
+      emit({ kind: 'threads', n, threads: t, rounds, median_ms_per_step: ms, ...(speedup ? { speedup } : {}) }, '');
+      return `${ms.toFixed(3).padStart(9)} ms/step on ${t}${speedup ? ` (×${speedup.toFixed(2)})` : ''}`;
+    });
+    if (!json) console.log(`  n = ${String(n).padStart(4)} ${cells.join('   ')}`);
+  }
 }
+
+if (scaling && sizes.length >= 2) {
+  // One fit per thread count, on the median over rounds at each size.
+  for (const t of threadCounts) {
+    const fit = fitScaling(
+      sizes.map((n) => ({ n, threads: t, ms_per_step: median(msBy.get(key(n, t)) ?? []), scheme: '' })),
+    );
+    emit(
+      { kind: 'scaling', threads: t, exponent_N: fit.exponentN, exponent_N2logN: fit.exponentN2logN, sizes },
+      `  on ${t} thread${t > 1 ? 's' : ''}: cost ∝ N^${fit.exponentN.toFixed(3)}; against N² log N the exponent is ${fit.exponentN2logN.toFixed(3)} (1 means exactly N² log N)`,
+    );
+  }
+}
+await finish();

@@ -1,4 +1,5 @@
 import { Model } from '../lib/model/model';
+import type { StepThreads } from '../lib/model/threadTeam';
 import { DEFAULT_PARAMS, type ModelParams } from '../lib/model/params';
 import { scaledHyperviscosity } from '../lib/plan/gridHyperviscosity';
 import { msPerCall } from './timing';
@@ -27,15 +28,20 @@ export function benchParams(n: number): ModelParams {
 
 export interface StepTiming {
   n: number;
+  /** Threads the step ran on, the calling one included. */
+  threads: number;
   ms_per_step: number;
   scheme: string;
 }
 
-/** Milliseconds per default step at n × n. */
-export function timeStep(n: number): StepTiming {
+/** Milliseconds per default step at n × n, on `threads` (null: the calling thread alone). */
+export function timeStep(n: number, threads: StepThreads | null = null): StepTiming {
   const p = benchParams(n);
-  const model = new Model(p);
+  const model = new Model(p, false, threads);
   model.step(20); // let the JIT settle on the real code path
   const ms = msPerCall(() => model.step(), { warmup: 3, batches: n >= 512 ? 5 : 7, batchMs: n >= 512 ? 1500 : 500 });
-  return { n, ms_per_step: ms, scheme: p.scheme };
+  const count = model.threadCount;
+  // The helpers go back to waiting for a team, so the next size's timing has the cores to itself.
+  threads?.release();
+  return { n, threads: count, ms_per_step: ms, scheme: p.scheme };
 }

@@ -17,6 +17,8 @@ import type { RunOutputs } from './runOutputs';
 export type ProgressBase = Omit<RunProgress, 'retries' | 'measurement' | 'outputs'> & {
   createdAt: string;
   command: string;
+  /** Threads of the run that began the NetCDF files (their stria_threads), when recorded. */
+  threads?: number;
 };
 
 export class CheckpointStore {
@@ -34,14 +36,15 @@ export class CheckpointStore {
   /** Write the run's present state and measurement; throws (the old file stays) when it cannot. */
   write(run: MonitoredRun, outputs: RunOutputs, retries: readonly RetryRecord[]): void {
     outputs.sync();
-    const { createdAt, command, ...rest } = this.base;
+    const { createdAt, command, threads, ...rest } = this.base;
     const progress: RunProgress = {
       ...rest,
       retries: [...retries],
-      outputs: { created_at: createdAt, command, ...outputs.progress() },
+      outputs: { created_at: createdAt, command, ...(threads === undefined ? {} : { threads }), ...outputs.progress() },
       measurement: run.saveState(),
     };
-    const text = encodeCheckpointFile(run.model.checkpoint(), progress);
+    // The run file part records the threads the run steps on now.
+    const text = encodeCheckpointFile(run.model.checkpoint(), progress, new Date(), run.model.threadCount);
     try {
       writeFileAtomic(this.path, text);
     } catch (e) {

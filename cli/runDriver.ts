@@ -1,6 +1,7 @@
 import type { Checkpoint } from '../lib/model/checkpoint';
 import { Model } from '../lib/model/model';
 import { BlowUpError } from '../lib/model/stepper';
+import { ThreadTeamError, type StepThreads } from '../lib/model/threadTeam';
 import {
   blowUpReport,
   describeBlowUp,
@@ -27,6 +28,8 @@ export interface DriverConfig {
   policy: BlowUpPolicy;
   checkpointEvery: number;
   store: CheckpointStore | null;
+  /** The threads a model resumed after a blow-up steps on (docs/threads.md); none: one thread. */
+  threads?: StepThreads | null;
   interrupted(): boolean;
   log(line: string): void;
   onProgress?(run: MonitoredRun): void;
@@ -84,6 +87,11 @@ export class RunDriver {
         }
         return this.writeToDisk() ?? { kind: 'done' };
       } catch (e) {
+        if (e instanceof ThreadTeamError) {
+          // The step that met it left the state as it was; the model goes on alone, with the same bits.
+          config.log(`${e.message}: going on with one thread`);
+          continue;
+        }
         if (!(e instanceof BlowUpError)) throw e;
         const policy = config.policy;
         if (policy.kind === 'stop') return { kind: 'blew-up', error: e };
@@ -117,7 +125,7 @@ export class RunDriver {
     );
     this.retries.push(record);
     this.outputs.rollBack(from.outputs);
-    this.run.rollBack(Model.restore(cp), from.state);
+    this.run.rollBack(Model.restore(cp, this.config.threads ?? null), from.state);
     // A second blow-up before the next checkpoint halves the step again from here.
     this.last = { checkpoint: cp, state: from.state, outputs: from.outputs };
   }

@@ -11,6 +11,7 @@ import { DiagnosticsState } from './diagnostics.svelte';
 import { copyCheckpoint, KeptCheckpoint } from './keep/keptCheckpoint';
 import { WorkerLink, WorkerStoppedError } from './keep/workerLink';
 import { RateMeter } from './rateMeter';
+import { defaultThreads } from './threadCount';
 
 /** How the last worker death was met: the run went on from the kept state at `time`, step `steps`. */
 export interface Recovery {
@@ -66,6 +67,8 @@ export class SimulationClient {
   private field: FieldName = 'u';
   private needs: DiagnosticNeeds | null = null;
   private sampling: SamplingOptions = {};
+  /** Threads the step is asked to run on (every core by default); told to every new worker first. */
+  private threadsAsked = defaultThreads();
   /** The parameters of the last start, for a worker that dies before anything was kept. */
   private begun: Partial<ModelParams> | null = null;
   // A new worker counts epochs from 1 again: these offsets keep them rising across workers.
@@ -131,6 +134,17 @@ export class SimulationClient {
     return this.guard((link) => link.call((api) => api.setField(name)));
   };
 
+  /** Threads asked for, the simulation worker included. */
+  get threads(): number {
+    return this.threadsAsked;
+  }
+
+  /** Step on `count` threads from now on (the bits do not depend on it; docs/threads.md). */
+  setThreads = (count: number): Promise<void> => {
+    this.threadsAsked = count;
+    return this.guard((link) => link.call((api) => api.setThreads(count), true).then(() => undefined));
+  };
+
   /** Tell the worker what the shown view needs (it computes nothing else). */
   setNeeds = (needs: DiagnosticNeeds): Promise<void> => {
     this.needs = { ...needs };
@@ -188,6 +202,9 @@ export class SimulationClient {
 
   private newLink(): WorkerLink {
     const link: WorkerLink = new WorkerLink((reason) => void this.recover(link, reason));
+    // The threads first: a run the worker starts or resumes then steps on them from its first step.
+    const count = this.threadsAsked;
+    void link.call((api) => api.setThreads(count), true).catch(() => undefined);
     return link;
   }
 

@@ -10,6 +10,7 @@ import type { InputIssue } from '../lib/inputError';
 import type { BudgetRows } from './budgetRows';
 import type { DiagnosticNeeds, DiagnosticsPayload, MonitorStatus, SamplingOptions } from './diagnosticsApi';
 import type { ExportedFile } from './runExports';
+import type { ThreadsInfo } from './threadChoice';
 
 /**
  * The verbs of the simulation worker. The UI imports these types only; the worker owns the model.
@@ -69,6 +70,12 @@ export interface SimulationApi {
    * Throws when the run has not blown up or the halved parameters are refused.
    */
   restartHalved(): Promise<InitInfo>;
+  /**
+   * Step on `count` threads, this worker included, with helper web workers (docs/threads.md); the
+   * bits do not depend on it. Runs on one, and says why, when the page is not cross-origin isolated
+   * or the helpers cannot start. Kept for later runs of this worker. Throws RangeError on a bad count.
+   */
+  setThreads(count: number): Promise<ThreadsInfo>;
   /** Answers at once (between slices of play): the UI's watchdog asks it to learn the worker is alive. */
   ping(): Promise<void>;
   /** The next snapshot whose `version` exceeds `request.after` (see the protocol above). */
@@ -164,6 +171,8 @@ export interface Snapshot {
   budget: BudgetRows;
   /** Fingerprint of the state's bits (stateChecksum, lib/io/digest.ts). */
   checksum: string;
+  /** The threads the step runs on (not part of the bits). */
+  threads: ThreadsInfo;
   playing: boolean;
   /** The model time a `runUntil` is heading for, or null. */
   until: number | null;

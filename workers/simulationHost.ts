@@ -6,6 +6,7 @@ import { Model } from '../lib/model/model';
 import { reachedTime } from '../lib/model/clock';
 import type { ModelParams } from '../lib/model/params';
 import { BlowUpError } from '../lib/model/stepper';
+import { ThreadTeamError } from '../lib/model/threadTeam';
 import { validateParams } from '../lib/model/validateParams';
 import type { RunSummary } from '../lib/analysis/summary';
 import { blowUpReport, retryCheckpoint, retryRecord } from '../lib/run/blowUpRetry';
@@ -18,6 +19,7 @@ import { DiagnosticsPublisher } from './diagnosticsPublisher';
 import { snapshotExport, zonalCsvExport, zonalNetcdfExport, type ExportedFile } from './runExports';
 import { macrotask } from './macrotask';
 import { RescuePoint } from './rescuePoint';
+import { ThreadChoice, type ThreadsInfo } from './threadChoice';
 import { stateReport } from './stateReport';
 import type {
   BlowUpStop,
@@ -66,6 +68,8 @@ export class SimulationHost implements SimulationApi {
   private spareBudget: Float64Array | null = null;
   private readonly rows = new BudgetRowBuffer();
   private readonly diagnostics = new DiagnosticsPublisher();
+  /** The threads the step runs on (docs/threads.md): one until setThreads asks for more. */
+  private readonly threads = new ThreadChoice();
   /** The changes of parameters within this run (epoch), for the views to mark on their time axes. */
   private changes: ParamChange[] = [];
   /** The readouts of the state while this model has taken no step yet (a loaded run, new parameters). */
@@ -91,6 +95,12 @@ export class SimulationHost implements SimulationApi {
     if (this.blowUp.refused) throw new RangeError(`restartHalved: ${this.blowUp.refused}`);
     const info = this.begin(Model.restore(cp));
     await this.play();
+    return info;
+  }
+
+  async setThreads(count: number): Promise<ThreadsInfo> {
+    const info = await this.threads.set(count, () => this.model);
+    if (this.model) this.changed();
     return info;
   }
 
@@ -144,6 +154,8 @@ export class SimulationHost implements SimulationApi {
     const how =
       next === model ? 'inPlace' : next.params.Lx !== old.Lx || next.params.Ly !== old.Ly ? 'fresh' : 'regrid';
     this.model = next;
+    // A new grid may cross the size below which the step runs on one thread.
+    this.threads.apply(next);
     this.rescue.take(next);
     let diagnostics: 'kept' | 'restarted' = 'restarted';
     if (how === 'fresh') {
@@ -227,6 +239,7 @@ export class SimulationHost implements SimulationApi {
   async dispose(): Promise<void> {
     this.playing = false;
     this.model = null;
+    this.threads.close();
     this.rescue.clear();
     this.clearStop();
     this.nextSlice.close();
@@ -236,6 +249,7 @@ export class SimulationHost implements SimulationApi {
   }
 
   private begin(model: Model, sampleNow = false): InitInfo {
+    this.threads.apply(model);
     this.model = model;
     this.playing = false;
     this.until = null;
@@ -290,6 +304,11 @@ export class SimulationHost implements SimulationApi {
     try {
       run();
     } catch (e) {
+      // A helper thread failed: the step left the state as it was and the model goes on alone.
+      if (e instanceof ThreadTeamError) {
+        this.threads.failed(e.message);
+        return;
+      }
       this.playing = false;
       this.until = null;
       this.stopped = e instanceof Error ? e.message : String(e);
@@ -363,6 +382,7 @@ export class SimulationHost implements SimulationApi {
       changes: this.changes.map((c) => ({ ...c, keys: [...c.keys] })),
       budget,
       checksum: stateChecksum(model.qHat),
+      threads: this.threads.info(model),
       playing: this.playing,
       until: this.until,
       stopped: this.stopped,

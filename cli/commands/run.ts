@@ -29,6 +29,8 @@ import { checkSameRun } from '../resumeCheck';
 import { RunDriver } from '../runDriver';
 import { RunOutputs, type OutputCounts } from '../runOutputs';
 import { runReport } from '../runReport';
+import { startStepThreads } from '../stepThreads';
+import { THREADS_OPTION, threadsFor } from '../threadsOption';
 import { striaVersion } from '../version';
 
 /** Steps between checkpoints when --checkpoint-every-steps is not given. */
@@ -159,6 +161,7 @@ const options: OptionSpec[] = [
     kind: 'flag',
     help: 'print the run summary as JSON (the summary object, stable keys,\nthen retries and blow_up)',
   },
+  THREADS_OPTION,
 ];
 
 /** Option name of each RunPlan field, for error messages. */
@@ -266,72 +269,100 @@ async function run(args: ParsedArgs, io: CommandIO): Promise<number> {
     checkpointFile: o.checkpoint !== undefined,
   });
 
-  let model: Model;
-  if (resumed) model = Model.restore(resumed.checkpoint);
-  else if (start.checkpoint)
-    model = Object.keys(start.changes).length
-      ? Model.restore(start.checkpoint).reconfigure(start.changes)
-      : Model.restore(start.checkpoint);
-  else model = new Model(start.params);
-  const createdAt = resumed?.progress.outputs.created_at ?? new Date().toISOString();
-  // The history of the files: the command and options, files by their names only (historyCommand.ts).
-  const command = resumed?.progress.outputs.command ?? historyCommand('run', io.argv.slice(1), options);
-  const request = {
-    snapshots: o.snapshots as string | undefined,
-    every: o['snapshot-every-steps'] as number | undefined,
-    zonal: o.zonal as string | undefined,
-  };
-  const outputs = new RunOutputs(
-    start.params,
-    request,
-    { params: start.params, striaVersion: striaVersion(), createdAt, command, units: start.units },
-    resumed ? keptRecords(resumed.progress, request, io) : {},
-  );
-  const monitored = new MonitoredRun(model, plan, outputs.hooks(), origin);
-  if (resumed) restoreMeasurement(monitored, resumed.progress, io);
-  const retries: RetryRecord[] = resumed ? resumed.progress.retries : [];
-  const store =
-    o.checkpoint === undefined
-      ? null
-      : new CheckpointStore(o.checkpoint as string, {
-          id: runId(start.params, plan),
-          params: start.params,
-          plan,
-          origin,
-          createdAt,
-          command,
-        });
-  if (resumed)
-    io.err.write(
-      `stria run: resumed from ${o.resume} at t = ${model.time.toPrecision(6)}, step ${model.steps}${retries.length ? ` (after ${retries.length} retr${retries.length === 1 ? 'y' : 'ies'})` : ''}\n`,
-    );
-
-  const bar = 'isTTY' in io.err && io.err.isTTY ? new ProgressBar(io.err, 'stria run') : null;
-  const driver = new RunDriver(
-    monitored,
-    outputs,
-    {
-      policy,
-      checkpointEvery,
-      store,
-      interrupted: io.interrupted,
-      log: (line) => {
-        bar?.done();
-        io.err.write(`stria run: ${line}\n`);
-      },
-      onProgress: (r) => bar?.update(r.progress(), `t = ${r.model.time.toPrecision(4)}, step ${r.model.steps}`),
-    },
-    retries,
-  );
-  let outcome;
+  // Every core by default (docs/threads.md); the bits do not depend on the number.
+  const threadCount = threadsFor(o, params);
+  const helpers = threadCount > 1 ? await startStepThreads(threadCount) : null;
+  const threads = helpers?.threads ?? null;
+  let ran: Awaited<ReturnType<typeof runOnThreads>>;
   try {
-    outcome = await driver.drive();
+    ran = await runOnThreads();
   } finally {
-    bar?.done();
-    outputs.close();
+    await helpers?.close();
   }
-  model = monitored.model;
-  if (o.save) writeFileSync(o.save as string, encodeRunFile(model.checkpoint()));
+  const { outcome, monitored, outputs, driver, store } = ran;
+
+  async function runOnThreads() {
+    let model: Model;
+    if (resumed) model = Model.restore(resumed.checkpoint, threads);
+    else if (start.checkpoint)
+      model = Object.keys(start.changes).length
+        ? Model.restore(start.checkpoint, threads).reconfigure(start.changes)
+        : Model.restore(start.checkpoint, threads);
+    else model = new Model(start.params, false, threads);
+    if (model.threadCount < threadCount)
+      io.err.write(`stria run: the step threads could not start: stepping on ${model.threadCount} thread\n`);
+    const createdAt = resumed?.progress.outputs.created_at ?? new Date().toISOString();
+    // The history of the files: the command and options, files by their names only (historyCommand.ts).
+    const command = resumed?.progress.outputs.command ?? historyCommand('run', io.argv.slice(1), options);
+    const request = {
+      snapshots: o.snapshots as string | undefined,
+      every: o['snapshot-every-steps'] as number | undefined,
+      zonal: o.zonal as string | undefined,
+    };
+    // The NetCDF files record the threads of the run that began them (a resumed run keeps its headers).
+    const filesThreads = resumed ? resumed.progress.outputs.threads : model.threadCount;
+    const outputs = new RunOutputs(
+      start.params,
+      request,
+      {
+        params: start.params,
+        striaVersion: striaVersion(),
+        createdAt,
+        command,
+        units: start.units,
+        threads: filesThreads,
+      },
+      resumed ? keptRecords(resumed.progress, request, io) : {},
+    );
+    const monitored = new MonitoredRun(model, plan, outputs.hooks(), origin);
+    if (resumed) restoreMeasurement(monitored, resumed.progress, io);
+    const retries: RetryRecord[] = resumed ? resumed.progress.retries : [];
+    const store =
+      o.checkpoint === undefined
+        ? null
+        : new CheckpointStore(o.checkpoint as string, {
+            id: runId(start.params, plan),
+            params: start.params,
+            plan,
+            origin,
+            createdAt,
+            command,
+            threads: filesThreads,
+          });
+    if (resumed)
+      io.err.write(
+        `stria run: resumed from ${o.resume} at t = ${model.time.toPrecision(6)}, step ${model.steps}${retries.length ? ` (after ${retries.length} retr${retries.length === 1 ? 'y' : 'ies'})` : ''}\n`,
+      );
+
+    const bar = 'isTTY' in io.err && io.err.isTTY ? new ProgressBar(io.err, 'stria run') : null;
+    const driver = new RunDriver(
+      monitored,
+      outputs,
+      {
+        policy,
+        checkpointEvery,
+        store,
+        threads,
+        interrupted: io.interrupted,
+        log: (line) => {
+          bar?.done();
+          io.err.write(`stria run: ${line}\n`);
+        },
+        onProgress: (r) => bar?.update(r.progress(), `t = ${r.model.time.toPrecision(4)}, step ${r.model.steps}`),
+      },
+      retries,
+    );
+    let outcome;
+    try {
+      outcome = await driver.drive();
+    } finally {
+      bar?.done();
+      outputs.close();
+    }
+    return { outcome, monitored, outputs, driver, store };
+  }
+  const model = monitored.model;
+  if (o.save) writeFileSync(o.save as string, encodeRunFile(model.checkpoint(), new Date(), model.threadCount));
   const blowUp = outcome.kind === 'blew-up' ? blowUpReport(outcome.error) : null;
   io.out.write(runReport(monitored.summary(), driver.retries, blowUp, o.json === true));
   const written = [

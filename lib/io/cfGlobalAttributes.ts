@@ -6,7 +6,9 @@ import { ncDouble, ncInt, ncText, type NcAttribute } from './netcdf3Types';
 /**
  * Global attributes of Stria's NetCDF files: the CF Conventions 1.8 description attributes
  * (section 2.6: Conventions, title, institution, source, history, comment) and Stria's own,
- * prefixed `stria_`, which carry the run: its parameters, seed, version and unit system.
+ * prefixed `stria_`, which carry the run: its parameters, seed, version and unit system, and the
+ * number of threads it stepped on when the writer knows it (not part of the results: the bits are
+ * the same on any number).
  *
  * Parameters are written twice, on purpose: `stria_params` is the whole record as JSON (lossless,
  * what Stria reads back to rerun or compare), and `stria_<name>` gives each one to tools that list
@@ -33,6 +35,8 @@ export interface StriaRunInfo {
   institution?: string;
   /** Model units unless the caller knows the physical scales. */
   units?: UnitSystem;
+  /** Threads the run that began the file stepped on (stria_threads), when known. */
+  threads?: number;
   /**
    * The run summary over the file's window, when the file is written whole at the end (the app's
    * exports): its numbers, standard errors and verdicts as `stria_summary_<key>` attributes, model
@@ -48,6 +52,7 @@ const OWN = [
   'format_version',
   'file_kind',
   'version',
+  'threads',
   'units',
   'length_unit_m',
   'time_unit_s',
@@ -102,6 +107,7 @@ export function striaGlobalAttributes(run: StriaRunInfo, kind: StriaFileKind, de
     ncInt('stria_format_version', STRIA_FILE_FORMAT_VERSION),
     ncText('stria_file_kind', kind),
     ncText('stria_version', run.striaVersion),
+    ...(run.threads === undefined ? [] : [ncInt('stria_threads', run.threads)]),
     ncText('stria_units', units.kind),
   ];
   if (units.kind === 'physical') {

@@ -11,6 +11,7 @@ import { namedValues } from './namedValues';
  * The Stria run file: a saved run that resumes bit for bit. Versioned JSON:
  *
  *   { "format": "stria-run", "version": 1, "saved": ISO 8601 time (optional),
+ *     "threads": threads the saving run stepped on (optional; not part of the state),
  *     "params": { …ModelParams, model units… },
  *     "state": { "time": t, "steps": n, "dt": adaptive step in use,
  *                "rng": [four signed 32-bit integers: the random stream's state],
@@ -42,6 +43,9 @@ const RunFileSchema = v.object({
     `must be ${RUN_FILE_VERSION}: this Stria reads run files of version ${RUN_FILE_VERSION}`,
   ),
   saved: v.optional(v.string('must be a date string')),
+  threads: v.optional(
+    v.pipe(v.number('must be a number'), v.integer('must be a whole number'), v.minValue(1, 'must be ≥ 1')),
+  ),
   params: namedValues('must be an object of named parameters'),
   state: v.object(
     {
@@ -76,8 +80,11 @@ const RunFileSchema = v.object({
   ),
 });
 
-/** The run file of a checkpoint, as JSON text. */
-export function encodeRunFile(cp: Checkpoint, saved: Date = new Date()): string {
+/**
+ * The run file of a checkpoint, as JSON text; `threads`, when given, records how many threads the run
+ * stepped on (the bits do not depend on it, so a file resumes the same on any number).
+ */
+export function encodeRunFile(cp: Checkpoint, saved: Date = new Date(), threads?: number): string {
   const bytes = new Uint8Array(cp.qHat.length * 8);
   const view = new DataView(bytes.buffer);
   for (let i = 0; i < cp.qHat.length; i++) view.setFloat64(8 * i, cp.qHat[i], true);
@@ -85,6 +92,7 @@ export function encodeRunFile(cp: Checkpoint, saved: Date = new Date()): string 
     format: RUN_FILE_FORMAT,
     version: RUN_FILE_VERSION,
     saved: saved.toISOString(),
+    ...(threads === undefined ? {} : { threads }),
     params: storedParams(cp.params),
     state: {
       time: cp.time,

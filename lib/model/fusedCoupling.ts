@@ -9,8 +9,9 @@
  * Backward x transforms of both layers finished in place, as `lastStageProducts` does for one: each
  * u_i + i·v_i becomes (u_i·v_i, v_i² − u_i²), and the coupling product u₁v₂ − u₂v₁ = J(ψ₁, ψ₂) is
  * written to the real grid X: the value at work-grid index t (doubles) goes to X[t/2], so X holds
- * (x, y) at x·ny + y. `speeds` receives max|u₁|, max|v₁|, max|u₂|, max|v₂|. W1 and W2 are work grids
- * of the same layout; `run` is the transforms' `xLastRun`.
+ * (x, y) at x·ny + y. `speeds` receives max|u₁|, max|v₁|, max|u₂|, max|v₂| from `at` on. W1 and W2
+ * are work grids of the same layout; `run` is the transforms' `xLastRun`. The grids' rows y are
+ * the transforms' `cols` batch columns (default: the whole run as one); with c0..c1, only those.
  */
 export function lastStageProductsCoupled(
   W1: Float64Array,
@@ -18,100 +19,109 @@ export function lastStageProductsCoupled(
   X: Float64Array,
   run: number,
   speeds: Float64Array,
+  cols = run >> 1,
+  c0 = 0,
+  c1 = cols,
+  at = 0,
 ): void {
   let mu1 = 0;
   let mv1 = 0;
   let mu2 = 0;
   let mv2 = 0;
-  for (let t = 0; t < run; t += 2) {
-    const i1 = t + run;
-    const i2 = i1 + run;
-    const i3 = i2 + run;
-    // Layer 1 (the butterfly of lastStageProducts).
-    const ar = W1[t],
-      ai = W1[t + 1];
-    const br = W1[i1],
-      bi = W1[i1 + 1];
-    const cr = W1[i2],
-      ci = W1[i2 + 1];
-    const dr = W1[i3],
-      di = W1[i3 + 1];
-    const t0r = ar + cr,
-      t0i = ai + ci;
-    const t1r = ar - cr,
-      t1i = ai - ci;
-    const t2r = br + dr,
-      t2i = bi + di;
-    const ur = br - dr,
-      ui = bi - di;
-    const u0 = t0r + t2r,
-      v0 = t0i + t2i;
-    const u2 = t0r - t2r,
-      v2 = t0i - t2i;
-    const u1 = t1r - ui,
-      v1 = t1i + ur;
-    const u3 = t1r + ui,
-      v3 = t1i - ur;
-    // Layer 2.
-    const er = W2[t],
-      ei = W2[t + 1];
-    const fr = W2[i1],
-      fi = W2[i1 + 1];
-    const gr = W2[i2],
-      gi = W2[i2 + 1];
-    const hr = W2[i3],
-      hi = W2[i3 + 1];
-    const s0r = er + gr,
-      s0i = ei + gi;
-    const s1r = er - gr,
-      s1i = ei - gi;
-    const s2r = fr + hr,
-      s2i = fi + hi;
-    const wr = fr - hr,
-      wi = fi - hi;
-    const p0 = s0r + s2r,
-      q0 = s0i + s2i;
-    const p2 = s0r - s2r,
-      q2 = s0i - s2i;
-    const p1 = s1r - wi,
-      q1 = s1i + wr;
-    const p3 = s1r + wi,
-      q3 = s1i - wr;
-    W1[t] = u0 * v0;
-    W1[t + 1] = v0 * v0 - u0 * u0;
-    W1[i1] = u1 * v1;
-    W1[i1 + 1] = v1 * v1 - u1 * u1;
-    W1[i2] = u2 * v2;
-    W1[i2 + 1] = v2 * v2 - u2 * u2;
-    W1[i3] = u3 * v3;
-    W1[i3 + 1] = v3 * v3 - u3 * u3;
-    W2[t] = p0 * q0;
-    W2[t + 1] = q0 * q0 - p0 * p0;
-    W2[i1] = p1 * q1;
-    W2[i1 + 1] = q1 * q1 - p1 * p1;
-    W2[i2] = p2 * q2;
-    W2[i2 + 1] = q2 * q2 - p2 * p2;
-    W2[i3] = p3 * q3;
-    W2[i3 + 1] = q3 * q3 - p3 * p3;
-    X[t >> 1] = u0 * q0 - p0 * v0;
-    X[i1 >> 1] = u1 * q1 - p1 * v1;
-    X[i2 >> 1] = u2 * q2 - p2 * v2;
-    X[i3 >> 1] = u3 * q3 - p3 * v3;
-    mu1 = Math.max(mu1, Math.abs(u0), Math.abs(u1), Math.abs(u2), Math.abs(u3));
-    mv1 = Math.max(mv1, Math.abs(v0), Math.abs(v1), Math.abs(v2), Math.abs(v3));
-    mu2 = Math.max(mu2, Math.abs(p0), Math.abs(p1), Math.abs(p2), Math.abs(p3));
-    mv2 = Math.max(mv2, Math.abs(q0), Math.abs(q1), Math.abs(q2), Math.abs(q3));
-  }
-  speeds[0] = mu1;
-  speeds[1] = mv1;
-  speeds[2] = mu2;
-  speeds[3] = mv2;
+  const whole = c0 === 0 && c1 === cols;
+  const first = whole ? 0 : 2 * c0;
+  const seg = whole ? run : 2 * (c1 - c0);
+  const step = whole ? run : 2 * cols;
+  for (let o = first; o < run; o += step)
+    for (let t = o, end = o + seg; t < end; t += 2) {
+      const i1 = t + run;
+      const i2 = i1 + run;
+      const i3 = i2 + run;
+      // Layer 1 (the butterfly of lastStageProducts).
+      const ar = W1[t],
+        ai = W1[t + 1];
+      const br = W1[i1],
+        bi = W1[i1 + 1];
+      const cr = W1[i2],
+        ci = W1[i2 + 1];
+      const dr = W1[i3],
+        di = W1[i3 + 1];
+      const t0r = ar + cr,
+        t0i = ai + ci;
+      const t1r = ar - cr,
+        t1i = ai - ci;
+      const t2r = br + dr,
+        t2i = bi + di;
+      const ur = br - dr,
+        ui = bi - di;
+      const u0 = t0r + t2r,
+        v0 = t0i + t2i;
+      const u2 = t0r - t2r,
+        v2 = t0i - t2i;
+      const u1 = t1r - ui,
+        v1 = t1i + ur;
+      const u3 = t1r + ui,
+        v3 = t1i - ur;
+      // Layer 2.
+      const er = W2[t],
+        ei = W2[t + 1];
+      const fr = W2[i1],
+        fi = W2[i1 + 1];
+      const gr = W2[i2],
+        gi = W2[i2 + 1];
+      const hr = W2[i3],
+        hi = W2[i3 + 1];
+      const s0r = er + gr,
+        s0i = ei + gi;
+      const s1r = er - gr,
+        s1i = ei - gi;
+      const s2r = fr + hr,
+        s2i = fi + hi;
+      const wr = fr - hr,
+        wi = fi - hi;
+      const p0 = s0r + s2r,
+        q0 = s0i + s2i;
+      const p2 = s0r - s2r,
+        q2 = s0i - s2i;
+      const p1 = s1r - wi,
+        q1 = s1i + wr;
+      const p3 = s1r + wi,
+        q3 = s1i - wr;
+      W1[t] = u0 * v0;
+      W1[t + 1] = v0 * v0 - u0 * u0;
+      W1[i1] = u1 * v1;
+      W1[i1 + 1] = v1 * v1 - u1 * u1;
+      W1[i2] = u2 * v2;
+      W1[i2 + 1] = v2 * v2 - u2 * u2;
+      W1[i3] = u3 * v3;
+      W1[i3 + 1] = v3 * v3 - u3 * u3;
+      W2[t] = p0 * q0;
+      W2[t + 1] = q0 * q0 - p0 * p0;
+      W2[i1] = p1 * q1;
+      W2[i1 + 1] = q1 * q1 - p1 * p1;
+      W2[i2] = p2 * q2;
+      W2[i2 + 1] = q2 * q2 - p2 * p2;
+      W2[i3] = p3 * q3;
+      W2[i3 + 1] = q3 * q3 - p3 * p3;
+      X[t >> 1] = u0 * q0 - p0 * v0;
+      X[i1 >> 1] = u1 * q1 - p1 * v1;
+      X[i2 >> 1] = u2 * q2 - p2 * v2;
+      X[i3 >> 1] = u3 * q3 - p3 * v3;
+      mu1 = Math.max(mu1, Math.abs(u0), Math.abs(u1), Math.abs(u2), Math.abs(u3));
+      mv1 = Math.max(mv1, Math.abs(v0), Math.abs(v1), Math.abs(v2), Math.abs(v3));
+      mu2 = Math.max(mu2, Math.abs(p0), Math.abs(p1), Math.abs(p2), Math.abs(p3));
+      mv2 = Math.max(mv2, Math.abs(q0), Math.abs(q1), Math.abs(q2), Math.abs(q3));
+    }
+  speeds[at] = mu1;
+  speeds[at + 1] = mv1;
+  speeds[at + 2] = mu2;
+  speeds[at + 3] = mv2;
 }
 
 /**
  * Forward y transform of the coupling product's single-field block (ny rows of Kx + 1 complex
  * columns, X's half-line spectra in x), finished into both layers' tendencies: on the kept rows and
- * columns 0..Kx,
+ * columns 0..Kx (ix0..ix1 − 1 when given),
  *   out1 += c1·X̂,  out2 += c2·X̂   (X̂ unnormalised: fold 1/(nx·ny) into c1 and c2).
  * `src` is the block y-transformed but for the last stage, as for `lastStageToTendency`.
  */
@@ -122,6 +132,8 @@ export function lastStageAddCoupling(
   grid: { ny: number; nkx: number; Kx: number; Ky: number },
   c1: number,
   c2: number,
+  ix0 = 0,
+  ix1 = grid.Kx + 1,
 ): void {
   const { ny, nkx, Kx, Ky } = grid;
   const cols = Kx + 1;
@@ -143,7 +155,7 @@ export function lastStageAddCoupling(
       o2 = 2 * j2 * nkx,
       o3 = 2 * j3 * nkx;
     const row = 2 * r * cols;
-    for (let ix = 0; ix <= Kx; ix++) {
+    for (let ix = ix0; ix < ix1; ix++) {
       const ia = row + 2 * ix;
       const aar = src[ia],
         aai = src[ia + 1];

@@ -8,15 +8,29 @@
  * out rather than called: a helper handing back several doubles would need an array or boxed
  * numbers inside the hot loop (a helper of that kind measured 3× slower).
  * Derivation, index maps and the stage-by-stage map to the plain passes: docs/fused-step.md.
+ *
+ * Each function takes an optional range (of kx columns or of grid rows y, default all) so that
+ * threads can share a pass (threadTeam.ts, docs/threads.md): every output value is computed by
+ * the same operations whatever the ranges, so any partition gives the same bits; the ranges of a
+ * pass must only tile it.
  */
 
 /**
  * Backward y transform, finished into the x-major work grid of realTransform2D.ts. `src` holds the
  * block of two half-plane spectra a (columns 0..top) and b (top+1..2·top+1), y-transformed but for
  * the last stage. Writes Z = A + iB at (kx, y) and, for 0 < kx < nx/2, Z(−kx) = conj(A) + i·conj(B)
- * at (nx − kx, y); the columns between top and nx − top are set to zero.
+ * at (nx − kx, y); the columns between top and nx − top are set to zero. With a range kx0..kx1 of
+ * kx, only those columns, and the same share of the zero columns.
  */
-export function lastStageToWorkGrid(src: Float64Array, W: Float64Array, nx: number, ny: number, top: number): void {
+export function lastStageToWorkGrid(
+  src: Float64Array,
+  W: Float64Array,
+  nx: number,
+  ny: number,
+  top: number,
+  kx0 = 0,
+  kx1 = top + 1,
+): void {
   const cols = 2 * (top + 1);
   const s = ny >> 2;
   const run = 2 * s * cols;
@@ -24,7 +38,7 @@ export function lastStageToWorkGrid(src: Float64Array, W: Float64Array, nx: numb
   const nyq = nx >> 1;
   const s2 = 2 * s; // doubles from output row y to y + s on the work grid
   // kx outer, r inner: the eight output streams of a column are written in order.
-  for (let kx = 0; kx <= top; kx++) {
+  for (let kx = kx0; kx < kx1; kx++) {
     const up = 2 * kx * ny;
     const mirror = kx > 0 && kx < nyq;
     const down = 2 * (nx - kx) * ny;
@@ -101,67 +115,96 @@ export function lastStageToWorkGrid(src: Float64Array, W: Float64Array, nx: numb
       }
     }
   }
-  if (top + 1 <= nx - top - 1) W.fill(0, 2 * (top + 1) * ny, 2 * (nx - top) * ny);
+  // The zero columns top + 1 .. nx − top − 1, shared out in proportion to kx0..kx1 of 0..top.
+  const zeros = nx - 2 * top - 1;
+  if (zeros > 0) {
+    const z0 = top + 1 + Math.floor((zeros * kx0) / (top + 1));
+    const z1 = top + 1 + Math.floor((zeros * kx1) / (top + 1));
+    if (z1 > z0) W.fill(0, 2 * z0 * ny, 2 * z1 * ny);
+  }
 }
 
 /**
  * Backward x transform finished in place, each result u + iv replaced by the products
- * (u·v, v² − u²) of the nonlinear term (nonlinearTerm.ts). `speeds` receives max|u| and max|v|.
+ * (u·v, v² − u²) of the nonlinear term (nonlinearTerm.ts). `speeds` receives max|u| and max|v| at
+ * `at`, `at` + 1. The transform's batch columns are the `cols` grid rows y (default: the whole run
+ * as one); with c0..c1, only those rows.
  */
-export function lastStageProducts(data: Float64Array, run: number, speeds: Float64Array): void {
+export function lastStageProducts(
+  data: Float64Array,
+  run: number,
+  speeds: Float64Array,
+  cols = run >> 1,
+  c0 = 0,
+  c1 = cols,
+  at = 0,
+): void {
   let mu = 0;
   let mv = 0;
-  for (let t = 0; t < run; t += 2) {
-    const i1 = t + run;
-    const i2 = i1 + run;
-    const i3 = i2 + run;
-    const ar = data[t],
-      ai = data[t + 1];
-    const br = data[i1],
-      bi = data[i1 + 1];
-    const cr = data[i2],
-      ci = data[i2 + 1];
-    const dr = data[i3],
-      di = data[i3 + 1];
-    const t0r = ar + cr,
-      t0i = ai + ci;
-    const t1r = ar - cr,
-      t1i = ai - ci;
-    const t2r = br + dr,
-      t2i = bi + di;
-    const ur = br - dr,
-      ui = bi - di;
-    const u0 = t0r + t2r,
-      v0 = t0i + t2i;
-    const u2 = t0r - t2r,
-      v2 = t0i - t2i;
-    const u1 = t1r - ui,
-      v1 = t1i + ur;
-    const u3 = t1r + ui,
-      v3 = t1i - ur;
-    data[t] = u0 * v0;
-    data[t + 1] = v0 * v0 - u0 * u0;
-    data[i1] = u1 * v1;
-    data[i1 + 1] = v1 * v1 - u1 * u1;
-    data[i2] = u2 * v2;
-    data[i2 + 1] = v2 * v2 - u2 * u2;
-    data[i3] = u3 * v3;
-    data[i3 + 1] = v3 * v3 - u3 * u3;
-    // Math.max/abs compile to branch-free instructions; a compare-and-branch here costs ~6% of a step.
-    mu = Math.max(mu, Math.abs(u0), Math.abs(u1), Math.abs(u2), Math.abs(u3));
-    mv = Math.max(mv, Math.abs(v0), Math.abs(v1), Math.abs(v2), Math.abs(v3));
-  }
-  speeds[0] = mu;
-  speeds[1] = mv;
+  const whole = c0 === 0 && c1 === cols;
+  const first = whole ? 0 : 2 * c0;
+  const seg = whole ? run : 2 * (c1 - c0);
+  const step = whole ? run : 2 * cols;
+  for (let o = first; o < run; o += step)
+    for (let t = o, end = o + seg; t < end; t += 2) {
+      const i1 = t + run;
+      const i2 = i1 + run;
+      const i3 = i2 + run;
+      const ar = data[t],
+        ai = data[t + 1];
+      const br = data[i1],
+        bi = data[i1 + 1];
+      const cr = data[i2],
+        ci = data[i2 + 1];
+      const dr = data[i3],
+        di = data[i3 + 1];
+      const t0r = ar + cr,
+        t0i = ai + ci;
+      const t1r = ar - cr,
+        t1i = ai - ci;
+      const t2r = br + dr,
+        t2i = bi + di;
+      const ur = br - dr,
+        ui = bi - di;
+      const u0 = t0r + t2r,
+        v0 = t0i + t2i;
+      const u2 = t0r - t2r,
+        v2 = t0i - t2i;
+      const u1 = t1r - ui,
+        v1 = t1i + ur;
+      const u3 = t1r + ui,
+        v3 = t1i - ur;
+      data[t] = u0 * v0;
+      data[t + 1] = v0 * v0 - u0 * u0;
+      data[i1] = u1 * v1;
+      data[i1 + 1] = v1 * v1 - u1 * u1;
+      data[i2] = u2 * v2;
+      data[i2 + 1] = v2 * v2 - u2 * u2;
+      data[i3] = u3 * v3;
+      data[i3 + 1] = v3 * v3 - u3 * u3;
+      // Math.max/abs compile to branch-free instructions; a compare-and-branch here costs ~6% of a step.
+      mu = Math.max(mu, Math.abs(u0), Math.abs(u1), Math.abs(u2), Math.abs(u3));
+      mv = Math.max(mv, Math.abs(v0), Math.abs(v1), Math.abs(v2), Math.abs(v3));
+    }
+  speeds[at] = mu;
+  speeds[at + 1] = mv;
 }
 
 /**
  * Forward x transform of the x-major work grid (a + i·b), finished into the block of realTransform2D.ts:
  * for each kept k ≤ top, the half-line spectra A(k) = ½(Y(k) + conj Y(−k)) and B(k) = (Y(k) − conj Y(−k))/2i
  * at row y. Y(k) and Y(nx − k) come from the butterflies at r and s − r (s = nx/4), so those two
- * are done together.
+ * are done together. With y0..y1, only those rows.
  */
-export function lastStageToBlock(src: Float64Array, block: Float64Array, nx: number, ny: number, top: number): void {
+export function lastStageToBlock(
+  src: Float64Array,
+  block: Float64Array,
+  nx: number,
+  ny: number,
+  top: number,
+  y0 = 0,
+  y1 = ny,
+): void {
   const cols = 2 * (top + 1);
   const bOff = 2 * (top + 1);
   const s = nx >> 2;
@@ -188,7 +231,7 @@ export function lastStageToBlock(src: Float64Array, block: Float64Array, nx: num
       keepQ3 = pair && q3 <= top;
     const ir = 2 * r * ny;
     const ip = 2 * rp * ny;
-    for (let y = 0; y < ny; y++) {
+    for (let y = y0; y < y1; y++) {
       const ia = ir + 2 * y;
       const ar = src[ia],
         ai = src[ia + 1];
@@ -282,14 +325,17 @@ function put(block: Float64Array, at: number, bOff: number, yr: number, yi: numb
 /**
  * Forward y transform of the products' block, finished into the nonlinear term (nonlinearTerm.ts):
  *   out(kx, ky) = (kx² − ky²)·scale·(uv)^ + kx·ky·scale·(v² − u²)^
- * on the kept rows (ky index ≤ Ky or ≥ ny − Ky) and columns 0..Kx; nothing else of `out` is written.
- * `src` holds the block (columns 0..Kx of uv, then of v² − u²) y-transformed but for the last stage.
+ * on the kept rows (ky index ≤ Ky or ≥ ny − Ky) and columns 0..Kx (ix0..ix1 − 1 when given);
+ * nothing else of `out` is written. `src` holds the block (columns 0..Kx of uv, then of v² − u²)
+ * y-transformed but for the last stage.
  */
 export function lastStageToTendency(
   src: Float64Array,
   out: Float64Array,
   grid: { ny: number; nkx: number; Kx: number; Ky: number; kx: Float64Array; ky: Float64Array },
   scale: number,
+  ix0 = 0,
+  ix1 = grid.Kx + 1,
 ): void {
   const { ny, nkx, Kx, Ky, kx, ky } = grid;
   const cols = 2 * (Kx + 1);
@@ -317,7 +363,7 @@ export function lastStageToTendency(
       o2 = 2 * j2 * nkx,
       o3 = 2 * j3 * nkx;
     const row = 2 * r * cols;
-    for (let ix = 0; ix <= Kx; ix++) {
+    for (let ix = ix0; ix < ix1; ix++) {
       const ia = row + 2 * ix;
       const ib = ia + bOff;
       const aar = src[ia],
@@ -386,7 +432,8 @@ function tend(
  * from q̂ on the kept rows (zero elsewhere, and at the mean) and combined at once by the stage's
  * butterflies, radix 4 over rows p + j·ny/4 or, when log2 ny is odd, radix 2 over p and p + ny/2,
  * with the twiddles of BatchFFT (cos, sin of 2π·m/ny), backward sign. Every entry of `dst` (block
- * layout) is written. Same operations as packing the block and running the stage.
+ * layout) is written, or with ix0..ix1 every entry of those columns of both fields. Same operations
+ * as packing the block and running the stage.
  */
 export function velocitiesFirstStageY(
   qHat: Float64Array,
@@ -396,6 +443,8 @@ export function velocitiesFirstStageY(
   cosT: Float64Array,
   sinT: Float64Array,
   dst: Float64Array,
+  ix0 = 0,
+  ix1 = grid.Kx + 1,
 ): void {
   const { ny, nkx, Kx, Ky, kx, ky } = grid;
   const cols = 2 * (Kx + 1);
@@ -431,7 +480,7 @@ export function velocitiesFirstStageY(
       s3 = radix === 4 ? sinT[3 * p] : 0;
     const twiddled = radix === 2 || p > 0;
     const o0 = radix * p * row; // output rows radix·p + j
-    for (let ix = 0; ix <= Kx; ix++) {
+    for (let ix = ix0; ix < ix1; ix++) {
       const kxv = kx[ix];
       // û_j, v̂_j of input row j (zero when the row is not kept or at the mean).
       let a0r = 0,

@@ -2,6 +2,7 @@ import type { Grid } from './grid';
 import type { ModelParams } from './params';
 import { expPortable } from './portableMath';
 import { cisPortable } from './portableTrig';
+import { plainFloat64, type Float64Alloc } from './sharedArena';
 
 /** cos and sin of a phase, shared scratch (module level, so no model holds it). */
 const phase = new Float64Array(2);
@@ -15,7 +16,8 @@ const phase = new Float64Array(2);
  * `setStep(dt)` fills the propagators exp(L dt/2) and exp(L dt) used by the integrating-factor step;
  * it allocates nothing and is the only costly call (one complex exponential per kept mode, made with
  * portableMath.ts and portableTrig.ts so that the propagators have the same bits on every engine;
- * e^{L dt} is its square).
+ * e^{L dt} is its square). The propagators are `alloc`ated (shared memory when threads share the
+ * step, each filling its own columns: `setStepColumns`).
  */
 export class LinearOperator {
   readonly grid: Grid;
@@ -34,7 +36,7 @@ export class LinearOperator {
   readonly fullStep: Float64Array;
   private dt = NaN;
 
-  constructor(grid: Grid, p: ModelParams) {
+  constructor(grid: Grid, p: ModelParams, alloc: Float64Alloc = plainFloat64) {
     this.grid = grid;
     const n = grid.spectralSize;
     this.invK2 = new Float64Array(n);
@@ -43,8 +45,8 @@ export class LinearOperator {
     this.lsRate = new Float64Array(n);
     this.waveRate = new Float64Array(n);
     this.kept = new Uint8Array(n);
-    this.halfStep = new Float64Array(2 * n);
-    this.fullStep = new Float64Array(2 * n);
+    this.halfStep = alloc(2 * n);
+    this.fullStep = alloc(2 * n);
     const kd2 = p.kd * p.kd;
     for (let jy = 0; jy < grid.ny; jy++) {
       for (let ix = 0; ix < grid.nkx; ix++) {
@@ -75,26 +77,44 @@ export class LinearOperator {
   /** Fill exp(L dt/2) and exp(L dt); a no-op when dt is unchanged. */
   setStep(dt: number): void {
     if (dt === this.dt) return;
+    this.setStepColumns(dt, 0, this.grid.Kx + 1);
+    this.builtFor(dt);
+  }
+
+  /**
+   * Record that the propagators now hold those of dt, after `setStepColumns` filled every column.
+   */
+  builtFor(dt: number): void {
     this.dt = dt;
-    const n = this.grid.spectralSize;
-    for (let q = 0; q < n; q++) {
-      if (!this.kept[q]) {
-        this.halfStep[2 * q] = this.halfStep[2 * q + 1] = 0;
-        this.fullStep[2 * q] = this.fullStep[2 * q + 1] = 0;
-        continue;
+  }
+
+  /**
+   * Fill exp(L dt/2) and exp(L dt) of the kept modes in columns ix0..ix1 − 1 (a thread's share of
+   * `setStep`; every other entry stays zero as made). Does not change `step`: see `builtFor`.
+   */
+  setStepColumns(dt: number, ix0: number, ix1: number): void {
+    const { keptRows, nkx } = this.grid;
+    for (let k = 0; k < keptRows.length; k++) {
+      const row = keptRows[k] * nkx;
+      for (let q = row + ix0; q < row + ix1; q++) {
+        if (!this.kept[q]) continue;
+        this.fillMode(q, dt);
       }
-      const re = -this.rate(q);
-      const im = this.waveRate[q];
-      // e^{L dt/2}, and e^{L dt} as its square (one complex product instead of a second exponential).
-      const h = expPortable(re * dt * 0.5);
-      cisPortable(im * dt * 0.5, phase);
-      const hr = h * phase[0];
-      const hi = h * phase[1];
-      this.halfStep[2 * q] = hr;
-      this.halfStep[2 * q + 1] = hi;
-      this.fullStep[2 * q] = hr * hr - hi * hi;
-      this.fullStep[2 * q + 1] = 2 * hr * hi;
     }
+  }
+
+  private fillMode(q: number, dt: number): void {
+    const re = -this.rate(q);
+    const im = this.waveRate[q];
+    // e^{L dt/2}, and e^{L dt} as its square (one complex product instead of a second exponential).
+    const h = expPortable(re * dt * 0.5);
+    cisPortable(im * dt * 0.5, phase);
+    const hr = h * phase[0];
+    const hi = h * phase[1];
+    this.halfStep[2 * q] = hr;
+    this.halfStep[2 * q + 1] = hi;
+    this.fullStep[2 * q] = hr * hr - hi * hi;
+    this.fullStep[2 * q + 1] = 2 * hr * hi;
   }
 }
 

@@ -5,15 +5,16 @@ import { Forcing } from './forcing';
 import { Grid } from './grid';
 import { layerFieldSpectrum, type LayerView } from './layerFields';
 import { LinearOperator } from './linearOperator';
-import { NonlinearTerm } from './nonlinearTerm';
 import { ONE_LAYER_VALUES, type ModelParams } from './params';
 import { RandomStream, type RandomState } from './randomStream';
 import { RealTransform2D } from './realTransform2D';
 import { regridSpectrum } from './regrid';
-import { Stepper } from './stepper';
-import { TwoLayerLinearOperator } from './twoLayerLinear';
-import { TwoLayerNonlinearTerm } from './twoLayerNonlinear';
-import { TwoLayerStepper } from './twoLayerStepper';
+import { plainFloat64, SharedArena } from './sharedArena';
+import { buildStepParts } from './stepParts';
+import type { Stepper } from './stepper';
+import type { StepThreads } from './threadTeam';
+import type { TwoLayerLinearOperator } from './twoLayerLinear';
+import type { TwoLayerStepper } from './twoLayerStepper';
 import { validateParams } from './validateParams';
 
 /**
@@ -23,57 +24,91 @@ import { validateParams } from './validateParams';
  * One layer (layers = 1) or two (layers = 2, the Phillips model: docs/two-layer.md). The two-layer
  * state is one array, q̂₁ then q̂₂; its fields are read per view (`LayerView`: a layer, the barotropic
  * or the baroclinic flow), the barotropic one by default.
+ *
+ * Threads: with `StepThreads` from its host (the command line's or the app's helper threads), the
+ * step runs on all of them, its arrays in shared memory (threadTeam.ts, docs/threads.md); the bits
+ * are those of one thread. Without, the calling thread steps alone.
  */
 export class Model {
   params: ModelParams;
   readonly grid: Grid;
   /** Transforms on kept modes only (the state never holds others). */
-  readonly transform: RealTransform2D;
+  transform!: RealTransform2D;
   /** One layer: the model's linear operator; two layers: that of the barotropic mode (k_d = 0). */
-  private lin: LinearOperator;
+  private lin!: LinearOperator;
   /** Two layers: the coupled linear operator; null in one layer. */
   private lin2: TwoLayerLinearOperator | null = null;
-  private forcing: Forcing;
+  private forcing!: Forcing;
   private rng: RandomStream;
-  private stepper: Stepper | TwoLayerStepper;
+  private stepper!: Stepper | TwoLayerStepper;
   private readonly spec: Float64Array;
+  private threads: StepThreads | null;
 
-  /** `blank` skips the initial random field (for restoring a state). */
-  constructor(input: unknown, blank = false) {
+  /**
+   * `blank` skips the initial random field (for restoring a state); `threads`, when given, are the
+   * threads the step runs on (see `useThreads`).
+   */
+  constructor(input: unknown, blank = false, threads: StepThreads | null = null) {
     const p = validateParams(input);
     this.params = p;
     this.grid = new Grid(p);
-    this.transform = new RealTransform2D(this.grid, true);
     this.rng = new RandomStream(p.seed);
-    this.lin = this.buildOperators(p);
-    this.forcing = this.buildForcing(p);
-    this.stepper = this.buildStepper(p);
+    this.threads = threads;
+    this.build(p);
     this.spec = new Float64Array(2 * this.grid.spectralSize);
     if (p.init_energy > 0 && !blank) this.seedInitialField(p);
   }
 
-  /** The linear operator(s) for p; sets lin2 (two layers) and returns lin. */
-  private buildOperators(p: ModelParams): LinearOperator {
-    if (p.layers === 1) {
-      this.lin2 = null;
-      return new LinearOperator(this.grid, p);
-    }
-    this.lin2 = new TwoLayerLinearOperator(this.grid, p);
-    return new LinearOperator(this.grid, { ...p, ...ONE_LAYER_VALUES, kd: 0, mu: 0 });
+  /**
+   * Build the step for p (stepParts.ts), in shared memory with the helper threads joined when
+   * there are threads, and the operators the model's other verbs use.
+   */
+  private build(p: ModelParams): void {
+    const threads = this.threads && this.threads.count > 1 && !this.threads.failed ? this.threads : null;
+    const arena = threads ? new SharedArena() : null;
+    const parts = buildStepParts(this.grid, p, this.rng, arena ? arena.alloc : plainFloat64);
+    this.stepper = parts.stepper;
+    this.forcing = parts.forcing;
+    this.lin2 = parts.lin2;
+    // Two layers: the barotropic operator (k_d = 0) for the diagnostics, and a transform of its own.
+    this.lin = parts.lin ?? new LinearOperator(this.grid, { ...p, ...ONE_LAYER_VALUES, kd: 0, mu: 0 });
+    this.transform = parts.transform ?? new RealTransform2D(this.grid, true);
+    if (threads && arena) this.stepper.team = threads.join(this.stepper, p, arena.buffers);
   }
 
-  /** One layer: normalised on 1/K²; two layers: on the barotropic 1/k² (it forces both layers alike). */
+  /** A forcing of another kind on this model's annulus (for the initial field of an unforced run). */
   private buildForcing(p: ModelParams): Forcing {
     return new Forcing(this.grid, p, this.lin2 ? { invK2: this.lin2.invK2Barotropic } : this.lin);
   }
 
-  private buildStepper(p: ModelParams): Stepper | TwoLayerStepper {
-    if (this.lin2) {
-      const nl2 = new TwoLayerNonlinearTerm(this.grid, this.lin2);
-      return new TwoLayerStepper(this.grid, p, this.lin2, nl2, this.forcing, this.rng);
+  /**
+   * Step on these threads from now on (null: on the calling thread alone). The step is rebuilt, in
+   * shared memory for threads, with its state, time, step count, dt and random stream kept: the
+   * next steps have the same bits either way. Throws ThreadTeamError (threadTeam.ts) when a helper
+   * could not join; the model then steps on the calling thread.
+   */
+  useThreads(threads: StepThreads | null): void {
+    if (threads === this.threads && this.threadCount === (threads?.count ?? 1)) return;
+    const old = this.stepper;
+    this.threads?.release();
+    this.threads = threads;
+    try {
+      this.build(this.params);
+    } catch (e) {
+      this.threads = null;
+      this.build(this.params);
+      throw e;
+    } finally {
+      this.stepper.qHat.set(old.qHat);
+      this.stepper.time = old.time;
+      this.stepper.steps = old.steps;
+      this.stepper.dt = old.dt;
     }
-    const nl = new NonlinearTerm(this.grid, this.lin, this.transform);
-    return new Stepper(this.grid, p, this.lin, nl, this.forcing, this.rng);
+  }
+
+  /** Threads the step runs on (1: the calling thread alone). Not part of the bits. */
+  get threadCount(): number {
+    return this.stepper.team.members;
   }
 
   /**
@@ -213,11 +248,11 @@ export class Model {
   }
 
   /** A model resumed from a checkpoint: the next step is the one the original would have taken. */
-  static restore(cp: Checkpoint): Model {
+  static restore(cp: Checkpoint, threads: StepThreads | null = null): Model {
     if (cp.format !== CHECKPOINT_FORMAT || cp.version !== CHECKPOINT_VERSION) {
       throw new RangeError(`not a ${CHECKPOINT_FORMAT} version ${CHECKPOINT_VERSION} checkpoint`);
     }
-    const m = new Model(cp.params, true);
+    const m = new Model(cp.params, true, threads);
     if (cp.qHat.length !== m.stepper.qHat.length) throw new RangeError('checkpoint spectrum does not match its grid');
     m.stepper.qHat.set(cp.qHat);
     m.stepper.time = cp.time;
@@ -231,15 +266,16 @@ export class Model {
    * The model with some parameters changed. Physical parameters change in place, keeping time,
    * steps, state and random stream (a new seed starts a new stream). A new grid (nx, ny) returns a new
    * Model carrying the state over, truncated or padded (`regridSpectrum`); a new domain (Lx, Ly)
-   * returns a new Model started afresh.
+   * returns a new Model started afresh. A new Model takes over this one's threads.
    */
   reconfigure(changes: Partial<ModelParams>): Model {
     const next = validateParams({ ...this.params, ...changes });
     const old = this.params;
-    if (next.Lx !== old.Lx || next.Ly !== old.Ly || next.layers !== old.layers) return new Model(next);
+    if (next.Lx !== old.Lx || next.Ly !== old.Ly || next.layers !== old.layers)
+      return new Model(next, false, this.threads);
     const rng = next.seed === old.seed ? this.rng.getState() : new RandomStream(next.seed).getState();
     if (next.nx !== old.nx || next.ny !== old.ny) {
-      const m = new Model(next, true);
+      const m = new Model(next, true, this.threads);
       const from = 2 * this.grid.spectralSize;
       const to = 2 * m.grid.spectralSize;
       for (let layer = 0; layer < next.layers; layer++) {
@@ -254,9 +290,7 @@ export class Model {
     const cp = this.checkpoint();
     this.params = next;
     this.rng.setState(rng);
-    this.lin = this.buildOperators(next);
-    this.forcing = this.buildForcing(next);
-    this.stepper = this.buildStepper(next);
+    this.build(next);
     this.stepper.qHat.set(cp.qHat);
     this.stepper.time = cp.time;
     this.stepper.steps = cp.steps;

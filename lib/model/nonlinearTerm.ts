@@ -16,11 +16,16 @@ import type { RealTransform2D } from './realTransform2D';
  * its work grid, so no stage copies a field. The result is exactly zero outside the kept modes and
  * exactly Hermitian in the kx = 0 column. Build once per grid; a call allocates nothing.
  * The derivation and the passes in order, plain and fused: docs/fused-step.md.
+ *
+ * An evaluation is three passes, which threads share (docs/threads.md): `toGrid` on a range of kx
+ * columns, `products` on a range of grid rows y, `tendency` on a range of kx columns again; each
+ * pass must be complete, on every range, before the next starts. `evaluateKept` runs the three on
+ * everything, one after the other.
  */
 export class NonlinearTerm {
   private readonly grid: Grid;
   private readonly lin: LinearOperator;
-  private readonly xf: RealTransform2D;
+  readonly transform: RealTransform2D;
   /** Largest |u| and |v| on the grid in the last evaluation. */
   maxU = 0;
   maxV = 0;
@@ -31,7 +36,7 @@ export class NonlinearTerm {
     if (grid.nx < 8 || grid.ny < 8) throw new RangeError('NonlinearTerm needs at least 8 × 8 points');
     this.grid = grid;
     this.lin = lin;
-    this.xf = xf;
+    this.transform = xf;
   }
 
   /** out ← −J(ψ, q) from qHat, every entry written; out and qHat must differ. Sets maxU, maxV. */
@@ -46,18 +51,47 @@ export class NonlinearTerm {
    * pass over the whole spectrum per stage.
    */
   evaluateKept(qHat: Float64Array, out: Float64Array): void {
-    const { nkx, ny, size } = this.grid;
-    const xf = this.xf;
-    // The velocities ψ̂ = −q̂/K², û = −i ky ψ̂, v̂ = i kx ψ̂ go straight into the y transform's first stage.
-    const yFFT = xf.yTransform;
-    velocitiesFirstStageY(qHat, this.lin.invK2, this.grid, yFFT.firstRadix, yFFT.cosT, yFFT.sinT, xf.block);
-    // The x transform's last stage forms the products (u, v) → (uv, v² − u²) and the largest speeds.
-    const W = xf.inverseFirstStageDoneButLast();
-    lastStageProducts(W, xf.xLastRun, this.speeds);
+    const { Kx, ny } = this.grid;
+    this.toGrid(qHat, 0, Kx + 1);
+    this.products(0, ny, this.speeds, 0);
     this.maxU = this.speeds[0];
     this.maxV = this.speeds[1];
-    // The y transform's last stage forms −Ĵ = (kx² − ky²)·(uv)^ + kx·ky·(v² − u²)^ on the kept modes.
-    lastStageToTendency(yFFT.transformButLast(xf.forwardToBlockButY(W), -1), out, this.grid, 1 / size);
+    this.tendency(out, 0, Kx + 1);
+  }
+
+  /**
+   * Pass 1, on kx columns ix0..ix1 − 1: the velocities ψ̂ = −q̂/K², û = −i ky ψ̂, v̂ = i kx ψ̂ of those
+   * columns of q̂ go straight into the y transform's first stage, and through the rest of it onto
+   * the work grid.
+   */
+  toGrid(qHat: Float64Array, ix0: number, ix1: number): void {
+    const xf = this.transform;
+    const y = xf.yTransform;
+    velocitiesFirstStageY(qHat, this.lin.invK2, this.grid, y.firstRadix, y.cosT, y.sinT, xf.block, ix0, ix1);
+    xf.inverseYColumns(ix0, ix1);
+  }
+
+  /**
+   * Pass 2, on grid rows y0..y1 − 1: the x transforms there and back; the backward one's last stage
+   * forms the products (u, v) → (uv, v² − u²) and the largest |u|, |v| of those rows (into
+   * speeds[at], speeds[at + 1]), the forward one's writes the block's rows.
+   */
+  products(y0: number, y1: number, speeds: Float64Array, at: number): void {
+    const xf = this.transform;
+    const W = xf.inverseXRows(y0, y1);
+    lastStageProducts(W, xf.xLastRun, speeds, this.grid.ny, y0, y1, at);
+    xf.forwardXRows(W, y0, y1);
+  }
+
+  /**
+   * Pass 3, on kx columns ix0..ix1 − 1: the y transform's last stage forms
+   * −Ĵ = (kx² − ky²)·(uv)^ + kx·ky·(v² − u²)^ on those columns of the kept modes; the range holding
+   * column 0 also zeroes the mean and makes that column exactly Hermitian.
+   */
+  tendency(out: Float64Array, ix0: number, ix1: number): void {
+    const { nkx, ny, size } = this.grid;
+    lastStageToTendency(this.transform.forwardYColumns(ix0, ix1), out, this.grid, 1 / size, ix0, ix1);
+    if (!(ix0 === 0 && ix1 > 0)) return;
     out[0] = out[1] = 0;
     // Exact Hermitian symmetry of the kx = 0 column (round-off differs between ±ky otherwise).
     for (let jy = 1; jy <= this.grid.Ky; jy++) {

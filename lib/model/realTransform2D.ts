@@ -1,4 +1,5 @@
 import { BatchFFT, lastStageInPlace } from './batchFFT';
+import { plainFloat64, type Float64Alloc } from './sharedArena';
 import { lastStageToBlock, lastStageToWorkGrid } from './fusedStages';
 import type { Grid } from './grid';
 
@@ -17,6 +18,11 @@ import type { Grid } from './grid';
  * (and the mean) to exactly zero. `pruned = false` is the exact full transform. Forward results are
  * made exactly Hermitian in the self-conjugate columns. Built once per grid; calls allocate nothing.
  * Normalisation as in `grid.ts`: forward divides by nx·ny, inverse does not.
+ *
+ * The stepper's passes come in two kinds that threads share differently (docs/threads.md): the y
+ * side works on ranges of kx columns (`inverseYColumns`, `forwardYColumns`), the x side on ranges
+ * of grid rows y (`inverseXRows`, `forwardXRows`); the arrays they write are `alloc`ated, so that
+ * they can live in shared memory.
  */
 export class RealTransform2D {
   readonly grid: Grid;
@@ -33,7 +39,7 @@ export class RealTransform2D {
   private readonly xFFT: BatchFFT;
   private readonly rowIsData: Uint8Array;
 
-  constructor(grid: Grid, pruned: boolean) {
+  constructor(grid: Grid, pruned: boolean, alloc: Float64Alloc = plainFloat64) {
     this.grid = grid;
     this.pruned = pruned;
     this.top = pruned ? grid.Kx : grid.nkx - 1;
@@ -46,10 +52,10 @@ export class RealTransform2D {
     this.rowIsData = new Uint8Array(grid.ny);
     for (const r of this.rows) this.rowIsData[r] = 1;
     const cols = 2 * (this.top + 1);
-    this.yFFT = new BatchFFT(grid.ny, cols);
-    this.xFFT = new BatchFFT(grid.nx, grid.ny);
-    this.block = new Float64Array(2 * grid.ny * cols);
-    this.work = new Float64Array(2 * grid.size);
+    this.yFFT = new BatchFFT(grid.ny, cols, alloc);
+    this.xFFT = new BatchFFT(grid.nx, grid.ny, alloc);
+    this.block = alloc(2 * grid.ny * cols);
+    this.work = alloc(2 * grid.size);
   }
 
   /**
@@ -83,14 +89,52 @@ export class RealTransform2D {
    * the block itself (every entry; see fusedStages.ts, velocitiesFirstStageY).
    */
   inverseFirstStageDoneButLast(): Float64Array {
-    return this.finishInverseButLast(this.yFFT.transformButFirstAndLast(this.block, 1));
+    this.inverseYColumns(0, this.top + 1);
+    return this.inverseXRows(0, this.grid.ny);
+  }
+
+  /**
+   * The y side of `inverseFirstStageDoneButLast` for the kx columns kx0..kx1 − 1 of both fields: the
+   * y transform's middle stages, and its last stage onto the work grid (with that share of the
+   * zero columns). The caller wrote those columns' first stage into the block.
+   */
+  inverseYColumns(kx0: number, kx1: number): void {
+    const { nx, ny } = this.grid;
+    // The y transform's last stage writes Z = A + iB, and Z(−kx), straight onto the x-major grid.
+    lastStageToWorkGrid(this.yColumns(this.block, 1, true, kx0, kx1), this.work, nx, ny, this.top, kx0, kx1);
+  }
+
+  /**
+   * The x side: the backward x transform but its last stage, on grid rows y0..y1 − 1 of the work
+   * grid; returns the array holding it (the same whatever the rows).
+   */
+  inverseXRows(y0: number, y1: number): Float64Array {
+    return this.xFFT.transformButLast(this.work, 1, this.xFFT.work, y0, y1);
   }
 
   private finishInverseButLast(ySpectra: Float64Array): Float64Array {
     const { nx, ny } = this.grid;
-    // The y transform's last stage writes Z = A + iB, and Z(−kx), straight onto the x-major grid.
     lastStageToWorkGrid(ySpectra, this.work, nx, ny, this.top);
     return this.xFFT.transformButLast(this.work, 1);
+  }
+
+  /**
+   * The y transform (but its last stage; `skipFirst`: but its first too) on kx columns kx0..kx1 − 1
+   * of both fields of `data` (the block): one batch of columns when that is all of them, else a's
+   * columns then b's. Returns the array holding the result.
+   */
+  private yColumns(data: Float64Array, sign: -1 | 1, skipFirst: boolean, kx0: number, kx1: number): Float64Array {
+    const b = this.top + 1;
+    if (kx0 === 0 && kx1 === b) return this.yStages(data, sign, skipFirst, 0, 2 * b);
+    this.yStages(data, sign, skipFirst, kx0, kx1);
+    return this.yStages(data, sign, skipFirst, b + kx0, b + kx1);
+  }
+
+  private yStages(data: Float64Array, sign: -1 | 1, skipFirst: boolean, c0: number, c1: number): Float64Array {
+    const y = this.yFFT;
+    return skipFirst
+      ? y.transformButFirstAndLast(data, sign, y.work, c0, c1)
+      : y.transformButLast(data, sign, y.work, c0, c1);
   }
 
   /** Doubles per output block of the x transform's last stage (see BatchFFT.lastRun). */
@@ -113,11 +157,27 @@ export class RealTransform2D {
    * caller that runs the y transform itself and fuses its last stage.
    */
   forwardToBlockButY(grid: Float64Array = this.work): Float64Array {
+    this.forwardXRows(grid, 0, this.grid.ny);
+    return this.block;
+  }
+
+  /**
+   * The x side of `forwardToBlockButY` on grid rows y0..y1 − 1: the forward x transform of those
+   * rows of `grid`, finished into those rows of the block.
+   */
+  forwardXRows(grid: Float64Array, y0: number, y1: number): void {
     const { nx, ny } = this.grid;
     const scratch = grid === this.work ? this.xFFT.work : this.work;
     // The x transform's last stage writes the half-line spectra of a and b straight into the block.
-    lastStageToBlock(this.xFFT.transformButLast(grid, -1, scratch), this.block, nx, ny, this.top);
-    return this.block;
+    lastStageToBlock(this.xFFT.transformButLast(grid, -1, scratch, y0, y1), this.block, nx, ny, this.top, y0, y1);
+  }
+
+  /**
+   * The y side: the forward y transform but its last stage on kx columns kx0..kx1 − 1 of both
+   * fields of the block; returns the array holding it (the same whatever the columns).
+   */
+  forwardYColumns(kx0: number, kx1: number): Float64Array {
+    return this.yColumns(this.block, -1, false, kx0, kx1);
   }
 
   /** The y transform, for callers of `forwardToBlockButY`. */

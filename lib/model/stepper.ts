@@ -5,6 +5,8 @@ import type { LinearOperator } from './linearOperator';
 import type { NonlinearTerm } from './nonlinearTerm';
 import type { ModelParams } from './params';
 import type { RandomStream } from './randomStream';
+import { plainFloat64, type Float64Alloc } from './sharedArena';
+import { MAX_THREADS, shareBound, SoloTeam, type PhasedStep, type StepTeam } from './stepTeam';
 
 /**
  * Above this CFL number, dt·(max|u|/dx + max|v|/dy), the step is refused: RK4 is stable for
@@ -30,14 +32,34 @@ export class BlowUpError extends Error {
   }
 }
 
+/** The phases of a one-layer step (stepTeam.ts); 0 is the team's own. */
+const GRID_Q = 1;
+const PRODUCTS = 2;
+const TENDENCY_A = 3;
+const STAGE_2 = 4;
+const STAGE_3 = 5;
+const STAGE_4 = 6;
+const COMBINE = 7;
+
+/** Shares of kx columns and of grid rows are cut at multiples of these (stepTeam.ts, shareBound). */
+export const COLUMN_UNIT = 4;
+export const ROW_UNIT = 4;
+
 /**
  * Integrating-factor RK4 (the linear terms, waves and damping, are integrated exactly):
  *   a = N(q),  b = N(E½(q + ½dt·a)),  c = N(E½q + ½dt·b),  d = N(E q + dt·E½c),
  *   q ← E q + dt/6·(E a + 2E½(b + c) + d),   E = e^{L dt}, E½ = e^{L dt/2},
  * N = −J(ψ, q) + F_steady; then the stochastic kick q̂ += √dt ξ. Fourth order in dt for the
  * deterministic part. One step allocates nothing. `report` is overwritten by every step.
+ *
+ * A step is a sequence of phases (stepTeam.ts, docs/threads.md) that the `team` runs: the three
+ * passes of each evaluation of N (nonlinearTerm.ts), with each stage's update folded into the pass
+ * on kx columns that ends the evaluation before it. Between phases the calling thread alone takes
+ * the budgets, the energy of the new state (both in one fixed order of the modes), the adaptive
+ * step and the random kick, so the bits do not depend on how many threads share the phases. The
+ * arrays threads share are `alloc`ated (sharedArena.ts).
  */
-export class Stepper {
+export class Stepper implements PhasedStep {
   readonly grid: Grid;
   readonly qHat: Float64Array;
   time = 0;
@@ -45,20 +67,34 @@ export class Stepper {
   /** The step in use (fixed, or the last adaptive choice). */
   dt: number;
   readonly report: StepReport = emptyReport();
+  /** Who runs the phases; the calling thread alone unless threads are given (Model.useThreads). */
+  team: StepTeam = new SoloTeam(this);
+  readonly lin: LinearOperator;
+  readonly nl: NonlinearTerm;
+  readonly forcing: Forcing;
   private readonly dtMax: number;
   private readonly cfl: number;
-  private readonly lin: LinearOperator;
-  private readonly nl: NonlinearTerm;
-  private readonly forcing: Forcing;
   private readonly rng: RandomStream;
   private readonly a: Float64Array;
   private readonly b: Float64Array;
   private readonly c: Float64Array;
   private readonly d: Float64Array;
   private readonly w: Float64Array;
+  /** What the calling thread tells the others for a phase: dt, and 1 when the propagators change. */
+  private readonly args: Float64Array;
+  /** max|u|, max|v| of each member's rows in the last `products` pass. */
+  private readonly speeds: Float64Array;
   private readonly kick = new Float64Array(2);
 
-  constructor(grid: Grid, p: ModelParams, lin: LinearOperator, nl: NonlinearTerm, forcing: Forcing, rng: RandomStream) {
+  constructor(
+    grid: Grid,
+    p: ModelParams,
+    lin: LinearOperator,
+    nl: NonlinearTerm,
+    forcing: Forcing,
+    rng: RandomStream,
+    alloc: Float64Alloc = plainFloat64,
+  ) {
     this.grid = grid;
     this.lin = lin;
     this.nl = nl;
@@ -68,22 +104,15 @@ export class Stepper {
     this.cfl = p.cfl;
     this.dt = p.dt;
     const ns = 2 * grid.spectralSize;
-    this.qHat = new Float64Array(ns);
+    this.qHat = alloc(ns);
     // Stage buffers: only kept modes are ever written, so the rest stay zero (evaluateKept relies on it).
-    this.a = new Float64Array(ns);
-    this.b = new Float64Array(ns);
-    this.c = new Float64Array(ns);
-    this.d = new Float64Array(ns);
-    this.w = new Float64Array(ns);
-  }
-
-  /** N(q) = −J(ψ, q) + F_steady into out. */
-  private tendency(q: Float64Array, out: Float64Array): void {
-    this.nl.evaluateKept(q, out);
-    if (this.forcing.kind === 'steady') {
-      const f = this.forcing.steady;
-      for (let i = 0; i < out.length; i++) out[i] += f[i];
-    }
+    this.a = alloc(ns);
+    this.b = alloc(ns);
+    this.c = alloc(ns);
+    this.d = alloc(ns);
+    this.w = alloc(ns);
+    this.args = alloc(2);
+    this.speeds = alloc(2 * MAX_THREADS);
   }
 
   /**
@@ -97,19 +126,30 @@ export class Stepper {
 
   /** Advance one step. Throws BlowUpError (state unchanged) on a non-finite result or CFL > CFL_LIMIT. */
   step(): StepReport {
-    const { a, b, c, d, w, qHat: q } = this;
+    const { w, qHat: q, team } = this;
     const { nkx, Kx, keptRows, dx, dy } = this.grid;
     const lin = this.lin;
     const r = this.report;
-    this.nl.evaluateKept(q, a);
-    const speed = this.nl.maxU / dx + this.nl.maxV / dy;
+    team.run(GRID_Q);
+    team.run(PRODUCTS);
+    // The largest speeds of the members' rows: a maximum is exact, so any grouping gives the same.
+    let maxU = 0;
+    let maxV = 0;
+    for (let m = 0; m < team.members; m++) {
+      maxU = Math.max(maxU, this.speeds[2 * m]);
+      maxV = Math.max(maxV, this.speeds[2 * m + 1]);
+    }
+    this.nl.maxU = maxU;
+    this.nl.maxV = maxV;
+    team.run(TENDENCY_A);
+    const speed = maxU / dx + maxV / dy;
     // Budgets at the start of the step (fused with adding the steady forcing to a).
-    this.startBudget(q, a);
+    this.startBudget(q, this.a);
     const dt = this.chooseStep(speed);
     r.dt = dt;
     r.cfl = dt * speed;
-    r.maxU = this.nl.maxU;
-    r.maxV = this.nl.maxV;
+    r.maxU = maxU;
+    r.maxV = maxV;
     r.time = this.time;
     r.steps = this.steps;
     // Refuse before anything changes: the state, the step in use and the propagators stay as they were.
@@ -119,41 +159,17 @@ export class Stepper {
       throw new BlowUpError('time step collapsed: too small to advance the clock', r);
     if (!(r.cfl <= CFL_LIMIT)) throw new BlowUpError(`CFL number above ${CFL_LIMIT}`, r);
     this.dt = dt;
-    lin.setStep(dt);
-    const e1 = lin.halfStep;
-    const e2 = lin.fullStep;
-    const h = 0.5 * dt;
-    // Stage 2: w = E½(q + ½dt a)
-    for (let k = 0; k < keptRows.length; k++) {
-      const row = 2 * keptRows[k] * nkx;
-      for (let t = row; t < row + 2 * (Kx + 1); t += 2) {
-        const xr = q[t] + h * a[t];
-        const xi = q[t + 1] + h * a[t + 1];
-        w[t] = e1[t] * xr - e1[t + 1] * xi;
-        w[t + 1] = e1[t] * xi + e1[t + 1] * xr;
-      }
-    }
-    this.tendency(w, b);
-    // Stage 3: w = E½ q + ½dt b
-    for (let k = 0; k < keptRows.length; k++) {
-      const row = 2 * keptRows[k] * nkx;
-      for (let t = row; t < row + 2 * (Kx + 1); t += 2) {
-        w[t] = e1[t] * q[t] - e1[t + 1] * q[t + 1] + h * b[t];
-        w[t + 1] = e1[t] * q[t + 1] + e1[t + 1] * q[t] + h * b[t + 1];
-      }
-    }
-    this.tendency(w, c);
-    // Stage 4: w = E q + dt E½ c
-    for (let k = 0; k < keptRows.length; k++) {
-      const row = 2 * keptRows[k] * nkx;
-      for (let t = row; t < row + 2 * (Kx + 1); t += 2) {
-        w[t] = e2[t] * q[t] - e2[t + 1] * q[t + 1] + dt * (e1[t] * c[t] - e1[t + 1] * c[t + 1]);
-        w[t + 1] = e2[t] * q[t + 1] + e2[t + 1] * q[t] + dt * (e1[t] * c[t + 1] + e1[t + 1] * c[t]);
-      }
-    }
-    this.tendency(w, d);
-    // Combination into w (the state is only replaced once the result is known to be finite).
-    const s = dt / 6;
+    this.args[0] = dt;
+    this.args[1] = lin.step === dt ? 0 : 1;
+    team.run(STAGE_2);
+    lin.builtFor(dt);
+    team.run(PRODUCTS);
+    team.run(STAGE_3);
+    team.run(PRODUCTS);
+    team.run(STAGE_4);
+    team.run(PRODUCTS);
+    team.run(COMBINE);
+    // The energy and enstrophy of the new state w, mode by mode in storage order.
     const invK2 = lin.invK2;
     let eNew = 0;
     let zNew = 0;
@@ -161,17 +177,8 @@ export class Stepper {
       const row = keptRows[k] * nkx;
       for (let ix = 0; ix <= Kx; ix++) {
         const m = row + ix;
-        const t = 2 * m;
-        const ar = e2[t] * a[t] - e2[t + 1] * a[t + 1];
-        const ai = e2[t] * a[t + 1] + e2[t + 1] * a[t];
-        const br = b[t] + c[t];
-        const bi = b[t + 1] + c[t + 1];
-        const mr = 2 * (e1[t] * br - e1[t + 1] * bi);
-        const mi = 2 * (e1[t] * bi + e1[t + 1] * br);
-        const nr = e2[t] * q[t] - e2[t + 1] * q[t + 1] + s * (ar + mr + d[t]);
-        const ni = e2[t] * q[t + 1] + e2[t + 1] * q[t] + s * (ai + mi + d[t + 1]);
-        w[t] = nr;
-        w[t + 1] = ni;
+        const nr = w[2 * m];
+        const ni = w[2 * m + 1];
         const sq = (ix === 0 ? 0.5 : 1) * (nr * nr + ni * ni);
         eNew += sq * invK2[m];
         zNew += sq;
@@ -190,6 +197,131 @@ export class Stepper {
     r.energy.realizedTendency = (eNew + this.kick[0] - r.energy.value) / dt;
     r.enstrophy.realizedTendency = (zNew + this.kick[1] - r.enstrophy.value) / dt;
     return r;
+  }
+
+  /** One member's share of a phase of `step` (stepTeam.ts): its kx columns, or its grid rows. */
+  runPhase(phase: number, member: number, members: number): void {
+    const { Kx, ny } = this.grid;
+    const nl = this.nl;
+    if (phase === PRODUCTS) {
+      const y0 = shareBound(ny, member, members, ROW_UNIT);
+      const y1 = shareBound(ny, member + 1, members, ROW_UNIT);
+      nl.products(y0, y1, this.speeds, 2 * member);
+      return;
+    }
+    const i0 = shareBound(Kx + 1, member, members, COLUMN_UNIT);
+    const i1 = shareBound(Kx + 1, member + 1, members, COLUMN_UNIT);
+    switch (phase) {
+      case GRID_Q:
+        nl.toGrid(this.qHat, i0, i1);
+        return;
+      case TENDENCY_A:
+        nl.tendency(this.a, i0, i1);
+        return;
+      case STAGE_2:
+        if (this.args[1] === 1) this.lin.setStepColumns(this.args[0], i0, i1);
+        this.stage2(i0, i1);
+        nl.toGrid(this.w, i0, i1);
+        return;
+      case STAGE_3:
+        this.tendency(this.b, i0, i1);
+        this.stage3(i0, i1);
+        nl.toGrid(this.w, i0, i1);
+        return;
+      case STAGE_4:
+        this.tendency(this.c, i0, i1);
+        this.stage4(i0, i1);
+        nl.toGrid(this.w, i0, i1);
+        return;
+      case COMBINE:
+        this.tendency(this.d, i0, i1);
+        this.combine(i0, i1);
+        return;
+      default:
+        throw new RangeError(`Stepper: no phase ${phase}`);
+    }
+  }
+
+  /** N = −J + F_steady on columns i0..i1 − 1 of out, the last pass of an evaluation. */
+  private tendency(out: Float64Array, i0: number, i1: number): void {
+    this.nl.tendency(out, i0, i1);
+    if (this.forcing.kind !== 'steady') return;
+    const f = this.forcing.steady;
+    const { keptRows, nkx } = this.grid;
+    for (let k = 0; k < keptRows.length; k++) {
+      const row = 2 * keptRows[k] * nkx;
+      for (let t = row + 2 * i0; t < row + 2 * i1; t++) out[t] += f[t];
+    }
+  }
+
+  /** Stage 2 on columns i0..i1 − 1: w = E½(q + ½dt a). */
+  private stage2(i0: number, i1: number): void {
+    const { a, w, qHat: q } = this;
+    const { nkx, keptRows } = this.grid;
+    const e1 = this.lin.halfStep;
+    const h = 0.5 * this.args[0];
+    for (let k = 0; k < keptRows.length; k++) {
+      const row = 2 * keptRows[k] * nkx;
+      for (let t = row + 2 * i0; t < row + 2 * i1; t += 2) {
+        const xr = q[t] + h * a[t];
+        const xi = q[t + 1] + h * a[t + 1];
+        w[t] = e1[t] * xr - e1[t + 1] * xi;
+        w[t + 1] = e1[t] * xi + e1[t + 1] * xr;
+      }
+    }
+  }
+
+  /** Stage 3 on columns i0..i1 − 1: w = E½ q + ½dt b. */
+  private stage3(i0: number, i1: number): void {
+    const { b, w, qHat: q } = this;
+    const { nkx, keptRows } = this.grid;
+    const e1 = this.lin.halfStep;
+    const h = 0.5 * this.args[0];
+    for (let k = 0; k < keptRows.length; k++) {
+      const row = 2 * keptRows[k] * nkx;
+      for (let t = row + 2 * i0; t < row + 2 * i1; t += 2) {
+        w[t] = e1[t] * q[t] - e1[t + 1] * q[t + 1] + h * b[t];
+        w[t + 1] = e1[t] * q[t + 1] + e1[t + 1] * q[t] + h * b[t + 1];
+      }
+    }
+  }
+
+  /** Stage 4 on columns i0..i1 − 1: w = E q + dt E½ c. */
+  private stage4(i0: number, i1: number): void {
+    const { c, w, qHat: q } = this;
+    const { nkx, keptRows } = this.grid;
+    const e1 = this.lin.halfStep;
+    const e2 = this.lin.fullStep;
+    const dt = this.args[0];
+    for (let k = 0; k < keptRows.length; k++) {
+      const row = 2 * keptRows[k] * nkx;
+      for (let t = row + 2 * i0; t < row + 2 * i1; t += 2) {
+        w[t] = e2[t] * q[t] - e2[t + 1] * q[t + 1] + dt * (e1[t] * c[t] - e1[t + 1] * c[t + 1]);
+        w[t + 1] = e2[t] * q[t + 1] + e2[t + 1] * q[t] + dt * (e1[t] * c[t + 1] + e1[t + 1] * c[t]);
+      }
+    }
+  }
+
+  /** The combination into w on columns i0..i1 − 1 (the state is replaced once it is known to be finite). */
+  private combine(i0: number, i1: number): void {
+    const { a, b, c, d, w, qHat: q } = this;
+    const { nkx, keptRows } = this.grid;
+    const e1 = this.lin.halfStep;
+    const e2 = this.lin.fullStep;
+    const s = this.args[0] / 6;
+    for (let k = 0; k < keptRows.length; k++) {
+      const row = 2 * keptRows[k] * nkx;
+      for (let t = row + 2 * i0; t < row + 2 * i1; t += 2) {
+        const ar = e2[t] * a[t] - e2[t + 1] * a[t + 1];
+        const ai = e2[t] * a[t + 1] + e2[t + 1] * a[t];
+        const br = b[t] + c[t];
+        const bi = b[t + 1] + c[t + 1];
+        const mr = 2 * (e1[t] * br - e1[t + 1] * bi);
+        const mi = 2 * (e1[t] * bi + e1[t + 1] * br);
+        w[t] = e2[t] * q[t] - e2[t + 1] * q[t + 1] + s * (ar + mr + d[t]);
+        w[t + 1] = e2[t] * q[t + 1] + e2[t + 1] * q[t] + s * (ai + mi + d[t + 1]);
+      }
+    }
   }
 
   /** Energy, enstrophy and their rates at state q with nonlinear term a; adds F_steady to a. */

@@ -2,6 +2,7 @@ import type { Grid } from './grid';
 import { integerPower } from './linearOperator';
 import { expComplex2x2 } from './matrixExp2';
 import { twoLayerCoefficients, type ModelParams, type TwoLayerCoefficients } from './params';
+import { plainFloat64, type Float64Alloc } from './sharedArena';
 
 /**
  * The linear part of the two-layer (Phillips) model, per Fourier mode a 2 × 2 complex matrix acting on
@@ -15,7 +16,8 @@ import { twoLayerCoefficients, type ModelParams, type TwoLayerCoefficients } fro
  * `setStep(dt)` fills the propagators e^{L dt/2} and e^{L dt} = (e^{L dt/2})² as 2 × 2 complex
  * matrices, 8 doubles per mode at 8·m (a₁₁, a₁₂, a₂₁, a₂₂, each re, im), by the closed form of
  * matrixExp2.ts: the coupling of the layers by the shear, β, the interface and the drag is integrated
- * exactly, once per dt, with the portable maths. Modes the model does not keep carry zero.
+ * exactly, once per dt, with the portable maths. Modes the model does not keep carry zero. The
+ * propagators are `alloc`ated (shared memory when threads share the step: `setStepColumns`).
  */
 export class TwoLayerLinearOperator {
   readonly grid: Grid;
@@ -35,7 +37,7 @@ export class TwoLayerLinearOperator {
   private dt = NaN;
   private readonly rate = new Float64Array(8);
 
-  constructor(grid: Grid, p: ModelParams) {
+  constructor(grid: Grid, p: ModelParams, alloc: Float64Alloc = plainFloat64) {
     this.grid = grid;
     this.coefficients = twoLayerCoefficients(p);
     this.mu = p.mu;
@@ -45,8 +47,8 @@ export class TwoLayerLinearOperator {
     this.hyperRate = new Float64Array(n);
     this.lsRate = new Float64Array(n);
     this.kept = new Uint8Array(n);
-    this.halfStep = new Float64Array(8 * n);
-    this.fullStep = new Float64Array(8 * n);
+    this.halfStep = alloc(8 * n);
+    this.fullStep = alloc(8 * n);
     const kd2 = p.kd * p.kd;
     for (let jy = 0; jy < grid.ny; jy++) {
       for (let ix = 0; ix < grid.nkx; ix++) {
@@ -100,38 +102,51 @@ export class TwoLayerLinearOperator {
   /** Fill e^{L dt/2} and e^{L dt}; a no-op when dt is unchanged. */
   setStep(dt: number): void {
     if (dt === this.dt) return;
+    this.setStepColumns(dt, 0, this.grid.Kx + 1);
+    this.builtFor(dt);
+  }
+
+  /** Record that the propagators now hold those of dt, after `setStepColumns` filled every column. */
+  builtFor(dt: number): void {
     this.dt = dt;
-    const n = this.grid.spectralSize;
+  }
+
+  /**
+   * Fill e^{L dt/2} and e^{L dt} of the kept modes in columns ix0..ix1 − 1 (a thread's share of
+   * `setStep`; every other entry stays zero as made). Does not change `step`: see `builtFor`.
+   */
+  setStepColumns(dt: number, ix0: number, ix1: number): void {
+    const { keptRows, nkx } = this.grid;
+    for (let k = 0; k < keptRows.length; k++) {
+      const row = keptRows[k] * nkx;
+      for (let m = row + ix0; m < row + ix1; m++) if (this.kept[m]) this.fillMode(m, dt);
+    }
+  }
+
+  private fillMode(m: number, dt: number): void {
     const r = this.rate;
     const H = this.halfStep;
     const E = this.fullStep;
     const h = 0.5 * dt;
-    for (let m = 0; m < n; m++) {
-      const o = 8 * m;
-      if (!this.kept[m]) {
-        H.fill(0, o, o + 8);
-        E.fill(0, o, o + 8);
-        continue;
-      }
-      this.rateMatrix(m, r);
-      expComplex2x2(h * r[0], h * r[1], h * r[2], h * r[3], h * r[4], h * r[5], h * r[6], h * r[7], H, o);
-      // e^{L dt} = (e^{L dt/2})²: one 2 × 2 product instead of a second exponential.
-      const p11r = H[o],
-        p11i = H[o + 1],
-        p12r = H[o + 2],
-        p12i = H[o + 3];
-      const p21r = H[o + 4],
-        p21i = H[o + 5],
-        p22r = H[o + 6],
-        p22i = H[o + 7];
-      E[o] = p11r * p11r - p11i * p11i + (p12r * p21r - p12i * p21i);
-      E[o + 1] = 2 * p11r * p11i + (p12r * p21i + p12i * p21r);
-      E[o + 2] = p11r * p12r - p11i * p12i + (p12r * p22r - p12i * p22i);
-      E[o + 3] = p11r * p12i + p11i * p12r + (p12r * p22i + p12i * p22r);
-      E[o + 4] = p21r * p11r - p21i * p11i + (p22r * p21r - p22i * p21i);
-      E[o + 5] = p21r * p11i + p21i * p11r + (p22r * p21i + p22i * p21r);
-      E[o + 6] = p21r * p12r - p21i * p12i + (p22r * p22r - p22i * p22i);
-      E[o + 7] = p21r * p12i + p21i * p12r + 2 * p22r * p22i;
-    }
+    const o = 8 * m;
+    this.rateMatrix(m, r);
+    expComplex2x2(h * r[0], h * r[1], h * r[2], h * r[3], h * r[4], h * r[5], h * r[6], h * r[7], H, o);
+    // e^{L dt} = (e^{L dt/2})²: one 2 × 2 product instead of a second exponential.
+    const p11r = H[o],
+      p11i = H[o + 1],
+      p12r = H[o + 2],
+      p12i = H[o + 3];
+    const p21r = H[o + 4],
+      p21i = H[o + 5],
+      p22r = H[o + 6],
+      p22i = H[o + 7];
+    E[o] = p11r * p11r - p11i * p11i + (p12r * p21r - p12i * p21i);
+    E[o + 1] = 2 * p11r * p11i + (p12r * p21i + p12i * p21r);
+    E[o + 2] = p11r * p12r - p11i * p12i + (p12r * p22r - p12i * p22i);
+    E[o + 3] = p11r * p12i + p11i * p12r + (p12r * p22i + p12i * p22r);
+    E[o + 4] = p21r * p11r - p21i * p11i + (p22r * p21r - p22i * p21i);
+    E[o + 5] = p21r * p11i + p21i * p11r + (p22r * p21i + p22i * p21r);
+    E[o + 6] = p21r * p12r - p21i * p12i + (p22r * p22r - p22i * p22i);
+    E[o + 7] = p21r * p12i + p21i * p12r + 2 * p22r * p22i;
   }
 }

@@ -3,6 +3,7 @@ import { lastStageAddCoupling, lastStageProductsCoupled } from './fusedCoupling'
 import { lastStageToBlock, lastStageToTendency, velocitiesFirstStageY } from './fusedStages';
 import type { Grid } from './grid';
 import { RealTransform2D } from './realTransform2D';
+import { plainFloat64, type Float64Alloc } from './sharedArena';
 import type { TwoLayerLinearOperator } from './twoLayerLinear';
 
 /**
@@ -24,6 +25,10 @@ import type { TwoLayerLinearOperator } from './twoLayerLinear';
  *
  * ψ̂_i come from the barotropic and baroclinic inversions (twoLayerLinear.ts) and are kept in `psi1`,
  * `psi2` for the caller (the stepper's budget). Build once per grid; a call allocates nothing.
+ *
+ * As in one layer (nonlinearTerm.ts), an evaluation is passes that threads share: `invert` and
+ * `toGrid` on kx columns, `products` on grid rows y, `tendency` on kx columns; the arrays they
+ * share are `alloc`ated.
  */
 export class TwoLayerNonlinearTerm {
   /** ψ̂₁, ψ̂₂ of the last evaluation (kept modes; zero elsewhere). */
@@ -47,18 +52,18 @@ export class TwoLayerNonlinearTerm {
   private readonly minusOne: Float64Array;
   private readonly speeds = new Float64Array(4);
 
-  constructor(grid: Grid, lin: TwoLayerLinearOperator) {
+  constructor(grid: Grid, lin: TwoLayerLinearOperator, alloc: Float64Alloc = plainFloat64) {
     if (grid.nx < 8 || grid.ny < 8) throw new RangeError('TwoLayerNonlinearTerm needs at least 8 × 8 points');
     this.grid = grid;
     this.lin = lin;
-    this.xf1 = new RealTransform2D(grid, true);
-    this.xf2 = new RealTransform2D(grid, true);
-    this.coupling = new Float64Array(grid.size);
-    this.couplingX = new BatchFFT(grid.nx, grid.ny / 2);
-    this.couplingY = new BatchFFT(grid.ny, grid.Kx + 1);
-    this.couplingBlock = new Float64Array(2 * grid.ny * (grid.Kx + 1));
-    this.psi1 = new Float64Array(2 * grid.spectralSize);
-    this.psi2 = new Float64Array(2 * grid.spectralSize);
+    this.xf1 = new RealTransform2D(grid, true, alloc);
+    this.xf2 = new RealTransform2D(grid, true, alloc);
+    this.coupling = alloc(grid.size);
+    this.couplingX = new BatchFFT(grid.nx, grid.ny / 2, alloc);
+    this.couplingY = new BatchFFT(grid.ny, grid.Kx + 1, alloc);
+    this.couplingBlock = alloc(2 * grid.ny * (grid.Kx + 1));
+    this.psi1 = alloc(2 * grid.spectralSize);
+    this.psi2 = alloc(2 * grid.spectralSize);
     this.minusOne = new Float64Array(grid.spectralSize).fill(-1);
   }
 
@@ -74,35 +79,71 @@ export class TwoLayerNonlinearTerm {
    * (for buffers that are zero there and stay so, as the stepper's stage buffers).
    */
   evaluateKept(q1: Float64Array, q2: Float64Array, out1: Float64Array, out2: Float64Array): void {
-    const { grid, xf1, xf2 } = this;
-    this.invert(q1, q2);
-    const y1 = xf1.yTransform;
-    velocitiesFirstStageY(this.psi1, this.minusOne, grid, y1.firstRadix, y1.cosT, y1.sinT, xf1.block);
-    const W1 = xf1.inverseFirstStageDoneButLast();
-    const y2 = xf2.yTransform;
-    velocitiesFirstStageY(this.psi2, this.minusOne, grid, y2.firstRadix, y2.cosT, y2.sinT, xf2.block);
-    const W2 = xf2.inverseFirstStageDoneButLast();
-    // Both x transforms' last stages: the layers' products in place, J(ψ₁, ψ₂) into its own grid.
-    lastStageProductsCoupled(W1, W2, this.coupling, xf1.xLastRun, this.speeds);
+    const { Kx, ny } = this.grid;
+    this.invert(q1, q2, 0, Kx + 1);
+    this.toGrid(0, Kx + 1);
+    this.products(0, ny, this.speeds, 0);
     this.maxU1 = this.speeds[0];
     this.maxV1 = this.speeds[1];
     this.maxU2 = this.speeds[2];
     this.maxV2 = this.speeds[3];
+    this.tendency(out1, out2, 0, Kx + 1);
+  }
+
+  /**
+   * On kx columns ix0..ix1 − 1 (after `invert` of those columns): the velocities of both layers
+   * into their y transforms' first stages, and through the rest of them onto the work grids.
+   */
+  toGrid(ix0: number, ix1: number): void {
+    const { grid, xf1, xf2 } = this;
+    const y1 = xf1.yTransform;
+    velocitiesFirstStageY(this.psi1, this.minusOne, grid, y1.firstRadix, y1.cosT, y1.sinT, xf1.block, ix0, ix1);
+    xf1.inverseYColumns(ix0, ix1);
+    const y2 = xf2.yTransform;
+    velocitiesFirstStageY(this.psi2, this.minusOne, grid, y2.firstRadix, y2.cosT, y2.sinT, xf2.block, ix0, ix1);
+    xf2.inverseYColumns(ix0, ix1);
+  }
+
+  /**
+   * On grid rows y0..y1 − 1 (even, as the coupling grid packs rows in pairs): both backward x
+   * transforms, whose last stages form the layers' products in place and J(ψ₁, ψ₂) into its own
+   * grid (max|u₁|, max|v₁|, max|u₂|, max|v₂| of those rows into speeds from `at`), and the three
+   * forward x transforms into their blocks' rows.
+   */
+  products(y0: number, y1: number, speeds: Float64Array, at: number): void {
+    const { grid, xf1, xf2 } = this;
+    const W1 = xf1.inverseXRows(y0, y1);
+    const W2 = xf2.inverseXRows(y0, y1);
+    lastStageProductsCoupled(W1, W2, this.coupling, xf1.xLastRun, speeds, grid.ny, y0, y1, at);
+    xf1.forwardXRows(W1, y0, y1);
+    xf2.forwardXRows(W2, y0, y1);
+    const cx = this.couplingX;
+    const X = cx.transformButLast(this.coupling, -1, cx.work, y0 >> 1, y1 >> 1);
+    lastStageToBlock(X, this.couplingBlock, grid.nx, grid.ny / 2, grid.Kx, y0 >> 1, y1 >> 1);
+  }
+
+  /**
+   * On kx columns ix0..ix1 − 1: the forward y transforms' last stages form −J(ψ_i, ζ_i) and add
+   * F_i·J(ψ₁, ψ₂) with its sign; the range holding column 0 zeroes the mean and makes that column
+   * exactly Hermitian in both outputs.
+   */
+  tendency(out1: Float64Array, out2: Float64Array, ix0: number, ix1: number): void {
+    const { grid, xf1, xf2 } = this;
     const scale = 1 / grid.size;
-    lastStageToTendency(y1.transformButLast(xf1.forwardToBlockButY(W1), -1), out1, grid, scale);
-    lastStageToTendency(y2.transformButLast(xf2.forwardToBlockButY(W2), -1), out2, grid, scale);
+    lastStageToTendency(xf1.forwardYColumns(ix0, ix1), out1, grid, scale, ix0, ix1);
+    lastStageToTendency(xf2.forwardYColumns(ix0, ix1), out2, grid, scale, ix0, ix1);
     const { F1, F2 } = this.lin.coefficients;
-    const X = this.couplingX.transformButLast(this.coupling, -1);
-    lastStageToBlock(X, this.couplingBlock, grid.nx, grid.ny / 2, grid.Kx);
-    const block = this.couplingY.transformButLast(this.couplingBlock, -1);
-    lastStageAddCoupling(block, out1, out2, grid, -F1 * scale, F2 * scale);
+    const cy = this.couplingY;
+    const block = cy.transformButLast(this.couplingBlock, -1, cy.work, ix0, ix1);
+    lastStageAddCoupling(block, out1, out2, grid, -F1 * scale, F2 * scale, ix0, ix1);
+    if (!(ix0 === 0 && ix1 > 0)) return;
     hermitianColumn(out1, grid);
     hermitianColumn(out2, grid);
   }
 
-  /** ψ̂₁, ψ̂₂ from q̂₁, q̂₂ on the kept modes: ψ_bt + h₂τ and ψ_bt − h₁τ. */
-  private invert(q1: Float64Array, q2: Float64Array): void {
-    const { nkx, Kx, keptRows } = this.grid;
+  /** ψ̂₁, ψ̂₂ from q̂₁, q̂₂ on the kept modes of columns ix0..ix1 − 1: ψ_bt + h₂τ and ψ_bt − h₁τ. */
+  invert(q1: Float64Array, q2: Float64Array, ix0: number, ix1: number): void {
+    const { nkx, keptRows } = this.grid;
     const { h1, h2 } = this.lin.coefficients;
     const ib = this.lin.invK2Barotropic;
     const ic = this.lin.invK2Baroclinic;
@@ -110,7 +151,7 @@ export class TwoLayerNonlinearTerm {
     const p2 = this.psi2;
     for (let k = 0; k < keptRows.length; k++) {
       const row = keptRows[k] * nkx;
-      for (let ix = 0; ix <= Kx; ix++) {
+      for (let ix = ix0; ix < ix1; ix++) {
         const m = row + ix;
         const t = 2 * m;
         const btr = -(h1 * q1[t] + h2 * q2[t]) * ib[m];

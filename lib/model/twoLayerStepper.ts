@@ -3,13 +3,24 @@ import type { Forcing } from './forcing';
 import type { Grid } from './grid';
 import type { ModelParams } from './params';
 import type { RandomStream } from './randomStream';
-import { adaptiveStep, BlowUpError, CFL_LIMIT, MIN_STEP_FRACTION } from './stepper';
+import { adaptiveStep, BlowUpError, CFL_LIMIT, COLUMN_UNIT, MIN_STEP_FRACTION, ROW_UNIT } from './stepper';
 import { twoLayerStartBudget } from './twoLayerBudget';
 import type { TwoLayerLinearOperator } from './twoLayerLinear';
 import type { TwoLayerNonlinearTerm } from './twoLayerNonlinear';
+import { plainFloat64, type Float64Alloc } from './sharedArena';
+import { MAX_THREADS, shareBound, SoloTeam, type PhasedStep, type StepTeam } from './stepTeam';
 
 /** The two layers of a buffer. */
 type Layers = readonly [Float64Array, Float64Array];
+
+/** The phases of a two-layer step (stepTeam.ts); 0 is the team's own. */
+const GRID_Q = 1;
+const PRODUCTS = 2;
+const TENDENCY_A = 3;
+const STAGE_2 = 4;
+const STAGE_3 = 5;
+const STAGE_4 = 6;
+const COMBINE = 7;
 
 /**
  * Integrating-factor RK4 for the two-layer model, the scheme of stepper.ts with the scalar factors
@@ -22,9 +33,10 @@ type Layers = readonly [Float64Array, Float64Array];
  * array, layer 1 then layer 2, each in the half-plane layout. The adaptive step and the blow-up rules
  * are those of one layer, the speed being max over the layers of (max|u_i| + |U_i|)/dx + max|v_i|/dy
  * (the imposed flow U_i adds to the eddies' u_i; the bound takes both at their largest). One step
- * allocates nothing. `report` is overwritten by every step.
+ * allocates nothing. `report` is overwritten by every step. Phases, threads and the shared arrays as
+ * in one layer (stepper.ts, docs/threads.md).
  */
-export class TwoLayerStepper {
+export class TwoLayerStepper implements PhasedStep {
   readonly grid: Grid;
   /** The state: q̂₁ at [0, n), q̂₂ at [n, 2n), n = 2·spectralSize. */
   readonly qHat: Float64Array;
@@ -32,11 +44,13 @@ export class TwoLayerStepper {
   steps = 0;
   dt: number;
   readonly report: StepReport = emptyReport();
+  /** Who runs the phases; the calling thread alone unless threads are given (Model.useThreads). */
+  team: StepTeam = new SoloTeam(this);
+  readonly lin: TwoLayerLinearOperator;
+  readonly nl: TwoLayerNonlinearTerm;
+  readonly forcing: Forcing;
   private readonly dtMax: number;
   private readonly cfl: number;
-  private readonly lin: TwoLayerLinearOperator;
-  private readonly nl: TwoLayerNonlinearTerm;
-  private readonly forcing: Forcing;
   private readonly rng: RandomStream;
   private readonly q1: Float64Array;
   private readonly q2: Float64Array;
@@ -51,6 +65,10 @@ export class TwoLayerStepper {
   private readonly cL: Layers;
   private readonly dL: Layers;
   private readonly wL: Layers;
+  /** dt, and 1 when the propagators change (written by the calling thread before a phase). */
+  private readonly args: Float64Array;
+  /** max|u₁|, max|v₁|, max|u₂|, max|v₂| of each member's rows in the last `products` pass. */
+  private readonly speeds: Float64Array;
   private readonly kick = new Float64Array(2);
   private readonly kickLayers: { h1: number; h2: number; ib: Float64Array; ic: Float64Array };
   /** Half the spectrum's length: the offset of layer 2. */
@@ -63,6 +81,7 @@ export class TwoLayerStepper {
     nl: TwoLayerNonlinearTerm,
     forcing: Forcing,
     rng: RandomStream,
+    alloc: Float64Alloc = plainFloat64,
   ) {
     this.grid = grid;
     this.lin = lin;
@@ -74,21 +93,23 @@ export class TwoLayerStepper {
     this.dt = p.dt;
     const n = 2 * grid.spectralSize;
     this.n = n;
-    this.qHat = new Float64Array(2 * n);
+    this.qHat = alloc(2 * n);
     this.q1 = this.qHat.subarray(0, n);
     this.q2 = this.qHat.subarray(n);
     // Stage buffers: only kept modes are ever written, so the rest stay zero (evaluateKept relies on it).
-    this.a = new Float64Array(2 * n);
-    this.b = new Float64Array(2 * n);
-    this.c = new Float64Array(2 * n);
-    this.d = new Float64Array(2 * n);
-    this.w = new Float64Array(2 * n);
+    this.a = alloc(2 * n);
+    this.b = alloc(2 * n);
+    this.c = alloc(2 * n);
+    this.d = alloc(2 * n);
+    this.w = alloc(2 * n);
     const split = (x: Float64Array): Layers => [x.subarray(0, n), x.subarray(n)];
     this.aL = split(this.a);
     this.bL = split(this.b);
     this.cL = split(this.c);
     this.dL = split(this.d);
     this.wL = split(this.w);
+    this.args = alloc(2);
+    this.speeds = alloc(4 * MAX_THREADS);
     const { h1, h2 } = lin.coefficients;
     this.kickLayers = { h1, h2, ib: lin.invK2Barotropic, ic: lin.invK2Baroclinic };
     this.report.energy.generation = 0;
@@ -96,39 +117,40 @@ export class TwoLayerStepper {
     this.report.layers = emptyTwoLayerTerms();
   }
 
-  /** N(x) of both layers (x and out: layer 1 then layer 2), F_steady added to each. */
-  private tendency(x: Layers, out: Float64Array, outL: Layers): void {
-    const n = this.n;
-    this.nl.evaluateKept(x[0], x[1], outL[0], outL[1]);
-    if (this.forcing.kind === 'steady') {
-      const f = this.forcing.steady;
-      for (let i = 0; i < n; i++) {
-        out[i] += f[i];
-        out[n + i] += f[i];
-      }
-    }
-  }
-
   /** Advance one step. Throws BlowUpError (state unchanged) on a non-finite result or CFL > CFL_LIMIT. */
   step(): StepReport {
-    const { a, b, c, d, w, qHat: q, n } = this;
+    const { w, qHat: q, n, team, speeds } = this;
     const { nkx, Kx, keptRows, dx, dy } = this.grid;
     const lin = this.lin;
     const nl = this.nl;
     const r = this.report;
-    nl.evaluateKept(this.q1, this.q2, this.aL[0], this.aL[1]);
+    team.run(GRID_Q);
+    team.run(PRODUCTS);
+    // The largest speeds of the members' rows: a maximum is exact, so any grouping gives the same.
+    let mu1 = 0,
+      mv1 = 0,
+      mu2 = 0,
+      mv2 = 0;
+    for (let m = 0; m < team.members; m++) {
+      mu1 = Math.max(mu1, speeds[4 * m]);
+      mv1 = Math.max(mv1, speeds[4 * m + 1]);
+      mu2 = Math.max(mu2, speeds[4 * m + 2]);
+      mv2 = Math.max(mv2, speeds[4 * m + 3]);
+    }
+    nl.maxU1 = mu1;
+    nl.maxV1 = mv1;
+    nl.maxU2 = mu2;
+    nl.maxV2 = mv2;
+    team.run(TENDENCY_A);
     const { U1, U2 } = lin.coefficients;
-    const speed = Math.max(
-      (nl.maxU1 + Math.abs(U1)) / dx + nl.maxV1 / dy,
-      (nl.maxU2 + Math.abs(U2)) / dx + nl.maxV2 / dy,
-    );
+    const speed = Math.max((mu1 + Math.abs(U1)) / dx + mv1 / dy, (mu2 + Math.abs(U2)) / dx + mv2 / dy);
     // Budgets at the start of the step (with nl.psi of this state; adds the steady forcing to a).
-    twoLayerStartBudget(this.grid, lin, this.forcing, q, nl.psi1, nl.psi2, a, r);
+    twoLayerStartBudget(this.grid, lin, this.forcing, q, nl.psi1, nl.psi2, this.a, r);
     const dt = adaptiveStep(this.dtMax, this.cfl, this.dt, speed);
     r.dt = dt;
     r.cfl = dt * speed;
-    r.maxU = Math.max(nl.maxU1, nl.maxU2);
-    r.maxV = Math.max(nl.maxV1, nl.maxV2);
+    r.maxU = Math.max(mu1, mu2);
+    r.maxV = Math.max(mv1, mv2);
     r.time = this.time;
     r.steps = this.steps;
     if (!Number.isFinite(speed)) throw new BlowUpError('non-finite velocity', r);
@@ -136,14 +158,128 @@ export class TwoLayerStepper {
       throw new BlowUpError('time step collapsed: too small to advance the clock', r);
     if (!(r.cfl <= CFL_LIMIT)) throw new BlowUpError(`CFL number above ${CFL_LIMIT}`, r);
     this.dt = dt;
-    lin.setStep(dt);
-    const P = lin.halfStep;
-    const E = lin.fullStep;
-    const h = 0.5 * dt;
-    // Stage 2: w = E½(q + ½dt a)
+    this.args[0] = dt;
+    this.args[1] = lin.step === dt ? 0 : 1;
+    team.run(STAGE_2);
+    lin.builtFor(dt);
+    team.run(PRODUCTS);
+    team.run(STAGE_3);
+    team.run(PRODUCTS);
+    team.run(STAGE_4);
+    team.run(PRODUCTS);
+    team.run(COMBINE);
+    // The two-layer energy and enstrophy of the new state w, mode by mode in storage order.
+    const { h1, h2 } = lin.coefficients;
+    const h12 = h1 * h2;
+    const ib = lin.invK2Barotropic;
+    const ic = lin.invK2Baroclinic;
+    let eNew = 0;
+    let zNew = 0;
     for (let k = 0; k < keptRows.length; k++) {
       const row = keptRows[k] * nkx;
-      for (let m = row; m <= row + Kx; m++) {
+      for (let ix = 0; ix <= Kx; ix++) {
+        const m = row + ix;
+        const t = 2 * m;
+        const u = n + t;
+        const n1r = w[t],
+          n1i = w[t + 1],
+          n2r = w[u],
+          n2i = w[u + 1];
+        const wgt = ix === 0 ? 0.5 : 1;
+        const btr = h1 * n1r + h2 * n2r,
+          bti = h1 * n1i + h2 * n2i;
+        const bcr = n1r - n2r,
+          bci = n1i - n2i;
+        eNew += wgt * ((btr * btr + bti * bti) * ib[m] + h12 * (bcr * bcr + bci * bci) * ic[m]);
+        zNew += wgt * (h1 * (n1r * n1r + n1i * n1i) + h2 * (n2r * n2r + n2i * n2i));
+      }
+    }
+    if (!Number.isFinite(eNew + zNew)) throw new BlowUpError('non-finite state', r);
+    this.kick[0] = this.kick[1] = 0;
+    if (this.forcing.kind === 'stochastic')
+      this.forcing.kickBothLayers(this.wL[0], this.wL[1], dt, this.rng, this.kickLayers, this.kick);
+    q.set(w);
+    this.time += dt;
+    this.steps += 1;
+    r.time = this.time;
+    r.steps = this.steps;
+    r.energy.realizedInjection = this.kick[0] / dt;
+    r.enstrophy.realizedInjection = this.kick[1] / dt;
+    r.energy.realizedTendency = (eNew + this.kick[0] - r.energy.value) / dt;
+    r.enstrophy.realizedTendency = (zNew + this.kick[1] - r.enstrophy.value) / dt;
+    return r;
+  }
+
+  /** One member's share of a phase of `step` (stepTeam.ts): its kx columns, or its grid rows. */
+  runPhase(phase: number, member: number, members: number): void {
+    const { Kx, ny } = this.grid;
+    const nl = this.nl;
+    if (phase === PRODUCTS) {
+      const y0 = shareBound(ny, member, members, ROW_UNIT);
+      const y1 = shareBound(ny, member + 1, members, ROW_UNIT);
+      nl.products(y0, y1, this.speeds, 4 * member);
+      return;
+    }
+    const i0 = shareBound(Kx + 1, member, members, COLUMN_UNIT);
+    const i1 = shareBound(Kx + 1, member + 1, members, COLUMN_UNIT);
+    const [w1, w2] = this.wL;
+    switch (phase) {
+      case GRID_Q:
+        nl.invert(this.q1, this.q2, i0, i1);
+        nl.toGrid(i0, i1);
+        return;
+      case TENDENCY_A:
+        nl.tendency(this.aL[0], this.aL[1], i0, i1);
+        return;
+      case STAGE_2:
+        if (this.args[1] === 1) this.lin.setStepColumns(this.args[0], i0, i1);
+        this.stage2(i0, i1);
+        break;
+      case STAGE_3:
+        this.tendency(this.bL, i0, i1);
+        this.stage3(i0, i1);
+        break;
+      case STAGE_4:
+        this.tendency(this.cL, i0, i1);
+        this.stage4(i0, i1);
+        break;
+      case COMBINE:
+        this.tendency(this.dL, i0, i1);
+        this.combine(i0, i1);
+        return;
+      default:
+        throw new RangeError(`TwoLayerStepper: no phase ${phase}`);
+    }
+    // Stages 2 to 4 end with the next evaluation's first pass on w.
+    nl.invert(w1, w2, i0, i1);
+    nl.toGrid(i0, i1);
+  }
+
+  /** N of both layers on columns i0..i1 − 1 (the last pass of an evaluation), F_steady added to each. */
+  private tendency(out: Layers, i0: number, i1: number): void {
+    this.nl.tendency(out[0], out[1], i0, i1);
+    if (this.forcing.kind !== 'steady') return;
+    const f = this.forcing.steady;
+    const [o1, o2] = out;
+    const { keptRows, nkx } = this.grid;
+    for (let k = 0; k < keptRows.length; k++) {
+      const row = 2 * keptRows[k] * nkx;
+      for (let t = row + 2 * i0; t < row + 2 * i1; t++) {
+        o1[t] += f[t];
+        o2[t] += f[t];
+      }
+    }
+  }
+
+  /** Stage 2 on columns i0..i1 − 1: w = E½(q + ½dt a). */
+  private stage2(i0: number, i1: number): void {
+    const { a, w, qHat: q, n } = this;
+    const { nkx, keptRows } = this.grid;
+    const P = this.lin.halfStep;
+    const h = 0.5 * this.args[0];
+    for (let k = 0; k < keptRows.length; k++) {
+      const row = keptRows[k] * nkx;
+      for (let m = row + i0; m < row + i1; m++) {
         const t = 2 * m;
         const u = n + t;
         const o = 8 * m;
@@ -157,11 +293,17 @@ export class TwoLayerStepper {
         w[u + 1] = P[o + 4] * x1i + P[o + 5] * x1r + (P[o + 6] * x2i + P[o + 7] * x2r);
       }
     }
-    this.tendency(this.wL, b, this.bL);
-    // Stage 3: w = E½ q + ½dt b
+  }
+
+  /** Stage 3 on columns i0..i1 − 1: w = E½ q + ½dt b. */
+  private stage3(i0: number, i1: number): void {
+    const { b, w, qHat: q, n } = this;
+    const { nkx, keptRows } = this.grid;
+    const P = this.lin.halfStep;
+    const h = 0.5 * this.args[0];
     for (let k = 0; k < keptRows.length; k++) {
       const row = keptRows[k] * nkx;
-      for (let m = row; m <= row + Kx; m++) {
+      for (let m = row + i0; m < row + i1; m++) {
         const t = 2 * m;
         const u = n + t;
         const o = 8 * m;
@@ -175,11 +317,18 @@ export class TwoLayerStepper {
         w[u + 1] = P[o + 4] * x1i + P[o + 5] * x1r + (P[o + 6] * x2i + P[o + 7] * x2r) + h * b[u + 1];
       }
     }
-    this.tendency(this.wL, c, this.cL);
-    // Stage 4: w = E q + dt E½ c
+  }
+
+  /** Stage 4 on columns i0..i1 − 1: w = E q + dt E½ c. */
+  private stage4(i0: number, i1: number): void {
+    const { c, w, qHat: q, n } = this;
+    const { nkx, keptRows } = this.grid;
+    const P = this.lin.halfStep;
+    const E = this.lin.fullStep;
+    const dt = this.args[0];
     for (let k = 0; k < keptRows.length; k++) {
       const row = keptRows[k] * nkx;
-      for (let m = row; m <= row + Kx; m++) {
+      for (let m = row + i0; m < row + i1; m++) {
         const t = 2 * m;
         const u = n + t;
         const o = 8 * m;
@@ -213,19 +362,18 @@ export class TwoLayerStepper {
           dt * (P[o + 4] * c1i + P[o + 5] * c1r + (P[o + 6] * c2i + P[o + 7] * c2r));
       }
     }
-    this.tendency(this.wL, d, this.dL);
-    // Combination into w (the state is only replaced once the result is known to be finite).
-    const s = dt / 6;
-    const { h1, h2 } = lin.coefficients;
-    const h12 = h1 * h2;
-    const ib = lin.invK2Barotropic;
-    const ic = lin.invK2Baroclinic;
-    let eNew = 0;
-    let zNew = 0;
+  }
+
+  /** The combination into w on columns i0..i1 − 1 (the state is replaced once it is known to be finite). */
+  private combine(i0: number, i1: number): void {
+    const { a, b, c, d, w, qHat: q, n } = this;
+    const { nkx, keptRows } = this.grid;
+    const P = this.lin.halfStep;
+    const E = this.lin.fullStep;
+    const s = this.args[0] / 6;
     for (let k = 0; k < keptRows.length; k++) {
       const row = keptRows[k] * nkx;
-      for (let ix = 0; ix <= Kx; ix++) {
-        const m = row + ix;
+      for (let m = row + i0; m < row + i1; m++) {
         const t = 2 * m;
         const u = n + t;
         const o = 8 * m;
@@ -274,28 +422,7 @@ export class TwoLayerStepper {
         w[t + 1] = n1i;
         w[u] = n2r;
         w[u + 1] = n2i;
-        const wgt = ix === 0 ? 0.5 : 1;
-        const btr = h1 * n1r + h2 * n2r,
-          bti = h1 * n1i + h2 * n2i;
-        const bcr = n1r - n2r,
-          bci = n1i - n2i;
-        eNew += wgt * ((btr * btr + bti * bti) * ib[m] + h12 * (bcr * bcr + bci * bci) * ic[m]);
-        zNew += wgt * (h1 * (n1r * n1r + n1i * n1i) + h2 * (n2r * n2r + n2i * n2i));
       }
     }
-    if (!Number.isFinite(eNew + zNew)) throw new BlowUpError('non-finite state', r);
-    this.kick[0] = this.kick[1] = 0;
-    if (this.forcing.kind === 'stochastic')
-      this.forcing.kickBothLayers(this.wL[0], this.wL[1], dt, this.rng, this.kickLayers, this.kick);
-    q.set(w);
-    this.time += dt;
-    this.steps += 1;
-    r.time = this.time;
-    r.steps = this.steps;
-    r.energy.realizedInjection = this.kick[0] / dt;
-    r.enstrophy.realizedInjection = this.kick[1] / dt;
-    r.energy.realizedTendency = (eNew + this.kick[0] - r.energy.value) / dt;
-    r.enstrophy.realizedTendency = (zNew + this.kick[1] - r.enstrophy.value) / dt;
-    return r;
   }
 }

@@ -103,6 +103,7 @@ export function modelMemory(nx: number, ny: number, forcedModes: number, layers:
       ? [
           ['TwoLayerStepper', 'state q̂₁, q̂₂ and RK stages a, b, c, d, w', 6 * 4 * S, 8],
           ['TwoLayerStepper', 'kick pair', 2, 8],
+          ['TwoLayerStepper', 'phase arguments and the speed maxima of up to 64 threads', 2 + 4 * 64, 8],
           ['TwoLayerLinearOperator', 'rates 1/K², 1/(K² + k_d²), hyper, large-scale', 4 * S, 8],
           ['TwoLayerLinearOperator', '2 × 2 propagators e^{L dt/2}, e^{L dt}', 2 * 8 * S, 8],
           ['TwoLayerLinearOperator', 'kept mask', S, 1],
@@ -117,6 +118,7 @@ export function modelMemory(nx: number, ny: number, forcedModes: number, layers:
       : [
           ['Stepper', 'state q̂ and RK stages a, b, c, d, w', 6 * 2 * S, 8],
           ['Stepper', 'kick pair', 2, 8],
+          ['Stepper', 'phase arguments and the speed maxima of up to 64 threads', 2 + 2 * 64, 8],
           ['NonlinearTerm', 'largest speeds |u|, |v|', 2, 8],
         ];
   const rows = [...own, ...shared];

@@ -23,7 +23,8 @@ import { namedValues } from '../io/namedValues';
  *     "params": the parameters as the command asked (before any retry halved dt),
  *     "plan": the resolved RunPlan, "origin": { "time", "steps" } where the run began,
  *     "retries": [RetryRecord…],
- *     "outputs": { "created_at", "command", "snapshots": { "path", "every", "records" } | null,
+ *     "outputs": { "created_at", "command", "threads" (optional: of the run that began the files),
+ *                  "snapshots": { "path", "every", "records" } | null,
  *                  "zonal": { "path", "records" } | null },
  *     "measurement": the MonitoredRunState as JSON (stateJson.ts) | null,
  *     "digest": textDigest (lib/io/digest.ts) of the entry's text without it, a newline, and the
@@ -42,6 +43,8 @@ export const PROGRESS_VERSION = 1;
 export interface OutputProgress {
   created_at: string;
   command: string;
+  /** Threads the run that began the NetCDF files stepped on (their stria_threads), when recorded. */
+  threads?: number;
   snapshots: { path: string; every: number; records: number } | null;
   zonal: { path: string; records: number } | null;
 }
@@ -115,6 +118,7 @@ const ProgressSchema = v.strictObject({
   outputs: v.strictObject({
     created_at: v.string('must be a text'),
     command: v.string('must be a text'),
+    threads: v.optional(v.pipe(count, v.minValue(1, 'must be ≥ 1'))),
     snapshots: v.nullable(
       v.strictObject({
         path: v.string('must be a text'),
@@ -129,8 +133,13 @@ const ProgressSchema = v.strictObject({
 });
 
 /** The checkpoint file's text: the run file of `cp` with the progress entry first. */
-export function encodeCheckpointFile(cp: Checkpoint, progress: RunProgress, saved: Date = new Date()): string {
-  const runFile = encodeRunFile(cp, saved);
+export function encodeCheckpointFile(
+  cp: Checkpoint,
+  progress: RunProgress,
+  saved: Date = new Date(),
+  threads?: number,
+): string {
+  const runFile = encodeRunFile(cp, saved, threads);
   const entry = {
     format: PROGRESS_FORMAT,
     version: PROGRESS_VERSION,

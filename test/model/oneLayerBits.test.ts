@@ -1,4 +1,5 @@
-import { describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startStepThreads, type NodeStepThreads } from '../../cli/stepThreads';
 import { stateChecksum, textDigest } from '../../lib/io/digest';
 import { Model } from '../../lib/model/model';
 import type { ModelParams } from '../../lib/model/params';
@@ -97,6 +98,28 @@ describe('the one-layer model keeps its bits', () => {
   for (const run of RUNS) {
     it(run.name, () => {
       const m = new Model(run.params);
+      m.step(run.steps);
+      expect(stateChecksum(m.qHat)).toBe(run.state);
+      expect(m.time).toBe(run.time);
+      expect(m.dt).toBe(run.dt);
+      expect(textDigest(JSON.stringify(m.report))).toBe(run.report);
+    });
+  }
+});
+
+// The same pins on three threads (docs/threads.md): the number of threads is not part of the bits.
+describe('the one-layer model keeps its bits on three threads', () => {
+  let threads: NodeStepThreads;
+  beforeAll(async () => {
+    threads = await startStepThreads(3);
+  });
+  afterAll(async () => {
+    await threads?.close();
+  });
+  for (const run of RUNS) {
+    it(run.name, () => {
+      const m = new Model(run.params, false, threads.threads);
+      expect(m.threadCount).toBe(3);
       m.step(run.steps);
       expect(stateChecksum(m.qHat)).toBe(run.state);
       expect(m.time).toBe(run.time);
