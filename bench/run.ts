@@ -21,7 +21,7 @@ import { referenceUnavailable, runReference, type ReferenceTiming } from './refe
 import { timeStep, type StepTiming } from './stepBench';
 import { fitScaling } from './scaling';
 import { median } from './timing';
-import { MIN_JETS, MIN_STAIRCASE, timeToJets } from './timeToJets';
+import { MIN_JETS, timeToJets } from './timeToJets';
 import { timeFieldDraw } from './drawBench';
 import { scalingLaw } from './scalingLaw';
 import { availableParallelism } from 'node:os';
@@ -60,7 +60,7 @@ if (has('--time-to-jets')) {
   const n = Number(value('--n') ?? 256);
   if (!json)
     console.log(
-      `Time to jets: default scenario at ${n}², from rest, until ≥ ${MIN_JETS} jets and staircase index ≥ ${MIN_STAIRCASE}`,
+      `Time to jets: default scenario at ${n}², from rest, until the jet detector finds ≥ ${MIN_JETS} significant jets in a window of the drag time 1/μ`,
     );
   const r = timeToJets(n, json ? undefined : console.log, threadsFor(threadCounts[0]));
   const s = r.summary;
