@@ -13,6 +13,8 @@
  *   --time-to-jets     the default scenario at 256² from rest until jets show, on every core (or on
  *                      --threads N): wall and model time, and the scheme's error at that step against
  *                      half and quarter steps
+ *   --two-layer        the two-layer step beside the one-layer step at each size (one thread, alternated
+ *                      over the rounds): ms per step and their ratio, median over the rounds
  *   --draw             the Field figure's draw time at 512² (or --n N) in Debian's Chromium
  *   --scaling-law      the README's Rhines-scaling sweep through `stria sweep` on every core (--jobs J):
  *                      wall time and the fitted exponent of jet spacing against the Rhines length
@@ -89,6 +91,31 @@ if (has('--scaling-law')) {
     { kind: 'scaling_law', ...r },
     `  ${r.runs} runs in ${r.wall_seconds.toFixed(0)} s wall: jet_spacing ∝ rhines_length^b, b = ${f.exponent?.toFixed(2)} [${ci?.[0].toFixed(2)}, ${ci?.[1].toFixed(2)}] (${((f.level ?? 0.95) * 100).toFixed(0)} % bootstrap interval), prefactor at b = 1: ${f.prefactor_at_exponent_1?.toFixed(2)}${ci && ci[0] <= 1 && ci[1] >= 1 && ci[0] > 0 ? ' — the Rhines scaling' : ''}`,
   );
+  await finish();
+}
+
+if (has('--two-layer')) {
+  const twoRounds = Math.max(1, Number(value('--rounds') ?? 3));
+  const ratios = new Map<number, number[]>();
+  for (let round = 1; round <= twoRounds; round++) {
+    if (!json) console.log(`Two-layer step beside the one-layer step, one thread, round ${round} of ${twoRounds}`);
+    for (const n of sizes) {
+      const one = timeStep(n, null, 1);
+      const two = timeStep(n, null, 2);
+      const ratio = two.ms_per_step / one.ms_per_step;
+      ratios.set(n, [...(ratios.get(n) ?? []), ratio]);
+      emit(
+        { kind: 'two_layer', round, n, one_layer_ms: one.ms_per_step, two_layer_ms: two.ms_per_step, ratio },
+        `  n = ${String(n).padStart(4)}   one layer ${one.ms_per_step.toFixed(3)} ms, two layers ${two.ms_per_step.toFixed(3)} ms: ×${ratio.toFixed(2)}`,
+      );
+    }
+  }
+  if (!json) console.log('Two-layer/one-layer step: median (lowest–highest)');
+  for (const [n, rs] of ratios)
+    emit(
+      { kind: 'two_layer_ratio', n, rounds: rs.length, median: median(rs), min: Math.min(...rs), max: Math.max(...rs) },
+      `  n = ${String(n).padStart(4)}   ${median(rs).toFixed(2)} (${Math.min(...rs).toFixed(2)}–${Math.max(...rs).toFixed(2)})`,
+    );
   await finish();
 }
 

@@ -26,6 +26,14 @@ export function benchParams(n: number): ModelParams {
   };
 }
 
+/**
+ * The two-layer parameters timed at size n: benchParams with two equal layers, k_d = 8 and a modest
+ * imposed shear (the stirring stays on as an extra). Cost does not depend on the values.
+ */
+export function twoLayerBenchParams(n: number): ModelParams {
+  return { ...benchParams(n), layers: 2, shear: 0.5, depth_ratio: 1, kd: 8 };
+}
+
 export interface StepTiming {
   n: number;
   /** Threads the step ran on, the calling one included. */
@@ -34,9 +42,12 @@ export interface StepTiming {
   scheme: string;
 }
 
-/** Milliseconds per default step at n × n, on `threads` (null: the calling thread alone). */
-export function timeStep(n: number, threads: StepThreads | null = null): StepTiming {
-  const p = benchParams(n);
+/**
+ * Milliseconds per default step at n × n, on `threads` (null: the calling thread alone), of the
+ * one-layer model or (layers = 2) the two-layer one.
+ */
+export function timeStep(n: number, threads: StepThreads | null = null, layers: 1 | 2 = 1): StepTiming {
+  const p = layers === 2 ? twoLayerBenchParams(n) : benchParams(n);
   const model = new Model(p, false, threads);
   model.step(20); // let the JIT settle on the real code path
   const ms = msPerCall(() => model.step(), { warmup: 3, batches: n >= 512 ? 5 : 7, batchMs: n >= 512 ? 1500 : 500 });
