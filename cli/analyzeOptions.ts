@@ -88,6 +88,12 @@ export const ANALYZE_OPTIONS: readonly OptionSpec[] = [
   },
   { name: 'no-spectra', kind: 'flag', help: 'skip spectra and spectral flux' },
   {
+    name: 'layer',
+    kind: 'text',
+    value: 'N|mean',
+    help: 'fields with a layer (or vertical) dimension: analyse layer N (from 1,\nthe first along it) or the depth-weighted mean (default mean); a two-layer\nfile gets its eddy heat flux reported',
+  },
+  {
     name: 'subsample',
     kind: 'count',
     value: 'K',
@@ -121,6 +127,13 @@ export function toOptions(o: Record<string, unknown>): AnalyzeFileOptions {
   if (o['q-total']) out.qIncludesBeta = true;
   if (o['no-spectra']) out.spectra = false;
   if (o.subsample !== undefined) out.subsample = o.subsample as number;
+  if (o.layer !== undefined) {
+    const text = (o.layer as string).trim().toLowerCase();
+    const n = Number(text);
+    if (text === 'mean') out.layer = 'mean';
+    else if (/^[0-9]+$/.test(text) && n >= 1) out.layer = n;
+    else throw new UsageError(`--layer must be a layer number from 1 or "mean", got "${o.layer}"`);
+  }
   const budget = o['memory-budget'] as string | undefined;
   out.memoryBudget = budget === undefined ? DEFAULT_MEMORY_BUDGET : parseByteSize(budget);
   if (!Number.isFinite(out.memoryBudget))

@@ -1,9 +1,10 @@
+import { LayerSnapshotPlan } from '../lib/analysis/layerSnapshot';
 import { SnapshotPlan, type GridFields } from '../lib/analysis/snapshot';
 import type { StriaRunInfo } from '../lib/io/cfGlobalAttributes';
-import { SNAPSHOT_FILE, ZONAL_MEAN_FILE } from '../lib/io/cfStria';
-import { snapshotFrame, zonalMeanFrame } from '../lib/io/cfStriaWriter';
+import { fileKindsOf, type StriaFileKindSpec } from '../lib/io/cfStria';
+import { layerSnapshotFrame, layerZonalMeanFrame, snapshotFrame, zonalMeanFrame } from '../lib/io/cfStriaWriter';
 import type { ModelParams } from '../lib/model/params';
-import { monitoredParams, monitoredState, type RunHooks } from '../lib/run/monitoredRun';
+import type { RunHooks } from '../lib/run/monitoredRun';
 import type { OutputProgress } from '../lib/run/runProgress';
 import { NcRecordFile } from './ncRecordFile';
 
@@ -12,7 +13,8 @@ import { NcRecordFile } from './ncRecordFile';
  * model's step 0, so a resumed run keeps the same cadence) and the zonal-mean time series at every
  * sample of the run monitor. Both are NetCDF (CF) files growing record by record (NcRecordFile).
  * A resumed run continues them from the record counts its checkpoint holds (`keep`), and a blow-up
- * retry rolls them back to those of its checkpoint.
+ * retry rolls them back to those of its checkpoint. A two-layer run writes both layers, with a layer
+ * dimension (lib/io/cfStria.ts, docs/file-formats.md), and its zonal means carry the heat flux.
  */
 export interface RunOutputRequest {
   snapshots?: string;
@@ -31,37 +33,45 @@ export class RunOutputs {
   private readonly zonal: NcRecordFile | null;
   private readonly every: number;
   private readonly plan: SnapshotPlan | null;
+  private readonly layerPlan: LayerSnapshotPlan | null;
   private readonly run: StriaRunInfo;
+  private readonly kinds: { snapshots: StriaFileKindSpec; zonal: StriaFileKindSpec };
   private fields: GridFields | undefined;
-  /** Two layers: the barotropic spectrum the snapshots show (monitoredState). */
-  private barotropic: Float64Array | undefined;
+  private lower: GridFields | undefined;
 
   constructor(params: ModelParams, req: RunOutputRequest, run: StriaRunInfo, keep: Partial<OutputCounts> = {}) {
     this.every = req.every ?? 0;
     this.run = run;
-    const open = (path: string, kind: typeof SNAPSHOT_FILE, n: number | null | undefined) =>
+    this.kinds = fileKindsOf(params.layers);
+    const open = (path: string, kind: StriaFileKindSpec, n: number | null | undefined) =>
       typeof n === 'number' ? NcRecordFile.continue(path, kind, run, n) : new NcRecordFile(path, kind, run);
-    this.snapshots = req.snapshots ? open(req.snapshots, SNAPSHOT_FILE, keep.snapshots) : null;
+    this.snapshots = req.snapshots ? open(req.snapshots, this.kinds.snapshots, keep.snapshots) : null;
     try {
-      this.zonal = req.zonal ? open(req.zonal, ZONAL_MEAN_FILE, keep.zonal) : null;
+      this.zonal = req.zonal ? open(req.zonal, this.kinds.zonal, keep.zonal) : null;
     } catch (e) {
       this.snapshots?.close();
       throw e;
     }
-    // Two layers: the snapshots hold the barotropic flow, as the summary and zonal means do (monitoredParams).
-    this.plan = this.snapshots ? new SnapshotPlan(monitoredParams(params)) : null;
+    const two = params.layers === 2;
+    this.plan = this.snapshots && !two ? new SnapshotPlan(params) : null;
+    this.layerPlan = this.snapshots && two ? new LayerSnapshotPlan(params) : null;
   }
 
   hooks(): RunHooks {
     return {
       onStep: (m) => {
         if (!this.snapshots || m.steps % this.every !== 0) return;
-        const q = monitoredState(m, this.barotropic);
-        if (q !== m.qHat) this.barotropic = q;
-        this.fields = this.plan!.gridFields(q, this.fields);
+        if (this.layerPlan) {
+          this.fields = this.layerPlan.gridFields(m.qHat, 'upper', this.fields);
+          this.lower = this.layerPlan.gridFields(m.qHat, 'lower', this.lower);
+          this.snapshots.append(layerSnapshotFrame(m.time, m.steps, this.fields, this.lower));
+          return;
+        }
+        this.fields = this.plan!.gridFields(m.qHat, this.fields);
         this.snapshots.append(snapshotFrame(m.time, m.steps, this.fields));
       },
-      onSample: (t, steps, z) => this.zonal?.append(zonalMeanFrame(t, steps, z)),
+      onSample: (t, steps, z, layers) =>
+        this.zonal?.append(layers ? layerZonalMeanFrame(t, steps, layers) : zonalMeanFrame(t, steps, z)),
     };
   }
 
@@ -81,8 +91,9 @@ export class RunOutputs {
 
   /** Drop the records written after `counts` were taken. */
   rollBack(counts: OutputCounts): void {
-    if (this.snapshots && counts.snapshots !== null) this.snapshots.rollBack(counts.snapshots, SNAPSHOT_FILE, this.run);
-    if (this.zonal && counts.zonal !== null) this.zonal.rollBack(counts.zonal, ZONAL_MEAN_FILE, this.run);
+    if (this.snapshots && counts.snapshots !== null)
+      this.snapshots.rollBack(counts.snapshots, this.kinds.snapshots, this.run);
+    if (this.zonal && counts.zonal !== null) this.zonal.rollBack(counts.zonal, this.kinds.zonal, this.run);
   }
 
   /** Flush both files to the disk. */

@@ -1,7 +1,7 @@
 import type { FieldName } from '../model/fields';
 import { Grid } from '../model/grid';
 import { layerFieldSpectrum, type LayerView } from '../model/layerFields';
-import type { ModelParams } from '../model/params';
+import { ONE_LAYER_VALUES, type ModelParams } from '../model/params';
 import { RealTransform2D } from '../model/realTransform2D';
 import { TwoLayerLinearOperator } from '../model/twoLayerLinear';
 import type { GridFields } from './snapshot';
@@ -61,5 +61,28 @@ export class LayerSnapshotPlan {
     };
     for (const name of ['u', 'v', 'q', 'zeta', 'psi'] as const) this.field(qHat, name, view, f[name]);
     return f;
+  }
+}
+
+/**
+ * The barotropic flow of a two-layer run as a one-layer flow: the run's parameters with the layer
+ * keys at their one-layer values and k_d = 0. Its PV h₁q₁ + h₂q₂ = ∇²ψ_bt is its relative vorticity
+ * and its mean PV gradient h₁Q₁ + h₂Q₂ = β (the shear terms cancel, F₁h₁ = F₂h₂), so the one-layer
+ * diagnostics (zonal means, jets, staircase, Hovmöller, spectra) apply to it as they stand.
+ */
+export function barotropicParams(p: ModelParams): ModelParams {
+  return { ...p, ...ONE_LAYER_VALUES, kd: 0 };
+}
+
+/**
+ * The barotropic flow's fields from the layers' (the views are linear: f_bt = h₁f₁ + h₂f₂), into out;
+ * its `q` is h₁q₁ + h₂q₂ = ζ_bt. Allocates nothing.
+ */
+export function barotropicFields(upper: GridFields, lower: GridFields, h1: number, h2: number, out: GridFields): void {
+  for (const name of ['u', 'v', 'q', 'zeta', 'psi'] as const) {
+    const a = upper[name];
+    const b = lower[name];
+    const o = out[name];
+    for (let i = 0; i < o.length; i++) o[i] = h1 * a[i] + h2 * b[i];
   }
 }

@@ -25,6 +25,8 @@ export interface LayerZonalMeans {
   convUpvp: Float64Array;
   /** (v′τ′)‾, the eddy interface (heat) flux (length³/time²); v of the upper layer (either gives it). */
   heatFlux: Float64Array;
+  /** The same as a plain zonal mean, before the band limit (what files hold, as for the other eddy products). */
+  heatFluxPlain: Float64Array;
 }
 
 export function createLayerZonalMeans(ny: number): LayerZonalMeans {
@@ -36,6 +38,7 @@ export function createLayerZonalMeans(ny: number): LayerZonalMeans {
     upvp: f(),
     convUpvp: f(),
     heatFlux: f(),
+    heatFluxPlain: f(),
   };
 }
 
@@ -96,9 +99,10 @@ export class LayerZonalMeanPlan {
       const tb = st * inv;
       let vt = 0;
       for (let i = 0; i < nx; i++) vt += (upper.v[r + i] - vb) * (upper.psi[r + i] - lower.psi[r + i] - tb);
-      out.heatFlux[j] = vt * inv;
+      out.heatFluxPlain[j] = vt * inv;
     }
-    if (this.band < ny / 2) this.profile.truncate(out.heatFlux, out.heatFlux, this.band);
+    if (this.band < ny / 2) this.profile.truncate(out.heatFluxPlain, out.heatFlux, this.band);
+    else out.heatFlux.set(out.heatFluxPlain);
     this.profile.derivative(out.upvp, out.convUpvp, this.band);
     for (let j = 0; j < ny; j++) out.convUpvp[j] = -out.convUpvp[j];
     return out;

@@ -63,6 +63,14 @@ const EQUATION =
   'q = laplacian(psi) - kd^2 psi, zeta = laplacian(psi), u = -dpsi/dy, v = dpsi/dx, ' +
   'on a doubly periodic domain Lx x Ly';
 
+const EQUATION_TWO_LAYER =
+  'for layers i = 1 (upper), 2 (lower): dq_i/dt + U_i dq_i/dx + Q_i dpsi_i/dx + J(psi_i, q_i) = ' +
+  'F - delta_i2 mu zeta_2 - nu (-laplacian)^p q_i - mu_ls q_i_<, ' +
+  'q_1 = laplacian(psi_1) + F_1 (psi_2 - psi_1), q_2 = laplacian(psi_2) + F_2 (psi_1 - psi_2), ' +
+  'F_1 = kd^2/(1 + depth_ratio), F_2 = depth_ratio kd^2/(1 + depth_ratio), depth_ratio = H_1/H_2, ' +
+  'imposed flows U_1 - U_2 = shear with H_1 U_1 + H_2 U_2 = 0, Q_1 = beta + F_1 shear, Q_2 = beta - F_2 shear, ' +
+  'zeta_i = laplacian(psi_i), u_i = -dpsi_i/dy, v_i = dpsi_i/dx, on a doubly periodic domain Lx x Ly';
+
 export function striaGlobalAttributes(run: StriaRunInfo, kind: StriaFileKind, defaultTitle: string): NcAttribute[] {
   if (typeof run.striaVersion !== 'string' || run.striaVersion.trim() === '')
     throw new RangeError('striaVersion must be a non-empty string such as "0.1.0"');
@@ -84,7 +92,7 @@ export function striaGlobalAttributes(run: StriaRunInfo, kind: StriaFileKind, de
     ncText('history', history),
     ncText(
       'comment',
-      'Output of an idealised model run (one-layer quasi-geostrophic flow on a doubly periodic beta-plane), ' +
+      `Output of an idealised model run (${run.params.layers === 2 ? 'two-layer' : 'one-layer'} quasi-geostrophic flow on a doubly periodic beta-plane), ` +
         'not a forecast and not an observation of any real flow. ' +
         (units.kind === 'model'
           ? 'Values are in model units (see stria_model_units on each variable). '
@@ -103,7 +111,10 @@ export function striaGlobalAttributes(run: StriaRunInfo, kind: StriaFileKind, de
     );
     if (units.medium) attrs.push(ncText('stria_medium', units.medium));
   }
-  attrs.push(ncText('stria_equation', EQUATION), ncText('stria_params', JSON.stringify(run.params)));
+  attrs.push(
+    ncText('stria_equation', run.params.layers === 2 ? EQUATION_TWO_LAYER : EQUATION),
+    ncText('stria_params', JSON.stringify(run.params)),
+  );
   for (const [key, value] of Object.entries(run.params)) {
     if (OWN.includes(key)) throw new RangeError(`parameter "${key}" collides with Stria's own attribute stria_${key}`);
     const name = `stria_${key}`;

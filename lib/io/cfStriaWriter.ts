@@ -1,7 +1,9 @@
 import type { GridFields } from '../analysis/snapshot';
+import type { LayerZonalMeans } from '../analysis/layerZonalMean';
 import type { ZonalMeans } from '../analysis/zonalMean';
 import type { StriaRunInfo } from './cfGlobalAttributes';
 import {
+  fieldSize,
   SNAPSHOT_FILE,
   striaFileSchema,
   ZONAL_MEAN_FILE,
@@ -27,6 +29,53 @@ export interface StriaFrame {
 /** A snapshot frame from the gridded fields of lib/analysis/snapshot.ts (q is the PV anomaly). */
 export function snapshotFrame(time: number, steps: number, f: GridFields): StriaFrame {
   return { time, steps, fields: { q: f.q, zeta: f.zeta, psi: f.psi, u: f.u, v: f.v } };
+}
+
+/** A two-layer snapshot frame: each field the upper layer's values, then the lower's (layer, y, x). */
+export function layerSnapshotFrame(time: number, steps: number, upper: GridFields, lower: GridFields): StriaFrame {
+  const both = (a: Float64Array, b: Float64Array) => {
+    const out = new Float64Array(a.length + b.length);
+    out.set(a);
+    out.set(b, a.length);
+    return out;
+  };
+  return {
+    time,
+    steps,
+    fields: {
+      q: both(upper.q, lower.q),
+      zeta: both(upper.zeta, lower.zeta),
+      psi: both(upper.psi, lower.psi),
+      u: both(upper.u, lower.u),
+      v: both(upper.v, lower.v),
+    },
+  };
+}
+
+/**
+ * A two-layer zonal-mean frame from lib/analysis/layerZonalMean.ts: each layer's profiles (upper,
+ * then lower; total PV [q_i] + Q_i y, plain eddy means as in one layer) and the heat flux [v'τ'],
+ * plain as well.
+ */
+export function layerZonalMeanFrame(time: number, steps: number, z: LayerZonalMeans): StriaFrame {
+  const both = (a: Float64Array, b: Float64Array) => {
+    const out = new Float64Array(a.length + b.length);
+    out.set(a);
+    out.set(b, a.length);
+    return out;
+  };
+  return {
+    time,
+    steps,
+    fields: {
+      ubar: both(z.upper.ubar, z.lower.ubar),
+      qbar: both(z.upper.qtot, z.lower.qtot),
+      upvp: both(z.upper.upvpPlain, z.lower.upvpPlain),
+      vpqp: both(z.upper.vpqpPlain, z.lower.vpqpPlain),
+      eke: both(z.upper.ekePlain, z.lower.ekePlain),
+      heat_flux: z.heatFluxPlain,
+    },
+  };
 }
 
 /**
@@ -69,8 +118,9 @@ export class StriaFileWriter {
     const units = run.units ?? MODEL_UNITS;
     this.timeScale = unitScale({ L: 0, T: 1 }, units);
     this.fieldScale = spec.fields.map((f) => unitScale(f.dim, units));
-    const n = spec.spatial.reduce((p, d) => p * (d === 'x' ? run.params.nx : run.params.ny), 1);
-    this.scratch = this.fieldScale.map((s) => (s === 1 ? null : new Float64Array(n)));
+    this.scratch = spec.fields.map((f, k) =>
+      this.fieldScale[k] === 1 ? null : new Float64Array(fieldSize(spec, f, run.params)),
+    );
   }
 
   /** Header and coordinates: the first bytes of the file. */

@@ -46,6 +46,52 @@ export interface TwoLayerTerms {
   potential: number;
   /** Eddy interface (heat) flux ⟨v τ⟩, τ = ψ₁ − ψ₂, v of either layer (the two give the same mean). */
   heatFlux: number;
+  /**
+   * The energy cycle (docs/two-layer.md, "The energy cycle"), rates at the start of the step. The
+   * kinetic energy split into the barotropic mode ½⟨|∇ψ_bt|²⟩ and the baroclinic ½h₁h₂⟨|∇τ|²⟩
+   * (their sum is `kinetic`); `potential` is the eddy APE. Then, exactly,
+   *   dAPE/dt   = generation − conversion − hyperPotential − largeScalePotential,
+   *   dKE_bc/dt = conversion − barotropicTransfer − dragBaroclinic − hyperBaroclinic − largeScaleBaroclinic + transfer,
+   *   dKE_bt/dt = barotropicTransfer − dragBarotropic − hyperBarotropic − largeScaleBarotropic + injection,
+   * with `generation`, `transfer` (zero to round-off) and `injection` those of the energy budget, and
+   * the drag, hyper and large-scale parts summing to the energy budget's terms.
+   */
+  kineticBarotropic: number;
+  kineticBaroclinic: number;
+  /** Eddy APE → eddy kinetic energy, by the vertical motion (all terms that move τ through the inversion). */
+  conversion: number;
+  /** Baroclinic → barotropic kinetic energy (by the imposed shear and by the eddies). */
+  barotropicTransfer: number;
+  dragBarotropic: number;
+  dragBaroclinic: number;
+  hyperPotential: number;
+  hyperBaroclinic: number;
+  hyperBarotropic: number;
+  largeScalePotential: number;
+  largeScaleBaroclinic: number;
+  largeScaleBarotropic: number;
+}
+
+/** Two-layer terms, all zero (the stepper's report holds one, overwritten every step). */
+export function emptyTwoLayerTerms(): TwoLayerTerms {
+  return {
+    kineticUpper: 0,
+    kineticLower: 0,
+    potential: 0,
+    heatFlux: 0,
+    kineticBarotropic: 0,
+    kineticBaroclinic: 0,
+    conversion: 0,
+    barotropicTransfer: 0,
+    dragBarotropic: 0,
+    dragBaroclinic: 0,
+    hyperPotential: 0,
+    hyperBaroclinic: 0,
+    hyperBarotropic: 0,
+    largeScalePotential: 0,
+    largeScaleBaroclinic: 0,
+    largeScaleBarotropic: 0,
+  };
 }
 
 export interface StepReport {

@@ -19,6 +19,16 @@ import type { TwoLayerLinearOperator } from './twoLayerLinear';
  *     residual), N_i = −J(ψ_i, q_i),
  *   injection: steady ⟨−ψ_bt F⟩ and ⟨q_bt F⟩ (F acts on both layers: ψ_bt = h₁ψ₁ + h₂ψ₂,
  *     q_bt = h₁q₁ + h₂q₂); stochastic, the ensemble mean σ²Σ1/k² and σ²N(h₁ + h₂).
+ * The energy cycle (TwoLayerTerms; docs/two-layer.md, "The energy cycle"): each term's tendency T
+ * (per layer) projected per mode on the barotropic energy, dE_bt = −Re(ψ̂_bt* (h₁T₁ + h₂T₂)), and the
+ * baroclinic, dE_bc = −h₁h₂ Re(τ̂* (T₁ − T₂)), the latter split into APE and baroclinic KE in the
+ * mode's proportions k_d²/(K² + k_d²) and K²/(K² + k_d²). With X = the mode's share of ⟨vτ⟩:
+ *   imposed shear and β   dE_bt = h₁h₂(U₁ − U₂) K² X,  dE_bc = h₁h₂(U₁ − U₂)(k_d² − K²) X,
+ *   drag                  dE_bt = −h₂μK² Re(ψ̂_bt* ψ̂₂),  dE_bc = h₁h₂μK² Re(τ̂* ψ̂₂),
+ *   hyper, large-scale    −2·rate times each reservoir's share,
+ *   nonlinear N           its projections (their sum is `transfer`),
+ *   generation = Σ F₁h₁(U₁ − U₂) X, conversion = generation − APE share of (shear + drag + N),
+ *   barotropicTransfer = dE_bt of (shear + N), drag parts = −dE of the drag.
  */
 export function twoLayerStartBudget(
   grid: Grid,
@@ -53,6 +63,21 @@ export function twoLayerStartBudget(
     zLs = 0,
     zTr = 0,
     zInj = 0;
+  // The energy cycle: reservoirs, the split of drag, hyper and large-scale losses, the conversions.
+  let keBt = 0,
+    keBc = 0,
+    conv = 0,
+    toBt = 0,
+    dragBt = 0,
+    dragBc = 0,
+    hypA = 0,
+    hypBc = 0,
+    hypBt = 0,
+    lsA = 0,
+    lsBc = 0,
+    lsBt = 0;
+  const kd2 = F1 + F2;
+  const dU = U1 - U2;
   for (let k = 0; k < keptRows.length; k++) {
     const row = keptRows[k] * nkx;
     for (let ix = 0; ix <= Kx; ix++) {
@@ -84,9 +109,11 @@ export function twoLayerStartBudget(
       ke2 += k2m;
       const tr = p1r - p2r,
         ti = p1i - p2i;
-      ape += wgt * h1 * F1 * (tr * tr + ti * ti);
+      const apeM = wgt * h1 * F1 * (tr * tr + ti * ti);
+      ape += apeM;
       // ⟨vτ⟩: Re((i kx ψ̂₁)* τ̂) = kx·Im(ψ̂₁* τ̂) = kx·(ψ₁ᵢψ₂ᵣ − ψ₁ᵣψ₂ᵢ), twice for the full plane.
-      heat += 2 * wgt * kx[ix] * (p1i * p2r - p1r * p2i);
+      const X = 2 * wgt * kx[ix] * (p1i * p2r - p1r * p2i);
+      heat += X;
       eDrag += 2 * mu * k2m;
       zDrag -= 2 * wgt * h2 * mu * K2 * (q2r * p2r + q2i * p2i);
       const hr = 2 * hyperRate[m];
@@ -101,11 +128,33 @@ export function twoLayerStartBudget(
         a2i = a[u + 1];
       eTr -= 2 * wgt * (h1 * (p1r * a1r + p1i * a1i) + h2 * (p2r * a2r + p2i * a2i));
       zTr += 2 * wgt * (h1 * (q1r * a1r + q1i * a1i) + h2 * (q2r * a2r + q2i * a2i));
+      // The cycle: ψ̂_bt, the APE share fA of the baroclinic energy, each term's projections.
+      const pbr = h1 * p1r + h2 * p2r,
+        pbi = h1 * p1i + h2 * p2i;
+      const fA = kd2 * ic[m];
+      const keBtM = wgt * K2 * (pbr * pbr + pbi * pbi);
+      const keBcM = wgt * h12 * K2 * (tr * tr + ti * ti);
+      keBt += keBtM;
+      keBc += keBcM;
+      const shearBt = h12 * dU * K2 * X;
+      const shearBc = h12 * dU * (kd2 - K2) * X;
+      const dragBtM = -2 * wgt * h2 * mu * K2 * (pbr * p2r + pbi * p2i);
+      const dragBcM = 2 * wgt * h12 * mu * K2 * (tr * p2r + ti * p2i);
+      const nBt = -2 * wgt * (pbr * (h1 * a1r + h2 * a2r) + pbi * (h1 * a1i + h2 * a2i));
+      const nBc = -2 * wgt * h12 * (tr * (a1r - a2r) + ti * (a1i - a2i));
+      conv += F1 * h1 * dU * X - fA * (shearBc + dragBcM + nBc);
+      toBt += shearBt + nBt;
+      dragBt -= dragBtM;
+      dragBc -= dragBcM;
+      hypA += hr * apeM;
+      hypBc += hr * keBcM;
+      hypBt += hr * keBtM;
+      lsA += lr * apeM;
+      lsBc += lr * keBcM;
+      lsBt += lr * keBtM;
       if (steady) {
         const fr = steady[t];
         const fi = steady[t + 1];
-        const pbr = h1 * p1r + h2 * p2r,
-          pbi = h1 * p1i + h2 * p2i;
         eInj -= 2 * wgt * (pbr * fr + pbi * fi);
         zInj += 2 * wgt * (btr * fr + bti * fi);
         a[t] += fr;
@@ -128,6 +177,18 @@ export function twoLayerStartBudget(
   L.kineticLower = ke2;
   L.potential = ape;
   L.heatFlux = heat;
+  L.kineticBarotropic = keBt;
+  L.kineticBaroclinic = keBc;
+  L.conversion = conv;
+  L.barotropicTransfer = toBt;
+  L.dragBarotropic = dragBt;
+  L.dragBaroclinic = dragBc;
+  L.hyperPotential = hypA;
+  L.hyperBaroclinic = hypBc;
+  L.hyperBarotropic = hypBt;
+  L.largeScalePotential = lsA;
+  L.largeScaleBaroclinic = lsBc;
+  L.largeScaleBarotropic = lsBt;
   fill(r.energy, e, eInj, eGen, eDrag, eHyper, eLs, eTr);
   fill(r.enstrophy, z, zInj, (F1 + F2) * eGen, zDrag, zHyper, zLs, zTr);
 }

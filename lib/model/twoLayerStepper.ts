@@ -1,4 +1,4 @@
-import { emptyReport, type StepReport } from './budget';
+import { emptyReport, emptyTwoLayerTerms, type StepReport } from './budget';
 import type { Forcing } from './forcing';
 import type { Grid } from './grid';
 import type { ModelParams } from './params';
@@ -93,7 +93,7 @@ export class TwoLayerStepper {
     this.kickLayers = { h1, h2, ib: lin.invK2Barotropic, ic: lin.invK2Baroclinic };
     this.report.energy.generation = 0;
     this.report.enstrophy.generation = 0;
-    this.report.layers = { kineticUpper: 0, kineticLower: 0, potential: 0, heatFlux: 0 };
+    this.report.layers = emptyTwoLayerTerms();
   }
 
   /** N(x) of both layers (x and out: layer 1 then layer 2), F_steady added to each. */

@@ -1,5 +1,6 @@
 import * as v from 'valibot';
 import measured from './measuredStep.json';
+import measuredTwoLayer from './measuredTwoLayerStep.json';
 
 /**
  * What a run costs in Stria's own model: memory of its arrays, floating-point work per step, and
@@ -22,6 +23,21 @@ import measured from './measuredStep.json';
  *   Model           a spectrum buffer for fields                               2S
  *   Stepper         the kick pair                                              2
  * For large square grids this is ≈ 13 N + 4 N + 8/3 N doubles ≈ 157 bytes per grid point (N = nx·ny).
+ *
+ * Two layers (lib/model/twoLayer*.ts) keep the grid, the model's transform, the one-layer
+ * LinearOperator (built by every Model), the forcing and the field buffer above, and in place of the
+ * one-layer stepper and nonlinear term:
+ *   TwoLayerStepper         state q̂₁, q̂₂ and RK stages a, b, c, d, w (both layers)     6 × 4S
+ *                           the kick pair                                             2
+ *   TwoLayerLinearOperator  1/K², 1/(K² + k_d²), hyper and large-scale rates          4 × S
+ *                           2 × 2 propagators e^{L dt/2}, e^{L dt}                    2 × 8S
+ *                           kept mask (Uint8), a rate scratch                         S bytes, 8
+ *   TwoLayerNonlinearTerm   ψ̂₁, ψ̂₂                                                    2 × 2S
+ *                           two RealTransform2D with their FFTs (as above)            2 × (one transform)
+ *                           interface product grid, its x FFT work and twiddles       N + N + 2nx
+ *                           its y FFT work and twiddles, its block                    ny·C + 2ny + ny·C
+ *                           the −1 factors, the largest speeds                        S + 4
+ * ≈ 440 bytes per grid point on large square grids.
  *
  * Work per step: the IF-RK4 step evaluates the nonlinear term 4 times, each one inverse and one
  * forward pair transform (two real fields as one complex 2D FFT over the kept columns): per
@@ -53,15 +69,21 @@ export interface MemoryEstimate {
 
 /**
  * Memory of a model on nx × ny with `forcedModes` independent modes on the forcing annulus
- * (`annulusModeCount`; the model reports the same number as `forcedModes`).
+ * (`annulusModeCount`; the model reports the same number as `forcedModes`), of one layer or two.
  */
-export function modelMemory(nx: number, ny: number, forcedModes: number): MemoryEstimate {
+export function modelMemory(nx: number, ny: number, forcedModes: number, layers: 1 | 2 = 1): MemoryEstimate {
   const S = ny * (nx / 2 + 1);
   const C = 2 * (Math.floor(nx / 3) + 1);
+  const N = nx * ny;
   const keptRows = 2 * Math.floor(ny / 3) + 1;
-  const rows: Array<[string, string, number, number]> = [
-    ['Stepper', 'state q̂ and RK stages a, b, c, d, w', 6 * 2 * S, 8],
-    ['Stepper', 'kick pair', 2, 8],
+  const transform = (owner: string): Array<[string, string, number, number]> => [
+    [owner, 'packed block', 2 * ny * C, 8],
+    [owner, 'complex work grid', 2 * nx * ny, 8],
+    [owner, 'row mask', ny, 1],
+    [owner, 'y FFT twiddles and scratch', 2 * ny + 2 * ny * C, 8],
+    [owner, 'x FFT twiddles and scratch', 2 * nx + 2 * nx * ny, 8],
+  ];
+  const shared: Array<[string, string, number, number]> = [
     ['LinearOperator', 'rates 1/K², drag, hyper, large-scale, wave', 5 * S, 8],
     ['LinearOperator', 'propagators e^{L dt/2}, e^{L dt}', 2 * 2 * S, 8],
     ['LinearOperator', 'kept mask', S, 1],
@@ -72,11 +94,32 @@ export function modelMemory(nx: number, ny: number, forcedModes: number): Memory
     ['RealTransform2D', 'row mask', ny, 1],
     ['BatchFFT (y)', 'twiddles and scratch', 2 * ny + 2 * ny * C, 8],
     ['BatchFFT (x)', 'twiddles and scratch', 2 * nx + 2 * nx * ny, 8],
-    ['NonlinearTerm', 'largest speeds |u|, |v|', 2, 8],
     ['Forcing', 'steady pattern and draw pair', 2 * S + 2, 8],
     ['Forcing', 'annulus modes and mirrors', 2 * forcedModes, 4],
     ['Model', 'field spectrum buffer', 2 * S, 8],
   ];
+  const own: Array<[string, string, number, number]> =
+    layers === 2
+      ? [
+          ['TwoLayerStepper', 'state q̂₁, q̂₂ and RK stages a, b, c, d, w', 6 * 4 * S, 8],
+          ['TwoLayerStepper', 'kick pair', 2, 8],
+          ['TwoLayerLinearOperator', 'rates 1/K², 1/(K² + k_d²), hyper, large-scale', 4 * S, 8],
+          ['TwoLayerLinearOperator', '2 × 2 propagators e^{L dt/2}, e^{L dt}', 2 * 8 * S, 8],
+          ['TwoLayerLinearOperator', 'kept mask', S, 1],
+          ['TwoLayerLinearOperator', 'rate scratch', 8, 8],
+          ['TwoLayerNonlinearTerm', 'ψ̂₁, ψ̂₂', 2 * 2 * S, 8],
+          ...transform('TwoLayerNonlinearTerm (layer 1)'),
+          ...transform('TwoLayerNonlinearTerm (layer 2)'),
+          ['TwoLayerNonlinearTerm', 'interface product grid and its x FFT', 2 * N + 2 * nx, 8],
+          ['TwoLayerNonlinearTerm', 'interface y FFT and block', 2 * ny * C + 2 * ny, 8],
+          ['TwoLayerNonlinearTerm', '−1 factors, largest speeds', S + 4, 8],
+        ]
+      : [
+          ['Stepper', 'state q̂ and RK stages a, b, c, d, w', 6 * 2 * S, 8],
+          ['Stepper', 'kick pair', 2, 8],
+          ['NonlinearTerm', 'largest speeds |u|, |v|', 2, 8],
+        ];
+  const rows = [...own, ...shared];
   const arrays = rows.map(([owner, name, elements, b]) => ({
     owner,
     name,
@@ -145,11 +188,14 @@ export function forcedModesForCost(p: {
   return area > COUNT_LIMIT ? Math.round(area) : annulusModeCount(p);
 }
 
-/** Nominal floating-point operations of one step on nx × ny (FFTs only, 5 n log₂ n per complex FFT). */
-export function flopsPerStep(nx: number, ny: number): number {
+/**
+ * Nominal floating-point operations of one step on nx × ny (FFTs only, 5 n log₂ n per complex FFT):
+ * 2 pair transforms an evaluation in one layer, 4.5 in two (docs/two-layer.md, section 5).
+ */
+export function flopsPerStep(nx: number, ny: number, layers: 1 | 2 = 1): number {
   const C = 2 * (Math.floor(nx / 3) + 1);
   const perTransform = 5 * (C * ny * Math.log2(ny) + ny * nx * Math.log2(nx));
-  return 4 * 2 * perTransform;
+  return 4 * (layers === 2 ? 4.5 : 2) * perTransform;
 }
 
 /** The reference step time, read from measuredStep.json and checked. */
@@ -188,15 +234,62 @@ export function parseMeasuredStep(json: unknown): MeasuredStep {
 export const MEASURED_STEP: Readonly<MeasuredStep> = Object.freeze(parseMeasuredStep(measured));
 
 /**
- * Seconds per step on nx × ny: the reference time scaled as N log₂ N (N = nx·ny, i.e. n² log n for
- * square grids) and divided by `speed`, the machine's speed relative to the measuring one.
+ * What a two-layer step costs against a one-layer step on the same grid, measured
+ * (measuredTwoLayerStep.json: the median of interleaved timings at 128² and 256²; docs/two-layer.md
+ * section 8). The transform work alone is 2.25 one-layer steps (4.5 pair transforms an evaluation
+ * against 2); the 2 × 2 stage updates, the inversion and the budget add the rest.
  */
-export function stepSeconds(nx: number, ny: number, speed = 1, ref: MeasuredStep = MEASURED_STEP): number {
+export interface MeasuredRatio {
+  ratio: number;
+  grids: number[];
+  measured_on: string;
+  how: string;
+}
+
+const MeasuredRatioSchema = v.object({
+  format: v.literal('stria-measured-step-ratio'),
+  version: v.literal(1),
+  ratio: v.pipe(
+    v.number(),
+    v.check((x) => Number.isFinite(x) && x >= 1, 'a ratio ≥ 1'),
+  ),
+  grids: v.array(v.pipe(v.number(), v.integer(), v.minValue(2))),
+  measured_on: v.string(),
+  how: v.string(),
+});
+
+/** Parse a measured step-ratio record; throws naming the bad field. */
+export function parseMeasuredRatio(json: unknown): MeasuredRatio {
+  const r = v.safeParse(MeasuredRatioSchema, json);
+  if (!r.success) {
+    const i = r.issues[0];
+    throw new RangeError(
+      `measured step ratio: ${i.path?.map((p) => String(p.key)).join('.') ?? '(record)'}: ${i.message}`,
+    );
+  }
+  return r.output;
+}
+
+export const TWO_LAYER_STEP_RATIO: Readonly<MeasuredRatio> = Object.freeze(parseMeasuredRatio(measuredTwoLayer));
+
+/**
+ * Seconds per step on nx × ny: the reference time scaled as N log₂ N (N = nx·ny, i.e. n² log n for
+ * square grids) and divided by `speed`, the machine's speed relative to the measuring one; two layers
+ * cost TWO_LAYER_STEP_RATIO times that.
+ */
+export function stepSeconds(
+  nx: number,
+  ny: number,
+  speed = 1,
+  ref: MeasuredStep = MEASURED_STEP,
+  layers: 1 | 2 = 1,
+): number {
   if (!(speed > 0 && Number.isFinite(speed)))
     throw new RangeError(`machine-speed factor must be a finite number > 0, got ${speed}`);
   const N = nx * ny;
   const Nref = ref.n * ref.n;
-  return ((ref.ms_per_step / 1000) * (N * Math.log2(N))) / (Nref * Math.log2(Nref)) / speed;
+  const one = ((ref.ms_per_step / 1000) * (N * Math.log2(N))) / (Nref * Math.log2(Nref)) / speed;
+  return layers === 2 ? one * TWO_LAYER_STEP_RATIO.ratio : one;
 }
 
 /** The cost of a run of `steps` steps on nx × ny. */
@@ -208,6 +301,9 @@ export interface RunCost {
   wallSeconds: number;
   speed: number;
   reference: MeasuredStep;
+  /** 1 or 2; with two, the measured ratio the step time was multiplied by. */
+  layers: 1 | 2;
+  layerRatio: number;
 }
 
 /** Memory, work and wall time of `steps` steps on nx × ny with `forcedModes` annulus modes. */
@@ -218,11 +314,14 @@ export function runCost(
   forcedModes: number,
   speed = 1,
   ref: MeasuredStep = MEASURED_STEP,
+  layers: 1 | 2 = 1,
 ): RunCost {
-  const secondsPerStep = stepSeconds(nx, ny, speed, ref);
+  const secondsPerStep = stepSeconds(nx, ny, speed, ref, layers);
   return {
-    memory: modelMemory(nx, ny, forcedModes),
-    flopsPerStep: flopsPerStep(nx, ny),
+    layers,
+    layerRatio: layers === 2 ? TWO_LAYER_STEP_RATIO.ratio : 1,
+    memory: modelMemory(nx, ny, forcedModes, layers),
+    flopsPerStep: flopsPerStep(nx, ny, layers),
     steps,
     secondsPerStep,
     wallSeconds: steps * secondsPerStep,

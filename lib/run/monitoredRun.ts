@@ -1,9 +1,12 @@
 import { RunMonitor } from '../analysis/runMonitor';
 import { summarize, type RunSummary } from '../analysis/summary';
+import type { LayerZonalMeans } from '../analysis/layerZonalMean';
 import type { ZonalMeans } from '../analysis/zonalMean';
 import { reachedTime } from '../model/clock';
 import type { Model } from '../model/model';
-import { ONE_LAYER_VALUES, type ModelParams } from '../model/params';
+import type { ModelParams } from '../model/params';
+import { InputError } from '../inputError';
+import { barotropicParams } from '../analysis/layerSnapshot';
 import { captureState, restoreState, type CapturedState } from './dataState';
 import type { RunPlan } from './runPlan';
 import type { SteadyCriterion } from '../analysis/steadyCriterion';
@@ -14,8 +17,11 @@ export type StopReason = 'steps' | 'until' | 'steady' | 'not-steady';
 export interface RunHooks {
   /** After every step (the model holds the new state). */
   onStep?(model: Model): void;
-  /** After every sample of the zonal means, at the sample's time. */
-  onSample?(time: number, steps: number, zonal: ZonalMeans): void;
+  /**
+   * After every sample of the zonal means, at the sample's time: those of the flow (two layers: the
+   * barotropic flow's) and, with two layers, the layers' own (else null).
+   */
+  onSample?(time: number, steps: number, zonal: ZonalMeans, layers: LayerZonalMeans | null): void;
 }
 
 /** Where a run began: a resumed run keeps the sample times, steady windows and step count of the original. */
@@ -31,16 +37,24 @@ export interface RunOrigin {
 export interface MonitoredRunState {
   run: CapturedState;
   steady: CapturedState | null;
-  monitor: { self: CapturedState; budget: CapturedState; hovmoller: CapturedState; means: CapturedState };
+  monitor: {
+    self: CapturedState;
+    budget: CapturedState;
+    hovmoller: CapturedState;
+    means: CapturedState;
+    /** Two layers: the energy cycle series and the layers' time means. */
+    layers?: { cycle: CapturedState; means: CapturedState };
+  };
 }
 
 /** Stored bins of the summary's time means (RunMonitor's window cap): bounded memory for any run length. */
 export const TIME_MEAN_CAP = 256;
 
 // Fields that are configuration or plan objects rebuilt identically by the constructor, not state.
-const RUN_CONFIG = ['current', 'plan', 'monitor', 'hooks', 'startTime', 'startSteps', 'barotropic'];
+const RUN_CONFIG = ['current', 'plan', 'monitor', 'hooks', 'startTime', 'startSteps'];
 const MONITOR_CONFIG = [
   'params',
+  'layers',
   'snap',
   'zonal',
   'budget',
@@ -77,8 +91,6 @@ export class MonitoredRun {
   private nextSample: number;
   private samplesTaken = 0;
   private reason: StopReason | null = null;
-  /** Two layers: the barotropic spectrum the monitor samples (monitoredState). */
-  private barotropic: Float64Array | undefined;
 
   constructor(
     model: Model,
@@ -93,7 +105,7 @@ export class MonitoredRun {
     this.startSteps = origin.steps;
     // The monitor's steady-state test is the stop rule's when the run stops at the steady state.
     const test = plan.stop.kind === 'steady' ? { window: plan.stop.window, tolerance: plan.stop.tolerance } : undefined;
-    this.monitor = new RunMonitor(monitoredParams(model.params), {
+    this.monitor = new RunMonitor(model.params, {
       window: { kind: 'last', span: plan.average, cap: TIME_MEAN_CAP },
       steady: test,
       start: origin.time,
@@ -127,10 +139,8 @@ export class MonitoredRun {
       if (reachedTime(m.time, this.nextSample, report.dt)) {
         this.samplesTaken++;
         this.nextSample = this.startTime + (this.samplesTaken + 1) * this.plan.sampleEvery;
-        const q = monitoredState(m, this.barotropic);
-        if (q !== m.qHat) this.barotropic = q;
-        const z = this.monitor.sample(q, m.time);
-        this.hooks.onSample?.(m.time, m.steps, z);
+        const z = this.monitor.sample(m.qHat, m.time);
+        this.hooks.onSample?.(m.time, m.steps, z, this.monitor.layers?.latest ?? null);
       }
       this.reason = this.stopNow();
     }
@@ -180,6 +190,14 @@ export class MonitoredRun {
         budget: captureState(mon.budget, [], 'monitor.budget'),
         hovmoller: captureState(mon.hovmoller, [], 'monitor.hovmoller'),
         means: captureState(mon.means, [], 'monitor.means'),
+        ...(mon.layers
+          ? {
+              layers: {
+                cycle: captureState(mon.layers.cycle, [], 'monitor.layers.cycle'),
+                means: captureState(mon.layers.means, [], 'monitor.layers.means'),
+              },
+            }
+          : {}),
       },
     };
   }
@@ -199,12 +217,27 @@ export class MonitoredRun {
     restoreState(probe.monitor.budget, s.monitor.budget, [], 'monitor.budget');
     restoreState(probe.monitor.hovmoller, s.monitor.hovmoller, [], 'monitor.hovmoller');
     restoreState(probe.monitor.means, s.monitor.means, [], 'monitor.means');
+    const layers = s.monitor.layers;
+    if ((layers === undefined) !== (probe.monitor.layers === undefined))
+      throw new InputError(
+        'state',
+        'monitor.layers',
+        layers ? 'holds two layers, and this run has one' : 'is missing: this run has two layers',
+      );
+    if (layers && probe.monitor.layers) {
+      restoreState(probe.monitor.layers.cycle, layers.cycle, [], 'monitor.layers.cycle');
+      restoreState(probe.monitor.layers.means, layers.means, [], 'monitor.layers.means');
+    }
     restoreState(this, s.run, RUN_CONFIG, 'run');
     if (s.steady) restoreState(this.steady, s.steady, [], 'steady');
     restoreState(mon, s.monitor.self, MONITOR_CONFIG, 'monitor');
     restoreState(mon.budget, s.monitor.budget, [], 'monitor.budget');
     restoreState(mon.hovmoller, s.monitor.hovmoller, [], 'monitor.hovmoller');
     restoreState(mon.means, s.monitor.means, [], 'monitor.means');
+    if (layers && mon.layers) {
+      restoreState(mon.layers.cycle, layers.cycle, [], 'monitor.layers.cycle');
+      restoreState(mon.layers.means, layers.means, [], 'monitor.layers.means');
+    }
     this.reason = this.reason ?? this.stopNow();
   }
 
@@ -225,13 +258,13 @@ export class MonitoredRun {
 }
 
 /**
- * The parameters the run's diagnostics see. One layer: the run's. Two layers: their barotropic flow
- * as a one-layer flow with k_d = 0 (its PV h₁q₁ + h₂q₂ is its relative vorticity, its mean PV
- * gradient β), so today's summary, zonal means and snapshots describe the barotropic flow of a
- * two-layer run until the diagnostics learn the layers.
+ * The barotropic flow of a run as the one-layer diagnostics see it. One layer: the run's parameters.
+ * Two layers: barotropicParams (a one-layer flow with k_d = 0, its PV h₁q₁ + h₂q₂ = ζ_bt, its mean
+ * PV gradient β). The run monitor knows the layers itself (RunMonitor with the run's parameters);
+ * this is for the views that show one flow, with monitoredState.
  */
 export function monitoredParams(p: ModelParams): ModelParams {
-  return p.layers === 2 ? { ...p, ...ONE_LAYER_VALUES, kd: 0 } : p;
+  return p.layers === 2 ? barotropicParams(p) : p;
 }
 
 /**

@@ -1,4 +1,6 @@
 import { BUDGET_TERMS } from '../analysis/budgetSeries';
+import { CYCLE_TERMS } from '../analysis/cycleSeries';
+import { LAYER_PROFILES } from '../analysis/layerMonitor';
 import { MEAN_PROFILES } from '../analysis/runMonitor';
 import type { ModelParams } from '../model/params';
 import { forcedModesForCost, modelMemory, type MemoryEstimate } from '../plan/cost';
@@ -25,6 +27,12 @@ import { TIME_MEAN_CAP } from './monitoredRun';
  *   checkpoint writing  transient: q̂ as bytes 16S bytes and as base64 text four times over (run file,
  *                       JSON, the progress splice, the write buffer), and the accumulators as base64
  *                       text the same way
+ * Two layers (params.layers = 2): the model's own count (cost.ts), a state of 4S, and the layer
+ * monitor in the measurement: a layer snapshot plan (grid, two-layer linear operator, transform,
+ * spectrum 2S), the layers' fields 10N, their zonal means and profile plans (43·ny), the energy
+ * cycle series (CYCLE_TERMS + 4 columns of B + 1, with B = 4096) and the time means of 13 layer
+ * profiles (256·13·ny + 3·256, and 13·ny means); the snapshot file holds both layers (a layer
+ * snapshot plan, 10N fields, a record of 10N + 1.5), the zonal-mean file 11·ny + 1.5.
  */
 export interface RunMemoryOptions {
   snapshots?: boolean;
@@ -57,13 +65,21 @@ export const HOVMOLLER_CAP = 512;
 
 const D = 8;
 
-/** Bytes of the accumulators a run keeps (budget series, Hovmöller record, time means) for ny rows. */
-export function accumulatorBytes(ny: number): number {
+/**
+ * Bytes of the accumulators a run keeps (budget series, Hovmöller record, time means) for ny rows;
+ * with two layers also the energy cycle series and the layers' time means.
+ */
+export function accumulatorBytes(ny: number, layers: 1 | 2 = 1): number {
   const cols = 4 + 2 * (BUDGET_TERMS.length + 1);
   const budget = (cols + 1) * (BUDGET_CAPACITY + 1) + cols;
   const hovmoller = HOVMOLLER_CAP * ny + HOVMOLLER_CAP + 2 * ny;
   const means = TIME_MEAN_CAP * MEAN_PROFILES.length * ny + 3 * TIME_MEAN_CAP;
-  return D * (budget + hovmoller + means);
+  const one = D * (budget + hovmoller + means);
+  if (layers === 1) return one;
+  const cycleCols = 3 + CYCLE_TERMS.length;
+  const cycle = (cycleCols + 1) * (BUDGET_CAPACITY + 1) + cycleCols;
+  const layerMeans = TIME_MEAN_CAP * LAYER_PROFILES.length * ny + 3 * TIME_MEAN_CAP;
+  return one + D * (cycle + layerMeans);
 }
 
 function snapshotPlanBytes(model: MemoryEstimate, S: number): number {
@@ -71,32 +87,47 @@ function snapshotPlanBytes(model: MemoryEstimate, S: number): number {
   return model.arrays.filter((a) => owners.has(a.owner)).reduce((s, a) => s + a.bytes, 0) + D * 2 * S;
 }
 
+/** A layer snapshot plan: the grid, the two-layer linear operator, a transform and a spectrum of 2S. */
+function layerPlanBytes(model: MemoryEstimate, S: number): number {
+  const owners = new Set(['Grid', 'TwoLayerLinearOperator', 'RealTransform2D', 'BatchFFT (y)', 'BatchFFT (x)']);
+  return model.arrays.filter((a) => owners.has(a.owner)).reduce((s, a) => s + a.bytes, 0) + D * 2 * S;
+}
+
 /**
- * The estimate for a run of these parameters. Only nx, ny, Lx, Ly, kf, dkf are read (the forcing
- * annulus sets the size of the forcing's mode lists).
+ * The estimate for a run of these parameters. Only nx, ny, Lx, Ly, kf, dkf and layers are read (the
+ * forcing annulus sets the size of the forcing's mode lists).
  */
 export function estimateRunMemory(
-  p: Pick<ModelParams, 'nx' | 'ny' | 'Lx' | 'Ly' | 'kf' | 'dkf'>,
+  p: Pick<ModelParams, 'nx' | 'ny' | 'Lx' | 'Ly' | 'kf' | 'dkf'> & { layers?: 1 | 2 },
   options: RunMemoryOptions = {},
 ): RunMemoryEstimate {
   const { nx, ny } = p;
+  const layers = p.layers ?? 1;
   const S = ny * (nx / 2 + 1);
   const N = nx * ny;
-  const model = modelMemory(nx, ny, forcedModesForCost(p));
+  const model = modelMemory(nx, ny, forcedModesForCost(p), layers);
   const plan = snapshotPlanBytes(model, S);
-  const acc = accumulatorBytes(ny);
+  const acc = accumulatorBytes(ny, layers);
   // Zonal means (9, and the 3 plain eddy means) and time-mean profiles (8), three profile transforms
   // (4 each), y, jet amplitudes, gradient.
   const profiles = D * (12 * ny + MEAN_PROFILES.length * ny + 3 * 4 * ny + ny + (ny / 2 + 1) + ny);
+  // Two layers: the layer plan, both layers' fields, their zonal means (2 × 12 + 5 profiles), the
+  // plans of the layer zonal means (2 × (y + a profile transform) + a profile transform) and the means.
+  const layerPlan = layers === 2 ? layerPlanBytes(model, S) : 0;
+  const layerMonitor = layers === 2 ? layerPlan + D * (10 * N + 29 * ny + 14 * ny + LAYER_PROFILES.length * ny) : 0;
   const items: MemoryItem[] = [
     { what: 'model', bytes: model.totalBytes },
-    { what: 'measurement', bytes: plan + D * 5 * N + acc + profiles },
+    { what: 'measurement', bytes: plan + D * 5 * N + acc + profiles + layerMonitor },
   ];
-  if (options.snapshots) items.push({ what: 'snapshot file', bytes: plan + D * 5 * N + D * 5 * N + 12 });
-  if (options.zonal) items.push({ what: 'zonal-mean file', bytes: D * 5 * ny + 12 });
-  if (options.retry) items.push({ what: 'retry checkpoint', bytes: D * 2 * S + acc });
+  if (options.snapshots)
+    items.push({
+      what: 'snapshot file',
+      bytes: layers === 2 ? layerPlan + D * 10 * N + D * 10 * N + 12 : plan + D * 5 * N + D * 5 * N + 12,
+    });
+  if (options.zonal) items.push({ what: 'zonal-mean file', bytes: D * (layers === 2 ? 11 : 5) * ny + 12 });
+  if (options.retry) items.push({ what: 'retry checkpoint', bytes: D * 2 * layers * S + acc });
   if (options.checkpointFile) {
-    const state = D * 2 * S;
+    const state = D * 2 * layers * S;
     items.push({ what: 'checkpoint writing', bytes: Math.ceil(state + 4 * (4 / 3) * state + acc + 4 * (4 / 3) * acc) });
   }
   if (options.runtimeBytes) items.push({ what: 'runtime', bytes: options.runtimeBytes });

@@ -5,6 +5,7 @@ import {
   SUMMARY_KEYS,
   SUMMARY_OTHER_KEYS,
   SUMMARY_TEXT_VALUES,
+  SUMMARY_TWO_LAYER_KEYS,
   type RunSummary,
 } from '../analysis/summary';
 import type { StopReason } from '../run/monitoredRun';
@@ -92,10 +93,16 @@ const RecordSchema = v.looseObject({
   status: v.picklist(['done', 'blew-up'], 'must be "done" or "blew-up"'),
   stopped: v.nullable(v.picklist(['steps', 'until', 'steady', 'not-steady'], 'must be a stop reason')),
   error: v.nullable(v.string('must be a text')),
-  // Every key of a run summary, as summarize() writes them: a journal line lacking one is damaged.
+  // Every key of a run summary, as summarize() writes them: a journal line lacking one is damaged,
+  // but for the two-layer keys, which lines written before them lack (read as null).
   summary: v.looseObject(
     {
-      ...Object.fromEntries([...SUMMARY_KEYS, ...SUMMARY_OTHER_KEYS].map((k) => [k, summaryEntry(k)])),
+      ...Object.fromEntries(
+        [...SUMMARY_KEYS, ...SUMMARY_OTHER_KEYS].map((k) => [
+          k,
+          (SUMMARY_TWO_LAYER_KEYS as readonly string[]).includes(k) ? v.optional(summaryEntry(k)) : summaryEntry(k),
+        ]),
+      ),
     },
     'must be a run summary',
   ),

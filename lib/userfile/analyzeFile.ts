@@ -6,7 +6,8 @@ import { measuredVsPredicted, type Comparison } from './measuredVsPredicted';
 import { PLANETS, type PlanetId } from '../plan/planets';
 import { tangentPlane } from '../plan/tangentPlane';
 import type { ByteSource } from '../io/byteSource';
-import { discoverFields, type FieldMapping } from './fieldDiscovery';
+import { discoverFields, type FieldMapping, type LevelChoice } from './fieldDiscovery';
+import { userHeatFlux, type UserHeatFlux } from './heatFlux';
 import type { MaskCounts } from './fieldValues';
 import { roleUnits, type FieldRole } from './fieldNames';
 import { openDataset } from '../io/openDataset';
@@ -44,6 +45,11 @@ export interface AnalyzeFileOptions {
   tolerance?: number;
   rhines?: RhinesConvention;
   spectra?: boolean;
+  /**
+   * Fields with a layer or vertical dimension (fieldAxes.ts levelAxis): the layer to analyse, from 1,
+   * or 'mean' for the depth-weighted mean (the default).
+   */
+  layer?: LevelChoice;
   /** Read every K-th point in x and y (fieldSource.ts); default 1, every point. */
   subsample?: number;
   /**
@@ -73,6 +79,16 @@ export interface FileAnalysis {
   comparison: Comparison;
   /** Slopes of the time-mean energy spectrum in its two cascade ranges (spectralSlopes.ts); [] without spectra. */
   spectralSlopes: SpectralSlope[];
+  /** The layer dimension and what was analysed of it; null when the fields have none. */
+  layers: {
+    dimension: string;
+    count: number;
+    analysed: string;
+    weights: number[];
+    weightsSource: string;
+  } | null;
+  /** The eddy heat (interface) flux of a two-layer file (heatFlux.ts); null otherwise. */
+  heatFlux: UserHeatFlux | null;
 }
 
 export function analyzeFile(source: ByteSource, options: AnalyzeFileOptions = {}): FileAnalysis {
@@ -87,7 +103,12 @@ export function analyzeFile(source: ByteSource, options: AnalyzeFileOptions = {}
         `this netCDF-4 file is ${formatBytes(source.byteLength)}, and the HDF5 reader holds it whole in memory: more than the memory budget of ${formatBytes(budget)}`,
       );
   const reader = openDataset(source, { meter });
-  const d = discoverFields(reader, { map: options.map, tolerance: options.tolerance, domain: options.domain });
+  const d = discoverFields(reader, {
+    map: options.map,
+    tolerance: options.tolerance,
+    domain: options.domain,
+    layer: options.layer,
+  });
   // From the dimensions alone, before a buffer of the grid's size exists.
   const memoryInput = {
     reader,
@@ -178,6 +199,7 @@ export function analyzeFile(source: ByteSource, options: AnalyzeFileOptions = {}
     analysis.spectra && analysis.spectra.records > 0
       ? spectralSlopes(analysis.spectra, striaForcing(reader.attributes), analysis.scales.kRhines)
       : [];
+  const heatFlux = userHeatFlux(reader, d, { records: window, subsample: options.subsample, meter });
   const masking: FileAnalysis['masking'] = {};
   for (const [role, c] of Object.entries(fs.masks) as [FieldRole, MaskCounts][]) {
     const masked = c.nonFinite + c.fill + c.outOfRange;
@@ -201,6 +223,16 @@ export function analyzeFile(source: ByteSource, options: AnalyzeFileOptions = {}
     analysis,
     comparison,
     spectralSlopes: slopes,
+    layers: d.level
+      ? {
+          dimension: d.level.dimension,
+          count: d.level.count,
+          analysed: d.level.index === null ? 'depth-weighted mean' : `layer ${d.level.index + 1}`,
+          weights: Array.from(d.level.weights),
+          weightsSource: d.level.weightsSource,
+        }
+      : null,
+    heatFlux,
   };
 }
 

@@ -1,6 +1,15 @@
 import { coordinateAxis, type CoordinateAxis } from './coordinateAxis';
 import { isNumericType, type DatasetReader, type DatasetVariable } from '../io/datasetReader';
-import { hintOf, horizontal, recordAxis, striaPeriods, type RecordAxis } from './fieldAxes';
+import {
+  hintOf,
+  horizontal,
+  levelAxis,
+  recordAxis,
+  striaPeriods,
+  type LevelAxis,
+  type LevelChoice,
+  type RecordAxis,
+} from './fieldAxes';
 import {
   FIELD_ROLES,
   GRID_ROLES,
@@ -12,7 +21,7 @@ import {
 } from './fieldNames';
 import { printable } from '../io/fileErrors';
 
-export type { RecordAxis };
+export type { LevelAxis, LevelChoice, RecordAxis };
 
 /**
  * Finds what Stria can analyse in a user's file: velocity components u, v, relative vorticity ζ,
@@ -20,8 +29,9 @@ export type { RecordAxis };
  * velocity ū on (time, latitude/y), with the eddy profiles u′v′, v′q′ and EKE stored beside it (a
  * zonal-mean file such as Stria's own). Fields are recognised as fieldNames.ts says, or named by the user
  * (`map`: { u: 'U', v: 'V' }), and must share one grid: horizontal dimensions last (y then x, or x
- * then y), before them at most one dimension longer than 1 (the records: usually time) and any
- * number of length 1 (a single level). Irregular axes are refused (coordinateAxis.ts).
+ * then y), before them at most one dimension longer than 1 (the records: usually time) besides a
+ * layer or vertical dimension (fieldAxes.ts levelAxis: one layer or the depth-weighted mean is
+ * analysed), and any number of length 1 (a single level). Irregular axes are refused (coordinateAxis.ts).
  */
 export type FieldMapping = Partial<Record<FieldRole, string>>;
 
@@ -47,6 +57,8 @@ export interface Discovery {
   /** Dimension names of every field, slowest first. */
   dimensions: string[];
   records: RecordAxis;
+  /** The layer or vertical dimension and the level analysed (null: the fields have none longer than 1). */
+  level: LevelAxis | null;
   notes: string[];
 }
 
@@ -56,6 +68,8 @@ export interface DiscoveryOptions {
   tolerance?: number;
   /** Domain lengths in the axes' units: the period for the periodicity check, and positions for an axis without coordinate. */
   domain?: { x?: number; y?: number };
+  /** The layer to analyse (from 1) or 'mean' (depth-weighted), when the fields have a layer dimension; default 'mean'. */
+  layer?: LevelChoice;
 }
 
 export function discoverFields(reader: DatasetReader, options: DiscoveryOptions = {}): Discovery {
@@ -118,7 +132,12 @@ export function discoverFields(reader: DatasetReader, options: DiscoveryOptions 
     else if (!(a === 'y' && b === 'x'))
       notes.push(`the axes of "${lead.name}" are not marked as x and y: taken in the CF order (y, x)`);
   }
-  const records = recordAxis(reader, lead, dims.slice(0, -nh));
+  const level = levelAxis(reader, lead, dims.slice(0, -nh), options.layer, notes);
+  const records = recordAxis(reader, lead, dims.slice(0, -nh), level?.dimension);
+  if (level && records.dimension !== null && dims.indexOf(level.dimension) < dims.indexOf(records.dimension))
+    throw new RangeError(
+      `the layer dimension "${level.dimension}" comes before the record dimension "${records.dimension}" in "${lead.name}" (${dims.join(', ')}): Stria reads (records, layers, …)`,
+    );
   const periods = striaPeriods(reader);
   const ydim = nh === 2 ? (order === 'yx' ? hdims[0] : hdims[1]) : hdims[0];
   const y = coordinateAxis(reader, ydim, 'y', {
@@ -134,7 +153,7 @@ export function discoverFields(reader: DatasetReader, options: DiscoveryOptions 
           filePeriod: periods.x,
         })
       : null;
-  return { layout, fields, x, y, order, dimensions: dims.slice(), records, notes };
+  return { layout, fields, x, y, order, dimensions: dims.slice(), records, level, notes };
 }
 
 /** The variable for each role: the user's mapping, else the best match in the file. */

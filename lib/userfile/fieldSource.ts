@@ -70,6 +70,7 @@ export function userFieldSource(
     );
   const perRecord = lead.length > 0;
   const nFile = (d.x?.n ?? 1) * d.y.n;
+  const level = d.level;
   const rules = new Map<UserRole, ValueRule>();
   const masks: Partial<Record<UserRole, MaskCounts>> = {};
   for (const r of roles) {
@@ -87,9 +88,13 @@ export function userFieldSource(
   const needsReorder = K === 1 && (d.order === 'xy' || d.y.reversed || !!d.x?.reversed);
   const f64 = (n: number) => (options.meter ? options.meter.f64(n, 'read buffer') : new Float64Array(n));
   // Fields in the file's order are read straight into the analysis buffers; others through one
-  // buffer; a subsample through one row of the file.
+  // buffer; a subsample through one row of the file. With a layer dimension, each layer's slab is
+  // read on its own (slabReader), and the depth-weighted mean gathered in one more buffer.
   const raw = needsReorder ? f64(nFile) : new Float64Array(0);
-  const rows = K > 1 ? rowReader(reader, d, K, perRecord, f64) : null;
+  const slab = level ? slabReader(reader, d, K, f64) : null;
+  const layerSum =
+    level && level.index === null ? f64(K > 1 ? Math.ceil((d.x?.n ?? 1) / K) * Math.ceil(d.y.n / K) : nFile) : null;
+  const rows = K > 1 && !level ? rowReader(reader, d, K, perRecord, f64) : null;
   const times = d.records.variable ? reader.readAll(d.records.variable) : null;
   const read = (
     r: number,
@@ -107,10 +112,27 @@ export function userFieldSource(
       // Progress in bytes of the float64 values produced, over all the record's fields.
       const report = (p: { done: number; total: number }) =>
         onProgress?.((k + p.done / Math.max(p.total, 1)) * 8 * nFile, roles.length * 8 * nFile);
-      if (rows) rows(name, r, out, report);
-      else if (perRecord) reader.readRecord(name, r, { out: target, onProgress: report });
-      else reader.readAll(name, { out: target, onProgress: report });
-      applyValueRule(rules.get(role) as ValueRule, target, target, masks[role] as MaskCounts);
+      const rule = rules.get(role) as ValueRule;
+      const mask = masks[role] as MaskCounts;
+      const dest = K > 1 ? out : target;
+      if (slab && level && level.index !== null) {
+        slab(name, r, level.index, dest, report);
+        applyValueRule(rule, dest, dest, mask);
+      } else if (slab && level && layerSum) {
+        // The depth-weighted mean Σ w_l f_l, each layer masked as read (a masked point stays NaN).
+        dest.fill(0);
+        for (let l = 0; l < level.count; l++) {
+          slab(name, r, l, layerSum, report);
+          applyValueRule(rule, layerSum, layerSum, mask);
+          const w = level.weights[l];
+          for (let i = 0; i < dest.length; i++) dest[i] += w * layerSum[i];
+        }
+      } else {
+        if (rows) rows(name, r, out, report);
+        else if (perRecord) reader.readRecord(name, r, { out: target, onProgress: report });
+        else reader.readAll(name, { out: target, onProgress: report });
+        applyValueRule(rule, target, target, mask);
+      }
       if (needsReorder) reorder(raw, out, d);
       k++;
     }
@@ -164,6 +186,80 @@ function rowReader(
       else reader.readRecord(name, r, { out: row, range: { start: fileRow * fast.n, count: fast.n } });
       for (let b = 0; b < nFast; b++) {
         // Stria's indices (i east, j north) of sample (a, b).
+        const [i, j] = !slow ? [0, b] : xy ? [a, b] : [b, a];
+        out[j * sx + i] = row[at(b, fast)];
+      }
+      report({ done: a + 1, total: nSlow });
+    }
+  };
+}
+
+/**
+ * Reads the slab of one layer l of record r of a field with a layer dimension (fieldAxes.ts
+ * levelAxis) into `out`: nx·ny values in the file's order, or with a subsample (K > 1) every K-th
+ * point in Stria's order, one file row at a time. The slab starts at the flat offset r·(values after
+ * the record dimension) + l·(values after the layer dimension), read as that range of the right
+ * record of the variable's first dimension (whichever of the two comes first, or a dimension of
+ * length 1), so no more than a slab, or a row, is read.
+ */
+function slabReader(
+  reader: DatasetReader,
+  d: Discovery,
+  K: number,
+  f64: (n: number) => Float64Array,
+): (
+  name: string,
+  r: number,
+  l: number,
+  out: Float64Array,
+  report: (p: { done: number; total: number }) => void,
+) => void {
+  const level = d.level as NonNullable<Discovery['level']>;
+  const nFile = (d.x?.n ?? 1) * d.y.n;
+  const strideAfter = (v: { dimensions: string[]; shape: number[] }, dim: string | null) => {
+    if (dim === null) return 0;
+    const k = v.dimensions.indexOf(dim);
+    return v.shape.slice(k + 1).reduce((a, b) => a * b, 1);
+  };
+  const read = (
+    name: string,
+    flat: number,
+    count: number,
+    out: Float64Array,
+    report?: (p: { done: number; total: number }) => void,
+  ) => {
+    const v = reader.variable(name);
+    const recLen = v.shape.slice(1).reduce((a, b) => a * b, 1);
+    const idx = Math.floor(flat / recLen);
+    reader.readRecord(name, idx, { out, range: { start: flat - idx * recLen, count }, onProgress: report });
+  };
+  if (K === 1)
+    return (name, r, l, out, report) => {
+      const v = reader.variable(name);
+      read(name, r * strideAfter(v, d.records.dimension) + l * strideAfter(v, level.dimension), nFile, out, report);
+    };
+  const nx = d.x?.n ?? 1;
+  const ny = d.y.n;
+  const sx = Math.ceil(nx / K);
+  const xy = d.order === 'xy' && !!d.x;
+  const gridded = d.layout === 'gridded';
+  const slow = gridded ? (xy ? { n: nx, rev: !!d.x?.reversed } : { n: ny, rev: d.y.reversed }) : null;
+  const fast = gridded
+    ? xy
+      ? { n: ny, rev: d.y.reversed }
+      : { n: nx, rev: !!d.x?.reversed }
+    : { n: ny, rev: d.y.reversed };
+  const row = f64(fast.n);
+  const at = (k: number, axis: { n: number; rev: boolean }) => (axis.rev ? axis.n - 1 - k * K : k * K);
+  const nSlow = slow ? Math.ceil(slow.n / K) : 1;
+  const nFast = Math.ceil(fast.n / K);
+  return (name, r, l, out, report) => {
+    const v = reader.variable(name);
+    const base = r * strideAfter(v, d.records.dimension) + l * strideAfter(v, level.dimension);
+    for (let a = 0; a < nSlow; a++) {
+      const fileRow = slow ? at(a, slow) : 0;
+      read(name, base + fileRow * fast.n, fast.n, row);
+      for (let b = 0; b < nFast; b++) {
         const [i, j] = !slow ? [0, b] : xy ? [a, b] : [b, a];
         out[j * sx + i] = row[at(b, fast)];
       }

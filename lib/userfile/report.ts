@@ -37,6 +37,10 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
   out.push(
     `  records ${a.window.start} to ${a.window.end - 1} of ${r.file.records} (${a.window.count})${a.window.timeStart !== null ? `, time ${fmt(a.window.timeStart)} to ${fmt(a.window.timeEnd as number)} ${timeUnitText(a.window.timeUnits)}` : ''}`,
   );
+  if (r.layers)
+    out.push(
+      `  layers: ${r.layers.analysed} of the ${r.layers.count} along "${r.layers.dimension}"${r.layers.analysed === 'depth-weighted mean' ? ` (weights ${r.layers.weights.map((w) => fmt(w, 4)).join(', ')}: ${r.layers.weightsSource})` : ''}`,
+    );
   out.push('', 'Masked values (missing data are left out, never averaged in)');
   for (const [role, m] of Object.entries(r.masking)) {
     out.push(
@@ -53,6 +57,12 @@ export function fileAnalysisText(r: FileAnalysis, name = 'the file'): string {
     for (const s of a.skipped) out.push(`  - ${s.diagnostic}: ${s.reason}`);
   }
   out.push('', 'Results');
+  if (r.heatFlux) {
+    const h = r.heatFlux;
+    out.push(
+      `  eddy heat flux ⟨v′τ′⟩ (τ = ψ₁ − ψ₂, v of the upper layer; ${h.from === 'fields' ? `from ${h.variable} of both layers` : `the file's ${h.variable} profile`}): ${fmt(h.mean, 4)}${h.stderr !== null ? ` ± ${fmt(h.stderr, 2)}` : ''} over ${h.records} record${h.records === 1 ? '' : 's'}`,
+    );
+  }
   if (a.jets) {
     const j = a.jets;
     out.push(

@@ -84,6 +84,19 @@ export function estimateUserFileMemory(m: UserFileMemoryInput): UserFileMemoryEs
   const scratch = netcdf3 ? Math.min(NETCDF3_READ_PIECE, D * (K > 1 ? rowBytes / D : largest)) : 0;
   const reorder = K === 1 && (d.order === 'xy' || d.y.reversed || !!d.x?.reversed) ? D * fileNx * d.y.n : 0;
   add('read buffer', scratch + reorder + (K > 1 ? rowBytes : 0));
+  // A layer dimension: the depth-weighted mean gathers each layer in one more buffer; a two-layer
+  // file with ψ and v adds the heat flux: ψ and v of the upper layer, ψ of the lower, and the
+  // sources' own read buffers (heatFlux.ts).
+  const level = d.level;
+  const layerBuffer = level && level.index === null ? D * N : 0;
+  const heat =
+    !profile && level && level.count === 2 && d.fields.psi && d.fields.v
+      ? 3 * D * N + D * ny + 2 * (reorder + (K > 1 ? rowBytes : 0))
+      : profile && m.reader.has('heat_flux')
+        ? 2 * D * ny
+        : 0;
+  add('layers', layerBuffer + (level ? (K > 1 ? rowBytes : 0) : 0));
+  add('heat flux', heat);
   let fields: number;
   if (profile) fields = roles.length * D * ny;
   else {

@@ -129,11 +129,25 @@ describe('stria run', () => {
     const whole = join(dir, 'two-whole.json');
     const half = join(dir, 'two-half.json');
     const resumed = join(dir, 'two-resumed.json');
-    const r = await striaHere(['run', ...TWO, '--steps', '40', '--json', '--save', whole]);
+    const zonal = join(dir, 'two-zonal.nc');
+    const r = await striaHere(['run', ...TWO, '--steps', '40', '--json', '--save', whole, '--zonal', zonal]);
     expect(r.status, r.stderr).toBe(0);
     const summary = JSON.parse(r.stdout);
     for (const k of SUMMARY_KEYS) expect(summary).toHaveProperty(k);
     expect(summary.steps).toBe(40);
+    // The two-layer keys: ξ = δk_d²(U₁ − U₂)/((1 + δ)β) = 0.5·9·0.3/(1.5·10) [derived: docs/two-layer.md,
+    // Q₂ = β − F₂(U₁ − U₂) changes sign at ξ = 1], and the measured fluxes as numbers.
+    expect(summary.layers).toBe(2);
+    expect(summary.supercriticality).toBeCloseTo(0.09, 12);
+    for (const k of ['heat_flux', 'eddy_diffusivity', 'eddy_velocity', 'energy_generation'])
+      expect(Number.isFinite(summary[k]), k).toBe(true);
+    // The zonal-mean file has the layer dimension and the heat flux.
+    const z = readNetcdf(readFileSync(zonal));
+    expect(z.variables.find((v) => v.name === 'ubar')?.dimensions).toEqual(['time', 'layer', 'y']);
+    expect(z.variables.find((v) => v.name === 'heat_flux')?.dimensions).toEqual(['time', 'y']);
+    const text = await striaHere(['run', ...TWO, '--steps', '4']);
+    expect(text.stdout).toMatch(/^supercriticality +0\.09$/m);
+    expect(text.stdout).toMatch(/^heat_flux +\S+$/m);
     const file = JSON.parse(readFileSync(whole, 'utf8'));
     expect(file.params).toMatchObject({ layers: 2, shear: 0.3, kd: 3, depth_ratio: 0.5 });
     expect(file.state.qHat.length).toBe(4 * 32 * 17);

@@ -34,6 +34,13 @@ interface Independent {
   enstrophy: number;
   scaleE: number;
   scaleZ: number;
+  /** The energy cycle's reservoirs and their rates: barotropic KE, baroclinic KE, APE. */
+  keBt: number;
+  keBc: number;
+  ape: number;
+  keBtRate: number;
+  keBcRate: number;
+  apeRate: number;
 }
 
 /**
@@ -55,7 +62,20 @@ function independentRates(m: Model, steady: Float64Array | null): Independent {
   const [h1, h2] = [d / (1 + d), 1 / (1 + d)];
   const [F1, F2] = [(p.kd * p.kd) / (1 + d), (d * p.kd * p.kd) / (1 + d)];
   const problem = { kd: p.kd, depthRatio: d, beta: p.beta, shear: p.shear, mu: p.mu, nu: p.nu, order: p.nu_order };
-  const out: Independent = { energyRate: 0, enstrophyRate: 0, energy: 0, enstrophy: 0, scaleE: 0, scaleZ: 0 };
+  const out: Independent = {
+    energyRate: 0,
+    enstrophyRate: 0,
+    energy: 0,
+    enstrophy: 0,
+    scaleE: 0,
+    scaleZ: 0,
+    keBt: 0,
+    keBc: 0,
+    ape: 0,
+    keBtRate: 0,
+    keBcRate: 0,
+    apeRate: 0,
+  };
   for (let jy = 0; jy < g.ny; jy++)
     for (let ix = 0; ix <= g.Kx; ix++) {
       if (!g.kept(ix, jy)) continue;
@@ -84,6 +104,19 @@ function independentRates(m: Model, steady: Float64Array | null): Independent {
       out.scaleZ += Math.abs(z);
       out.energy -= 0.5 * w * (h1 * (p1r * ar + p1i * ai) + h2 * (p2r * br + p2i * bi));
       out.enstrophy += 0.5 * w * (h1 * (ar * ar + ai * ai) + h2 * (br * br + bi * bi));
+      // The modes: ψ_bt = h₁ψ₁ + h₂ψ₂, τ = ψ₁ − ψ₂; E_bt = ½K²|ψ̂_bt|², E_bc = ½h₁h₂(K² + k_d²)|τ̂|², of
+      // which K²/(K² + k_d²) is kinetic and k_d²/(K² + k_d²) potential [derived: docs/two-layer.md].
+      const [br2, bi2] = [h1 * p1r + h2 * p2r, h1 * p1i + h2 * p2i];
+      const [tr, ti] = [p1r - p2r, p1i - p2i];
+      const kd2 = p.kd * p.kd;
+      const dBt = -w * (br2 * (h1 * r1r + h2 * r2r) + bi2 * (h1 * r1i + h2 * r2i));
+      const dBc = -w * h1 * h2 * (tr * (r1r - r2r) + ti * (r1i - r2i));
+      out.keBt += 0.5 * w * K2 * (br2 * br2 + bi2 * bi2);
+      out.keBc += 0.5 * w * h1 * h2 * K2 * (tr * tr + ti * ti);
+      out.ape += 0.5 * w * h1 * h2 * kd2 * (tr * tr + ti * ti);
+      out.keBtRate += dBt;
+      out.keBcRate += (K2 / (K2 + kd2)) * dBc;
+      out.apeRate += (kd2 / (K2 + kd2)) * dBc;
     }
   return out;
 }
@@ -169,4 +202,56 @@ describe('two-layer budgets', () => {
     const sd = Math.sqrt(injections.reduce((s, x) => s + (x - mean) ** 2, 0) / (injections.length - 1));
     expect(Math.abs(mean - 0.05)).toBeLessThan((3 * sd) / Math.sqrt(injections.length));
   });
+});
+
+// The energy cycle of the two layers [derived: docs/two-layer.md, "The energy cycle", from the layer
+// equations of Pedlosky 1987 §7.11 and Vallis 2017]: mean-flow APE → eddy APE (generation) → eddy KE
+// (conversion) → barotropic KE (transfer) → drag and hyperviscosity. Each reservoir's rate, from the
+// right-hand side of the equations projected on the modes by the test's own inversion, equals the
+// sum of the cycle's terms to round-off at every step; the parts of drag, hyper and large-scale drag
+// add up to the budget's.
+describe('two-layer energy cycle', () => {
+  for (const forcing of ['none', 'steady', 'stochastic'] as const) {
+    it(`closes per reservoir every step to round-off (forcing ${forcing})`, () => {
+      const m = new Model({ ...TURBULENT, forcing });
+      m.step(300);
+      const steady =
+        forcing === 'steady'
+          ? new Forcing(m.grid, m.params, { invK2: m.twoLayerLinear!.invK2Barotropic }).steady
+          : null;
+      for (let i = 0; i < 24; i++) {
+        const ind = independentRates(m, steady);
+        const r = m.step();
+        const e = r.energy;
+        const c = r.layers!;
+        const scale = ind.scaleE;
+        const near = (a: number, b: number) => expect(Math.abs(a - b)).toBeLessThan(1e-12 * scale);
+        near(c.kineticBarotropic, ind.keBt);
+        near(c.kineticBaroclinic, ind.keBc);
+        near(c.potential, ind.ape);
+        expect(Math.abs(c.kineticBarotropic + c.kineticBaroclinic - r.kinetic)).toBeLessThan(1e-13 * r.kinetic);
+        // The stochastic forcing's ensemble-mean rate is not in the deterministic right-hand side.
+        const inj = forcing === 'stochastic' ? 0 : e.injection;
+        near(e.generation! - c.conversion - c.hyperPotential - c.largeScalePotential, ind.apeRate);
+        near(
+          c.conversion -
+            c.barotropicTransfer -
+            c.dragBaroclinic -
+            c.hyperBaroclinic -
+            c.largeScaleBaroclinic +
+            e.transfer,
+          ind.keBcRate,
+        );
+        near(c.barotropicTransfer - c.dragBarotropic - c.hyperBarotropic - c.largeScaleBarotropic + inj, ind.keBtRate);
+        near(c.dragBarotropic + c.dragBaroclinic, e.drag);
+        near(c.hyperPotential + c.hyperBaroclinic + c.hyperBarotropic, e.hyper);
+        near(c.largeScalePotential + c.largeScaleBaroclinic + c.largeScaleBarotropic, e.largeScale);
+        // The cycle runs the textbook way in the equilibrated flow: the eddies turn APE into KE and
+        // pass it to the barotropic mode, where the drag takes it [practice: a standard result of
+        // two-layer baroclinic turbulence].
+        expect(c.conversion).toBeGreaterThan(0);
+        expect(c.barotropicTransfer).toBeGreaterThan(0);
+      }
+    });
+  }
 });

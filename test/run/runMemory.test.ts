@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { LayerSnapshotPlan } from '../../lib/analysis/layerSnapshot';
 import { SnapshotPlan } from '../../lib/analysis/snapshot';
 import { Model } from '../../lib/model/model';
 import { modelMemory, forcedModesForCost } from '../../lib/plan/cost';
@@ -43,6 +44,39 @@ describe('memory estimate of a measured run', () => {
         bytes: reachableArrayBytes(plan, fields).bytes + recordBytes,
       });
     }
+  });
+
+  it('counts every typed array of a two-layer model and its measurement, exactly', () => {
+    for (const [nx, ny] of sizes) {
+      const model = new Model({ nx, ny, kf: 8, dkf: 1.5, layers: 2, kd: 4, shear: 0.3 });
+      const est = estimateRunMemory(model.params, { snapshots: true, zonal: true });
+      const modelBytes = reachableArrayBytes(model).bytes;
+      expect(est.items[0], `${nx}×${ny} model`).toEqual({ what: 'model', bytes: modelBytes });
+      expect(modelMemory(nx, ny, forcedModesForCost(model.params), 2).totalBytes).toBe(modelBytes);
+      // The snapshot file of both layers: a layer plan, their fields, a record of 10 fields, a time and a step.
+      const layerPlan = new LayerSnapshotPlan(model.params);
+      const up = layerPlan.gridFields(model.qHat, 'upper');
+      const lo = layerPlan.gridFields(model.qHat, 'lower');
+      expect(est.items[2]).toEqual({
+        what: 'snapshot file',
+        bytes: reachableArrayBytes(layerPlan, up, lo).bytes + 10 * 8 * nx * ny + 12,
+      });
+      // The zonal-mean file: five profiles of each layer and the heat flux.
+      expect(est.items[3]).toEqual({ what: 'zonal-mean file', bytes: 11 * 8 * ny + 12 });
+      const run = new MonitoredRun(model, resolveRunPlan(model.params, { steps: 10 }));
+      expect(est.items[1]).toEqual({ what: 'measurement', bytes: reachableArrayBytes(run).bytes - modelBytes });
+      const s = run.saveState();
+      const acc =
+        stateBytes(s.monitor.budget) +
+        stateBytes(s.monitor.hovmoller) +
+        stateBytes(s.monitor.means) +
+        stateBytes(s.monitor.layers!.cycle) +
+        stateBytes(s.monitor.layers!.means);
+      expect(accumulatorBytes(ny, 2)).toBe(acc);
+    }
+    // About 440 bytes a point on a large square grid (lib/plan/cost.ts).
+    expect(modelMemory(1024, 1024, 0, 2).bytesPerPoint).toBeGreaterThan(420);
+    expect(modelMemory(1024, 1024, 0, 2).bytesPerPoint).toBeLessThan(460);
   });
 
   it('counts the accumulators as a saved measurement holds them (the retry checkpoint)', () => {

@@ -139,7 +139,7 @@ describe.runIf(runNcgen)('field discovery', () => {
     expect(discoverFields(t).order).toBe('xy');
   });
 
-  it('accepts a level dimension of length 1, refuses a second long dimension, and leaves off fields on another grid', () => {
+  it('accepts a level dimension of length 1 or a layer dimension, refuses a second long dimension, and leaves off fields on another grid', () => {
     const one = lonlatFile(
       [
         {
@@ -165,8 +165,29 @@ describe.runIf(runNcgen)('field discovery', () => {
       ],
       [{ name: 'lev', size: 3 }],
     );
-    expect(() => discoverFields(many)).toThrow(
-      '"u" has 2 dimensions besides its horizontal ones longer than 1 (time = 2, lev = 3): Stria analyses a 2D field over records; extract one level first',
+    // A vertical dimension (by its name, lev) is a layer dimension: the depth-weighted mean by
+    // default (equal weights without thicknesses), or one level with `layer`.
+    const levels = discoverFields(many);
+    expect(levels.records).toMatchObject({ dimension: 'time', count: 2 });
+    expect(levels.level).toMatchObject({ dimension: 'lev', count: 3, index: null });
+    expect(Array.from(levels.level!.weights)).toEqual([1 / 3, 1 / 3, 1 / 3]);
+    expect(discoverFields(many, { layer: 2 }).level).toMatchObject({ index: 1 });
+    expect(() => discoverFields(many, { layer: 4 })).toThrow('--layer 4: "lev" has layers 1 to 3');
+    expect(() => discoverFields(one, { layer: 1 })).toThrow('has no layer or vertical dimension');
+    const members = lonlatFile(
+      [
+        {
+          name: 'u',
+          type: 'float',
+          dims: ['time', 'member', 'lat', 'lon'],
+          attrs: { units: 'm s-1' },
+          data: Array.from({ length: 192 }, (_, k) => k),
+        },
+      ],
+      [{ name: 'member', size: 3 }],
+    );
+    expect(() => discoverFields(members)).toThrow(
+      '"u" has 2 dimensions besides its horizontal ones longer than 1 (time = 2, member = 3): Stria analyses a 2D field over records; extract one level first',
     );
     const stag = lonlatFile([
       grid('u', { units: 'm s-1' }),
