@@ -6,7 +6,7 @@ import type { TimeWindow, WindowReport } from '../lib/analysis/timeMean';
 import { reachedTime } from '../lib/model/clock';
 import type { Model } from '../lib/model/model';
 import type { ModelParams } from '../lib/model/params';
-import { monitoredParams, monitoredState } from '../lib/run/monitoredRun';
+import { monitoredState } from '../lib/run/monitoredRun';
 import type { MonitorStatus } from './diagnosticsApi';
 import { SpectralDiagnostics } from './spectralDiagnostics';
 import { ZonalFrameStore } from './zonalFrameStore';
@@ -60,8 +60,9 @@ export class RunDiagnostics {
     this.since = start;
     this.model = { time: start, steps: 0 };
     this.next = start + sampling.sampleEvery;
-    // Two layers: the diagnostics watch the barotropic flow until they learn the layers (monitoredParams).
-    this.monitor = new RunMonitor(monitoredParams(params), { window: meanWindow(sampling.meanSpan), start });
+    // Two layers: the monitor watches the barotropic flow (jets, staircase, Hovmöller) and keeps the
+    // layers' own zonal means and energy cycle (RunMonitor.layers); the spectra are of the barotropic PV.
+    this.monitor = new RunMonitor(params, { window: meanWindow(sampling.meanSpan), start });
     this.frames = new ZonalFrameStore(params.ny);
     this.spectral = new SpectralDiagnostics(this.monitor.snap, sampling.spectralAverage);
   }
@@ -112,7 +113,7 @@ export class RunDiagnostics {
     this.taken++;
     const t = model.time;
     const q = this.sampled(model);
-    const z = this.monitor.sample(q, t);
+    const z = this.monitor.sample(model.qHat, t);
     this.frames.add(t, model.steps, z);
     this.lastSample = t;
     this.worked = null;
@@ -128,7 +129,7 @@ export class RunDiagnostics {
   retune(params: ModelParams, model: Model): void {
     this.params = params;
     const snap = this.monitor.snap;
-    this.monitor.retune(monitoredParams(params), model.time);
+    this.monitor.retune(params, model.time);
     this.barotropic = undefined;
     if (this.monitor.snap !== snap) this.spectral.retune(this.monitor.snap);
     this.model = { time: model.time, steps: model.steps };

@@ -1,0 +1,93 @@
+import { afterEach, describe, expect, it } from 'vitest';
+import { RunMonitor } from '../../lib/analysis/runMonitor';
+import { Model } from '../../lib/model/model';
+import { SimulationHost } from '../../workers/simulationHost';
+
+// A small two-layer run sampled every 4 fixed steps (binary fractions: the step sums hit the sample times).
+const TWO = {
+  nx: 32,
+  ny: 32,
+  layers: 2,
+  kd: 4,
+  shear: 1,
+  beta: 0.5,
+  mu: 0.1,
+  forcing: 'none',
+  eps: 0,
+  kf: 3,
+  dkf: 1,
+  init_energy: 1e-3,
+  cfl: 0,
+  dt: 1 / 128,
+} as const;
+const EVERY = 1 / 32;
+
+describe('SimulationHost with two layers', () => {
+  let host: SimulationHost;
+  afterEach(async () => {
+    await host.dispose();
+  });
+
+  it('sends the layers payload: per-layer zonal means, heat flux and energy cycle as a RunMonitor driven directly has them', async () => {
+    host = new SimulationHost();
+    await host.init(TWO, { sampleEvery: EVERY, meanSpan: 1 });
+    await host.setDiagnostics({
+      zonal: true,
+      hovmoller: false,
+      spectra: false,
+      spectra2d: false,
+      flux: false,
+      layers: true,
+    });
+    for (let i = 0; i < 16; i++) await host.stepOnce();
+    const s = await host.nextSnapshot({ after: 0 });
+    const L = s.diagnostics.layers!;
+    expect(L).not.toBeNull();
+    const direct = new Model(TWO);
+    const monitor = new RunMonitor(direct.params, { window: { kind: 'last', span: 1, cap: 256 } });
+    let next = EVERY;
+    let taken = 0;
+    for (let i = 0; i < 16; i++) {
+      monitor.step(direct.step(1));
+      if (direct.time >= next) {
+        taken++;
+        next = (taken + 1) * EVERY;
+        monitor.sample(direct.qHat, direct.time);
+      }
+    }
+    const m = monitor.layers!;
+    expect(Array.from(L.ubar1)).toEqual(Array.from(m.latest.upper.ubar));
+    expect(Array.from(L.ubar2)).toEqual(Array.from(m.latest.lower.ubar));
+    expect(Array.from(L.heat)).toEqual(Array.from(m.latest.heatFlux));
+    expect(L.window?.count).toBe(4);
+    // The cycle over the window of the profiles' time means (sample times), as CycleSeries has it.
+    const whole = m.cycle.timeMean(L.window!.tStart, L.window!.tEnd);
+    expect(L.series.terms.generation.length).toBe(m.cycle.length);
+    expect(L.windowCycle!.terms.generation).toBeCloseTo(whole.mean.generation, 12);
+    // The Q_i of the layers: β ± F_i (U₁ − U₂) with F₁ = F₂ = k_d²/2 at δ = 1 [derived, docs/two-layer.md].
+    expect(L.Q1).toBeCloseTo(0.5 + 8, 12);
+    expect(L.Q2).toBeCloseTo(0.5 - 8, 12);
+  });
+
+  it('shows the field of the chosen layer view, and a new number of layers starts a new run', async () => {
+    host = new SimulationHost();
+    await host.init(TWO);
+    await host.stepOnce();
+    await host.setLayerView('upper');
+    let s = await host.nextSnapshot({ after: 0 });
+    expect(s.layerView).toBe('upper');
+    const direct = new Model(TWO);
+    direct.step();
+    expect(Array.from(s.values)).toEqual(Array.from(direct.field('u', undefined, 'upper')));
+    await host.setLayerView('baroclinic');
+    s = await host.nextSnapshot({ after: s.version });
+    expect(Array.from(s.values)).toEqual(Array.from(direct.field('u', undefined, 'baroclinic')));
+    await expect(host.setLayerView('middle' as 'upper')).rejects.toThrow(RangeError);
+    const epoch = s.epoch;
+    const r = await host.reconfigure({ layers: 1, shear: 0, depth_ratio: 1 });
+    expect(r.applied && r.how).toBe('fresh');
+    s = await host.nextSnapshot({ after: s.version });
+    expect(s.epoch).toBe(epoch + 1);
+    expect(s.time).toBe(0);
+  });
+});
