@@ -1,6 +1,6 @@
 import type { JetReport } from '../lib/analysis/jets';
 import { successiveSpread } from '../lib/analysis/noiseReference';
-import { RunMonitor, type MeanProfile, type Structure } from '../lib/analysis/runMonitor';
+import { flowMemory, RunMonitor, type MeanProfile, type Structure } from '../lib/analysis/runMonitor';
 import { summarize, type RunSummary } from '../lib/analysis/summary';
 import type { TimeWindow, WindowReport } from '../lib/analysis/timeMean';
 import { reachedTime } from '../lib/model/clock';
@@ -23,9 +23,12 @@ export function defaultSampleEvery(p: ModelParams): number {
   return Math.max(p.dt, Math.min(0.5, 20 * p.dt));
 }
 
-/** Default averaging window: 1/μ (the drag time), or 50 without drag, as the RunMonitor's. */
+/**
+ * Default averaging window: the flow's memory, as the RunMonitor's (flowMemory: 1/μ in one layer,
+ * 1/(μh₂) in two, where the drag acts on the lower layer only), or 50 without drag.
+ */
 export function defaultMeanSpan(p: ModelParams): number {
-  return p.mu > 0 ? 1 / p.mu : 50;
+  return p.mu > 0 ? flowMemory(p) : 50;
 }
 
 export const DEFAULT_SPECTRAL_AVERAGE = 16;

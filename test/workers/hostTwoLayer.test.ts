@@ -69,6 +69,15 @@ describe('SimulationHost with two layers', () => {
     expect(L.Q2).toBeCloseTo(0.5 - 8, 12);
   });
 
+  it('averages over the flow memory 1/(μh₂) by default: the drag acts on the lower layer only [derived, docs/two-layer.md]', async () => {
+    host = new SimulationHost();
+    await host.init({ ...TWO, depth_ratio: 0.25 });
+    await host.stepOnce();
+    const s = await host.nextSnapshot({ after: 0 });
+    // h₂ = 1/(1 + δ) = 0.8, so 1/(μh₂) = 1/(0.1 × 0.8) = 12.5.
+    expect(s.diagnostics.status.meanSpan).toBeCloseTo(12.5, 12);
+  });
+
   it('shows the field of the chosen layer view, and a new number of layers starts a new run', async () => {
     host = new SimulationHost();
     await host.init(TWO);
