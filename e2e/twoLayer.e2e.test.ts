@@ -7,6 +7,7 @@ import {
   modelTime,
   openApp,
   openView,
+  pause,
   readText,
   screenshot,
   waitForTime,
@@ -36,11 +37,14 @@ describe('Two-layer runs in Chromium', () => {
     await kd.fill('4');
     await kd.press('Enter');
     await expect.poll(() => readText(page, 'param-notice')).toMatch(/k_?d|kd/);
+    // Paused, so that the new run's clock can be read at its start.
+    await pause(page);
+    expect(await modelTime(page)).toBeGreaterThan(2);
     await page.locator('#param-layers').selectOption('2');
     await expect.poll(() => readText(page, 'param-notice')).toMatch(/2 layers: the run started afresh from t = 0/);
-    const t = await modelTime(page);
-    expect(t).toBeLessThan(2);
-    await waitForTime(page, t + 0.5);
+    await expect.poll(() => modelTime(page)).toBe(0);
+    await page.getByTestId('play-pause').click();
+    await waitForTime(page, 0.5);
     await page.getByTestId('layer-upper').waitFor();
   });
 
@@ -103,4 +107,19 @@ describe('Two-layer runs in Chromium', () => {
     );
     expect(app.problems).toEqual([]);
   });
+
+  it('the ocean-like scenario grows eddies too: the cycle turns with positive generation', async () => {
+    const { page } = app;
+    await page.getByTestId('scenario').selectOption('ocean-two-layer');
+    await expect.poll(() => readText(page, 'scenario-description')).toMatch(/thin upper layer/);
+    await waitForTime(page, 13, 240_000);
+    await expect.poll(() => attr(page, 'energy-cycle', 'data-generation'), { timeout: 30_000 }).toBeGreaterThan(0);
+    await expect.poll(() => attr(page, 'energy-cycle', 'data-transfer'), { timeout: 30_000 }).toBeGreaterThan(0);
+    await screenshot(page, 'two-layer-ocean-cycle.png');
+    await openView(page, 'field');
+    await page.getByTestId('layer-upper').check();
+    await page.waitForTimeout(400);
+    await screenshot(page, 'two-layer-ocean-field.png');
+    expect(app.problems).toEqual([]);
+  }, 300_000);
 });
