@@ -1,7 +1,9 @@
+import { extname, resolve } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchChromium, type BrowserSession } from './support/browser';
 import {
+  ARTIFACTS,
   canvasSample,
   inkPixels,
   modelTime,
@@ -81,6 +83,13 @@ describe('Two-layer runs in Chromium', () => {
     await expect.poll(() => attr(page, 'layer-zonal', 'data-heat'), { timeout: 30_000 }).toBeGreaterThan(0);
     await expect(readText(page, 'layer-heat')).resolves.toMatch(/down the mean temperature gradient/);
     await screenshot(page, 'two-layer-zonal.png');
+    // Jets of the barotropic flow, significant in the time mean over the flow memory 1/(μh₂) = 4.6
+    // (in a trial: two, 3.1 ± 0.5 apart, by t ≈ 17.6, about a minute of play here).
+    await expect.poll(() => attr(page, 'model-jets', 'data-count'), { timeout: 120_000 }).toBeGreaterThanOrEqual(1);
+    // The barotropic ū over time: bands that persist once the eddies have grown.
+    await openView(page, 'hovmoller');
+    await page.waitForTimeout(800);
+    await screenshot(page, 'two-layer-hovmoller.png');
   });
 
   it('Energy cycle: positive generation, conversion and transfer, live, with PNG and CSV export', async () => {
@@ -101,6 +110,8 @@ describe('Two-layer runs in Chromium', () => {
     for (const testid of ['export-view-png', 'export-cycle']) {
       const [d] = await Promise.all([page.waitForEvent('download'), page.getByTestId(testid).click()]);
       expect(d.suggestedFilename()).toMatch(/^stria-energy-cycle-.*\.(png|csv)$/);
+      // Kept beside the screenshots, to be looked at.
+      await d.saveAs(resolve(ARTIFACTS, `two-layer-export${extname(d.suggestedFilename())}`));
     }
     await expect(readText(page, 'view-export-note')).resolves.toMatch(
       /Saved stria-energy-cycle-.*\.csv: the energy cycle at \d+ times/,
