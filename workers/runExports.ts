@@ -1,5 +1,12 @@
 import type { StriaRunInfo } from '../lib/io/cfGlobalAttributes';
-import { encodeSnapshotFile, encodeZonalMeanFile, snapshotFrame } from '../lib/io/cfStriaWriter';
+import { fileKindsOf } from '../lib/io/cfStria';
+import {
+  encodeSnapshotFile,
+  encodeStriaFile,
+  encodeZonalMeanFile,
+  layerSnapshotFrame,
+  snapshotFrame,
+} from '../lib/io/cfStriaWriter';
 import { encodeCsv, type CsvColumn } from '../lib/io/csv';
 import type { Model } from '../lib/model/model';
 import pkg from '../package.json';
@@ -26,18 +33,30 @@ function runInfo(model: Model, action: string): StriaRunInfo {
 
 const stamp = (t: number) => `t${t.toFixed(2)}`;
 
-/** The current state as a one-record snapshot file (CF NetCDF, docs/file-formats.md). */
+/**
+ * The current state as a one-record snapshot file (CF NetCDF, docs/file-formats.md); with two layers
+ * the layered file of the command line (a layer dimension, each field upper then lower).
+ */
 export function snapshotExport(model: Model, diag: RunDiagnostics): ExportedFile {
-  const fields = diag.monitor.snap.gridFields(diag.sampled(model));
-  const bytes = encodeSnapshotFile(runInfo(model, 'export the current state'), [
-    snapshotFrame(model.time, model.steps, fields),
-  ]);
+  const run = runInfo(model, 'export the current state');
+  const layers = diag.monitor.layers;
   const { nx, ny } = model.params;
+  let bytes: Uint8Array;
+  let what = 'q, ζ, ψ, u, v';
+  if (model.layers === 2 && layers) {
+    const upper = layers.plan.gridFields(model.qHat, 'upper');
+    const lower = layers.plan.gridFields(model.qHat, 'lower');
+    bytes = encodeStriaFile(fileKindsOf(2).snapshots, run, [layerSnapshotFrame(model.time, model.steps, upper, lower)]);
+    what += ' of both layers';
+  } else {
+    const fields = diag.monitor.snap.gridFields(diag.sampled(model));
+    bytes = encodeSnapshotFile(run, [snapshotFrame(model.time, model.steps, fields)]);
+  }
   return {
     name: `stria-snapshot-${stamp(model.time)}.nc`,
     mime: 'application/x-netcdf',
     bytes,
-    description: `1 record of q, ζ, ψ, u, v on ${nx} × ${ny} at t = ${model.time.toFixed(3)}`,
+    description: `1 record of ${what} on ${nx} × ${ny} at t = ${model.time.toFixed(3)}`,
   };
 }
 
@@ -92,5 +111,7 @@ export function zonalCsvExport(model: Model, diag: RunDiagnostics): ExportedFile
 
 function describe(diag: RunDiagnostics, n: number): string {
   const every = diag.sampling.sampleEvery * diag.frames.samplesPerFrame;
-  return `${n} records of ū, q̄ + βy, u′v′, v′q′, EKE on ${diag.params.ny} points in y, every ${Number(every.toPrecision(4))} T`;
+  // Two layers: the frames are those of the barotropic flow (the Zonal view's Layers CSV has the layers').
+  const of = diag.params.layers === 2 ? ' of the barotropic flow' : '';
+  return `${n} records of ū, q̄ + βy, u′v′, v′q′, EKE${of} on ${diag.params.ny} points in y, every ${Number(every.toPrecision(4))} T`;
 }

@@ -1,5 +1,6 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { RunMonitor } from '../../lib/analysis/runMonitor';
+import { readNetcdf } from '../../lib/io/netcdfRead';
 import { Model } from '../../lib/model/model';
 import { SimulationHost } from '../../workers/simulationHost';
 
@@ -67,6 +68,21 @@ describe('SimulationHost with two layers', () => {
     // The Q_i of the layers: β ± F_i (U₁ − U₂) with F₁ = F₂ = k_d²/2 at δ = 1 [derived, docs/two-layer.md].
     expect(L.Q1).toBeCloseTo(0.5 + 8, 12);
     expect(L.Q2).toBeCloseTo(0.5 - 8, 12);
+  });
+
+  it('exports the state of both layers as the layered snapshot file, each layer as the model has it', async () => {
+    host = new SimulationHost();
+    await host.init(TWO);
+    for (let i = 0; i < 3; i++) await host.stepOnce();
+    const file = await host.exportFile('snapshot');
+    expect(file.description).toMatch(/of both layers on 32 × 32/);
+    const nc = readNetcdf(file.bytes);
+    expect(nc.variable('u').shape).toEqual([1, 2, 32, 32]);
+    const direct = new Model(TWO);
+    direct.step(3);
+    const u = nc.readRecord('u', 0);
+    expect(Array.from(u.slice(0, 32 * 32))).toEqual(Array.from(direct.field('u', undefined, 'upper')));
+    expect(Array.from(u.slice(32 * 32))).toEqual(Array.from(direct.field('u', undefined, 'lower')));
   });
 
   it('averages over the flow memory 1/(μh₂) by default: the drag acts on the lower layer only [derived, docs/two-layer.md]', async () => {
