@@ -3,6 +3,7 @@ import { successiveSpread } from '../lib/analysis/noiseReference';
 import { flowMemory, RunMonitor, type MeanProfile, type Structure } from '../lib/analysis/runMonitor';
 import { summarize, type RunSummary } from '../lib/analysis/summary';
 import type { TimeWindow, WindowReport } from '../lib/analysis/timeMean';
+import { layerZonalMeanFrame } from '../lib/io/cfStriaWriter';
 import { reachedTime } from '../lib/model/clock';
 import type { Model } from '../lib/model/model';
 import type { ModelParams } from '../lib/model/params';
@@ -66,7 +67,7 @@ export class RunDiagnostics {
     // Two layers: the monitor watches the barotropic flow (jets, staircase, Hovmöller) and keeps the
     // layers' own zonal means and energy cycle (RunMonitor.layers); the spectra are of the barotropic PV.
     this.monitor = new RunMonitor(params, { window: meanWindow(sampling.meanSpan), start });
-    this.frames = new ZonalFrameStore(params.ny);
+    this.frames = new ZonalFrameStore(params.ny, undefined, params.layers);
     this.spectral = new SpectralDiagnostics(this.monitor.snap, sampling.spectralAverage);
   }
 
@@ -117,7 +118,10 @@ export class RunDiagnostics {
     const t = model.time;
     const q = this.sampled(model);
     const z = this.monitor.sample(model.qHat, t);
-    this.frames.add(t, model.steps, z);
+    const layers = this.monitor.layers;
+    // Two layers: the frames of the layered zonal-mean file (each layer's profiles and the heat flux).
+    if (layers) this.frames.addFrame(t, model.steps, () => layerZonalMeanFrame(t, model.steps, layers.latest).fields);
+    else this.frames.add(t, model.steps, z);
     this.lastSample = t;
     this.worked = null;
     if (wants.spectra) this.spectral.addSpectra(q, t, wants.spectra2d);

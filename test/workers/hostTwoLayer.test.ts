@@ -1,5 +1,6 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { RunMonitor } from '../../lib/analysis/runMonitor';
+import { parseCsv } from '../../lib/io/csv';
 import { readNetcdf } from '../../lib/io/netcdfRead';
 import { Model } from '../../lib/model/model';
 import { SimulationHost } from '../../workers/simulationHost';
@@ -83,6 +84,44 @@ describe('SimulationHost with two layers', () => {
     const u = nc.readRecord('u', 0);
     expect(Array.from(u.slice(0, 32 * 32))).toEqual(Array.from(direct.field('u', undefined, 'upper')));
     expect(Array.from(u.slice(32 * 32))).toEqual(Array.from(direct.field('u', undefined, 'lower')));
+  });
+
+  it('exports the zonal means as the layered file and CSV: each layer and the heat flux, as the monitor samples them', async () => {
+    host = new SimulationHost();
+    await host.init(TWO, { sampleEvery: EVERY });
+    for (let i = 0; i < 8; i++) await host.stepOnce();
+    const nc = readNetcdf((await host.exportFile('zonal-netcdf')).bytes);
+    expect(nc.numRecords).toBe(2);
+    expect(nc.variable('ubar').shape).toEqual([2, 2, 32]);
+    expect(nc.variable('heat_flux').shape).toEqual([2, 32]);
+    const direct = new Model(TWO);
+    const monitor = new RunMonitor(direct.params);
+    for (let i = 0; i < 8; i++) monitor.step(direct.step(1));
+    monitor.sample(direct.qHat, direct.time);
+    const z = monitor.layers!.latest;
+    const ubar = nc.readRecord('ubar', 1);
+    expect(Array.from(ubar.slice(0, 32))).toEqual(Array.from(z.upper.ubar));
+    expect(Array.from(ubar.slice(32))).toEqual(Array.from(z.lower.ubar));
+    expect(Array.from(nc.readRecord('heat_flux', 1))).toEqual(Array.from(z.heatFluxPlain));
+    const csv = parseCsv((await host.exportFile('zonal-csv')).bytes);
+    expect(csv.header).toEqual([
+      'time',
+      'step',
+      'y',
+      'ubar1',
+      'ubar2',
+      'qbar1',
+      'qbar2',
+      'upvp1',
+      'upvp2',
+      'vpqp1',
+      'vpqp2',
+      'eke1',
+      'eke2',
+      'heat_flux',
+    ]);
+    expect(csv.rows.length).toBe(2 * 32);
+    expect(Number(csv.rows[32 + 5][4])).toBe(z.lower.ubar[5]);
   });
 
   it('averages over the flow memory 1/(μh₂) by default: the drag acts on the lower layer only [derived, docs/two-layer.md]', async () => {
