@@ -131,6 +131,15 @@ describe('Two-layer runs in Chromium', () => {
     await page.getByTestId('layer-upper').check();
     await page.waitForTimeout(400);
     await screenshot(page, 'two-layer-ocean-field.png');
+    // The state and the zonal means as the layered files, each read back in the page before it is offered.
+    for (const [kind, read] of [
+      ['snapshot', /of both layers on 128 × 128.*read back: .*variables \(.*u.*\), 1 record/],
+      ['zonal-netcdf', /of each layer and the heat flux.*read back: .*heat_flux/],
+      ['zonal-csv', /read back: 14 columns \(time, step, y, ubar1, ubar2/],
+    ] as const) {
+      await Promise.all([page.waitForEvent('download'), page.getByTestId(`export-${kind}`).click()]);
+      await expect.poll(() => readText(page, 'export-message'), { timeout: 30_000 }).toMatch(read);
+    }
     expect(app.problems).toEqual([]);
   }, 300_000);
 });
