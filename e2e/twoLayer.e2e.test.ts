@@ -106,6 +106,10 @@ describe('Two-layer runs in Chromium', () => {
     await expect
       .poll(() => inkPixels(page, '[data-testid=chart-cycle] canvas'), { timeout: 30_000 })
       .toBeGreaterThan(2000);
+    // ξ = δk_d²(U₁ − U₂)/((1 + δ)β) = 6.436²/(2 × 10.95) = 1.89 [derived: lib/analysis/summary.ts, docs/two-layer.md section 4].
+    await expect
+      .poll(() => readText(page, 'cycle-summary'), { timeout: 30_000 })
+      .toMatch(/supercriticality ξ = 1\.89.*generation \d/);
     await screenshot(page, 'two-layer-cycle.png');
     for (const testid of ['export-view-png', 'export-cycle']) {
       const [d] = await Promise.all([page.waitForEvent('download'), page.getByTestId(testid).click()]);
