@@ -124,6 +124,29 @@ describe('SimulationHost with two layers', () => {
     expect(Number(csv.rows[32 + 5][4])).toBe(z.lower.ubar[5]);
   });
 
+  it('resumes a two-layer checkpoint bit for bit, with the layers diagnosed from there', async () => {
+    host = new SimulationHost();
+    await host.init(TWO, { sampleEvery: EVERY });
+    for (let i = 0; i < 4; i++) await host.stepOnce();
+    const cp = await host.checkpoint();
+    for (let i = 0; i < 4; i++) await host.stepOnce();
+    const goneOn = await host.nextSnapshot({ after: 0 });
+    await host.restore(cp);
+    await host.setDiagnostics({
+      zonal: false,
+      hovmoller: false,
+      spectra: false,
+      spectra2d: false,
+      flux: false,
+      layers: true,
+    });
+    for (let i = 0; i < 4; i++) await host.stepOnce();
+    const resumed = await host.nextSnapshot({ after: 0 });
+    expect(resumed.params.layers).toBe(2);
+    expect(resumed.checksum).toBe(goneOn.checksum);
+    expect(resumed.diagnostics.layers?.ubar1.length).toBe(32);
+  });
+
   it('averages over the flow memory 1/(μh₂) by default: the drag acts on the lower layer only [derived, docs/two-layer.md]', async () => {
     host = new SimulationHost();
     await host.init({ ...TWO, depth_ratio: 0.25 });
