@@ -101,7 +101,7 @@ describe('Security of the built app in Chromium', () => {
     const tabs = await page
       .getByRole('tab')
       .evaluateAll((els) => els.map((e) => e.getAttribute('data-testid')?.replace(/^tab-/, '') ?? ''));
-    expect(tabs).toHaveLength(10);
+    expect(tabs).toHaveLength(11);
     for (const id of tabs) {
       await openView(page, id);
       // Let each view draw from a few snapshots while the run plays.

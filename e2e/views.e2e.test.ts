@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchChromium, type BrowserSession } from './support/browser';
-import { canvasSample, modelTime, openApp, screenshot, waitForSteps, type AppPage } from './support/app';
+import { canvasSample, modelTime, openApp, openView, screenshot, waitForSteps, type AppPage } from './support/app';
 
 describe('Budget and Scale ladder views in Chromium', () => {
   let session: BrowserSession;
@@ -24,11 +24,17 @@ describe('Budget and Scale ladder views in Chromium', () => {
       'Spectra',
       'Flux',
       'Budget',
+      'Energy cycle',
       'Scale ladder',
       'Plan',
       'Sweep',
       'Compare',
     ]);
+  });
+
+  it('says that the energy cycle belongs to two-layer runs when the run has one layer', async () => {
+    await openView(app.page, 'cycle');
+    await expect(app.page.getByTestId('cycle-one-layer').innerText()).resolves.toMatch(/two-layer runs/);
   });
 
   it('draws the budget charts, and they grow as the run goes on', async () => {

@@ -45,7 +45,7 @@ function readDeviceMemory(): number | undefined {
   return (globalThis.navigator as { deviceMemory?: number } | undefined)?.deviceMemory;
 }
 
-type GridParams = Pick<ModelParams, 'nx' | 'ny' | 'Lx' | 'Ly' | 'kf' | 'dkf'>;
+type GridParams = Pick<ModelParams, 'nx' | 'ny' | 'Lx' | 'Ly' | 'kf' | 'dkf'> & { layers?: 1 | 2 };
 
 export interface AppMemoryEstimate {
   nx: number;

@@ -6,6 +6,7 @@ import type {
   SpectraPayload,
   ZonalPayload,
 } from '../workers/diagnosticsApi';
+import type { LayerPayload } from '../workers/layerPayload';
 
 /**
  * The diagnostics the UI was sent, latest of each kind: raw state (the arrays are never proxied),
@@ -18,13 +19,15 @@ export class DiagnosticsState {
   hovmoller = $state.raw<HovmollerPayload | null>(null);
   spectra = $state.raw<SpectraPayload | null>(null);
   flux = $state.raw<FluxPayload | null>(null);
+  /** Two layers: the layers' zonal means, heat flux and energy cycle. */
+  layers = $state.raw<LayerPayload | null>(null);
   /** Bumped whenever any payload was replaced or cleared. */
   version = $state(0);
 
   ingest(d: DiagnosticsPayload): void {
     const restarted = this.status !== null && d.status.epoch !== this.status.epoch;
     if (restarted) {
-      this.zonal = this.hovmoller = this.spectra = this.flux = null;
+      this.zonal = this.hovmoller = this.spectra = this.flux = this.layers = null;
       this.version++;
     }
     this.status = d.status;
@@ -32,6 +35,7 @@ export class DiagnosticsState {
     if (d.hovmoller) this.hovmoller = d.hovmoller;
     if (d.spectra) this.spectra = d.spectra;
     if (d.flux) this.flux = d.flux;
-    if (d.zonal || d.hovmoller || d.spectra || d.flux) this.version++;
+    if (d.layers) this.layers = d.layers;
+    if (d.zonal || d.hovmoller || d.spectra || d.flux || d.layers) this.version++;
   }
 }

@@ -1,6 +1,7 @@
 import { transfer, type Remote } from 'comlink';
 import type { Checkpoint } from '../lib/model/checkpoint';
 import type { FieldName } from '../lib/model/fields';
+import type { LayerView } from '../lib/model/layerFields';
 import type { ModelParams } from '../lib/model/params';
 import type { RunSummary } from '../lib/analysis/summary';
 import type { DiagnosticNeeds, MonitorStatus, SamplingOptions } from '../workers/diagnosticsApi';
@@ -65,6 +66,7 @@ export class SimulationClient {
   private closed = false;
   // What the worker was told, to tell a new one the same.
   private field: FieldName = 'u';
+  private layerView: LayerView = 'barotropic';
   private needs: DiagnosticNeeds | null = null;
   private sampling: SamplingOptions = {};
   /** Threads the step is asked to run on (every core by default); told to every new worker first. */
@@ -143,6 +145,12 @@ export class SimulationClient {
   setThreads = (count: number): Promise<void> => {
     this.threadsAsked = count;
     return this.guard((link) => link.call((api) => api.setThreads(count), true).then(() => undefined));
+  };
+
+  /** Two layers: which view of the state the Field shows (upper, lower, barotropic, baroclinic). */
+  setLayerView = (view: LayerView): Promise<void> => {
+    this.layerView = view;
+    return this.guard((link) => link.call((api) => api.setLayerView(view)));
   };
 
   /** Tell the worker what the shown view needs (it computes nothing else). */
@@ -224,7 +232,7 @@ export class SimulationClient {
     this.diagEpochBase = this.lastDiagEpoch;
     const link = (this.link = this.newLink());
     const cp = this.kept.checkpoint;
-    const { begun, sampling, field, needs } = this;
+    const { begun, sampling, field, layerView, needs } = this;
     const until = last?.until ?? null;
     try {
       if (cp) {
@@ -235,6 +243,7 @@ export class SimulationClient {
       } else if (begun) await link.call((api) => api.init(begun, sampling), true);
       else return;
       await link.call((api) => api.setField(field));
+      await link.call((api) => api.setLayerView(layerView));
       if (needs) await link.call((api) => api.setDiagnostics(needs));
       if (until !== null) await link.call((api) => api.runUntil(until));
       else if (last?.playing) await link.call((api) => api.play());

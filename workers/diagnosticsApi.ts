@@ -1,6 +1,7 @@
 import type { JetVerdict } from '../lib/analysis/jetDetector';
 import type { RunSummary } from '../lib/analysis/summary';
 import type { WindowReport } from '../lib/analysis/timeMean';
+import type { LayerPayload } from './layerPayload';
 
 /**
  * The diagnostics part of the snapshot protocol (simulationApi.ts). The worker runs a RunMonitor on
@@ -25,6 +26,8 @@ export interface DiagnosticNeeds {
   spectra2d: boolean;
   /** Spectral fluxes Π_E, Π_Z and the eddy-to-mean conversion. */
   flux: boolean;
+  /** Two layers: the layers' zonal means, the heat flux and the energy cycle (layerPayload.ts); nothing in one layer. Absent: not needed. */
+  layers?: boolean;
 }
 
 export const NO_NEEDS: Readonly<DiagnosticNeeds> = Object.freeze({
@@ -33,6 +36,7 @@ export const NO_NEEDS: Readonly<DiagnosticNeeds> = Object.freeze({
   spectra: false,
   spectra2d: false,
   flux: false,
+  layers: false,
 });
 
 /** How the worker samples and averages; a field left out keeps its current value, null restores the default. */
@@ -176,4 +180,6 @@ export interface DiagnosticsPayload {
   hovmoller: HovmollerPayload | null;
   spectra: SpectraPayload | null;
   flux: FluxPayload | null;
+  /** Two-layer runs only, when asked for (`layers`). */
+  layers: LayerPayload | null;
 }

@@ -2,7 +2,7 @@ import type { ModelParams } from '../lib/model/params';
 import { BUDGET_ROW_WIDTH } from './budgetRows';
 import { MAX_SPECTRAL_AVERAGE } from './diagnosticsPublisher';
 import { CONVERSION_SAMPLES } from './spectralDiagnostics';
-import { ZONAL_PROFILES, ZONAL_STORE_BYTES } from './zonalFrameStore';
+import { frameRows, ZONAL_STORE_BYTES } from './zonalFrameStore';
 
 const D = 8;
 const I = 4;
@@ -20,15 +20,16 @@ const BUDGET_ROWS_MAX = 1 << 14;
  * checks it against the typed arrays a SimulationHost with every view on really holds.
  */
 export function viewDiagnosticsBytes(
-  p: Pick<ModelParams, 'nx' | 'ny' | 'Lx' | 'Ly'>,
+  p: Pick<ModelParams, 'nx' | 'ny' | 'Lx' | 'Ly'> & Partial<Pick<ModelParams, 'layers'>>,
   average = MAX_SPECTRAL_AVERAGE,
 ): number {
   const { nx, ny, Lx, Ly } = p;
   const S = ny * (nx / 2 + 1);
-  // Zonal-mean frames: as many as fit in ZONAL_STORE_BYTES, even, 2 to 1024.
-  const fit = Math.floor(ZONAL_STORE_BYTES / (D * ZONAL_PROFILES.length * ny + 16));
+  // Zonal-mean frames: as many as fit in ZONAL_STORE_BYTES, even, 2 to 1024 (two layers: 11 profiles a frame, not 5).
+  const rows = frameRows(p.layers ?? 1);
+  const fit = Math.floor(ZONAL_STORE_BYTES / (D * rows * ny + 16));
   const cap = Math.max(2, Math.min(1024, fit - (fit % 2)));
-  const frames = D * (cap * ZONAL_PROFILES.length * ny + 2 * cap);
+  const frames = D * (cap * rows * ny + 2 * cap);
   // Spectra: shells up to the corner of the stored half plane, a 2D block of the kept modes.
   const dkx = (2 * Math.PI) / Lx;
   const dky = (2 * Math.PI) / Ly;

@@ -2,11 +2,12 @@ import type { Model } from '../lib/model/model';
 import type { DiagnosticNeeds, DiagnosticsPayload, MonitorStatus, SamplingOptions } from './diagnosticsApi';
 import { NO_NEEDS } from './diagnosticsApi';
 import { hovmollerPayload } from './hovmollerPayload';
+import { layerPayload } from './layerPayload';
 import { DEFAULT_SPECTRAL_AVERAGE, defaultMeanSpan, defaultSampleEvery, RunDiagnostics } from './runDiagnostics';
 import { zonalPayload } from './zonalPayload';
 
 /** Least time between two payloads of one kind while playing (ms): a few per second is all the eye needs. */
-export const PAYLOAD_MS = { zonal: 250, hovmoller: 500, spectra: 400, flux: 500 } as const;
+export const PAYLOAD_MS = { zonal: 250, hovmoller: 500, spectra: 400, flux: 500, layers: 250 } as const;
 type Kind = keyof typeof PAYLOAD_MS;
 const KINDS = Object.keys(PAYLOAD_MS) as Kind[];
 
@@ -24,8 +25,15 @@ export class DiagnosticsPublisher {
   private epoch = 0;
   private needs: DiagnosticNeeds = { ...NO_NEEDS };
   private options: SamplingOptions = {};
-  private readonly dirty: Record<Kind, boolean> = { zonal: false, hovmoller: false, spectra: false, flux: false };
+  private readonly dirty: Record<Kind, boolean> = {
+    zonal: false,
+    hovmoller: false,
+    spectra: false,
+    flux: false,
+    layers: false,
+  };
   private readonly sent: Record<Kind, number> = {
+    layers: -Infinity,
     zonal: -Infinity,
     hovmoller: -Infinity,
     spectra: -Infinity,
@@ -145,8 +153,16 @@ export class DiagnosticsPublisher {
         ? take('spectra', d.spectral.spectraPayload(this.needs.spectra2d))
         : null,
       flux: due('flux', this.needs.flux) ? take('flux', d.spectral.fluxPayload()) : null,
+      layers: due('layers', this.needs.layers === true) ? take('layers', this.layers(d)) : null,
     };
     return { payload, buffers };
+  }
+
+  /** Two layers, once sampled: the layers' zonal means and the energy cycle. */
+  private layers(d: RunDiagnostics) {
+    const layers = d.monitor.layers;
+    if (!layers || d.lastSample === null) return null;
+    return layerPayload(layers, d.params.Ly, d.lastSample, d.sampling.sampleEvery);
   }
 
   private zonal(d: RunDiagnostics) {

@@ -1,12 +1,13 @@
 import type { JetReport } from '../lib/analysis/jets';
 import { successiveSpread } from '../lib/analysis/noiseReference';
-import { RunMonitor, type MeanProfile, type Structure } from '../lib/analysis/runMonitor';
+import { flowMemory, RunMonitor, type MeanProfile, type Structure } from '../lib/analysis/runMonitor';
 import { summarize, type RunSummary } from '../lib/analysis/summary';
 import type { TimeWindow, WindowReport } from '../lib/analysis/timeMean';
+import { layerZonalMeanFrame } from '../lib/io/cfStriaWriter';
 import { reachedTime } from '../lib/model/clock';
 import type { Model } from '../lib/model/model';
 import type { ModelParams } from '../lib/model/params';
-import { monitoredParams, monitoredState } from '../lib/run/monitoredRun';
+import { monitoredState } from '../lib/run/monitoredRun';
 import type { MonitorStatus } from './diagnosticsApi';
 import { SpectralDiagnostics } from './spectralDiagnostics';
 import { ZonalFrameStore } from './zonalFrameStore';
@@ -23,9 +24,12 @@ export function defaultSampleEvery(p: ModelParams): number {
   return Math.max(p.dt, Math.min(0.5, 20 * p.dt));
 }
 
-/** Default averaging window: 1/μ (the drag time), or 50 without drag, as the RunMonitor's. */
+/**
+ * Default averaging window: the flow's memory, as the RunMonitor's (flowMemory: 1/μ in one layer,
+ * 1/(μh₂) in two, where the drag acts on the lower layer only), or 50 without drag.
+ */
 export function defaultMeanSpan(p: ModelParams): number {
-  return p.mu > 0 ? 1 / p.mu : 50;
+  return p.mu > 0 ? flowMemory(p) : 50;
 }
 
 export const DEFAULT_SPECTRAL_AVERAGE = 16;
@@ -60,9 +64,10 @@ export class RunDiagnostics {
     this.since = start;
     this.model = { time: start, steps: 0 };
     this.next = start + sampling.sampleEvery;
-    // Two layers: the diagnostics watch the barotropic flow until they learn the layers (monitoredParams).
-    this.monitor = new RunMonitor(monitoredParams(params), { window: meanWindow(sampling.meanSpan), start });
-    this.frames = new ZonalFrameStore(params.ny);
+    // Two layers: the monitor watches the barotropic flow (jets, staircase, Hovmöller) and keeps the
+    // layers' own zonal means and energy cycle (RunMonitor.layers); the spectra are of the barotropic PV.
+    this.monitor = new RunMonitor(params, { window: meanWindow(sampling.meanSpan), start });
+    this.frames = new ZonalFrameStore(params.ny, undefined, params.layers);
     this.spectral = new SpectralDiagnostics(this.monitor.snap, sampling.spectralAverage);
   }
 
@@ -112,8 +117,11 @@ export class RunDiagnostics {
     this.taken++;
     const t = model.time;
     const q = this.sampled(model);
-    const z = this.monitor.sample(q, t);
-    this.frames.add(t, model.steps, z);
+    const z = this.monitor.sample(model.qHat, t);
+    const layers = this.monitor.layers;
+    // Two layers: the frames of the layered zonal-mean file (each layer's profiles and the heat flux).
+    if (layers) this.frames.addFrame(t, model.steps, () => layerZonalMeanFrame(t, model.steps, layers.latest).fields);
+    else this.frames.add(t, model.steps, z);
     this.lastSample = t;
     this.worked = null;
     if (wants.spectra) this.spectral.addSpectra(q, t, wants.spectra2d);
@@ -128,7 +136,7 @@ export class RunDiagnostics {
   retune(params: ModelParams, model: Model): void {
     this.params = params;
     const snap = this.monitor.snap;
-    this.monitor.retune(monitoredParams(params), model.time);
+    this.monitor.retune(params, model.time);
     this.barotropic = undefined;
     if (this.monitor.snap !== snap) this.spectral.retune(this.monitor.snap);
     this.model = { time: model.time, steps: model.steps };

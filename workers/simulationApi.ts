@@ -5,6 +5,7 @@ import type { SweepJob } from '../lib/sweep/sweepRuns';
 import type { StepReport } from '../lib/model/budget';
 import type { Checkpoint } from '../lib/model/checkpoint';
 import type { FieldName } from '../lib/model/fields';
+import type { LayerView } from '../lib/model/layerFields';
 import type { ModelParams } from '../lib/model/params';
 import type { InputIssue } from '../lib/inputError';
 import type { BudgetRows } from './budgetRows';
@@ -51,6 +52,8 @@ export interface SimulationApi {
   restartMeans(): Promise<MonitorStatus>;
   /** Which field the snapshots carry (u by default); answers a waiting request with it at once. */
   setField(name: FieldName): Promise<void>;
+  /** Two layers: which view of the state the field is of (upper, lower, barotropic, baroclinic); ignored in one layer. */
+  setLayerView(view: LayerView): Promise<void>;
   /** Which diagnostics the shown views need (computed only then); answers a waiting request at once. */
   setDiagnostics(needs: DiagnosticNeeds): Promise<void>;
   /** Change the sample interval (restarts the diagnostics), the averaging window or the spectral average; throws RangeError. */
@@ -150,6 +153,8 @@ export interface Snapshot {
   epoch: number;
   /** The field in `values`. */
   field: FieldName;
+  /** Two layers: the view of the state `values` shows (one layer: ignored, 'barotropic'). */
+  layerView: LayerView;
   /** That field on the grid (model units), row-major with y slow: values[jy·nx + ix]. */
   values: Float64Array;
   nx: number;

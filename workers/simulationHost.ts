@@ -2,6 +2,7 @@ import { transfer } from 'comlink';
 import { copyReport, type StepReport } from '../lib/model/budget';
 import type { Checkpoint } from '../lib/model/checkpoint';
 import type { FieldName } from '../lib/model/fields';
+import { LAYER_VIEWS, type LayerView } from '../lib/model/layerFields';
 import { Model } from '../lib/model/model';
 import { reachedTime } from '../lib/model/clock';
 import type { ModelParams } from '../lib/model/params';
@@ -62,6 +63,8 @@ export class SimulationHost implements SimulationApi {
   private epoch = 0;
   /** The opening field is u: eastward jets show directly as bands of u > 0. */
   private field: FieldName = 'u';
+  /** Two layers: which view of the state the field is of (layerFields.ts); the barotropic flow by default. */
+  private layerView: LayerView = 'barotropic';
   private pending: PendingRequest | null = null;
   /** A field buffer handed back by the UI, reused for the next snapshot. */
   private spareField: Float64Array | null = null;
@@ -151,8 +154,9 @@ export class SimulationHost implements SimulationApi {
     }
     const old = { ...model.params };
     const next = model.reconfigure(changes);
-    const how =
-      next === model ? 'inPlace' : next.params.Lx !== old.Lx || next.params.Ly !== old.Ly ? 'fresh' : 'regrid';
+    // A new domain or number of layers is a new run from t = 0 (Model.reconfigure builds it afresh).
+    const fresh = next.params.Lx !== old.Lx || next.params.Ly !== old.Ly || next.params.layers !== old.layers;
+    const how = next === model ? 'inPlace' : fresh ? 'fresh' : 'regrid';
     this.model = next;
     // A new grid may cross the size below which the step runs on one thread.
     this.threads.apply(next);
@@ -185,6 +189,13 @@ export class SimulationHost implements SimulationApi {
   async setField(name: FieldName): Promise<void> {
     if (name === this.field) return;
     this.field = name;
+    this.changed();
+  }
+
+  async setLayerView(view: LayerView): Promise<void> {
+    if (!LAYER_VIEWS.includes(view)) throw new RangeError(`setLayerView: no view ${String(view)}`);
+    if (view === this.layerView) return;
+    this.layerView = view;
     this.changed();
   }
 
@@ -362,7 +373,7 @@ export class SimulationHost implements SimulationApi {
     const { nx, ny, Lx, Ly } = model.params;
     const values = this.spareField && this.spareField.length === nx * ny ? this.spareField : new Float64Array(nx * ny);
     this.spareField = null;
-    model.field(this.field, values);
+    model.field(this.field, values, this.layerView);
     const budget = this.rows.take(this.spareBudget);
     this.spareBudget = null;
     const diag = this.diagnostics.payload(performance.now(), this.playing);
@@ -370,6 +381,7 @@ export class SimulationHost implements SimulationApi {
       version: this.version,
       epoch: this.epoch,
       field: this.field,
+      layerView: this.layerView,
       values,
       nx,
       ny,

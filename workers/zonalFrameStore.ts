@@ -3,7 +3,25 @@ import type { ZonalMeans } from '../lib/analysis/zonalMean';
 
 /** The profiles a zonal-mean file holds (cfStria.ts), in its names: `qbar` is the total PV q̄ + βy. */
 const PROFILES = ['ubar', 'qbar', 'upvp', 'vpqp', 'eke'] as const;
-const WIDTH = PROFILES.length;
+
+/** A field of a stored frame: its name in the file and how many profiles of ny it holds (2: one per layer). */
+export interface FrameField {
+  name: string;
+  rows: number;
+}
+
+/**
+ * The fields of a frame: a one-layer zonal-mean file's, or a two-layer one's (each profile of both
+ * layers, upper then lower, and the heat flux: cfStriaWriter.ts `layerZonalMeanFrame`).
+ */
+export function frameFields(layers: 1 | 2): readonly FrameField[] {
+  return layers === 2
+    ? [...PROFILES.map((name) => ({ name, rows: 2 })), { name: 'heat_flux', rows: 1 }]
+    : PROFILES.map((name) => ({ name, rows: 1 }));
+}
+
+/** Profiles of ny per frame. */
+export const frameRows = (layers: 1 | 2): number => frameFields(layers).reduce((a, f) => a + f.rows, 0);
 
 /** Bytes the store may hold before it thins (and so the largest zonal-mean export). */
 export const ZONAL_STORE_BYTES = 16 * 1024 * 1024;
@@ -17,6 +35,9 @@ export const ZONAL_STORE_BYTES = 16 * 1024 * 1024;
 export class ZonalFrameStore {
   readonly ny: number;
   readonly cap: number;
+  private readonly fields: readonly FrameField[];
+  /** Profiles of ny per frame. */
+  private readonly width: number;
   private readonly data: Float64Array;
   private readonly time: Float64Array;
   private readonly steps: Float64Array;
@@ -24,11 +45,13 @@ export class ZonalFrameStore {
   private stride = 1;
   private seen = 0;
 
-  constructor(ny: number, bytes = ZONAL_STORE_BYTES) {
+  constructor(ny: number, bytes = ZONAL_STORE_BYTES, layers: 1 | 2 = 1) {
     this.ny = ny;
-    const fit = Math.floor(bytes / (8 * WIDTH * ny + 16));
+    this.fields = frameFields(layers);
+    this.width = frameRows(layers);
+    const fit = Math.floor(bytes / (8 * this.width * ny + 16));
     this.cap = Math.max(2, Math.min(1024, fit - (fit % 2)));
-    this.data = new Float64Array(this.cap * WIDTH * ny);
+    this.data = new Float64Array(this.cap * this.width * ny);
     this.time = new Float64Array(this.cap);
     this.steps = new Float64Array(this.cap);
   }
@@ -42,7 +65,13 @@ export class ZonalFrameStore {
     return this.stride;
   }
 
+  /** A one-layer sample: the profiles as the file holds them (its total PV and plain eddy means), from the one mapping. */
   add(time: number, steps: number, z: ZonalMeans): void {
+    this.addFrame(time, steps, () => zonalMeanFrame(time, steps, z).fields);
+  }
+
+  /** A sample as a file's frame (`frame` is called only when the sample is kept). */
+  addFrame(time: number, steps: number, frame: () => Readonly<Record<string, ArrayLike<number>>>): void {
     if (this.seen++ % this.stride !== 0) return;
     if (this.frames === this.cap) {
       this.thin();
@@ -50,16 +79,22 @@ export class ZonalFrameStore {
     }
     const f = this.frames++;
     const { ny } = this;
-    // The profiles as the file holds them (its total PV and plain eddy means), from the one mapping.
-    const src = zonalMeanFrame(time, steps, z).fields;
-    PROFILES.forEach((name, k) => this.data.set(src[name], (f * WIDTH + k) * ny));
+    const src = frame();
+    let at = f * this.width * ny;
+    for (const { name, rows } of this.fields) {
+      const given = src[name];
+      if (given.length !== rows * ny)
+        throw new RangeError(`ZonalFrameStore: ${name} holds ${given.length} values, not ${rows} × ${ny}`);
+      this.data.set(given, at);
+      at += rows * ny;
+    }
     this.time[f] = time;
     this.steps[f] = steps;
   }
 
   /** Keep frames 0, 2, 4, …; later samples are kept at twice the stride. */
   private thin(): void {
-    const w = WIDTH * this.ny;
+    const w = this.width * this.ny;
     const half = this.frames / 2;
     for (let f = 1; f < half; f++) {
       this.data.copyWithin(f * w, 2 * f * w, (2 * f + 1) * w);
@@ -75,9 +110,11 @@ export class ZonalFrameStore {
     const { ny } = this;
     return Array.from({ length: this.frames }, (_, f) => {
       const fields: Record<string, Float64Array> = {};
-      PROFILES.forEach(
-        (name, k) => (fields[name] = this.data.subarray((f * WIDTH + k) * ny, (f * WIDTH + k + 1) * ny)),
-      );
+      let at = f * this.width * ny;
+      for (const { name, rows } of this.fields) {
+        fields[name] = this.data.subarray(at, at + rows * ny);
+        at += rows * ny;
+      }
       return { time: this.time[f], steps: this.steps[f], fields };
     });
   }
@@ -88,5 +125,3 @@ export class ZonalFrameStore {
     this.seen = 0;
   }
 }
-
-export { PROFILES as ZONAL_PROFILES };

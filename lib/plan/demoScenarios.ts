@@ -1,9 +1,11 @@
 import type { ModelParams } from '../model/params';
 import { scaledHyperviscosity } from './gridHyperviscosity';
+import { TWO_LAYER_SCENARIOS } from './twoLayerScenarios';
 
 /**
- * Demonstration scenarios of Stria's own, in model units (length L, time T; domain 2π × 2π). None is
- * a planet or an ocean: no constant in them is a real one. Each sets every parameter that shapes the
+ * Demonstration scenarios of Stria's own, in model units (length L, time T; domain 2π × 2π). The
+ * one-layer ones are no planet or ocean: no constant in them is a real one. The two two-layer ones
+ * (twoLayerScenarios.ts) scale a few real constants, marked there as real, with the rest made up. Each sets every parameter that shapes the
  * run, so they do not shift when the model defaults do.
  *
  * How they were tuned (Node, this machine, one core): spin-up ~ 1/(2μ); U ≈ (ε/μ)^½ less what the
@@ -113,6 +115,7 @@ export const DEMO_SCENARIOS: readonly DemoScenario[] = Object.freeze([
     // in domain-size eddies whose orientation drifts (zonal share of u wanders 0.14–0.40); no jets.
     params: { ...COMMON, beta: 0 },
   },
+  ...TWO_LAYER_SCENARIOS,
 ]);
 
 /** The scenario the app opens on. */

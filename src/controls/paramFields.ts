@@ -167,7 +167,9 @@ export const PARAM_GROUPS: readonly ParamGroup[] = [
         symbol: 'μ',
         name: 'linear drag',
         unit: 'T⁻¹',
-        range: (p) => (p.forcing === 'steady' ? '> 0 (steady forcing needs drag)' : '≥ 0'),
+        range: (p) =>
+          (p.forcing === 'steady' ? '> 0 (steady forcing needs drag)' : '≥ 0') +
+          (p.layers === 2 ? '; with two layers on the lower layer only' : ''),
       },
       { key: 'nu', symbol: 'ν', name: 'hyperviscosity', unit: 'L²ᵖT⁻¹', range: () => '≥ 0' },
       {

@@ -59,6 +59,12 @@ export const VIEWS: readonly ViewEntry[] = [
     load: () => import('./BudgetView.svelte'),
   },
   {
+    id: 'cycle',
+    title: 'Energy cycle',
+    summary: 'two layers: the eddies’ energy from the imposed shear to the jets and the drag, live',
+    load: () => import('./EnergyCycleView.svelte'),
+  },
+  {
     id: 'scales',
     title: 'Scale ladder',
     summary: 'the wavenumbers of the run, predicted and measured',

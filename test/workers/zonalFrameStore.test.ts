@@ -26,3 +26,25 @@ describe('ZonalFrameStore', () => {
     expect(Array.from(frames[2].fields.ubar)).toEqual([8, 8, 8, 8]);
   });
 });
+
+describe('ZonalFrameStore with two layers', () => {
+  it('keeps each frame of the layered file whole: both layers of each profile and the heat flux', () => {
+    const ny = 4;
+    const store = new ZonalFrameStore(ny, undefined, 2);
+    const frame = (v: number) => ({
+      ubar: Float64Array.from({ length: 2 * ny }, (_, i) => v + i),
+      qbar: new Float64Array(2 * ny).fill(-v),
+      upvp: new Float64Array(2 * ny),
+      vpqp: new Float64Array(2 * ny),
+      eke: new Float64Array(2 * ny),
+      heat_flux: new Float64Array(ny).fill(10 * v),
+    });
+    for (let s = 0; s < 3; s++) store.addFrame(s, s, () => frame(s));
+    const f = store.frameList()[2];
+    expect(Array.from(f.fields.ubar)).toEqual([2, 3, 4, 5, 6, 7, 8, 9]);
+    expect(Array.from(f.fields.heat_flux)).toEqual([20, 20, 20, 20]);
+    expect(() => store.addFrame(3, 3, () => ({ ...frame(3), heat_flux: new Float64Array(2 * ny) }))).toThrow(
+      /heat_flux holds 8 values, not 1 × 4/,
+    );
+  });
+});
