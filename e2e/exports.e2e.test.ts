@@ -76,7 +76,9 @@ describe('Data exports in Chromium', () => {
     // The file carries its run's parameters, so the planner's predictions sit beside the measurements.
     const table = await page.getByTestId('user-comparison').innerText();
     expect(table).toMatch(/rms velocity U/);
-    expect(table).toMatch(/Rhines wavenumber k_R/);
+    // Subscripts are set as such (MathText), so the text reads kR and never the raw k_R.
+    expect(table).toMatch(/Rhines wavenumber kR/);
+    expect(table).not.toMatch(/k_R/);
     await screenshot(page, 'user-file.png');
     // What is not NetCDF is refused with the reason, as text.
     await page
