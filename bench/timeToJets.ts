@@ -65,7 +65,7 @@ export function timeToJets(
       nextCheck += CHECK_EVERY;
       summary = summarize(monitor, model.time, model.steps);
       log(
-        `  t = ${model.time.toFixed(1)}: ${summary.jet_count} jets, staircase index ${summary.staircase_index?.toFixed(3)}`,
+        `  t = ${model.time.toFixed(1)}: ${summary.jet_verdict ?? '—'}, ${summary.jet_count ?? '—'} jets, staircase index ${summary.staircase_index?.toFixed(3) ?? '—'}`,
       );
       if (summary.jet_verdict === 'jets' && (summary.jet_count ?? 0) >= MIN_JETS) break;
     }
