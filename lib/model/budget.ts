@@ -144,3 +144,25 @@ export function copyReport(r: StepReport): StepReport {
   if (r.layers) copy.layers = { ...r.layers };
   return copy;
 }
+
+/**
+ * Close a step's report (both steppers): its time and step count, and the realized rates: the kick of
+ * the stochastic forcing over dt, and the change of energy and enstrophy over dt with the kick added
+ * (so the tendency is the deterministic step's).
+ */
+export function closeReport(
+  r: StepReport,
+  time: number,
+  steps: number,
+  energy: number,
+  enstrophy: number,
+  kick: Float64Array,
+  dt: number,
+): void {
+  r.time = time;
+  r.steps = steps;
+  r.energy.realizedInjection = kick[0] / dt;
+  r.enstrophy.realizedInjection = kick[1] / dt;
+  r.energy.realizedTendency = (energy + kick[0] - r.energy.value) / dt;
+  r.enstrophy.realizedTendency = (enstrophy + kick[1] - r.enstrophy.value) / dt;
+}

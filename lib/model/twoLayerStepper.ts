@@ -1,4 +1,4 @@
-import { emptyReport, emptyTwoLayerTerms, type StepReport } from './budget';
+import { closeReport, emptyReport, emptyTwoLayerTerms, type StepReport } from './budget';
 import type { Forcing } from './forcing';
 import type { Grid } from './grid';
 import type { ModelParams } from './params';
@@ -201,12 +201,7 @@ export class TwoLayerStepper implements PhasedStep {
     q.set(w);
     this.time += dt;
     this.steps += 1;
-    r.time = this.time;
-    r.steps = this.steps;
-    r.energy.realizedInjection = this.kick[0] / dt;
-    r.enstrophy.realizedInjection = this.kick[1] / dt;
-    r.energy.realizedTendency = (eNew + this.kick[0] - r.energy.value) / dt;
-    r.enstrophy.realizedTendency = (zNew + this.kick[1] - r.enstrophy.value) / dt;
+    closeReport(r, this.time, this.steps, eNew, zNew, this.kick, dt);
     return r;
   }
 
