@@ -39,6 +39,16 @@ export const LEAVE_PHASE = 0;
  */
 export const SMALL_GRID_POINTS = 128 * 128;
 
+/**
+ * Below this many points a run takes one thread unless asked for more; from it up, every core.
+ * Measured with `npm run bench -- --threads 1,2` on the two-core development machine (2026-12-04,
+ * quiet, three rounds): the speed-up of two threads over one was 0.62–0.81 at 128², 0.75–1.14 at
+ * 256² and 0.87–1.02 at 512². Every change between column and row passes moves the data between
+ * the cores' caches, and on that machine this costs about what the split saves. Threads stay a choice (`--threads`,
+ * the app's Threads control); the bits are the same on any number.
+ */
+export const DEFAULT_THREADS_MIN_POINTS = 512 * 512;
+
 /** Most threads a step takes (the per-member slots of the speed maxima are sized for it). */
 export const MAX_THREADS = 64;
 
