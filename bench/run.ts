@@ -10,8 +10,8 @@
  *   --scaling          sizes 64..1024 and the fitted exponent of the cost against N² log N
  *   --threads a,b      time the step on each of these thread counts (default 1), with the speed-up over
  *                      one thread; the ratio to the reference is the one-thread step's
- *   --time-to-jets     the default scenario at 256² from rest until jets show, on every core (or on
- *                      --threads N): wall and model time, and the scheme's error at that step against
+ *   --time-to-jets     the default scenario at 256² (or --n N) from rest until jets show, on the threads
+ *                      a run takes by default (or --threads N): wall and model time, and the scheme's error at that step against
  *                      half and quarter steps
  *   --two-layer        the two-layer step beside the one-layer step at each size (one thread, alternated
  *                      over the rounds): ms per step and their ratio, median over the rounds
@@ -29,6 +29,7 @@ import { scalingLaw } from './scalingLaw';
 import { availableParallelism } from 'node:os';
 import { startStepThreads, type NodeStepThreads } from '../cli/stepThreads';
 import type { StepThreads } from '../lib/model/threadTeam';
+import { DEFAULT_THREADS_MIN_POINTS } from '../lib/model/stepTeam';
 
 const args = process.argv.slice(2);
 const has = (flag: string) => args.includes(flag);
@@ -40,9 +41,10 @@ const json = has('--json');
 const scaling = has('--scaling');
 const sizes = (value('--sizes') ?? (scaling ? '64,128,256,512,1024' : '128,256,512')).split(',').map(Number);
 
-const threadCounts = (value('--threads') ?? (has('--time-to-jets') ? String(availableParallelism()) : '1'))
-  .split(',')
-  .map(Number);
+// --time-to-jets takes the threads a run takes by default (every core from 512² up, one below: stepTeam.ts).
+const jetsSide = Number(value('--n') ?? 256);
+const runThreads = jetsSide * jetsSide >= DEFAULT_THREADS_MIN_POINTS ? availableParallelism() : 1;
+const threadCounts = (value('--threads') ?? (has('--time-to-jets') ? String(runThreads) : '1')).split(',').map(Number);
 if (threadCounts.some((t) => !(Number.isInteger(t) && t >= 1))) throw new Error('--threads: whole numbers ≥ 1');
 /** Helper threads for each count above one, started once (a helper takes about half a second to start). */
 const helperSets = new Map<number, NodeStepThreads>();
