@@ -112,6 +112,8 @@ export class DiagnosticsPublisher {
       if (needs.flux && d.spectral.fluxCount === 0) d.spectral.addFlux(d.sampled(model), model.time);
       if (needs.layerSpectra && d.layerSpectral?.count === 0) d.layerSpectral.add(model.qHat, model.time);
     }
+    // The two-layer spectra's plan is large (layerSpectralDiagnostics.ts): kept only while a view asks.
+    if (d && !needs.layerSpectra) d.layerSpectral?.release();
     for (const k of KINDS) this.dirty[k] = true;
   }
 

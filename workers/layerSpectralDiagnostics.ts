@@ -6,7 +6,8 @@ import { RecentMean } from './recentMean';
  * Two layers: the barotropic and baroclinic spectra and fluxes of the samples taken while the Spectra
  * or Flux view is shown (lib/analysis/layerSpectra.ts), averaged over the last `average` of them as the
  * one-layer spectra are. Model units; shell sums (the views divide by dk for densities); fluxes
- * through the outer shell edges, positive toward high k. The plan is built on first use.
+ * through the outer shell edges, positive toward high k. The plan is built on first use and let go
+ * when no view asks (`release`).
  */
 export interface LayerSpectraPayload {
   k: Float64Array;
@@ -59,6 +60,15 @@ export class LayerSpectralDiagnostics {
   /** New parameters of the same run (k_d, the shear, …): the plan and the means start again. */
   retune(params: ModelParams): void {
     this.params = params;
+    this.plan = this.out = null;
+    this.means = this.net = null;
+  }
+
+  /**
+   * Let the plan go once no view asks (it holds transforms and work arrays of both layers, about 27
+   * times the two-layer state); the next view that asks builds it again and starts a new average.
+   */
+  release(): void {
     this.plan = this.out = null;
     this.means = this.net = null;
   }

@@ -99,6 +99,12 @@ describe('SimulationHost with two layers', () => {
     expect(Array.from(P.fluxBarotropic)).toEqual(mean(a.fluxBarotropic, b.fluxBarotropic));
     expect(P.netExchange).toBe((a.netExchange + b.netExchange) / 2);
     expect([P.tStart, P.tEnd]).toEqual([8 / 128, 12 / 128]);
+    // Once no view asks, the plan is let go; asked again, the average starts from the state as it is.
+    await host.setDiagnostics({ ...none, flux: true });
+    await host.setDiagnostics({ ...none, layerSpectra: true });
+    const again = (await host.nextSnapshot({ after: 0 })).diagnostics.layerSpectra!;
+    expect(again.count).toBe(1);
+    expect(Array.from(again.exchange)).toEqual(Array.from(b.exchange));
   });
 
   it('exports the state of both layers as the layered snapshot file, each layer as the model has it', async () => {
