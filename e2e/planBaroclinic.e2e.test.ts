@@ -91,4 +91,30 @@ describe('Plan view: the baroclinic drive in Chromium', () => {
     await expect.poll(() => modelTime(page), { timeout: 60_000 }).toBeGreaterThan(0);
     expect(app.problems).toEqual([]);
   }, 120_000);
+
+  it('a small matched two-layer run goes to its end and puts the measured means beside the predictions', async () => {
+    const { page } = app;
+    // Another run replaces the ocean-like trial, so that a new one can start.
+    await page.getByTestId('scenario').selectOption('atmosphere-two-layer');
+    await expect
+      .poll(() => page.getByTestId('matched-trial').getAttribute('data-phase'), { timeout: 30_000 })
+      .toBe('replaced');
+    await page.getByTestId('plan-preset').selectOption('earth-atmosphere-two-layer');
+    await page.getByTestId('plan-grid-nx').selectOption('128');
+    await page.getByTestId('plan-grid-ny').selectOption('64');
+    const input = structuredClone(planPreset('earth-atmosphere-two-layer').input);
+    input.grid = { kind: 'points', nx: 128, ny: 64 };
+    const m = analysePlan(input, { targetWallSeconds: 120 }).baroclinic!.matched!;
+    await expect(page.getByTestId('baroclinic-matched').getAttribute('data-ny')).resolves.toBe('64');
+    await page.getByTestId('run-matched').click();
+    await page.getByTestId('baroclinic-comparison').waitFor({ timeout: 240_000 });
+    // The measured ξ is the run's own, from its parameters (summary.ts), so it is the predicted one [derived].
+    const xi = Number(await page.getByTestId('measured-supercriticality').getAttribute('data-measured'));
+    expect(Math.abs(xi / m.predicted.supercriticality - 1)).toBeLessThanOrEqual(1e-12);
+    // Eddies grew out of the noise: a positive eddy velocity and a heat flux down the gradient [practice].
+    expect(Number(await page.getByTestId('measured-eddy_velocity').getAttribute('data-measured'))).toBeGreaterThan(0);
+    expect(Number(await page.getByTestId('measured-heat_flux').getAttribute('data-measured'))).toBeGreaterThan(0);
+    await screenshot(page, 'plan-baroclinic-matched.png');
+    expect(app.problems).toEqual([]);
+  }, 300_000);
 });
