@@ -7,6 +7,7 @@ import type {
   ZonalPayload,
 } from '../workers/diagnosticsApi';
 import type { LayerPayload } from '../workers/layerPayload';
+import type { LayerSpectraPayload } from '../workers/layerSpectralDiagnostics';
 
 /**
  * The diagnostics the UI was sent, latest of each kind: raw state (the arrays are never proxied),
@@ -21,13 +22,15 @@ export class DiagnosticsState {
   flux = $state.raw<FluxPayload | null>(null);
   /** Two layers: the layers' zonal means, heat flux and energy cycle. */
   layers = $state.raw<LayerPayload | null>(null);
+  /** Two layers: barotropic and baroclinic spectra, fluxes and the exchange between them. */
+  layerSpectra = $state.raw<LayerSpectraPayload | null>(null);
   /** Bumped whenever any payload was replaced or cleared. */
   version = $state(0);
 
   ingest(d: DiagnosticsPayload): void {
     const restarted = this.status !== null && d.status.epoch !== this.status.epoch;
     if (restarted) {
-      this.zonal = this.hovmoller = this.spectra = this.flux = this.layers = null;
+      this.zonal = this.hovmoller = this.spectra = this.flux = this.layers = this.layerSpectra = null;
       this.version++;
     }
     this.status = d.status;
@@ -36,6 +39,7 @@ export class DiagnosticsState {
     if (d.spectra) this.spectra = d.spectra;
     if (d.flux) this.flux = d.flux;
     if (d.layers) this.layers = d.layers;
-    if (d.zonal || d.hovmoller || d.spectra || d.flux || d.layers) this.version++;
+    if (d.layerSpectra) this.layerSpectra = d.layerSpectra;
+    if (d.zonal || d.hovmoller || d.spectra || d.flux || d.layers || d.layerSpectra) this.version++;
   }
 }

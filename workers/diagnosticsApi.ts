@@ -2,6 +2,7 @@ import type { JetVerdict } from '../lib/analysis/jetDetector';
 import type { RunSummary } from '../lib/analysis/summary';
 import type { WindowReport } from '../lib/analysis/timeMean';
 import type { LayerPayload } from './layerPayload';
+import type { LayerSpectraPayload } from './layerSpectralDiagnostics';
 
 /**
  * The diagnostics part of the snapshot protocol (simulationApi.ts). The worker runs a RunMonitor on
@@ -28,6 +29,8 @@ export interface DiagnosticNeeds {
   flux: boolean;
   /** Two layers: the layers' zonal means, the heat flux and the energy cycle (layerPayload.ts); nothing in one layer. Absent: not needed. */
   layers?: boolean;
+  /** Two layers: barotropic and baroclinic spectra, their fluxes and the exchange between the modes (layerSpectralDiagnostics.ts); nothing in one layer. Absent: not needed. */
+  layerSpectra?: boolean;
 }
 
 export const NO_NEEDS: Readonly<DiagnosticNeeds> = Object.freeze({
@@ -37,6 +40,7 @@ export const NO_NEEDS: Readonly<DiagnosticNeeds> = Object.freeze({
   spectra2d: false,
   flux: false,
   layers: false,
+  layerSpectra: false,
 });
 
 /** How the worker samples and averages; a field left out keeps its current value, null restores the default. */
@@ -182,4 +186,6 @@ export interface DiagnosticsPayload {
   flux: FluxPayload | null;
   /** Two-layer runs only, when asked for (`layers`). */
   layers: LayerPayload | null;
+  /** Two-layer runs only, when asked for (`layerSpectra`). */
+  layerSpectra: LayerSpectraPayload | null;
 }

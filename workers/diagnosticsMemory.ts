@@ -1,4 +1,5 @@
 import type { ModelParams } from '../lib/model/params';
+import { modelMemory } from '../lib/plan/cost';
 import { BUDGET_ROW_WIDTH } from './budgetRows';
 import { MAX_SPECTRAL_AVERAGE } from './diagnosticsPublisher';
 import { CONVERSION_SAMPLES } from './spectralDiagnostics';
@@ -23,20 +24,15 @@ export function viewDiagnosticsBytes(
   p: Pick<ModelParams, 'nx' | 'ny' | 'Lx' | 'Ly'> & Partial<Pick<ModelParams, 'layers'>>,
   average = MAX_SPECTRAL_AVERAGE,
 ): number {
-  const { nx, ny, Lx, Ly } = p;
+  const { nx, ny } = p;
   const S = ny * (nx / 2 + 1);
   // Zonal-mean frames: as many as fit in ZONAL_STORE_BYTES, even, 2 to 1024 (two layers: 11 profiles a frame, not 5).
   const rows = frameRows(p.layers ?? 1);
   const fit = Math.floor(ZONAL_STORE_BYTES / (D * rows * ny + 16));
   const cap = Math.max(2, Math.min(1024, fit - (fit % 2)));
   const frames = D * (cap * rows * ny + 2 * cap);
-  // Spectra: shells up to the corner of the stored half plane, a 2D block of the kept modes.
-  const dkx = (2 * Math.PI) / Lx;
-  const dky = (2 * Math.PI) / Ly;
-  const shells = Math.round(Math.hypot((nx / 2) * dkx, dky * (ny / 2)) / Math.min(dkx, dky));
-  const block = (Math.floor(nx / 3) + 1) * (2 * Math.floor(ny / 3) + 1);
-  const blockSides = Math.floor(nx / 3) + 1 + (2 * Math.floor(ny / 3) + 1);
-  const spectraPlan = D * shells + I * shells + (I + D + D + I) * S + D * blockSides;
+  const { shells, shellPlan, block, blockSides } = spectraShells(p);
+  const spectraPlan = shellPlan + D * blockSides;
   const spectraOut = D * 7 * shells + D * blockSides + D * block;
   const ring = (n: number) => D * (n * average + average);
   const spectraMeans = 3 * ring(shells) + 2 * D * block;
@@ -44,7 +40,65 @@ export function viewDiagnosticsBytes(
   // running means, the conversion series.
   const flux = D * (2 * S + 2) + D * 8 * shells + 2 * ring(shells) + 2 * D * CONVERSION_SAMPLES;
   const budgetRows = D * BUDGET_ROWS_MAX * BUDGET_ROW_WIDTH;
-  return frames + spectraPlan + spectraOut + spectraMeans + flux + budgetRows;
+  const layers = p.layers === 2 ? layerSpectraBytes(p, average) : 0;
+  return frames + spectraPlan + spectraOut + spectraMeans + flux + budgetRows + layers;
+}
+
+/**
+ * Two layers: the barotropic and baroclinic spectra while asked for (layerSpectralDiagnostics.ts):
+ * the LayerSpectraPlan of lib/analysis/layerSpectra.ts (a layer snapshot plan, the two-layer nonlinear
+ * term, the one-layer nonlinear term of the barotropic flow with its grid and transform, the shells, four
+ * spectra of 2S), its output (12 shell arrays) and seven running means of shells and one of Σ X.
+ * Counted from the constructors and the model's own table (lib/plan/cost.ts modelMemory);
+ * test/workers/diagnosticsMemory.test.ts checks it against the arrays really held.
+ */
+export function layerSpectraBytes(
+  p: Pick<ModelParams, 'nx' | 'ny' | 'Lx' | 'Ly'>,
+  average = MAX_SPECTRAL_AVERAGE,
+): number {
+  const { nx, ny } = p;
+  const S = ny * (nx / 2 + 1);
+  const { shells, shellPlan, blockSides } = spectraShells(p);
+  const sum = (rows: { owner: string; bytes: number }[], keep: (owner: string) => boolean) =>
+    rows.filter((a) => keep(a.owner)).reduce((t, a) => t + a.bytes, 0);
+  const transformOwners = ['Grid', 'RealTransform2D', 'BatchFFT (y)', 'BatchFFT (x)'];
+  const two = modelMemory(nx, ny, 0, 2).arrays;
+  const one = modelMemory(nx, ny, 0, 1).arrays;
+  const layerPlan = sum(two, (o) => [...transformOwners, 'TwoLayerLinearOperator'].includes(o)) + D * 2 * S;
+  const twoLayerTerm = sum(two, (o) => o.startsWith('TwoLayerNonlinearTerm'));
+  // Of the barotropic snapshot plan only what its nonlinear term keeps: grid, operator and transform.
+  const barotropicPlan = sum(one, (o) => [...transformOwners, 'LinearOperator'].includes(o));
+  const selfTerm = sum(one, (o) => o === 'NonlinearTerm');
+  const ring = (n: number) => D * (n * average + average);
+  return (
+    layerPlan +
+    twoLayerTerm +
+    barotropicPlan +
+    selfTerm +
+    shellPlan +
+    D * blockSides +
+    D * 4 * 2 * S +
+    D * 12 * shells +
+    7 * ring(shells) +
+    ring(1) +
+    D
+  );
+}
+
+/**
+ * The shells of the spectra (up to the corner of the stored half plane) and the bytes of their plan
+ * (lib/analysis/spectra.ts) without its 2D block sides, the 2D block and its sides.
+ */
+function spectraShells(p: Pick<ModelParams, 'nx' | 'ny' | 'Lx' | 'Ly'>) {
+  const { nx, ny, Lx, Ly } = p;
+  const S = ny * (nx / 2 + 1);
+  const dkx = (2 * Math.PI) / Lx;
+  const dky = (2 * Math.PI) / Ly;
+  const shells = Math.round(Math.hypot((nx / 2) * dkx, dky * (ny / 2)) / Math.min(dkx, dky));
+  const block = (Math.floor(nx / 3) + 1) * (2 * Math.floor(ny / 3) + 1);
+  const blockSides = Math.floor(nx / 3) + 1 + (2 * Math.floor(ny / 3) + 1);
+  const shellPlan = D * shells + I * shells + (I + D + D + I) * S;
+  return { shells, shellPlan, block, blockSides };
 }
 
 /** The budget rows at their largest, included in viewDiagnosticsBytes (a test needs them apart). */

@@ -7,7 +7,14 @@ import { DEFAULT_SPECTRAL_AVERAGE, defaultMeanSpan, defaultSampleEvery, RunDiagn
 import { zonalPayload } from './zonalPayload';
 
 /** Least time between two payloads of one kind while playing (ms): a few per second is all the eye needs. */
-export const PAYLOAD_MS = { zonal: 250, hovmoller: 500, spectra: 400, flux: 500, layers: 250 } as const;
+export const PAYLOAD_MS = {
+  zonal: 250,
+  hovmoller: 500,
+  spectra: 400,
+  flux: 500,
+  layers: 250,
+  layerSpectra: 400,
+} as const;
 type Kind = keyof typeof PAYLOAD_MS;
 const KINDS = Object.keys(PAYLOAD_MS) as Kind[];
 
@@ -31,6 +38,7 @@ export class DiagnosticsPublisher {
     spectra: false,
     flux: false,
     layers: false,
+    layerSpectra: false,
   };
   private readonly sent: Record<Kind, number> = {
     layers: -Infinity,
@@ -38,6 +46,7 @@ export class DiagnosticsPublisher {
     hovmoller: -Infinity,
     spectra: -Infinity,
     flux: -Infinity,
+    layerSpectra: -Infinity,
   };
 
   get current(): RunDiagnostics {
@@ -101,7 +110,10 @@ export class DiagnosticsPublisher {
       if (needs.spectra && d.spectral.spectraCount === 0)
         d.spectral.addSpectra(d.sampled(model), model.time, needs.spectra2d);
       if (needs.flux && d.spectral.fluxCount === 0) d.spectral.addFlux(d.sampled(model), model.time);
+      if (needs.layerSpectra && d.layerSpectral?.count === 0) d.layerSpectral.add(model.qHat, model.time);
     }
+    // The two-layer spectra's plan is large (layerSpectralDiagnostics.ts): kept only while a view asks.
+    if (d && !needs.layerSpectra) d.layerSpectral?.release();
     for (const k of KINDS) this.dirty[k] = true;
   }
 
@@ -154,6 +166,10 @@ export class DiagnosticsPublisher {
         : null,
       flux: due('flux', this.needs.flux) ? take('flux', d.spectral.fluxPayload()) : null,
       layers: due('layers', this.needs.layers === true) ? take('layers', this.layers(d)) : null,
+      layerSpectra:
+        due('layerSpectra', this.needs.layerSpectra === true) && d.layerSpectral
+          ? take('layerSpectra', d.layerSpectral.payload())
+          : null,
     };
     return { payload, buffers };
   }

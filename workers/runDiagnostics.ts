@@ -9,6 +9,7 @@ import type { Model } from '../lib/model/model';
 import type { ModelParams } from '../lib/model/params';
 import { monitoredState } from '../lib/run/monitoredRun';
 import type { MonitorStatus } from './diagnosticsApi';
+import { LayerSpectralDiagnostics } from './layerSpectralDiagnostics';
 import { SpectralDiagnostics } from './spectralDiagnostics';
 import { ZonalFrameStore } from './zonalFrameStore';
 
@@ -34,6 +35,9 @@ export function defaultMeanSpan(p: ModelParams): number {
 
 export const DEFAULT_SPECTRAL_AVERAGE = 16;
 
+/** What the views on screen ask of a sample beyond the zonal means (DiagnosticNeeds). */
+type Wants = { spectra: boolean; spectra2d: boolean; flux: boolean; layerSpectra?: boolean };
+
 /**
  * What the worker measures of one run between two restarts: a RunMonitor fed every step and
  * sampled at t₀ + n·sampleEvery (the first step ending at or after each, as the command line does),
@@ -46,6 +50,8 @@ export class RunDiagnostics {
   readonly monitor: RunMonitor;
   readonly frames: ZonalFrameStore;
   readonly spectral: SpectralDiagnostics;
+  /** Two layers: the barotropic and baroclinic spectra and fluxes; null in one layer. */
+  readonly layerSpectral: LayerSpectralDiagnostics | null;
   readonly since: number;
   private taken = 0;
   private barotropic: Float64Array | undefined;
@@ -69,6 +75,7 @@ export class RunDiagnostics {
     this.monitor = new RunMonitor(params, { window: meanWindow(sampling.meanSpan), start });
     this.frames = new ZonalFrameStore(params.ny, undefined, params.layers);
     this.spectral = new SpectralDiagnostics(this.monitor.snap, sampling.spectralAverage);
+    this.layerSpectral = params.layers === 2 ? new LayerSpectralDiagnostics(params, sampling.spectralAverage) : null;
   }
 
   /** The spectrum the diagnostics read: the model's state, or with two layers its barotropic PV. */
@@ -93,7 +100,7 @@ export class RunDiagnostics {
   }
 
   /** Record the step just taken; returns true when it was also a sample time. */
-  afterStep(model: Model, wants: { spectra: boolean; spectra2d: boolean; flux: boolean }): boolean {
+  afterStep(model: Model, wants: Wants): boolean {
     this.monitor.step(model.report);
     this.model = { time: model.time, steps: model.steps };
     if (!reachedTime(model.time, this.next, model.dt)) return false;
@@ -107,13 +114,13 @@ export class RunDiagnostics {
    * Sample the state as it is, at the start of the diagnostics (a loaded run, a new grid), so that
    * the views and readouts show it at once; the next samples follow at since + k·sampleEvery.
    */
-  sampleNow(model: Model, wants: { spectra: boolean; spectra2d: boolean; flux: boolean }): void {
+  sampleNow(model: Model, wants: Wants): void {
     if (this.taken > 0 || model.time !== this.since) return;
     this.model = { time: model.time, steps: model.steps };
     this.take(model, wants);
   }
 
-  private take(model: Model, wants: { spectra: boolean; spectra2d: boolean; flux: boolean }): void {
+  private take(model: Model, wants: Wants): void {
     this.taken++;
     const t = model.time;
     const q = this.sampled(model);
@@ -126,6 +133,7 @@ export class RunDiagnostics {
     this.worked = null;
     if (wants.spectra) this.spectral.addSpectra(q, t, wants.spectra2d);
     if (wants.flux) this.spectral.addFlux(q, t);
+    if (wants.layerSpectra) this.layerSpectral?.add(model.qHat, t);
   }
 
   /**
@@ -139,6 +147,7 @@ export class RunDiagnostics {
     this.monitor.retune(params, model.time);
     this.barotropic = undefined;
     if (this.monitor.snap !== snap) this.spectral.retune(this.monitor.snap);
+    this.layerSpectral?.retune(params);
     this.model = { time: model.time, steps: model.steps };
     this.worked = null;
   }
@@ -179,6 +188,7 @@ export class RunDiagnostics {
   setSpectralAverage(n: number): void {
     this.sampling.spectralAverage = n;
     this.spectral.setAverage(n);
+    this.layerSpectral?.setAverage(n);
   }
 
   status(epoch: number): MonitorStatus {

@@ -76,6 +76,21 @@ export const CHOICE_FIELDS: Record<string, Record<string, PlanFieldSpec[]>> = {
   drive: {
     injection: [{ path: 'drive.eps', label: 'energy injection rate ε', dim: 'injection' }],
     velocity: [{ path: 'drive.U', label: 'target rms velocity U', dim: 'velocity', hint: 'then ε = μU²' }],
+    baroclinic: [
+      {
+        path: 'drive.shear',
+        label: 'imposed shear U_1 − U_2',
+        dim: 'velocity',
+        hint: 'two layers, no stirring; needs a deformation radius',
+      },
+      {
+        path: 'drive.depthRatio',
+        label: 'depth ratio δ = H_1/H_2 (optional)',
+        dim: 'none',
+        hint: 'empty: equal layers, δ = 1',
+        optional: true,
+      },
+    ],
   },
   grid: {
     points: [],
@@ -116,6 +131,7 @@ export const KINDS = {
   drive: [
     { kind: 'injection', label: 'energy injection rate ε' },
     { kind: 'velocity', label: 'target rms velocity U' },
+    { kind: 'baroclinic', label: 'baroclinic (imposed shear)' },
   ],
   grid: [
     { kind: 'points', label: 'grid points' },
@@ -141,6 +157,8 @@ export function freshChoice(key: ChoiceKey, kind: string, input: PlanInput): unk
       return { kind, eps: input.units === 'physical' ? 1e-5 : 0.01 };
     case 'drive.velocity':
       return { kind, U: input.units === 'physical' ? 10 : 1 };
+    case 'drive.baroclinic':
+      return { kind, shear: input.units === 'physical' ? 10 : 2 };
     case 'grid.points':
       return { kind, nx: 256, ny: 256 };
     case 'grid.spacing':
@@ -148,6 +166,17 @@ export function freshChoice(key: ChoiceKey, kind: string, input: PlanInput): unk
     default:
       return { kind };
   }
+}
+
+/**
+ * The input with `key` switched to a fresh `kind`. A baroclinic drive needs a deformation radius
+ * (the layers' coupling), so choosing it on a barotropic plan also gives the plan one.
+ */
+export function chooseKind(input: PlanInput, key: ChoiceKey, kind: string): PlanInput {
+  const next = setPath(input, key, freshChoice(key, kind, input));
+  if (key === 'drive' && kind === 'baroclinic' && next.deformation.kind === 'none')
+    return setPath(next, 'deformation', freshChoice('deformation', 'radius', next));
+  return next;
 }
 
 /** The value at a dotted path. */

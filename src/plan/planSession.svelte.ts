@@ -1,4 +1,5 @@
 import type { RunSummary } from '../../lib/analysis/summary';
+import type { BaroclinicHeadline } from '../../lib/plan/baroclinicPlan';
 import type { PlanInput } from '../../lib/plan/planInput';
 import { PLAN_PRESETS, type PlanPreset } from '../../lib/plan/planPresets';
 import type { PlanPredictions } from '../../lib/plan/predictions';
@@ -6,7 +7,10 @@ import type { TrialPhase, TrialTrack } from './matchedTrial';
 
 /** The matched run started here: what it was, what it predicted, and (once it ended) what it measured. */
 export interface MatchedTrial extends TrialTrack {
-  predictions: PlanPredictions;
+  /** A stirred plan's predictions, or null for a baroclinic plan's run (then `headline`). */
+  predictions: PlanPredictions | null;
+  /** A baroclinic plan's Held & Larichev predictions under the run summary's keys, or null. */
+  headline: BaroclinicHeadline | null;
   phase: TrialPhase;
   measured: RunSummary | null;
 }

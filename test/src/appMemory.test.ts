@@ -12,7 +12,7 @@ import {
   memoryRefusal,
   roughBytes,
 } from '../../src/appMemory';
-import { viewDiagnosticsBytes } from '../../workers/diagnosticsMemory';
+import { layerSpectraBytes, viewDiagnosticsBytes } from '../../workers/diagnosticsMemory';
 
 const MiB = 1024 ** 2;
 const GiB = 1024 ** 3;
@@ -105,13 +105,13 @@ describe('the memory of a run in the app', () => {
 });
 
 describe('the app memory estimate of a two-layer run', () => {
-  it('counts the two-layer model and the layered zonal frames: more than the same grid in one layer', () => {
+  it('counts the two-layer model, the layered zonal frames and the two-layer spectra: more than the same grid in one layer', () => {
     const one = grid(128, 128);
     const two = validateParams({ ...one, layers: 2, kd: 4 });
     expect(estimateAppMemory(two).totalBytes).toBeGreaterThan(estimateAppMemory(one).totalBytes);
     // The zonal frames of a two-layer run hold 11 profiles of ny a frame instead of 5 (both layers of
     // ū, q̄, u′v′, v′q′, EKE and the heat flux), 1024 frames of 128 rows (both fit the store's 16 MiB):
-    // 6 × 1024 × 128 × 8 bytes more.
-    expect(viewDiagnosticsBytes(two) - viewDiagnosticsBytes(one)).toBe(6 * 1024 * 128 * 8);
+    // 6 × 1024 × 128 × 8 bytes more; and the barotropic and baroclinic spectra (test/workers/diagnosticsMemory.test.ts).
+    expect(viewDiagnosticsBytes(two) - viewDiagnosticsBytes(one)).toBe(6 * 1024 * 128 * 8 + layerSpectraBytes(two));
   });
 });

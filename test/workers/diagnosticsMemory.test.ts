@@ -1,6 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { estimateRunMemory } from '../../lib/run/runMemory';
-import { BUDGET_ROWS_MAX_BYTES, viewDiagnosticsBytes } from '../../workers/diagnosticsMemory';
+import { BUDGET_ROWS_MAX_BYTES, layerSpectraBytes, viewDiagnosticsBytes } from '../../workers/diagnosticsMemory';
+import { LayerSpectralDiagnostics } from '../../workers/layerSpectralDiagnostics';
+import { validateParams } from '../../lib/model/validateParams';
+import { Model } from '../../lib/model/model';
 import { MAX_SPECTRAL_AVERAGE } from '../../workers/diagnosticsPublisher';
 import { SimulationHost } from '../../workers/simulationHost';
 import { reachableArrayBytes } from '../support/reachableBytes';
@@ -37,6 +40,19 @@ describe('memory of the views in the worker', () => {
         reachableArrayBytes(parts.diagnostics, parts.rows).bytes - measurement,
       );
       await host.dispose();
+    }
+  });
+
+  it('counts every typed array the two-layer spectra hold while asked for, exactly', () => {
+    for (const [nx, ny, Lx, Ly] of [
+      [32, 32, 2 * Math.PI, 2 * Math.PI],
+      [64, 32, 4 * Math.PI, 2 * Math.PI],
+      [128, 64, 3, 5],
+    ]) {
+      const p = validateParams({ nx, ny, Lx, Ly, layers: 2, kd: 4, shear: 1, forcing: 'none', eps: 0 });
+      const d = new LayerSpectralDiagnostics(p, MAX_SPECTRAL_AVERAGE);
+      d.add(new Model(p).qHat, 0);
+      expect(layerSpectraBytes({ nx, ny, Lx, Ly }), `${nx}×${ny}`).toBe(reachableArrayBytes(d).bytes);
     }
   });
 

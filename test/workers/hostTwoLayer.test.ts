@@ -1,4 +1,5 @@
 import { afterEach, describe, expect, it } from 'vitest';
+import { LayerSpectraPlan } from '../../lib/analysis/layerSpectra';
 import { RunMonitor } from '../../lib/analysis/runMonitor';
 import { parseCsv } from '../../lib/io/csv';
 import { readNetcdf } from '../../lib/io/netcdfRead';
@@ -69,6 +70,41 @@ describe('SimulationHost with two layers', () => {
     // The Q_i of the layers: β ± F_i (U₁ − U₂) with F₁ = F₂ = k_d²/2 at δ = 1 [derived, docs/two-layer.md].
     expect(L.Q1).toBeCloseTo(0.5 + 8, 12);
     expect(L.Q2).toBeCloseTo(0.5 - 8, 12);
+  });
+
+  it('sends the barotropic and baroclinic spectra only when asked, the mean of LayerSpectraPlan over the samples', async () => {
+    host = new SimulationHost();
+    await host.init(TWO, { sampleEvery: EVERY, meanSpan: 1, spectralAverage: 2 });
+    const none = { zonal: false, hovmoller: false, spectra: false, spectra2d: false, flux: false };
+    await host.setDiagnostics({ ...none, flux: true });
+    for (let i = 0; i < 4; i++) await host.stepOnce();
+    expect((await host.nextSnapshot({ after: 0 })).diagnostics.layerSpectra).toBeNull();
+    await host.setDiagnostics({ ...none, layerSpectra: true });
+    for (let i = 0; i < 8; i++) await host.stepOnce();
+    const s = await host.nextSnapshot({ after: 0 });
+    const P = s.diagnostics.layerSpectra!;
+    // Asked for at step 4 (sampled at once), then the samples at steps 8 and 12: the last two are averaged.
+    expect(P.count).toBe(2);
+    const direct = new Model(TWO);
+    const plan = new LayerSpectraPlan(direct.params);
+    const states: Float64Array[] = [];
+    for (let i = 1; i <= 12; i++) {
+      direct.step(1);
+      if (i === 8 || i === 12) states.push(direct.qHat.slice());
+    }
+    const [a, b] = states.map((q) => plan.compute(q));
+    const mean = (x: Float64Array, y: Float64Array) => Array.from(x, (v, i) => (v + y[i]) / 2);
+    expect(Array.from(P.kineticBaroclinic)).toEqual(mean(a.kineticBaroclinic, b.kineticBaroclinic));
+    expect(Array.from(P.exchange)).toEqual(mean(a.exchange, b.exchange));
+    expect(Array.from(P.fluxBarotropic)).toEqual(mean(a.fluxBarotropic, b.fluxBarotropic));
+    expect(P.netExchange).toBe((a.netExchange + b.netExchange) / 2);
+    expect([P.tStart, P.tEnd]).toEqual([8 / 128, 12 / 128]);
+    // Once no view asks, the plan is let go; asked again, the average starts from the state as it is.
+    await host.setDiagnostics({ ...none, flux: true });
+    await host.setDiagnostics({ ...none, layerSpectra: true });
+    const again = (await host.nextSnapshot({ after: 0 })).diagnostics.layerSpectra!;
+    expect(again.count).toBe(1);
+    expect(Array.from(again.exchange)).toEqual(Array.from(b.exchange));
   });
 
   it('exports the state of both layers as the layered snapshot file, each layer as the model has it', async () => {

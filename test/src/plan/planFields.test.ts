@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { InputError } from '../../../lib/inputError';
 import { validatePlanInput } from '../../../lib/plan/planInput';
 import { planPreset } from '../../../lib/plan/planPresets';
-import { CHOICE_FIELDS, COMMON_FIELDS, freshChoice, getPath, KINDS, setPath } from '../../../src/plan/planFields';
+import { CHOICE_FIELDS, chooseKind, COMMON_FIELDS, getPath, KINDS, setPath } from '../../../src/plan/planFields';
 
 describe('plan fields', () => {
   const base = planPreset('earth-atmosphere').input;
@@ -44,12 +44,21 @@ describe('plan fields', () => {
       for (const [key, kinds] of Object.entries(KINDS)) {
         for (const { kind } of kinds) {
           if (units === 'model' && key === 'rotation' && kind === 'planet') continue;
-          const input = setPath(start, key, freshChoice(key as keyof typeof KINDS, kind, start));
+          const input = chooseKind(start, key as keyof typeof KINDS, kind);
           const withF =
             key === 'deformation' && kind === 'layer' && units === 'model' ? setPath(input, 'rotation.f', 1) : input;
           expect(() => validatePlanInput(withF), `${units} ${key}.${kind}`).not.toThrow();
         }
       }
     }
+  });
+
+  it('give a barotropic plan a deformation radius when its drive turns baroclinic, and keep one it has', () => {
+    expect(base.deformation.kind).toBe('none');
+    const next = chooseKind(base, 'drive', 'baroclinic');
+    expect(next.drive.kind).toBe('baroclinic');
+    expect(next.deformation).toEqual({ kind: 'radius', Ld: base.domain.Ly / 20 });
+    const layered = setPath(base, 'deformation', { kind: 'radius', Ld: 1e5 });
+    expect(chooseKind(layered, 'drive', 'baroclinic').deformation).toBe(layered.deformation);
   });
 });
