@@ -58,6 +58,33 @@ describe('Plan view in Chromium', () => {
     await screenshot(page, 'plan.png');
   });
 
+  it('converts the plan on screen between units: Jupiter → model → physical keeps every number', async () => {
+    const { page } = app;
+    const shownPredictions = () =>
+      page
+        .locator('[data-testid^=prediction-]')
+        .evaluateAll((els) =>
+          Object.fromEntries(
+            els.map((e) => [
+              e.getAttribute('data-testid')!.slice('prediction-'.length),
+              Number(e.getAttribute('data-value')),
+            ]),
+          ),
+        );
+    await page.getByTestId('plan-preset').selectOption('jupiter');
+    const before = await shownPredictions();
+    await page.getByTestId('plan-units-model').check();
+    // In model units: the plan's own scaling makes the rms velocity 1 [derived: units.ts].
+    await expect.poll(async () => (await shownPredictions()).U).toBeCloseTo(1, 10);
+    // A switch is not an edit: the preset stays named.
+    await expect(page.getByTestId('plan-preset').inputValue()).resolves.toBe('jupiter');
+    await page.getByTestId('plan-units-physical').check();
+    await expect.poll(async () => (await shownPredictions()).U).toBeCloseTo(before.U, 10);
+    const after = await shownPredictions();
+    for (const [id, value] of Object.entries(before))
+      if (Number.isFinite(value)) expect(Math.abs(after[id] - value), id).toBeLessThanOrEqual(1e-12 * Math.abs(value));
+  });
+
   it('refuses a bad entry at its field, and the machine speed changes the cost', async () => {
     const { page } = app;
     const wall = Number(await page.getByTestId('plan-cost').getAttribute('data-wall'));

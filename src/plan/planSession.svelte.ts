@@ -3,6 +3,7 @@ import type { BaroclinicHeadline } from '../../lib/plan/baroclinicPlan';
 import type { PlanInput } from '../../lib/plan/planInput';
 import { PLAN_PRESETS, type PlanPreset } from '../../lib/plan/planPresets';
 import type { PlanPredictions } from '../../lib/plan/predictions';
+import type { UnitScaling } from '../../lib/plan/units';
 import type { TrialPhase, TrialTrack } from './matchedTrial';
 
 /** The matched run started here: what it was, what it predicted, and (once it ended) what it measured. */
@@ -26,6 +27,11 @@ class PlanSession {
   speed = $state(1);
   targetSeconds = $state(120);
   trial = $state.raw<MatchedTrial | null>(null);
+  /**
+   * The last switch from physical to model units: the physical plan, the model plan it became and the
+   * scaling used, so that switching back undoes it exactly (or converts the edited plan with it).
+   */
+  unitSwitch = $state.raw<{ physical: PlanInput; model: PlanInput; scaling: UnitScaling } | null>(null);
 }
 
 export const planSession = new PlanSession();
