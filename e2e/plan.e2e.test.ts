@@ -99,9 +99,17 @@ describe('Plan view in Chromium', () => {
       /domain length Lx: a finite number > 0/,
     );
     await expect(page.getByTestId('plan-refused').innerText()).resolves.toMatch(/domain\.Lx/);
-    await page.getByTestId('plan-domain-Lx').fill('4e6');
+    // A length with its unit word: 4000 km is 4e6 m; a unit of the wrong kind is refused by name.
+    await page.getByTestId('plan-domain-Lx').fill('4000 km');
     await page.getByTestId('plan-domain-Lx').press('Enter');
     await page.getByTestId('plan-predictions').waitFor();
+    expect(Number(await page.getByTestId('plan-domain-Lx').inputValue())).toBe(4e6);
+    await page.getByTestId('plan-dragTime').fill('20 km');
+    await page.getByTestId('plan-dragTime').press('Enter');
+    await expect(page.getByTestId('plan-dragTime-error').innerText()).resolves.toMatch(/unknown unit "km"/);
+    await page.getByTestId('plan-dragTime').fill('20 d');
+    await page.getByTestId('plan-dragTime').press('Enter');
+    await expect.poll(async () => Number(await page.getByTestId('plan-dragTime').inputValue())).toBe(1_728_000);
   });
 
   it('saves the plan as a plan file and the printable report', async () => {
