@@ -16,6 +16,17 @@
  */
 
 /**
+ * Where each kx column of a block cut into column slabs lives (realTransform2D.ts): column k of
+ * row y at offset[k] + y·stride[k] for field a, bOffset[k] further for field b. Tables over every
+ * k < nx (columns a block does not hold are never looked up).
+ */
+export interface ColumnSlabLayout {
+  readonly offset: Int32Array;
+  readonly stride: Int32Array;
+  readonly bOffset: Int32Array;
+}
+
+/**
  * Backward y transform, finished into the x-major work grid of realTransform2D.ts. `src` holds the
  * block of two half-plane spectra a (columns 0..top) and b (top+1..2·top+1), y-transformed but for
  * the last stage. Writes Z = A + iB at (kx, y) and, for 0 < kx < nx/2, Z(−kx) = conj(A) + i·conj(B)
@@ -25,25 +36,28 @@
 export function lastStageToWorkGrid(
   src: Float64Array,
   W: Float64Array,
+  rowOffset: Int32Array,
+  rowStride: Int32Array,
   nx: number,
   ny: number,
   top: number,
   kx0 = 0,
   kx1 = top + 1,
+  origin = 0,
+  half = top + 1,
 ): void {
-  const cols = 2 * (top + 1);
+  const cols = 2 * half;
   const s = ny >> 2;
   const run = 2 * s * cols;
-  const bOff = 2 * (top + 1);
+  const bOff = 2 * half;
   const nyq = nx >> 1;
-  const s2 = 2 * s; // doubles from output row y to y + s on the work grid
-  // kx outer, r inner: the eight output streams of a column are written in order.
+  // kx outer, r inner: the eight output streams of a column are written in order. Output row
+  // y = r + j·s of column x is at rowOffset[y] + x·rowStride[y] (one slab: 2y + 2x·ny).
   for (let kx = kx0; kx < kx1; kx++) {
-    const up = 2 * kx * ny;
     const mirror = kx > 0 && kx < nyq;
-    const down = 2 * (nx - kx) * ny;
+    const xd = nx - kx;
     for (let r = 0; r < s; r++) {
-      const ia = 2 * (r * cols + kx);
+      const ia = 2 * (r * cols + kx - origin);
       const ib = ia + bOff;
       const aar = src[ia],
         aai = src[ia + 1];
@@ -93,25 +107,39 @@ export function lastStageToWorkGrid(
         B1i = b1i + bur;
       const B3r = b1r + bui,
         B3i = b1i - bur;
-      const o = up + 2 * r;
-      W[o] = A0r - B0i;
-      W[o + 1] = A0i + B0r;
-      W[o + s2] = A1r - B1i;
-      W[o + s2 + 1] = A1i + B1r;
-      W[o + 2 * s2] = A2r - B2i;
-      W[o + 2 * s2 + 1] = A2i + B2r;
-      W[o + 3 * s2] = A3r - B3i;
-      W[o + 3 * s2 + 1] = A3i + B3r;
+      const f0 = rowOffset[r],
+        d0 = rowStride[r];
+      const f1 = rowOffset[r + s],
+        d1 = rowStride[r + s];
+      const f2 = rowOffset[r + 2 * s],
+        d2 = rowStride[r + 2 * s];
+      const f3 = rowOffset[r + 3 * s],
+        d3 = rowStride[r + 3 * s];
+      const o0 = f0 + kx * d0,
+        o1 = f1 + kx * d1,
+        o2 = f2 + kx * d2,
+        o3 = f3 + kx * d3;
+      W[o0] = A0r - B0i;
+      W[o0 + 1] = A0i + B0r;
+      W[o1] = A1r - B1i;
+      W[o1 + 1] = A1i + B1r;
+      W[o2] = A2r - B2i;
+      W[o2 + 1] = A2i + B2r;
+      W[o3] = A3r - B3i;
+      W[o3 + 1] = A3i + B3r;
       if (mirror) {
-        const m = down + 2 * r;
-        W[m] = A0r + B0i;
-        W[m + 1] = B0r - A0i;
-        W[m + s2] = A1r + B1i;
-        W[m + s2 + 1] = B1r - A1i;
-        W[m + 2 * s2] = A2r + B2i;
-        W[m + 2 * s2 + 1] = B2r - A2i;
-        W[m + 3 * s2] = A3r + B3i;
-        W[m + 3 * s2 + 1] = B3r - A3i;
+        const m0 = f0 + xd * d0,
+          m1 = f1 + xd * d1,
+          m2 = f2 + xd * d2,
+          m3 = f3 + xd * d3;
+        W[m0] = A0r + B0i;
+        W[m0 + 1] = B0r - A0i;
+        W[m1] = A1r + B1i;
+        W[m1 + 1] = B1r - A1i;
+        W[m2] = A2r + B2i;
+        W[m2 + 1] = B2r - A2i;
+        W[m3] = A3r + B3i;
+        W[m3 + 1] = B3r - A3i;
       }
     }
   }
@@ -120,7 +148,10 @@ export function lastStageToWorkGrid(
   if (zeros > 0) {
     const z0 = top + 1 + Math.floor((zeros * kx0) / (top + 1));
     const z1 = top + 1 + Math.floor((zeros * kx1) / (top + 1));
-    if (z1 > z0) W.fill(0, 2 * z0 * ny, 2 * z1 * ny);
+    // Every slab's rows of those columns: slab by slab, the first row of each names it.
+    if (z1 > z0)
+      for (let y = 0; y < ny; y += rowStride[y] >> 1)
+        W.fill(0, rowOffset[y] + z0 * rowStride[y], rowOffset[y] + z1 * rowStride[y]);
   }
 }
 
@@ -204,11 +235,18 @@ export function lastStageToBlock(
   top: number,
   y0 = 0,
   y1 = ny,
+  srcRows = ny,
+  srcY0 = 0,
+  layout: ColumnSlabLayout | null = null,
 ): void {
   const cols = 2 * (top + 1);
   const bOff = 2 * (top + 1);
   const s = nx >> 2;
-  const run = 2 * s * ny;
+  const run = 2 * s * srcRows;
+  // Where column k of row y goes: at[k] + y·rowLen[k] for field a, + bAt[k] more for field b.
+  const at = layout ? layout.offset : null;
+  const rowLen = layout ? layout.stride : null;
+  const bAt = layout ? layout.bOffset : null;
   for (let r = 0; r <= s >> 1; r++) {
     const rp = (s - r) % s; // the partner residue: nx − (j·s + r) = (3 − j)·s + (s − r)
     const pair = rp !== r;
@@ -229,8 +267,33 @@ export function lastStageToBlock(
       keepQ1 = pair && q1 <= top,
       keepQ2 = pair && q2 <= top,
       keepQ3 = pair && q3 <= top;
-    const ir = 2 * r * ny;
-    const ip = 2 * rp * ny;
+    const ir = 2 * r * srcRows - 2 * srcY0;
+    const ip = 2 * rp * srcRows - 2 * srcY0;
+    // Each output column's place in the block (one slab: 2k + y·2·cols, b at bOff).
+    const pk0 = at ? at[k0] : 2 * k0,
+      pk1 = at ? at[k1] : 2 * k1,
+      pk2 = at ? at[k2] : 2 * k2,
+      pk3 = at ? at[k3] : 2 * k3;
+    const pq0 = at ? at[q0] : 2 * q0,
+      pq1 = at ? at[q1] : 2 * q1,
+      pq2 = at ? at[q2] : 2 * q2,
+      pq3 = at ? at[q3] : 2 * q3;
+    const lk0 = rowLen ? rowLen[k0] : 2 * cols,
+      lk1 = rowLen ? rowLen[k1] : 2 * cols,
+      lk2 = rowLen ? rowLen[k2] : 2 * cols,
+      lk3 = rowLen ? rowLen[k3] : 2 * cols;
+    const lq0 = rowLen ? rowLen[q0] : 2 * cols,
+      lq1 = rowLen ? rowLen[q1] : 2 * cols,
+      lq2 = rowLen ? rowLen[q2] : 2 * cols,
+      lq3 = rowLen ? rowLen[q3] : 2 * cols;
+    const bk0 = bAt ? bAt[k0] : bOff,
+      bk1 = bAt ? bAt[k1] : bOff,
+      bk2 = bAt ? bAt[k2] : bOff,
+      bk3 = bAt ? bAt[k3] : bOff;
+    const bq0 = bAt ? bAt[q0] : bOff,
+      bq1 = bAt ? bAt[q1] : bOff,
+      bq2 = bAt ? bAt[q2] : bOff,
+      bq3 = bAt ? bAt[q3] : bOff;
     for (let y = y0; y < y1; y++) {
       const ia = ir + 2 * y;
       const ar = src[ia],
@@ -293,23 +356,22 @@ export function lastStageToBlock(
         z3r = s1r - vi;
         z3i = s1i + vr;
       }
-      const d = 2 * y * cols;
       // Partner of Y_j: Z_{3−j} when r > 0; at r = 0 it is Y_{(4−j) mod 4} (Z = Y there).
       if (r === 0) {
-        if (keepK0) put(block, d + 2 * k0, bOff, y0r, y0i, y0r, y0i);
-        if (keepK1) put(block, d + 2 * k1, bOff, y1r, y1i, y3r, y3i);
-        if (keepK2) put(block, d + 2 * k2, bOff, y2r, y2i, y2r, y2i);
-        if (keepK3) put(block, d + 2 * k3, bOff, y3r, y3i, y1r, y1i);
+        if (keepK0) put(block, pk0 + y * lk0, bk0, y0r, y0i, y0r, y0i);
+        if (keepK1) put(block, pk1 + y * lk1, bk1, y1r, y1i, y3r, y3i);
+        if (keepK2) put(block, pk2 + y * lk2, bk2, y2r, y2i, y2r, y2i);
+        if (keepK3) put(block, pk3 + y * lk3, bk3, y3r, y3i, y1r, y1i);
         continue;
       }
-      if (keepK0) put(block, d + 2 * k0, bOff, y0r, y0i, z3r, z3i);
-      if (keepK1) put(block, d + 2 * k1, bOff, y1r, y1i, z2r, z2i);
-      if (keepK2) put(block, d + 2 * k2, bOff, y2r, y2i, z1r, z1i);
-      if (keepK3) put(block, d + 2 * k3, bOff, y3r, y3i, z0r, z0i);
-      if (keepQ0) put(block, d + 2 * q0, bOff, z0r, z0i, y3r, y3i);
-      if (keepQ1) put(block, d + 2 * q1, bOff, z1r, z1i, y2r, y2i);
-      if (keepQ2) put(block, d + 2 * q2, bOff, z2r, z2i, y1r, y1i);
-      if (keepQ3) put(block, d + 2 * q3, bOff, z3r, z3i, y0r, y0i);
+      if (keepK0) put(block, pk0 + y * lk0, bk0, y0r, y0i, z3r, z3i);
+      if (keepK1) put(block, pk1 + y * lk1, bk1, y1r, y1i, z2r, z2i);
+      if (keepK2) put(block, pk2 + y * lk2, bk2, y2r, y2i, z1r, z1i);
+      if (keepK3) put(block, pk3 + y * lk3, bk3, y3r, y3i, z0r, z0i);
+      if (keepQ0) put(block, pq0 + y * lq0, bq0, z0r, z0i, y3r, y3i);
+      if (keepQ1) put(block, pq1 + y * lq1, bq1, z1r, z1i, y2r, y2i);
+      if (keepQ2) put(block, pq2 + y * lq2, bq2, z2r, z2i, y1r, y1i);
+      if (keepQ3) put(block, pq3 + y * lq3, bq3, z3r, z3i, y0r, y0i);
     }
   }
 }
@@ -336,10 +398,12 @@ export function lastStageToTendency(
   scale: number,
   ix0 = 0,
   ix1 = grid.Kx + 1,
+  origin = 0,
+  half = grid.Kx + 1,
 ): void {
-  const { ny, nkx, Kx, Ky, kx, ky } = grid;
-  const cols = 2 * (Kx + 1);
-  const bOff = 2 * (Kx + 1);
+  const { ny, nkx, Ky, kx, ky } = grid;
+  const cols = 2 * half;
+  const bOff = 2 * half;
   const s = ny >> 2;
   const run = 2 * s * cols;
   const lowTop = Ky;
@@ -364,7 +428,7 @@ export function lastStageToTendency(
       o3 = 2 * j3 * nkx;
     const row = 2 * r * cols;
     for (let ix = ix0; ix < ix1; ix++) {
-      const ia = row + 2 * ix;
+      const ia = row + 2 * (ix - origin);
       const ib = ia + bOff;
       const aar = src[ia],
         aai = src[ia + 1];
@@ -445,11 +509,13 @@ export function velocitiesFirstStageY(
   dst: Float64Array,
   ix0 = 0,
   ix1 = grid.Kx + 1,
+  origin = 0,
+  half = grid.Kx + 1,
 ): void {
-  const { ny, nkx, Kx, Ky, kx, ky } = grid;
-  const cols = 2 * (Kx + 1);
+  const { ny, nkx, Ky, kx, ky } = grid;
+  const cols = 2 * half;
   const row = 2 * cols; // doubles per block row
-  const bOff = 2 * (Kx + 1);
+  const bOff = 2 * half;
   const radix = firstRadix;
   const q = ny / radix; // rows between the inputs of a butterfly
   for (let p = 0; p < q; p++) {
@@ -509,7 +575,7 @@ export function velocitiesFirstStageY(
         b1r = -kxv * pi;
         b1i = kxv * pr;
       }
-      const t = o0 + 2 * ix;
+      const t = o0 + 2 * (ix - origin);
       if (radix === 2) {
         // X0 = a + b, X1 = (a − b)·w^p into rows 2p, 2p + 1.
         dst[t] = a0r + a1r;

@@ -66,7 +66,13 @@ export class Model {
   private build(p: ModelParams): void {
     const threads = this.threads && this.threads.count > 1 && !this.threads.failed ? this.threads : null;
     const arena = threads ? new SharedArena() : null;
-    const parts = buildStepParts(this.grid, p, this.rng, arena ? arena.alloc : plainFloat64);
+    const parts = buildStepParts(
+      this.grid,
+      p,
+      this.rng,
+      arena ? arena.alloc : plainFloat64,
+      threads ? threads.count : 1,
+    );
     this.stepper = parts.stepper;
     this.forcing = parts.forcing;
     this.lin2 = parts.lin2;

@@ -18,7 +18,7 @@ import type { RealTransform2D } from './realTransform2D';
  * The derivation and the passes in order, plain and fused: docs/fused-step.md.
  *
  * An evaluation is three passes, which threads share (docs/threads.md): `toGrid` on a range of kx
- * columns, `products` on a range of grid rows y, `tendency` on a range of kx columns again; each
+ * columns, `products` on a row slab of the transform, `tendency` on a range of kx columns again; each
  * pass must be complete, on every range, before the next starts. `evaluateKept` runs the three on
  * everything, one after the other.
  */
@@ -51,47 +51,68 @@ export class NonlinearTerm {
    * pass over the whole spectrum per stage.
    */
   evaluateKept(qHat: Float64Array, out: Float64Array): void {
-    const { Kx, ny } = this.grid;
-    this.toGrid(qHat, 0, Kx + 1);
-    this.products(0, ny, this.speeds, 0);
-    this.maxU = this.speeds[0];
-    this.maxV = this.speeds[1];
-    this.tendency(out, 0, Kx + 1);
-  }
-
-  /**
-   * Pass 1, on kx columns ix0..ix1 − 1: the velocities ψ̂ = −q̂/K², û = −i ky ψ̂, v̂ = i kx ψ̂ of those
-   * columns of q̂ go straight into the y transform's first stage, and through the rest of it onto
-   * the work grid.
-   */
-  toGrid(qHat: Float64Array, ix0: number, ix1: number): void {
     const xf = this.transform;
-    const y = xf.yTransform;
-    velocitiesFirstStageY(qHat, this.lin.invK2, this.grid, y.firstRadix, y.cosT, y.sinT, xf.block, ix0, ix1);
-    xf.inverseYColumns(ix0, ix1);
+    for (let k = 0; k < xf.columns.length; k++) this.toGrid(qHat, k);
+    let maxU = 0;
+    let maxV = 0;
+    for (let j = 0; j < this.transform.slabs.length; j++) {
+      this.products(j, this.speeds, 0);
+      maxU = Math.max(maxU, this.speeds[0]);
+      maxV = Math.max(maxV, this.speeds[1]);
+    }
+    this.maxU = maxU;
+    this.maxV = maxV;
+    for (let k = 0; k < xf.columns.length; k++) this.tendency(out, k);
   }
 
   /**
-   * Pass 2, on grid rows y0..y1 − 1: the x transforms there and back; the backward one's last stage
-   * forms the products (u, v) → (uv, v² − u²) and the largest |u|, |v| of those rows (into
-   * speeds[at], speeds[at + 1]), the forward one's writes the block's rows.
+   * Pass 1, on the transform's column slab k (its kx columns i0..i1 − 1): the velocities
+   * ψ̂ = −q̂/K², û = −i ky ψ̂, v̂ = i kx ψ̂ of those columns of q̂ go straight into the y transform's
+   * first stage, and through the rest of it onto the work grid.
    */
-  products(y0: number, y1: number, speeds: Float64Array, at: number): void {
+  toGrid(qHat: Float64Array, k: number): void {
     const xf = this.transform;
-    const W = xf.inverseXRows(y0, y1);
-    lastStageProducts(W, xf.xLastRun, speeds, this.grid.ny, y0, y1, at);
-    xf.forwardXRows(W, y0, y1);
+    const c = xf.columns[k];
+    const y = c.fft;
+    velocitiesFirstStageY(
+      qHat,
+      this.lin.invK2,
+      this.grid,
+      y.firstRadix,
+      y.cosT,
+      y.sinT,
+      c.block,
+      c.i0,
+      c.i1,
+      c.i0,
+      c.i1 - c.i0,
+    );
+    xf.inverseYSlab(k);
   }
 
   /**
-   * Pass 3, on kx columns ix0..ix1 − 1: the y transform's last stage forms
-   * −Ĵ = (kx² − ky²)·(uv)^ + kx·ky·(v² − u²)^ on those columns of the kept modes; the range holding
+   * Pass 2, on the transform's row slab j (realTransform2D.ts): the x transforms there and back; the
+   * backward one's last stage forms the products (u, v) → (uv, v² − u²) and the largest |u|, |v| of
+   * those rows (into speeds[at], speeds[at + 1]), the forward one's writes the block's rows.
+   */
+  products(j: number, speeds: Float64Array, at: number): void {
+    const xf = this.transform;
+    const slab = xf.slabs[j];
+    const W = xf.inverseXSlab(j);
+    lastStageProducts(W, slab.fft.lastRun, speeds, slab.y1 - slab.y0, 0, slab.y1 - slab.y0, at);
+    xf.forwardXSlab(j, W);
+  }
+
+  /**
+   * Pass 3, on column slab k (kx columns i0..i1 − 1): the y transform's last stage forms
+   * −Ĵ = (kx² − ky²)·(uv)^ + kx·ky·(v² − u²)^ on those columns of the kept modes; the slab holding
    * column 0 also zeroes the mean and makes that column exactly Hermitian.
    */
-  tendency(out: Float64Array, ix0: number, ix1: number): void {
+  tendency(out: Float64Array, k: number): void {
     const { nkx, ny, size } = this.grid;
-    lastStageToTendency(this.transform.forwardYColumns(ix0, ix1), out, this.grid, 1 / size, ix0, ix1);
-    if (!(ix0 === 0 && ix1 > 0)) return;
+    const c = this.transform.columns[k];
+    lastStageToTendency(this.transform.forwardYSlab(k), out, this.grid, 1 / size, c.i0, c.i1, c.i0, c.i1 - c.i0);
+    if (!(c.i0 === 0 && c.i1 > 0)) return;
     out[0] = out[1] = 0;
     // Exact Hermitian symmetry of the kx = 0 column (round-off differs between ±ky otherwise).
     for (let jy = 1; jy <= this.grid.Ky; jy++) {

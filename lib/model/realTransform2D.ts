@@ -1,7 +1,39 @@
 import { BatchFFT, lastStageInPlace } from './batchFFT';
 import { plainFloat64, type Float64Alloc } from './sharedArena';
-import { lastStageToBlock, lastStageToWorkGrid } from './fusedStages';
+import { lastStageToBlock, lastStageToWorkGrid, type ColumnSlabLayout } from './fusedStages';
 import type { Grid } from './grid';
+import { COLUMN_UNIT, ROW_UNIT, shareBound } from './stepTeam';
+
+/**
+ * kx columns i0..i1 − 1 of both fields of the block, stored together (row y: the slab's columns of
+ * field a, then of field b) for the same reason as a RowSlab.
+ */
+export interface ColumnSlab {
+  readonly i0: number;
+  readonly i1: number;
+  /** The slab's part of the block: column kx of field a, row y, at 2·(y·2(i1 − i0) + kx − i0). */
+  readonly block: Float64Array;
+  /** Its part of the y transform's scratch. */
+  readonly scratch: Float64Array;
+  /** The y transform over its columns of both fields. */
+  readonly fft: BatchFFT;
+}
+
+/**
+ * Rows y0..y1 − 1 of the work grid, stored together (x-major among themselves) so that the thread
+ * that transforms them touches one contiguous stretch of memory: threads whose shares interleave
+ * within a few kilobytes slow each other down several times over (docs/threads.md).
+ */
+export interface RowSlab {
+  readonly y0: number;
+  readonly y1: number;
+  /** The slab's part of the work grid: (x, y) at 2·(x·(y1 − y0) + y − y0). */
+  readonly work: Float64Array;
+  /** Its part of the x transform's scratch. */
+  readonly scratch: Float64Array;
+  /** The x transform over its rows. */
+  readonly fft: BatchFFT;
+}
 
 /**
  * Real 2D transforms between grid fields and the half-plane layout of `grid.ts`, two fields at a time.
@@ -24,6 +56,45 @@ import type { Grid } from './grid';
  * of grid rows y (`inverseXRows`, `forwardXRows`); the arrays they write are `alloc`ated, so that
  * they can live in shared memory.
  */
+/** Where the rows of an nx × ny work grid cut into `slabs` row slabs go (see RowSlab). */
+export interface RowSlabLayout {
+  /** Slab j holds rows bounds[j]..bounds[j + 1] − 1 (shares of ROW_UNIT rows, stepTeam.ts). */
+  readonly bounds: Int32Array;
+  /** Point (x, y) is at rowOffset[y] + x·rowStride[y]: one slab gives 2y + 2x·ny. */
+  readonly rowOffset: Int32Array;
+  readonly rowStride: Int32Array;
+}
+
+export function rowSlabLayout(nx: number, ny: number, slabs: number): RowSlabLayout {
+  const bounds = new Int32Array(slabs + 1);
+  for (let j = 0; j <= slabs; j++) bounds[j] = shareBound(ny, j, slabs, ROW_UNIT);
+  const rowOffset = new Int32Array(ny);
+  const rowStride = new Int32Array(ny);
+  for (let j = 0; j < slabs; j++) {
+    for (let y = bounds[j]; y < bounds[j + 1]; y++) {
+      rowOffset[y] = 2 * nx * bounds[j] + 2 * (y - bounds[j]);
+      rowStride[y] = 2 * (bounds[j + 1] - bounds[j]);
+    }
+  }
+  return { bounds, rowOffset, rowStride };
+}
+
+/** Where the columns of a block cut into these slabs live (ColumnSlabLayout, fusedStages.ts). */
+export function columnSlabLayout(nx: number, ny: number, columns: readonly ColumnSlab[]): ColumnSlabLayout {
+  const offset = new Int32Array(nx);
+  const stride = new Int32Array(nx);
+  const bOffset = new Int32Array(nx);
+  for (const { i0, i1 } of columns) {
+    const width = i1 - i0;
+    for (let k = i0; k < i1; k++) {
+      offset[k] = 2 * ny * 2 * i0 + 2 * (k - i0);
+      stride[k] = 4 * width;
+      bOffset[k] = 2 * width;
+    }
+  }
+  return { offset, stride, bOffset };
+}
+
 export class RealTransform2D {
   readonly grid: Grid;
   readonly pruned: boolean;
@@ -33,13 +104,32 @@ export class RealTransform2D {
   readonly rows: Int32Array;
   /** Packed block, row y: columns 0..top of field a, then of field b (complex). */
   readonly block: Float64Array;
-  /** Complex work grid, x-major: (x, y) at 2·(x·ny + y). */
+  /**
+   * Complex work grid, x-major: (x, y) at 2·(x·ny + y); with several row slabs, slab after slab, each
+   * x-major over its own rows (`slabs`, and `rowOffset`/`rowStride` for where a point is).
+   */
   readonly work: Float64Array;
+  /** The block's column slabs (one, the whole block, unless built for threads). */
+  readonly columns: readonly ColumnSlab[];
+  /** Where each column of the block lives (lastStageToBlock); null for one slab. */
+  readonly columnLayout: ColumnSlabLayout | null;
+  /** The work grid's row slabs (one, the whole grid, unless built for threads). */
+  readonly slabs: readonly RowSlab[];
+  /** Point (x, y) of the work grid is at rowOffset[y] + x·rowStride[y]. */
+  readonly rowOffset: Int32Array;
+  readonly rowStride: Int32Array;
   private readonly yFFT: BatchFFT;
   private readonly xFFT: BatchFFT;
   private readonly rowIsData: Uint8Array;
 
-  constructor(grid: Grid, pruned: boolean, alloc: Float64Alloc = plainFloat64) {
+  /**
+   * `slabCount` > 1 cuts the block into that many column slabs and the work grid into as many row
+   * slabs (one of each per thread of a step's team); only the stepper's slab passes
+   * (`inverseYSlab`, `inverseXSlab`, `forwardXSlab`, `forwardYSlab`) may then be used, as the other
+   * calls assume one slab.
+   */
+  constructor(grid: Grid, pruned: boolean, alloc: Float64Alloc = plainFloat64, slabCount = 1) {
+    const rowSlabs = slabCount;
     this.grid = grid;
     this.pruned = pruned;
     this.top = pruned ? grid.Kx : grid.nkx - 1;
@@ -56,6 +146,62 @@ export class RealTransform2D {
     this.xFFT = new BatchFFT(grid.nx, grid.ny, alloc);
     this.block = alloc(2 * grid.ny * cols);
     this.work = alloc(2 * grid.size);
+    const { nx, ny } = grid;
+    const layout = rowSlabLayout(nx, ny, rowSlabs);
+    this.rowOffset = layout.rowOffset;
+    this.rowStride = layout.rowStride;
+    const slabs: RowSlab[] = [];
+    for (let j = 0; j < rowSlabs; j++) {
+      const y0 = layout.bounds[j];
+      const y1 = layout.bounds[j + 1];
+      const from = 2 * nx * y0;
+      const to = 2 * nx * y1;
+      const scratch = this.xFFT.work.subarray(from, to);
+      // The slab's transform works in the slab's part of the scratch (no memory of its own).
+      const fft = rowSlabs === 1 ? this.xFFT : new BatchFFT(nx, y1 - y0, () => scratch);
+      slabs.push({ y0, y1, work: this.work.subarray(from, to), scratch, fft });
+    }
+    this.slabs = slabs;
+    const columns: ColumnSlab[] = [];
+    const half = this.top + 1;
+    for (let k = 0; k < slabCount; k++) {
+      const i0 = slabCount === 1 ? 0 : shareBound(half, k, slabCount, COLUMN_UNIT);
+      const i1 = slabCount === 1 ? half : shareBound(half, k + 1, slabCount, COLUMN_UNIT);
+      const from = 2 * ny * 2 * i0;
+      const to = 2 * ny * 2 * i1;
+      const scratch = this.yFFT.work.subarray(from, to);
+      const fft = slabCount === 1 ? this.yFFT : new BatchFFT(ny, 2 * (i1 - i0), () => scratch);
+      columns.push({ i0, i1, block: this.block.subarray(from, to), scratch, fft });
+    }
+    this.columns = columns;
+    this.columnLayout = slabCount === 1 ? null : columnSlabLayout(nx, ny, columns);
+  }
+
+  /** Whether the transform is cut into slabs (and only the slab passes may be used). */
+  get cut(): boolean {
+    return this.columns.length > 1;
+  }
+
+  /**
+   * The y side of the inverse on column slab k, whose block part holds the y transform's first
+   * stage (written by the caller: fusedStages.ts, velocitiesFirstStageY with the slab's origin and
+   * width): the middle stages, and the last one onto the work grid (with that share of the zero
+   * columns).
+   */
+  inverseYSlab(k: number): void {
+    const { nx, ny } = this.grid;
+    const c = this.columns[k];
+    const Y = c.fft.transformButFirstAndLast(c.block, 1, c.scratch);
+    lastStageToWorkGrid(Y, this.work, this.rowOffset, this.rowStride, nx, ny, this.top, c.i0, c.i1, c.i0, c.i1 - c.i0);
+  }
+
+  /**
+   * The forward y transform but its last stage on column slab k (after `forwardXSlab` of every row
+   * slab); returns the slab's array holding it (read with the slab's origin and width).
+   */
+  forwardYSlab(k: number): Float64Array {
+    const c = this.columns[k];
+    return c.fft.transformButLast(c.block, -1, c.scratch);
   }
 
   /**
@@ -99,9 +245,20 @@ export class RealTransform2D {
    * zero columns). The caller wrote those columns' first stage into the block.
    */
   inverseYColumns(kx0: number, kx1: number): void {
+    this.oneSlab();
     const { nx, ny } = this.grid;
     // The y transform's last stage writes Z = A + iB, and Z(−kx), straight onto the x-major grid.
-    lastStageToWorkGrid(this.yColumns(this.block, 1, true, kx0, kx1), this.work, nx, ny, this.top, kx0, kx1);
+    lastStageToWorkGrid(
+      this.yColumns(this.block, 1, true, kx0, kx1),
+      this.work,
+      this.rowOffset,
+      this.rowStride,
+      nx,
+      ny,
+      this.top,
+      kx0,
+      kx1,
+    );
   }
 
   /**
@@ -109,12 +266,36 @@ export class RealTransform2D {
    * grid; returns the array holding it (the same whatever the rows).
    */
   inverseXRows(y0: number, y1: number): Float64Array {
+    this.oneSlab();
     return this.xFFT.transformButLast(this.work, 1, this.xFFT.work, y0, y1);
   }
 
-  private finishInverseButLast(ySpectra: Float64Array): Float64Array {
+  /**
+   * The backward x transform but its last stage on row slab j (after `inverseYColumns` of every
+   * column); returns the slab's array holding it (its `work` or its `scratch`).
+   */
+  inverseXSlab(j: number): Float64Array {
+    const slab = this.slabs[j];
+    return slab.fft.transformButLast(slab.work, 1, slab.scratch);
+  }
+
+  /**
+   * The forward x transform of row slab j, whose points are in `grid` (the slab's `work` or
+   * `scratch`), finished into those rows of the block.
+   */
+  forwardXSlab(j: number, grid: Float64Array): void {
     const { nx, ny } = this.grid;
-    lastStageToWorkGrid(ySpectra, this.work, nx, ny, this.top);
+    const slab = this.slabs[j];
+    const other = grid === slab.work ? slab.scratch : slab.work;
+    const rows = slab.y1 - slab.y0;
+    const X = slab.fft.transformButLast(grid, -1, other);
+    lastStageToBlock(X, this.block, nx, ny, this.top, slab.y0, slab.y1, rows, slab.y0, this.columnLayout);
+  }
+
+  private finishInverseButLast(ySpectra: Float64Array): Float64Array {
+    this.oneSlab();
+    const { nx, ny } = this.grid;
+    lastStageToWorkGrid(ySpectra, this.work, this.rowOffset, this.rowStride, nx, ny, this.top);
     return this.xFFT.transformButLast(this.work, 1);
   }
 
@@ -166,6 +347,7 @@ export class RealTransform2D {
    * rows of `grid`, finished into those rows of the block.
    */
   forwardXRows(grid: Float64Array, y0: number, y1: number): void {
+    this.oneSlab();
     const { nx, ny } = this.grid;
     const scratch = grid === this.work ? this.xFFT.work : this.work;
     // The x transform's last stage writes the half-line spectra of a and b straight into the block.
@@ -177,6 +359,7 @@ export class RealTransform2D {
    * fields of the block; returns the array holding it (the same whatever the columns).
    */
   forwardYColumns(kx0: number, kx1: number): Float64Array {
+    this.oneSlab();
     return this.yColumns(this.block, -1, false, kx0, kx1);
   }
 
@@ -214,6 +397,7 @@ export class RealTransform2D {
    * rows and columns get their values, everything else zero, Hermitian columns exact.
    */
   unpackBlock(R: Float64Array, aHat: Float64Array, bHat: Float64Array | null): void {
+    this.oneSlab();
     const nkx = this.grid.nkx;
     const n = 2 * (this.top + 1); // doubles per field in a block row
     const scale = 1 / this.grid.size;
@@ -235,6 +419,7 @@ export class RealTransform2D {
 
   /** Copy the rows that carry data of two spectra (or one and zeros) into the block. */
   private packSpectra(aHat: Float64Array, bHat: Float64Array | null): void {
+    this.oneSlab();
     const nkx = this.grid.nkx;
     const n = 2 * (this.top + 1);
     const block = this.block;
@@ -248,8 +433,14 @@ export class RealTransform2D {
     }
   }
 
+  /** The whole-grid x calls read the work grid as one slab. */
+  private oneSlab(): void {
+    if (this.cut) throw new Error('RealTransform2D: a whole-grid call on a transform cut into slabs');
+  }
+
   /** Row-major grid fields a + i·b (b null: zero) into the x-major complex work grid. */
   private packWork(a: Float64Array, b: Float64Array | null): void {
+    this.oneSlab();
     const { nx, ny } = this.grid;
     const W = this.work;
     for (let x = 0; x < nx; x++) {

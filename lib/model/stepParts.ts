@@ -19,7 +19,10 @@ export interface StepParts {
   lin: LinearOperator | null;
   /** Two layers: the coupled linear operator; null in one layer. */
   lin2: TwoLayerLinearOperator | null;
-  /** One layer: the step's transform (its arrays are the nonlinear term's work space); null with two. */
+  /**
+   * One layer on one thread: the step's transform (its arrays are the nonlinear term's work space);
+   * null with two layers, or when the step is built for threads.
+   */
   transform: RealTransform2D | null;
 }
 
@@ -29,7 +32,13 @@ export interface StepParts {
  * the Model's shared arena (sharedArena.ts) gets the same arrays. The forcing is normalised on 1/K²
  * in one layer and on the barotropic 1/k² with two (it forces both layers alike).
  */
-export function buildStepParts(grid: Grid, p: ModelParams, rng: RandomStream, alloc: Float64Alloc): StepParts {
+export function buildStepParts(
+  grid: Grid,
+  p: ModelParams,
+  rng: RandomStream,
+  alloc: Float64Alloc,
+  threads = 1,
+): StepParts {
   if (p.layers === 2) {
     const lin2 = new TwoLayerLinearOperator(grid, p, alloc);
     const forcing = new Forcing(grid, p, { invK2: lin2.invK2Barotropic });
@@ -39,8 +48,10 @@ export function buildStepParts(grid: Grid, p: ModelParams, rng: RandomStream, al
   }
   const lin = new LinearOperator(grid, p, alloc);
   const forcing = new Forcing(grid, p, lin);
-  const transform = new RealTransform2D(grid, true, alloc);
+  // One row slab per thread (realTransform2D.ts): each thread's rows of the work grid in one stretch.
+  const transform = new RealTransform2D(grid, true, alloc, threads);
   const nl = new NonlinearTerm(grid, lin, transform);
   const stepper = new Stepper(grid, p, lin, nl, forcing, rng, alloc);
-  return { stepper, forcing, lin, lin2: null, transform };
+  // A transform cut into slabs serves the step alone; the model's other verbs then build their own.
+  return { stepper, forcing, lin, lin2: null, transform: threads === 1 ? transform : null };
 }

@@ -49,6 +49,10 @@ export const SMALL_GRID_POINTS = 128 * 128;
  */
 export const DEFAULT_THREADS_MIN_POINTS = 512 * 512;
 
+/** Shares of kx columns and of grid rows are cut at multiples of these (`shareBound`). */
+export const COLUMN_UNIT = 4;
+export const ROW_UNIT = 4;
+
 /** Most threads a step takes (the per-member slots of the speed maxima are sized for it). */
 export const MAX_THREADS = 64;
 
@@ -61,4 +65,15 @@ export function shareBound(n: number, k: number, parts: number, unit: number): n
   if (k >= parts) return n;
   const units = Math.ceil(n / unit);
   return Math.min(n, unit * Math.floor((units * k) / parts));
+}
+
+/**
+ * The slabs member `member` of `members` runs when a step is cut into `slabs` fixed slabs (one per
+ * thread it was built for, realTransform2D.ts): slabs first..end − 1, into `out`. With as many
+ * members as slabs, one each; with fewer (a team that lost its helpers), the calling thread takes
+ * them all, so the work, and the bits, stay the same.
+ */
+export function slabRange(member: number, members: number, slabs: number, out: Int32Array): void {
+  out[0] = Math.floor((slabs * member) / members);
+  out[1] = Math.floor((slabs * (member + 1)) / members);
 }

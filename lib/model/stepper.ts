@@ -6,7 +6,7 @@ import type { NonlinearTerm } from './nonlinearTerm';
 import type { ModelParams } from './params';
 import type { RandomStream } from './randomStream';
 import { plainFloat64, type Float64Alloc } from './sharedArena';
-import { MAX_THREADS, shareBound, SoloTeam, type PhasedStep, type StepTeam } from './stepTeam';
+import { MAX_THREADS, slabRange, SoloTeam, type PhasedStep, type StepTeam } from './stepTeam';
 
 /**
  * Above this CFL number, dt·(max|u|/dx + max|v|/dy), the step is refused: RK4 is stable for
@@ -40,10 +40,6 @@ const STAGE_2 = 4;
 const STAGE_3 = 5;
 const STAGE_4 = 6;
 const COMBINE = 7;
-
-/** Shares of kx columns and of grid rows are cut at multiples of these (stepTeam.ts, shareBound). */
-export const COLUMN_UNIT = 4;
-export const ROW_UNIT = 4;
 
 /**
  * Integrating-factor RK4 (the linear terms, waves and damping, are integrated exactly):
@@ -82,8 +78,10 @@ export class Stepper implements PhasedStep {
   private readonly w: Float64Array;
   /** What the calling thread tells the others for a phase: dt, and 1 when the propagators change. */
   private readonly args: Float64Array;
-  /** max|u|, max|v| of each member's rows in the last `products` pass. */
+  /** max|u|, max|v| of each row slab in the last `products` pass. */
   private readonly speeds: Float64Array;
+  /** The slabs a member runs (slabRange); each thread builds its own Stepper, so its own. */
+  private readonly slabsOfMember = new Int32Array(2);
   private readonly kick = new Float64Array(2);
 
   constructor(
@@ -135,9 +133,9 @@ export class Stepper implements PhasedStep {
     // The largest speeds of the members' rows: a maximum is exact, so any grouping gives the same.
     let maxU = 0;
     let maxV = 0;
-    for (let m = 0; m < team.members; m++) {
-      maxU = Math.max(maxU, this.speeds[2 * m]);
-      maxV = Math.max(maxV, this.speeds[2 * m + 1]);
+    for (let j = 0; j < this.nl.transform.slabs.length; j++) {
+      maxU = Math.max(maxU, this.speeds[2 * j]);
+      maxV = Math.max(maxV, this.speeds[2 * j + 1]);
     }
     this.nl.maxU = maxU;
     this.nl.maxV = maxV;
@@ -194,42 +192,47 @@ export class Stepper implements PhasedStep {
     return r;
   }
 
-  /** One member's share of a phase of `step` (stepTeam.ts): its kx columns, or its grid rows. */
+  /**
+   * One member's share of a phase of `step` (stepTeam.ts): the column slabs or the row slabs of the
+   * transform (realTransform2D.ts) that are its own (slabRange).
+   */
   runPhase(phase: number, member: number, members: number): void {
-    const { Kx, ny } = this.grid;
-    const nl = this.nl;
-    if (phase === PRODUCTS) {
-      const y0 = shareBound(ny, member, members, ROW_UNIT);
-      const y1 = shareBound(ny, member + 1, members, ROW_UNIT);
-      nl.products(y0, y1, this.speeds, 2 * member);
-      return;
+    const xf = this.nl.transform;
+    const mine = this.slabsOfMember;
+    slabRange(member, members, xf.columns.length, mine);
+    for (let k = mine[0]; k < mine[1]; k++) {
+      if (phase === PRODUCTS) this.nl.products(k, this.speeds, 2 * k);
+      else this.runColumnPhase(phase, k, xf.columns[k].i0, xf.columns[k].i1);
     }
-    const i0 = shareBound(Kx + 1, member, members, COLUMN_UNIT);
-    const i1 = shareBound(Kx + 1, member + 1, members, COLUMN_UNIT);
+  }
+
+  /** A phase on kx columns: column slab k, columns i0..i1 − 1. */
+  private runColumnPhase(phase: number, k: number, i0: number, i1: number): void {
+    const nl = this.nl;
     switch (phase) {
       case GRID_Q:
-        nl.toGrid(this.qHat, i0, i1);
+        nl.toGrid(this.qHat, k);
         return;
       case TENDENCY_A:
-        nl.tendency(this.a, i0, i1);
+        nl.tendency(this.a, k);
         return;
       case STAGE_2:
         if (this.args[1] === 1) this.lin.setStepColumns(this.args[0], i0, i1);
         this.stage2(i0, i1);
-        nl.toGrid(this.w, i0, i1);
+        nl.toGrid(this.w, k);
         return;
       case STAGE_3:
-        this.tendency(this.b, i0, i1);
+        this.tendency(this.b, k, i0, i1);
         this.stage3(i0, i1);
-        nl.toGrid(this.w, i0, i1);
+        nl.toGrid(this.w, k);
         return;
       case STAGE_4:
-        this.tendency(this.c, i0, i1);
+        this.tendency(this.c, k, i0, i1);
         this.stage4(i0, i1);
-        nl.toGrid(this.w, i0, i1);
+        nl.toGrid(this.w, k);
         return;
       case COMBINE:
-        this.tendency(this.d, i0, i1);
+        this.tendency(this.d, k, i0, i1);
         this.combine(i0, i1);
         return;
       default:
@@ -237,9 +240,9 @@ export class Stepper implements PhasedStep {
     }
   }
 
-  /** N = −J + F_steady on columns i0..i1 − 1 of out, the last pass of an evaluation. */
-  private tendency(out: Float64Array, i0: number, i1: number): void {
-    this.nl.tendency(out, i0, i1);
+  /** N = −J + F_steady on column slab k (columns i0..i1 − 1) of out, the last pass of an evaluation. */
+  private tendency(out: Float64Array, k: number, i0: number, i1: number): void {
+    this.nl.tendency(out, k);
     if (this.forcing.kind !== 'steady') return;
     const f = this.forcing.steady;
     const { keptRows, nkx } = this.grid;

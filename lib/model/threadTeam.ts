@@ -41,7 +41,7 @@ const CALLER_ASLEEP = 6; // 1 while the calling thread waits in Atomics.wait
 const CONTROL_SLOTS = 8;
 
 /** Loads of a flag before a thread goes to sleep on it: phases are tens of microseconds apart. */
-const SPINS = 20000;
+const SPINS = 200000;
 /** How long the calling thread waits for helpers that make no progress before it gives up (ms). */
 const STALL_MS = 120_000;
 
@@ -216,7 +216,7 @@ export function joinStepTeam(invitation: TeamInvitation): void {
   let step: PhasedStep;
   try {
     const grid = new Grid(params);
-    step = buildStepParts(grid, params, new RandomStream(params.seed), replayArena(buffers)).stepper;
+    step = buildStepParts(grid, params, new RandomStream(params.seed), replayArena(buffers), members).stepper;
   } catch (e) {
     fail(ctl, READY);
     throw e;

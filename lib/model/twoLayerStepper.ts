@@ -3,12 +3,12 @@ import type { Forcing } from './forcing';
 import type { Grid } from './grid';
 import type { ModelParams } from './params';
 import type { RandomStream } from './randomStream';
-import { adaptiveStep, BlowUpError, CFL_LIMIT, COLUMN_UNIT, MIN_STEP_FRACTION, ROW_UNIT } from './stepper';
+import { adaptiveStep, BlowUpError, CFL_LIMIT, MIN_STEP_FRACTION } from './stepper';
 import { twoLayerStartBudget } from './twoLayerBudget';
 import type { TwoLayerLinearOperator } from './twoLayerLinear';
 import type { TwoLayerNonlinearTerm } from './twoLayerNonlinear';
 import { plainFloat64, type Float64Alloc } from './sharedArena';
-import { MAX_THREADS, shareBound, SoloTeam, type PhasedStep, type StepTeam } from './stepTeam';
+import { COLUMN_UNIT, MAX_THREADS, ROW_UNIT, shareBound, SoloTeam, type PhasedStep, type StepTeam } from './stepTeam';
 
 /** The two layers of a buffer. */
 type Layers = readonly [Float64Array, Float64Array];

@@ -8,6 +8,7 @@ import {
   velocitiesFirstStageY,
 } from '../../lib/model/fusedStages';
 import { Grid } from '../../lib/model/grid';
+import { rowSlabLayout } from '../../lib/model/realTransform2D';
 import { randomArray } from '../support/random';
 
 // Reference: the unfused route, BatchFFT's own last stage followed by the pass written out plainly.
@@ -26,7 +27,8 @@ describe('fused last stages equal the last stage followed by the pass, bit for b
       const cols = 2 * (top + 1);
       const src = randomArray(2 * ny * cols, nx + ny + top);
       const W = randomArray(2 * nx * ny, 1); // stale values must all be overwritten
-      lastStageToWorkGrid(src, W, nx, ny, top);
+      const one = rowSlabLayout(nx, ny, 1);
+      lastStageToWorkGrid(src, W, one.rowOffset, one.rowStride, nx, ny, top);
       const R = src.slice();
       lastStageInPlace(R, 2 * (ny / 4) * cols, 1);
       const ref = new Float64Array(2 * nx * ny);
@@ -45,6 +47,20 @@ describe('fused last stages equal the last stage followed by the pass, bit for b
         }
       }
       expect(Array.from(W)).toEqual(Array.from(ref));
+      // Cut into row slabs (one per thread), every point lands where the layout says, with the same bits.
+      for (const slabs of [2, 3]) {
+        const layout = rowSlabLayout(nx, ny, slabs);
+        const S = randomArray(2 * nx * ny, slabs);
+        lastStageToWorkGrid(src, S, layout.rowOffset, layout.rowStride, nx, ny, top);
+        const moved = new Float64Array(2 * nx * ny);
+        for (let x = 0; x < nx; x++)
+          for (let y = 0; y < ny; y++) {
+            const at = layout.rowOffset[y] + x * layout.rowStride[y];
+            moved[2 * (x * ny + y)] = S[at];
+            moved[2 * (x * ny + y) + 1] = S[at + 1];
+          }
+        expect(Array.from(moved)).toEqual(Array.from(ref));
+      }
     });
 
     it(`work grid → block at ${nx}×${ny}, columns 0..${top}`, () => {
@@ -71,6 +87,23 @@ describe('fused last stages equal the last stage followed by the pass, bit for b
         }
       }
       expect(Array.from(block)).toEqual(Array.from(ref));
+      // From row slabs (one per thread), each x-major over its own rows: the same block, bit for bit.
+      for (const slabs of [2, 3]) {
+        const { bounds } = rowSlabLayout(nx, ny, slabs);
+        const cut = new Float64Array(2 * ny * cols);
+        for (let j = 0; j < slabs; j++) {
+          const y0 = bounds[j];
+          const rows = bounds[j + 1] - y0;
+          const part = new Float64Array(2 * nx * rows);
+          for (let x = 0; x < nx; x++)
+            for (let y = 0; y < rows; y++) {
+              part[2 * (x * rows + y)] = src[2 * (x * ny + y0 + y)];
+              part[2 * (x * rows + y) + 1] = src[2 * (x * ny + y0 + y) + 1];
+            }
+          lastStageToBlock(part, cut, nx, ny, top, y0, y0 + rows, rows, y0);
+        }
+        expect(Array.from(cut)).toEqual(Array.from(ref));
+      }
     });
   }
 
