@@ -400,8 +400,10 @@ export function lastStageToTendency(
   ix1 = grid.Kx + 1,
   origin = 0,
   half = grid.Kx + 1,
+  outAt = 0,
+  outStride = grid.nkx,
 ): void {
-  const { ny, nkx, Ky, kx, ky } = grid;
+  const { ny, Ky, kx, ky } = grid;
   const cols = 2 * half;
   const bOff = 2 * half;
   const s = ny >> 2;
@@ -422,10 +424,10 @@ export function lastStageToTendency(
       ky1 = ky[j1],
       ky2 = ky[j2],
       ky3 = ky[j3];
-    const o0 = 2 * j0 * nkx,
-      o1 = 2 * j1 * nkx,
-      o2 = 2 * j2 * nkx,
-      o3 = 2 * j3 * nkx;
+    const o0 = outAt + 2 * j0 * outStride,
+      o1 = outAt + 2 * j1 * outStride,
+      o2 = outAt + 2 * j2 * outStride,
+      o3 = outAt + 2 * j3 * outStride;
     const row = 2 * r * cols;
     for (let ix = ix0; ix < ix1; ix++) {
       const ia = row + 2 * (ix - origin);
@@ -511,6 +513,8 @@ export function velocitiesFirstStageY(
   ix1 = grid.Kx + 1,
   origin = 0,
   half = grid.Kx + 1,
+  qAt = 0,
+  qStride = grid.nkx,
 ): void {
   const { ny, nkx, Ky, kx, ky } = grid;
   const cols = 2 * half;
@@ -536,6 +540,11 @@ export function velocitiesFirstStageY(
       m1 = y1 * nkx,
       m2 = y2 * nkx,
       m3 = y3 * nkx;
+    // Where row y_j of q̂ starts (q̂ may be kept in slabs: modeSlabs.ts).
+    const r0 = qAt + 2 * y0 * qStride,
+      r1 = qAt + 2 * y1 * qStride,
+      r2 = qAt + 2 * y2 * qStride,
+      r3 = qAt + 2 * y3 * qStride;
     // Twiddles, backward sign: radix 4 X1, X2, X3 by w^p, w^2p, w^3p (none at p = 0, as BatchFFT);
     // radix 2 X1 by w^p (always multiplied, as BatchFFT).
     const c1 = cosT[p],
@@ -555,8 +564,8 @@ export function velocitiesFirstStageY(
         b0i = 0;
       if (keep0 && (ix > 0 || y0 > 0)) {
         const m = m0 + ix;
-        const pr = -qHat[2 * m] * invK2[m];
-        const pi = -qHat[2 * m + 1] * invK2[m];
+        const pr = -qHat[r0 + 2 * ix] * invK2[m];
+        const pi = -qHat[r0 + 2 * ix + 1] * invK2[m];
         a0r = ky0 * pi;
         a0i = -ky0 * pr;
         b0r = -kxv * pi;
@@ -568,8 +577,8 @@ export function velocitiesFirstStageY(
         b1i = 0;
       if (keep1) {
         const m = m1 + ix;
-        const pr = -qHat[2 * m] * invK2[m];
-        const pi = -qHat[2 * m + 1] * invK2[m];
+        const pr = -qHat[r1 + 2 * ix] * invK2[m];
+        const pi = -qHat[r1 + 2 * ix + 1] * invK2[m];
         a1r = ky1 * pi;
         a1i = -ky1 * pr;
         b1r = -kxv * pi;
@@ -598,8 +607,8 @@ export function velocitiesFirstStageY(
         b2i = 0;
       if (keep2) {
         const m = m2 + ix;
-        const pr = -qHat[2 * m] * invK2[m];
-        const pi = -qHat[2 * m + 1] * invK2[m];
+        const pr = -qHat[r2 + 2 * ix] * invK2[m];
+        const pi = -qHat[r2 + 2 * ix + 1] * invK2[m];
         a2r = ky2 * pi;
         a2i = -ky2 * pr;
         b2r = -kxv * pi;
@@ -611,8 +620,8 @@ export function velocitiesFirstStageY(
         b3i = 0;
       if (keep3) {
         const m = m3 + ix;
-        const pr = -qHat[2 * m] * invK2[m];
-        const pi = -qHat[2 * m + 1] * invK2[m];
+        const pr = -qHat[r3 + 2 * ix] * invK2[m];
+        const pi = -qHat[r3 + 2 * ix + 1] * invK2[m];
         a3r = ky3 * pi;
         a3i = -ky3 * pr;
         b3r = -kxv * pi;

@@ -1,6 +1,7 @@
 import { lastStageProducts, lastStageToTendency, velocitiesFirstStageY } from './fusedStages';
 import type { Grid } from './grid';
 import type { LinearOperator } from './linearOperator';
+import type { ModeSlabs } from './modeSlabs';
 import type { RealTransform2D } from './realTransform2D';
 
 /**
@@ -68,24 +69,31 @@ export class NonlinearTerm {
   /**
    * Pass 1, on the transform's column slab k (its kx columns i0..i1 − 1): the velocities
    * ψ̂ = −q̂/K², û = −i ky ψ̂, v̂ = i kx ψ̂ of those columns of q̂ go straight into the y transform's
-   * first stage, and through the rest of it onto the work grid.
+   * first stage, and through the rest of it onto the work grid. q̂ in the ordinary layout, or in
+   * `layout`'s slabs (modeSlabs.ts).
    */
-  toGrid(qHat: Float64Array, k: number): void {
+  toGrid(qHat: Float64Array, k: number, layout: ModeSlabs | null = null): void {
     const xf = this.transform;
     const c = xf.columns[k];
-    const y = c.fft;
+    const { firstRadix, cosT, sinT } = c.fft;
+    const { grid } = this;
+    const at = layout ? layout.origin[k] : 0;
+    const stride = layout ? layout.stride[k] : grid.nkx;
+    const width = c.i1 - c.i0;
     velocitiesFirstStageY(
       qHat,
       this.lin.invK2,
-      this.grid,
-      y.firstRadix,
-      y.cosT,
-      y.sinT,
+      grid,
+      firstRadix,
+      cosT,
+      sinT,
       c.block,
       c.i0,
       c.i1,
       c.i0,
-      c.i1 - c.i0,
+      width,
+      at,
+      stride,
     );
     xf.inverseYSlab(k);
   }
@@ -106,18 +114,22 @@ export class NonlinearTerm {
   /**
    * Pass 3, on column slab k (kx columns i0..i1 − 1): the y transform's last stage forms
    * −Ĵ = (kx² − ky²)·(uv)^ + kx·ky·(v² − u²)^ on those columns of the kept modes; the slab holding
-   * column 0 also zeroes the mean and makes that column exactly Hermitian.
+   * column 0 also zeroes the mean and makes that column exactly Hermitian. `out` in the ordinary
+   * layout, or in `layout`'s slabs (modeSlabs.ts).
    */
-  tendency(out: Float64Array, k: number): void {
+  tendency(out: Float64Array, k: number, layout: ModeSlabs | null = null): void {
     const { nkx, ny, size } = this.grid;
     const c = this.transform.columns[k];
-    lastStageToTendency(this.transform.forwardYSlab(k), out, this.grid, 1 / size, c.i0, c.i1, c.i0, c.i1 - c.i0);
+    const at = layout ? layout.origin[k] : 0;
+    const stride = layout ? layout.stride[k] : nkx;
+    const Y = this.transform.forwardYSlab(k);
+    lastStageToTendency(Y, out, this.grid, 1 / size, c.i0, c.i1, c.i0, c.i1 - c.i0, at, stride);
     if (!(c.i0 === 0 && c.i1 > 0)) return;
-    out[0] = out[1] = 0;
+    out[at] = out[at + 1] = 0;
     // Exact Hermitian symmetry of the kx = 0 column (round-off differs between ±ky otherwise).
     for (let jy = 1; jy <= this.grid.Ky; jy++) {
-      const p = 2 * jy * nkx;
-      const n = 2 * (ny - jy) * nkx;
+      const p = at + 2 * jy * stride;
+      const n = at + 2 * (ny - jy) * stride;
       const re = 0.5 * (out[p] + out[n]);
       const im = 0.5 * (out[p + 1] - out[n + 1]);
       out[p] = re;

@@ -2,6 +2,7 @@ import { closeReport, emptyReport, type QuadraticBudget, type StepReport } from 
 import type { Forcing } from './forcing';
 import type { Grid } from './grid';
 import type { LinearOperator } from './linearOperator';
+import { ModeSlabs } from './modeSlabs';
 import type { NonlinearTerm } from './nonlinearTerm';
 import type { ModelParams } from './params';
 import type { RandomStream } from './randomStream';
@@ -71,6 +72,8 @@ export class Stepper implements PhasedStep {
   private readonly dtMax: number;
   private readonly cfl: number;
   private readonly rng: RandomStream;
+  /** Where the stage spectra a, b, c, d, w keep their modes (modeSlabs.ts: by column slab). */
+  private readonly modes: ModeSlabs;
   private readonly a: Float64Array;
   private readonly b: Float64Array;
   private readonly c: Float64Array;
@@ -109,6 +112,7 @@ export class Stepper implements PhasedStep {
     this.c = alloc(ns);
     this.d = alloc(ns);
     this.w = alloc(ns);
+    this.modes = new ModeSlabs(grid, nl.transform.columns);
     this.args = alloc(2);
     this.speeds = alloc(2 * MAX_THREADS);
   }
@@ -169,23 +173,26 @@ export class Stepper implements PhasedStep {
     team.run(COMBINE);
     // The energy and enstrophy of the new state w, mode by mode in storage order.
     const invK2 = lin.invK2;
+    const { at, rowStep } = this.modes;
     let eNew = 0;
     let zNew = 0;
     for (let k = 0; k < keptRows.length; k++) {
-      const row = keptRows[k] * nkx;
+      const ky = keptRows[k];
+      const row = ky * nkx;
       for (let ix = 0; ix <= Kx; ix++) {
         const m = row + ix;
-        const nr = w[2 * m];
-        const ni = w[2 * m + 1];
+        const sm = at[ix] + ky * rowStep[ix];
+        const nr = w[sm];
+        const ni = w[sm + 1];
         const sq = (ix === 0 ? 0.5 : 1) * (nr * nr + ni * ni);
         eNew += sq * invK2[m];
         zNew += sq;
       }
     }
     if (!Number.isFinite(eNew + zNew)) throw new BlowUpError('non-finite state', r);
+    this.modes.toPlain(w, q, this.grid);
     this.kick[0] = this.kick[1] = 0;
-    if (this.forcing.kind === 'stochastic') this.forcing.kick(w, dt, this.rng, this.kick);
-    q.set(w);
+    if (this.forcing.kind === 'stochastic') this.forcing.kick(q, dt, this.rng, this.kick);
     this.time += dt;
     this.steps += 1;
     closeReport(r, this.time, this.steps, eNew, zNew, this.kick, dt);
@@ -214,26 +221,26 @@ export class Stepper implements PhasedStep {
         nl.toGrid(this.qHat, k);
         return;
       case TENDENCY_A:
-        nl.tendency(this.a, k);
+        nl.tendency(this.a, k, this.modes);
         return;
       case STAGE_2:
         if (this.args[1] === 1) this.lin.setStepColumns(this.args[0], i0, i1);
-        this.stage2(i0, i1);
-        nl.toGrid(this.w, k);
+        this.stage2(k, i0, i1);
+        nl.toGrid(this.w, k, this.modes);
         return;
       case STAGE_3:
         this.tendency(this.b, k, i0, i1);
-        this.stage3(i0, i1);
-        nl.toGrid(this.w, k);
+        this.stage3(k, i0, i1);
+        nl.toGrid(this.w, k, this.modes);
         return;
       case STAGE_4:
         this.tendency(this.c, k, i0, i1);
-        this.stage4(i0, i1);
-        nl.toGrid(this.w, k);
+        this.stage4(k, i0, i1);
+        nl.toGrid(this.w, k, this.modes);
         return;
       case COMBINE:
         this.tendency(this.d, k, i0, i1);
-        this.combine(i0, i1);
+        this.combine(k, i0, i1);
         return;
       default:
         throw new RangeError(`Stepper: no phase ${phase}`);
@@ -242,87 +249,102 @@ export class Stepper implements PhasedStep {
 
   /** N = −J + F_steady on column slab k (columns i0..i1 − 1) of out, the last pass of an evaluation. */
   private tendency(out: Float64Array, k: number, i0: number, i1: number): void {
-    this.nl.tendency(out, k);
+    this.nl.tendency(out, k, this.modes);
     if (this.forcing.kind !== 'steady') return;
     const f = this.forcing.steady;
     const { keptRows, nkx } = this.grid;
-    for (let k = 0; k < keptRows.length; k++) {
-      const row = 2 * keptRows[k] * nkx;
-      for (let t = row + 2 * i0; t < row + 2 * i1; t++) out[t] += f[t];
+    const { origin, stride } = this.modes;
+    for (let r = 0; r < keptRows.length; r++) {
+      const ky = keptRows[r];
+      const row = 2 * ky * nkx;
+      const d = origin[k] + 2 * ky * stride[k] - row; // from the ordinary layout to the slab's
+      for (let t = row + 2 * i0; t < row + 2 * i1; t++) out[t + d] += f[t];
     }
   }
 
   /** Stage 2 on columns i0..i1 − 1: w = E½(q + ½dt a). */
-  private stage2(i0: number, i1: number): void {
+  private stage2(k: number, i0: number, i1: number): void {
     const { a, w, qHat: q } = this;
     const { nkx, keptRows } = this.grid;
     const e1 = this.lin.halfStep;
     const h = 0.5 * this.args[0];
-    for (let k = 0; k < keptRows.length; k++) {
-      const row = 2 * keptRows[k] * nkx;
+    const { origin, stride } = this.modes;
+    for (let r = 0; r < keptRows.length; r++) {
+      const ky = keptRows[r];
+      const row = 2 * ky * nkx;
+      const o = origin[k] + 2 * ky * stride[k] - row; // a..d and w sit at t + o (modeSlabs.ts)
       for (let t = row + 2 * i0; t < row + 2 * i1; t += 2) {
-        const xr = q[t] + h * a[t];
-        const xi = q[t + 1] + h * a[t + 1];
-        w[t] = e1[t] * xr - e1[t + 1] * xi;
-        w[t + 1] = e1[t] * xi + e1[t + 1] * xr;
+        const xr = q[t] + h * a[t + o];
+        const xi = q[t + 1] + h * a[t + o + 1];
+        w[t + o] = e1[t] * xr - e1[t + 1] * xi;
+        w[t + o + 1] = e1[t] * xi + e1[t + 1] * xr;
       }
     }
   }
 
   /** Stage 3 on columns i0..i1 − 1: w = E½ q + ½dt b. */
-  private stage3(i0: number, i1: number): void {
+  private stage3(k: number, i0: number, i1: number): void {
     const { b, w, qHat: q } = this;
     const { nkx, keptRows } = this.grid;
     const e1 = this.lin.halfStep;
     const h = 0.5 * this.args[0];
-    for (let k = 0; k < keptRows.length; k++) {
-      const row = 2 * keptRows[k] * nkx;
+    const { origin, stride } = this.modes;
+    for (let r = 0; r < keptRows.length; r++) {
+      const ky = keptRows[r];
+      const row = 2 * ky * nkx;
+      const o = origin[k] + 2 * ky * stride[k] - row; // a..d and w sit at t + o (modeSlabs.ts)
       for (let t = row + 2 * i0; t < row + 2 * i1; t += 2) {
-        w[t] = e1[t] * q[t] - e1[t + 1] * q[t + 1] + h * b[t];
-        w[t + 1] = e1[t] * q[t + 1] + e1[t + 1] * q[t] + h * b[t + 1];
+        w[t + o] = e1[t] * q[t] - e1[t + 1] * q[t + 1] + h * b[t + o];
+        w[t + o + 1] = e1[t] * q[t + 1] + e1[t + 1] * q[t] + h * b[t + o + 1];
       }
     }
   }
 
   /** Stage 4 on columns i0..i1 − 1: w = E q + dt E½ c. */
-  private stage4(i0: number, i1: number): void {
+  private stage4(k: number, i0: number, i1: number): void {
     const { c, w, qHat: q } = this;
     const { nkx, keptRows } = this.grid;
     const e1 = this.lin.halfStep;
     const e2 = this.lin.fullStep;
     const dt = this.args[0];
-    for (let k = 0; k < keptRows.length; k++) {
-      const row = 2 * keptRows[k] * nkx;
+    const { origin, stride } = this.modes;
+    for (let r = 0; r < keptRows.length; r++) {
+      const ky = keptRows[r];
+      const row = 2 * ky * nkx;
+      const o = origin[k] + 2 * ky * stride[k] - row; // a..d and w sit at t + o (modeSlabs.ts)
       for (let t = row + 2 * i0; t < row + 2 * i1; t += 2) {
-        w[t] = e2[t] * q[t] - e2[t + 1] * q[t + 1] + dt * (e1[t] * c[t] - e1[t + 1] * c[t + 1]);
-        w[t + 1] = e2[t] * q[t + 1] + e2[t + 1] * q[t] + dt * (e1[t] * c[t + 1] + e1[t + 1] * c[t]);
+        w[t + o] = e2[t] * q[t] - e2[t + 1] * q[t + 1] + dt * (e1[t] * c[t + o] - e1[t + 1] * c[t + o + 1]);
+        w[t + o + 1] = e2[t] * q[t + 1] + e2[t + 1] * q[t] + dt * (e1[t] * c[t + o + 1] + e1[t + 1] * c[t + o]);
       }
     }
   }
 
   /** The combination into w on columns i0..i1 − 1 (the state is replaced once it is known to be finite). */
-  private combine(i0: number, i1: number): void {
+  private combine(k: number, i0: number, i1: number): void {
     const { a, b, c, d, w, qHat: q } = this;
     const { nkx, keptRows } = this.grid;
     const e1 = this.lin.halfStep;
     const e2 = this.lin.fullStep;
     const s = this.args[0] / 6;
-    for (let k = 0; k < keptRows.length; k++) {
-      const row = 2 * keptRows[k] * nkx;
+    const { origin, stride } = this.modes;
+    for (let r = 0; r < keptRows.length; r++) {
+      const ky = keptRows[r];
+      const row = 2 * ky * nkx;
+      const o = origin[k] + 2 * ky * stride[k] - row; // a..d and w sit at t + o (modeSlabs.ts)
       for (let t = row + 2 * i0; t < row + 2 * i1; t += 2) {
-        const ar = e2[t] * a[t] - e2[t + 1] * a[t + 1];
-        const ai = e2[t] * a[t + 1] + e2[t + 1] * a[t];
-        const br = b[t] + c[t];
-        const bi = b[t + 1] + c[t + 1];
+        const ar = e2[t] * a[t + o] - e2[t + 1] * a[t + o + 1];
+        const ai = e2[t] * a[t + o + 1] + e2[t + 1] * a[t + o];
+        const br = b[t + o] + c[t + o];
+        const bi = b[t + o + 1] + c[t + o + 1];
         const mr = 2 * (e1[t] * br - e1[t + 1] * bi);
         const mi = 2 * (e1[t] * bi + e1[t + 1] * br);
-        w[t] = e2[t] * q[t] - e2[t + 1] * q[t + 1] + s * (ar + mr + d[t]);
-        w[t + 1] = e2[t] * q[t + 1] + e2[t + 1] * q[t] + s * (ai + mi + d[t + 1]);
+        w[t + o] = e2[t] * q[t] - e2[t + 1] * q[t + 1] + s * (ar + mr + d[t + o]);
+        w[t + o + 1] = e2[t] * q[t + 1] + e2[t + 1] * q[t] + s * (ai + mi + d[t + o + 1]);
       }
     }
   }
 
-  /** Energy, enstrophy and their rates at state q with nonlinear term a; adds F_steady to a. */
+  /** Energy, enstrophy and their rates at state q with nonlinear term a (in `modes`); adds F_steady to a. */
   private startBudget(q: Float64Array, a: Float64Array): void {
     const { nkx, Kx, keptRows } = this.grid;
     const lin = this.lin;
@@ -342,11 +364,14 @@ export class Stepper implements PhasedStep {
     let zTr = 0;
     let zInj = 0;
     const kd2Free = this.grid.k2;
+    const { at, rowStep } = this.modes;
     for (let k = 0; k < keptRows.length; k++) {
-      const row = keptRows[k] * nkx;
+      const ky = keptRows[k];
+      const row = ky * nkx;
       for (let ix = 0; ix <= Kx; ix++) {
         const m = row + ix;
         const t = 2 * m;
+        const sa = at[ix] + ky * rowStep[ix]; // a's place (modeSlabs.ts)
         // Full-plane weight: the conjugate of a kx > 0 mode is not stored; ½ of the ½·2 is folded in.
         const wgt = ix === 0 ? 0.5 : 1;
         const qr = q[t];
@@ -365,7 +390,7 @@ export class Stepper implements PhasedStep {
         zDrag += dr * sq;
         zHyper += hr * sq;
         zLs += lr * sq;
-        const tr = 2 * wgt * (qr * a[t] + qi * a[t + 1]);
+        const tr = 2 * wgt * (qr * a[sa] + qi * a[sa + 1]);
         eTr += tr * invK2[m];
         zTr += tr;
         if (steady) {
@@ -374,8 +399,8 @@ export class Stepper implements PhasedStep {
           const inj = 2 * wgt * (qr * fr + qi * fi);
           eInj += inj * invK2[m];
           zInj += inj;
-          a[t] += fr;
-          a[t + 1] += fi;
+          a[sa] += fr;
+          a[sa + 1] += fi;
         }
       }
     }

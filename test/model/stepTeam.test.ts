@@ -2,7 +2,12 @@ import { describe, expect, it } from 'vitest';
 import { stateChecksum, textDigest } from '../../lib/io/digest';
 import { Model } from '../../lib/model/model';
 import type { ModelParams } from '../../lib/model/params';
-import { shareBound, type PhasedStep, type StepTeam } from '../../lib/model/stepTeam';
+import { Grid } from '../../lib/model/grid';
+import { RandomStream } from '../../lib/model/randomStream';
+import { plainFloat64 } from '../../lib/model/sharedArena';
+import { buildStepParts } from '../../lib/model/stepParts';
+import { shareBound, slabRange, type PhasedStep, type StepTeam } from '../../lib/model/stepTeam';
+import { validateParams } from '../../lib/model/validateParams';
 
 /**
  * Every share of every phase done one after the other on this thread: what a team of `members`
@@ -71,7 +76,54 @@ describe('a step shared out gives the bits of one thread', () => {
   }
 });
 
+// A step built for a team of P threads keeps each thread's share in slabs of its own
+// (realTransform2D.ts, modeSlabs.ts); run by P members, by fewer (a team that lost helpers: the
+// calling thread takes every slab) or by more, it gives the bits of the ordinary layout
+// [practice: the project's reproducibility rule; docs/threads.md].
+describe('a step cut into slabs gives the bits of one slab', () => {
+  for (const c of CASES) {
+    it(c.name, () => {
+      const p = validateParams(c.params);
+      const start = new Model(c.params).qHat;
+      const run = (slabs: number, members: number): string => {
+        const grid = new Grid(p);
+        const { stepper } = buildStepParts(grid, p, new RandomStream(p.seed), plainFloat64, slabs);
+        stepper.qHat.set(start);
+        stepper.team = new InTurnTeam(stepper, members);
+        for (let i = 0; i < c.steps; i++) stepper.step();
+        return `${stateChecksum(stepper.qHat)} ${stepper.time} ${stepper.dt} ${textDigest(JSON.stringify(stepper.report))}`;
+      };
+      const want = run(1, 1);
+      for (const [slabs, members] of [
+        [2, 2],
+        [3, 3],
+        [5, 5],
+        [2, 1],
+        [3, 2],
+        [4, 7],
+      ]) {
+        expect(run(slabs, members), `${slabs} slabs, ${members} members`).toBe(want);
+      }
+    });
+  }
+});
+
 describe('shares', () => {
+  it('every slab goes to exactly one member, in order, whatever the number of members', () => {
+    const out = new Int32Array(2);
+    for (let slabs = 1; slabs <= 9; slabs++)
+      for (let members = 1; members <= 9; members++) {
+        let next = 0;
+        for (let m = 0; m < members; m++) {
+          slabRange(m, members, slabs, out);
+          expect(out[0]).toBe(next);
+          expect(out[1]).toBeGreaterThanOrEqual(out[0]);
+          next = out[1];
+        }
+        expect(next).toBe(slabs);
+      }
+  });
+
   it('tile the range, cut at multiples of the unit, empty only when there are too few units', () => {
     for (const [n, unit] of [
       [43, 4],
