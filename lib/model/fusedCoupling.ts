@@ -123,7 +123,8 @@ export function lastStageProductsCoupled(
  * columns, X's half-line spectra in x), finished into both layers' tendencies: on the kept rows and
  * columns 0..Kx (ix0..ix1 − 1 when given),
  *   out1 += c1·X̂,  out2 += c2·X̂   (X̂ unnormalised: fold 1/(nx·ny) into c1 and c2).
- * `src` is the block y-transformed but for the last stage, as for `lastStageToTendency`.
+ * `src` is the block y-transformed but for the last stage, as for `lastStageToTendency`; a block
+ * cut into column slabs (realTransform2D.ts) is read as slab `origin`..`origin + half − 1`.
  */
 export function lastStageAddCoupling(
   src: Float64Array,
@@ -134,9 +135,11 @@ export function lastStageAddCoupling(
   c2: number,
   ix0 = 0,
   ix1 = grid.Kx + 1,
+  origin = 0,
+  half = grid.Kx + 1,
 ): void {
-  const { ny, nkx, Kx, Ky } = grid;
-  const cols = Kx + 1;
+  const { ny, nkx, Ky } = grid;
+  const cols = half;
   const s = ny >> 2;
   const run = 2 * s * cols;
   const highBottom = ny - Ky;
@@ -156,7 +159,7 @@ export function lastStageAddCoupling(
       o3 = 2 * j3 * nkx;
     const row = 2 * r * cols;
     for (let ix = ix0; ix < ix1; ix++) {
-      const ia = row + 2 * ix;
+      const ia = row + 2 * (ix - origin);
       const aar = src[ia],
         aai = src[ia + 1];
       const abr = src[ia + run],

@@ -42,7 +42,7 @@ export function buildStepParts(
   if (p.layers === 2) {
     const lin2 = new TwoLayerLinearOperator(grid, p, alloc);
     const forcing = new Forcing(grid, p, { invK2: lin2.invK2Barotropic });
-    const nl2 = new TwoLayerNonlinearTerm(grid, lin2, alloc);
+    const nl2 = new TwoLayerNonlinearTerm(grid, lin2, alloc, threads);
     const stepper = new TwoLayerStepper(grid, p, lin2, nl2, forcing, rng, alloc);
     return { stepper, forcing, lin: null, lin2, transform: null };
   }

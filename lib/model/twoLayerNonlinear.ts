@@ -2,7 +2,8 @@ import { BatchFFT } from './batchFFT';
 import { lastStageAddCoupling, lastStageProductsCoupled } from './fusedCoupling';
 import { lastStageToBlock, lastStageToTendency, velocitiesFirstStageY } from './fusedStages';
 import type { Grid } from './grid';
-import { RealTransform2D } from './realTransform2D';
+import { columnSlabLayout, RealTransform2D } from './realTransform2D';
+import type { ColumnSlabLayout } from './fusedStages';
 import { plainFloat64, type Float64Alloc } from './sharedArena';
 import type { TwoLayerLinearOperator } from './twoLayerLinear';
 
@@ -26,9 +27,9 @@ import type { TwoLayerLinearOperator } from './twoLayerLinear';
  * ψ̂_i come from the barotropic and baroclinic inversions (twoLayerLinear.ts) and are kept in `psi1`,
  * `psi2` for the caller (the stepper's budget). Build once per grid; a call allocates nothing.
  *
- * As in one layer (nonlinearTerm.ts), an evaluation is passes that threads share: `invert` and
- * `toGrid` on kx columns, `products` on grid rows y, `tendency` on kx columns; the arrays they
- * share are `alloc`ated.
+ * As in one layer (nonlinearTerm.ts), an evaluation is passes that threads share: `invert` on kx
+ * columns and `toGrid` on column slabs, `products` on row slabs, `tendency` on column slabs; the
+ * arrays they share are `alloc`ated.
  */
 export class TwoLayerNonlinearTerm {
   /** ψ̂₁, ψ̂₂ of the last evaluation (kept modes; zero elsewhere). */
@@ -43,28 +44,64 @@ export class TwoLayerNonlinearTerm {
   private readonly lin: TwoLayerLinearOperator;
   private readonly xf1: RealTransform2D;
   private readonly xf2: RealTransform2D;
-  /** J(ψ₁, ψ₂) on the grid, its x and y transforms and its single-field block. */
+  /**
+   * J(ψ₁, ψ₂) on the grid, its x and y transforms and its single-field block; cut into the layers'
+   * row and column slabs (realTransform2D.ts) when the step is built for threads: the grid slab j
+   * holds rows y0..y1 − 1 of the layers' slab j, x-major among themselves, and the block slab k the
+   * columns i0..i1 − 1 of their slab k.
+   */
   private readonly coupling: Float64Array;
   private readonly couplingX: BatchFFT;
   private readonly couplingY: BatchFFT;
   private readonly couplingBlock: Float64Array;
+  private readonly couplingRows: { grid: Float64Array; scratch: Float64Array; fft: BatchFFT }[];
+  private readonly couplingColumns: { block: Float64Array; scratch: Float64Array; fft: BatchFFT }[];
+  /** Where the coupling block's columns live when it is cut (lastStageToBlock); null for one slab. */
+  private readonly couplingLayout: ColumnSlabLayout | null;
   /** −1 on every mode: velocitiesFirstStageY forms −q̂·invK2, here −ψ̂·(−1) = ψ̂ exactly. */
   private readonly minusOne: Float64Array;
   private readonly speeds = new Float64Array(4);
 
-  constructor(grid: Grid, lin: TwoLayerLinearOperator, alloc: Float64Alloc = plainFloat64) {
+  /** `slabs`: one per thread of the step's team (realTransform2D.ts); 1 keeps every array whole. */
+  constructor(grid: Grid, lin: TwoLayerLinearOperator, alloc: Float64Alloc = plainFloat64, slabs = 1) {
     if (grid.nx < 8 || grid.ny < 8) throw new RangeError('TwoLayerNonlinearTerm needs at least 8 × 8 points');
     this.grid = grid;
     this.lin = lin;
-    this.xf1 = new RealTransform2D(grid, true, alloc);
-    this.xf2 = new RealTransform2D(grid, true, alloc);
+    this.xf1 = new RealTransform2D(grid, true, alloc, slabs);
+    this.xf2 = new RealTransform2D(grid, true, alloc, slabs);
     this.coupling = alloc(grid.size);
     this.couplingX = new BatchFFT(grid.nx, grid.ny / 2, alloc);
     this.couplingY = new BatchFFT(grid.ny, grid.Kx + 1, alloc);
     this.couplingBlock = alloc(2 * grid.ny * (grid.Kx + 1));
+    const { nx, ny } = grid;
+    // Rows come in pairs (y0, y1 even: ROW_UNIT), as the coupling grid packs them.
+    this.couplingRows = this.xf1.slabs.map(({ y0, y1 }) => {
+      const [from, to] = [nx * y0, nx * y1];
+      const scratch = this.couplingX.work.subarray(from, to);
+      const fft = slabs === 1 ? this.couplingX : new BatchFFT(nx, (y1 - y0) >> 1, () => scratch);
+      return { grid: this.coupling.subarray(from, to), scratch, fft };
+    });
+    this.couplingColumns = this.xf1.columns.map(({ i0, i1 }) => {
+      const [from, to] = [2 * ny * i0, 2 * ny * i1];
+      const scratch = this.couplingY.work.subarray(from, to);
+      const fft = slabs === 1 ? this.couplingY : new BatchFFT(ny, i1 - i0, () => scratch);
+      return { block: this.couplingBlock.subarray(from, to), scratch, fft };
+    });
+    // The coupling block read as a pair block of ny/2 rows (rows 2y′ and 2y′ + 1 as fields a and b).
+    this.couplingLayout = slabs === 1 ? null : columnSlabLayout(nx, ny / 2, this.xf1.columns);
     this.psi1 = alloc(2 * grid.spectralSize);
     this.psi2 = alloc(2 * grid.spectralSize);
     this.minusOne = new Float64Array(grid.spectralSize).fill(-1);
+  }
+
+  /** Slabs the transforms are cut into (realTransform2D.ts). */
+  get slabCount(): number {
+    return this.xf1.columns.length;
+  }
+
+  /** The kx columns i0..i1 − 1 of column slab k. */
+  columnSlab(k: number): { i0: number; i1: number } {
+    return this.xf1.columns[k];
   }
 
   /** out1, out2 ← −J(ψ₁, q₁), −J(ψ₂, q₂), every entry written; outputs must differ from the inputs. */
@@ -79,64 +116,78 @@ export class TwoLayerNonlinearTerm {
    * (for buffers that are zero there and stay so, as the stepper's stage buffers).
    */
   evaluateKept(q1: Float64Array, q2: Float64Array, out1: Float64Array, out2: Float64Array): void {
-    const { Kx, ny } = this.grid;
+    const { Kx } = this.grid;
+    const slabs = this.xf1.columns.length;
     this.invert(q1, q2, 0, Kx + 1);
-    this.toGrid(0, Kx + 1);
-    this.products(0, ny, this.speeds, 0);
-    this.maxU1 = this.speeds[0];
-    this.maxV1 = this.speeds[1];
-    this.maxU2 = this.speeds[2];
-    this.maxV2 = this.speeds[3];
-    this.tendency(out1, out2, 0, Kx + 1);
+    for (let k = 0; k < slabs; k++) this.toGrid(k);
+    this.maxU1 = this.maxV1 = this.maxU2 = this.maxV2 = 0;
+    for (let j = 0; j < slabs; j++) {
+      this.products(j, this.speeds, 0);
+      this.maxU1 = Math.max(this.maxU1, this.speeds[0]);
+      this.maxV1 = Math.max(this.maxV1, this.speeds[1]);
+      this.maxU2 = Math.max(this.maxU2, this.speeds[2]);
+      this.maxV2 = Math.max(this.maxV2, this.speeds[3]);
+    }
+    for (let k = 0; k < slabs; k++) this.tendency(out1, out2, k);
   }
 
   /**
-   * On kx columns ix0..ix1 − 1 (after `invert` of those columns): the velocities of both layers
-   * into their y transforms' first stages, and through the rest of them onto the work grids.
+   * On column slab k of the layers' transforms (after `invert` of its columns): the velocities of
+   * both layers into their y transforms' first stages, and through the rest of them onto the work
+   * grids.
    */
-  toGrid(ix0: number, ix1: number): void {
+  toGrid(k: number): void {
     const { grid, xf1, xf2 } = this;
-    const y1 = xf1.yTransform;
-    velocitiesFirstStageY(this.psi1, this.minusOne, grid, y1.firstRadix, y1.cosT, y1.sinT, xf1.block, ix0, ix1);
-    xf1.inverseYColumns(ix0, ix1);
-    const y2 = xf2.yTransform;
-    velocitiesFirstStageY(this.psi2, this.minusOne, grid, y2.firstRadix, y2.cosT, y2.sinT, xf2.block, ix0, ix1);
-    xf2.inverseYColumns(ix0, ix1);
+    const { i0, i1 } = xf1.columns[k];
+    for (const [xf, psi] of [
+      [xf1, this.psi1],
+      [xf2, this.psi2],
+    ] as const) {
+      const c = xf.columns[k];
+      const { firstRadix, cosT, sinT } = c.fft;
+      velocitiesFirstStageY(psi, this.minusOne, grid, firstRadix, cosT, sinT, c.block, i0, i1, i0, i1 - i0);
+      xf.inverseYSlab(k);
+    }
   }
 
   /**
-   * On grid rows y0..y1 − 1 (even, as the coupling grid packs rows in pairs): both backward x
-   * transforms, whose last stages form the layers' products in place and J(ψ₁, ψ₂) into its own
-   * grid (max|u₁|, max|v₁|, max|u₂|, max|v₂| of those rows into speeds from `at`), and the three
-   * forward x transforms into their blocks' rows.
+   * On row slab j of the layers' work grids (its rows even, as the coupling grid packs rows in
+   * pairs): both backward x transforms, whose last stages form the layers' products in place and
+   * J(ψ₁, ψ₂) into its own grid (max|u₁|, max|v₁|, max|u₂|, max|v₂| of those rows into speeds from
+   * `at`), and the three forward x transforms into their blocks' rows.
    */
-  products(y0: number, y1: number, speeds: Float64Array, at: number): void {
+  products(j: number, speeds: Float64Array, at: number): void {
     const { grid, xf1, xf2 } = this;
-    const W1 = xf1.inverseXRows(y0, y1);
-    const W2 = xf2.inverseXRows(y0, y1);
-    lastStageProductsCoupled(W1, W2, this.coupling, xf1.xLastRun, speeds, grid.ny, y0, y1, at);
-    xf1.forwardXRows(W1, y0, y1);
-    xf2.forwardXRows(W2, y0, y1);
-    const cx = this.couplingX;
-    const X = cx.transformButLast(this.coupling, -1, cx.work, y0 >> 1, y1 >> 1);
-    lastStageToBlock(X, this.couplingBlock, grid.nx, grid.ny / 2, grid.Kx, y0 >> 1, y1 >> 1);
+    const { y0, y1, fft } = xf1.slabs[j];
+    const rows = y1 - y0;
+    const W1 = xf1.inverseXSlab(j);
+    const W2 = xf2.inverseXSlab(j);
+    const c = this.couplingRows[j];
+    lastStageProductsCoupled(W1, W2, c.grid, fft.lastRun, speeds, rows, 0, rows, at);
+    xf1.forwardXSlab(j, W1);
+    xf2.forwardXSlab(j, W2);
+    const X = c.fft.transformButLast(c.grid, -1, c.scratch);
+    const { nx, ny, Kx } = grid;
+    lastStageToBlock(X, this.couplingBlock, nx, ny / 2, Kx, y0 >> 1, y1 >> 1, rows >> 1, y0 >> 1, this.couplingLayout);
   }
 
   /**
-   * On kx columns ix0..ix1 − 1: the forward y transforms' last stages form −J(ψ_i, ζ_i) and add
-   * F_i·J(ψ₁, ψ₂) with its sign; the range holding column 0 zeroes the mean and makes that column
-   * exactly Hermitian in both outputs.
+   * On column slab k: the forward y transforms' last stages form −J(ψ_i, ζ_i) and add F_i·J(ψ₁, ψ₂)
+   * with its sign; the slab holding column 0 zeroes the mean and makes that column exactly
+   * Hermitian in both outputs.
    */
-  tendency(out1: Float64Array, out2: Float64Array, ix0: number, ix1: number): void {
+  tendency(out1: Float64Array, out2: Float64Array, k: number): void {
     const { grid, xf1, xf2 } = this;
+    const { i0, i1 } = xf1.columns[k];
+    const w = i1 - i0;
     const scale = 1 / grid.size;
-    lastStageToTendency(xf1.forwardYColumns(ix0, ix1), out1, grid, scale, ix0, ix1);
-    lastStageToTendency(xf2.forwardYColumns(ix0, ix1), out2, grid, scale, ix0, ix1);
+    lastStageToTendency(xf1.forwardYSlab(k), out1, grid, scale, i0, i1, i0, w);
+    lastStageToTendency(xf2.forwardYSlab(k), out2, grid, scale, i0, i1, i0, w);
     const { F1, F2 } = this.lin.coefficients;
-    const cy = this.couplingY;
-    const block = cy.transformButLast(this.couplingBlock, -1, cy.work, ix0, ix1);
-    lastStageAddCoupling(block, out1, out2, grid, -F1 * scale, F2 * scale, ix0, ix1);
-    if (!(ix0 === 0 && ix1 > 0)) return;
+    const c = this.couplingColumns[k];
+    const block = c.fft.transformButLast(c.block, -1, c.scratch);
+    lastStageAddCoupling(block, out1, out2, grid, -F1 * scale, F2 * scale, i0, i1, i0, w);
+    if (!(i0 === 0 && i1 > 0)) return;
     hermitianColumn(out1, grid);
     hermitianColumn(out2, grid);
   }

@@ -8,7 +8,7 @@ import { twoLayerStartBudget } from './twoLayerBudget';
 import type { TwoLayerLinearOperator } from './twoLayerLinear';
 import type { TwoLayerNonlinearTerm } from './twoLayerNonlinear';
 import { plainFloat64, type Float64Alloc } from './sharedArena';
-import { COLUMN_UNIT, MAX_THREADS, ROW_UNIT, shareBound, SoloTeam, type PhasedStep, type StepTeam } from './stepTeam';
+import { MAX_THREADS, slabRange, SoloTeam, type PhasedStep, type StepTeam } from './stepTeam';
 
 /** The two layers of a buffer. */
 type Layers = readonly [Float64Array, Float64Array];
@@ -69,6 +69,9 @@ export class TwoLayerStepper implements PhasedStep {
   private readonly args: Float64Array;
   /** max|u₁|, max|v₁|, max|u₂|, max|v₂| of each member's rows in the last `products` pass. */
   private readonly speeds: Float64Array;
+  /** Slabs the step is cut into (one per thread it was built for) and those a member runs. */
+  private readonly slabCount: number;
+  private readonly slabsOfMember = new Int32Array(2);
   private readonly kick = new Float64Array(2);
   private readonly kickLayers: { h1: number; h2: number; ib: Float64Array; ic: Float64Array };
   /** Half the spectrum's length: the offset of layer 2. */
@@ -110,6 +113,7 @@ export class TwoLayerStepper implements PhasedStep {
     this.wL = split(this.w);
     this.args = alloc(2);
     this.speeds = alloc(4 * MAX_THREADS);
+    this.slabCount = nl.slabCount;
     const { h1, h2 } = lin.coefficients;
     this.kickLayers = { h1, h2, ib: lin.invK2Barotropic, ic: lin.invK2Baroclinic };
     this.report.energy.generation = 0;
@@ -126,16 +130,16 @@ export class TwoLayerStepper implements PhasedStep {
     const r = this.report;
     team.run(GRID_Q);
     team.run(PRODUCTS);
-    // The largest speeds of the members' rows: a maximum is exact, so any grouping gives the same.
+    // The largest speeds of the row slabs: a maximum is exact, so any grouping gives the same.
     let mu1 = 0,
       mv1 = 0,
       mu2 = 0,
       mv2 = 0;
-    for (let m = 0; m < team.members; m++) {
-      mu1 = Math.max(mu1, speeds[4 * m]);
-      mv1 = Math.max(mv1, speeds[4 * m + 1]);
-      mu2 = Math.max(mu2, speeds[4 * m + 2]);
-      mv2 = Math.max(mv2, speeds[4 * m + 3]);
+    for (let j = 0; j < this.slabCount; j++) {
+      mu1 = Math.max(mu1, speeds[4 * j]);
+      mv1 = Math.max(mv1, speeds[4 * j + 1]);
+      mu2 = Math.max(mu2, speeds[4 * j + 2]);
+      mv2 = Math.max(mv2, speeds[4 * j + 3]);
     }
     nl.maxU1 = mu1;
     nl.maxV1 = mv1;
@@ -205,41 +209,46 @@ export class TwoLayerStepper implements PhasedStep {
     return r;
   }
 
-  /** One member's share of a phase of `step` (stepTeam.ts): its kx columns, or its grid rows. */
+  /**
+   * One member's share of a phase of `step` (stepTeam.ts): the column slabs or the row slabs of the
+   * layers' transforms (realTransform2D.ts) that are its own (slabRange).
+   */
   runPhase(phase: number, member: number, members: number): void {
-    const { Kx, ny } = this.grid;
-    const nl = this.nl;
-    if (phase === PRODUCTS) {
-      const y0 = shareBound(ny, member, members, ROW_UNIT);
-      const y1 = shareBound(ny, member + 1, members, ROW_UNIT);
-      nl.products(y0, y1, this.speeds, 4 * member);
-      return;
+    const mine = this.slabsOfMember;
+    slabRange(member, members, this.slabCount, mine);
+    for (let k = mine[0]; k < mine[1]; k++) {
+      if (phase === PRODUCTS) this.nl.products(k, this.speeds, 4 * k);
+      else this.runColumnPhase(phase, k);
     }
-    const i0 = shareBound(Kx + 1, member, members, COLUMN_UNIT);
-    const i1 = shareBound(Kx + 1, member + 1, members, COLUMN_UNIT);
+  }
+
+  /** A phase on kx columns: column slab k. */
+  private runColumnPhase(phase: number, k: number): void {
+    const nl = this.nl;
+    const { i0, i1 } = nl.columnSlab(k);
     const [w1, w2] = this.wL;
     switch (phase) {
       case GRID_Q:
         nl.invert(this.q1, this.q2, i0, i1);
-        nl.toGrid(i0, i1);
+        nl.toGrid(k);
         return;
       case TENDENCY_A:
-        nl.tendency(this.aL[0], this.aL[1], i0, i1);
+        nl.tendency(this.aL[0], this.aL[1], k);
         return;
       case STAGE_2:
         if (this.args[1] === 1) this.lin.setStepColumns(this.args[0], i0, i1);
         this.stage2(i0, i1);
         break;
       case STAGE_3:
-        this.tendency(this.bL, i0, i1);
+        this.tendency(this.bL, k, i0, i1);
         this.stage3(i0, i1);
         break;
       case STAGE_4:
-        this.tendency(this.cL, i0, i1);
+        this.tendency(this.cL, k, i0, i1);
         this.stage4(i0, i1);
         break;
       case COMBINE:
-        this.tendency(this.dL, i0, i1);
+        this.tendency(this.dL, k, i0, i1);
         this.combine(i0, i1);
         return;
       default:
@@ -247,12 +256,12 @@ export class TwoLayerStepper implements PhasedStep {
     }
     // Stages 2 to 4 end with the next evaluation's first pass on w.
     nl.invert(w1, w2, i0, i1);
-    nl.toGrid(i0, i1);
+    nl.toGrid(k);
   }
 
-  /** N of both layers on columns i0..i1 − 1 (the last pass of an evaluation), F_steady added to each. */
-  private tendency(out: Layers, i0: number, i1: number): void {
-    this.nl.tendency(out[0], out[1], i0, i1);
+  /** N of both layers on column slab k (columns i0..i1 − 1) (the last pass of an evaluation), F_steady added to each. */
+  private tendency(out: Layers, k: number, i0: number, i1: number): void {
+    this.nl.tendency(out[0], out[1], k);
     if (this.forcing.kind !== 'steady') return;
     const f = this.forcing.steady;
     const [o1, o2] = out;
