@@ -41,7 +41,7 @@ const json = has('--json');
 const scaling = has('--scaling');
 const sizes = (value('--sizes') ?? (scaling ? '64,128,256,512,1024' : '128,256,512')).split(',').map(Number);
 
-// --time-to-jets takes the threads a run takes by default (every core from 512² up, one below: stepTeam.ts).
+// --time-to-jets takes the threads a run takes by default (every core from 128² up, one below: stepTeam.ts).
 const jetsSide = Number(value('--n') ?? 256);
 const runThreads = jetsSide * jetsSide >= DEFAULT_THREADS_MIN_POINTS ? availableParallelism() : 1;
 const threadCounts = (value('--threads') ?? (has('--time-to-jets') ? String(runThreads) : '1')).split(',').map(Number);

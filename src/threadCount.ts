@@ -1,12 +1,12 @@
 import { MAX_THREADS } from '../lib/model/stepTeam';
 
 /**
- * Threads the app's step runs on unless the user chooses: one. The app's runs are mostly below 512²,
- * where two threads were measured slower than one (DEFAULT_THREADS_MIN_POINTS in stepTeam.ts); the
- * Threads control offers up to every core the browser reports (availableThreads).
+ * Threads the app's step runs on unless the user chooses: every core the browser reports (grids
+ * below 128² still step on one, workers/threadChoice.ts). Two threads were measured 1.3–1.65× faster
+ * than one from 128² up (DEFAULT_THREADS_MIN_POINTS in stepTeam.ts).
  */
 export function defaultThreads(): number {
-  return 1;
+  return availableThreads();
 }
 
 /** Every core the browser reports, the most the Threads control offers. */

@@ -41,13 +41,13 @@ export const SMALL_GRID_POINTS = 128 * 128;
 
 /**
  * Below this many points a run takes one thread unless asked for more; from it up, every core.
- * Measured with `npm run bench -- --threads 1,2` on the two-core development machine (2026-12-04,
- * quiet, three rounds): the speed-up of two threads over one was 0.62–0.81 at 128², 0.75–1.14 at
- * 256² and 0.87–1.02 at 512². Every change between column and row passes moves the data between
- * the cores' caches, and on that machine this costs about what the split saves. Threads stay a choice (`--threads`,
- * the app's Threads control); the bits are the same on any number.
+ * Measured on the two-core development machine (2026-12-04, `npm run bench -- --threads 1,2`,
+ * README "Threads"): since each thread's share lives in slabs of its own
+ * (realTransform2D.ts, modeSlabs.ts), two threads step 1.3–1.4× faster than one at 128², about 1.6×
+ * at 256² and 1.65× at 512². Threads stay a choice (`--threads`, the app's Threads control); the
+ * bits are the same on any number.
  */
-export const DEFAULT_THREADS_MIN_POINTS = 512 * 512;
+export const DEFAULT_THREADS_MIN_POINTS = SMALL_GRID_POINTS;
 
 /** Shares of kx columns and of grid rows are cut at multiples of these (`shareBound`). */
 export const COLUMN_UNIT = 4;

@@ -40,7 +40,11 @@ const HELPERS_ASLEEP = 5; // helpers in Atomics.wait for the next generation
 const CALLER_ASLEEP = 6; // 1 while the calling thread waits in Atomics.wait
 const CONTROL_SLOTS = 8;
 
-/** Loads of a flag before a thread goes to sleep on it: phases are tens of microseconds apart. */
+/**
+ * Loads of a flag before a thread goes to sleep on it (a fraction of a millisecond): long enough to
+ * stay awake through the calling thread's own work between phases (budgets, energy, the random
+ * kick), as waking a sleeping thread took tens of microseconds a phase.
+ */
 const SPINS = 200000;
 /** How long the calling thread waits for helpers that make no progress before it gives up (ms). */
 const STALL_MS = 120_000;
