@@ -63,6 +63,11 @@ export interface RowSlabLayout {
   /** Point (x, y) is at rowOffset[y] + x·rowStride[y]: one slab gives 2y + 2x·ny. */
   readonly rowOffset: Int32Array;
   readonly rowStride: Int32Array;
+  /**
+   * 0 = c₀ < c₁ < … = ny/4: within c_i..c_{i+1} − 1 none of the rows r, r + ny/4, r + ny/2,
+   * r + 3ny/4 changes slab (the runs of lastStageToWorkGrid, fusedStages.ts).
+   */
+  readonly rowCuts: Int32Array;
 }
 
 export function rowSlabLayout(nx: number, ny: number, slabs: number): RowSlabLayout {
@@ -76,7 +81,11 @@ export function rowSlabLayout(nx: number, ny: number, slabs: number): RowSlabLay
       rowStride[y] = 2 * (bounds[j + 1] - bounds[j]);
     }
   }
-  return { bounds, rowOffset, rowStride };
+  const s = ny >> 2;
+  const cuts = new Set<number>([0, s]);
+  for (const b of bounds) for (let j = 0; j < 4; j++) if (b - j * s > 0 && b - j * s < s) cuts.add(b - j * s);
+  const rowCuts = Int32Array.from([...cuts].sort((a, b) => a - b));
+  return { bounds, rowOffset, rowStride, rowCuts };
 }
 
 /** Where the columns of a block cut into these slabs live (ColumnSlabLayout, fusedStages.ts). */
@@ -115,9 +124,10 @@ export class RealTransform2D {
   readonly columnLayout: ColumnSlabLayout | null;
   /** The work grid's row slabs (one, the whole grid, unless built for threads). */
   readonly slabs: readonly RowSlab[];
-  /** Point (x, y) of the work grid is at rowOffset[y] + x·rowStride[y]. */
+  /** Point (x, y) of the work grid is at rowOffset[y] + x·rowStride[y]; rowCuts as in RowSlabLayout. */
   readonly rowOffset: Int32Array;
   readonly rowStride: Int32Array;
+  readonly rowCuts: Int32Array;
   private readonly yFFT: BatchFFT;
   private readonly xFFT: BatchFFT;
   private readonly rowIsData: Uint8Array;
@@ -150,6 +160,7 @@ export class RealTransform2D {
     const layout = rowSlabLayout(nx, ny, rowSlabs);
     this.rowOffset = layout.rowOffset;
     this.rowStride = layout.rowStride;
+    this.rowCuts = layout.rowCuts;
     const slabs: RowSlab[] = [];
     for (let j = 0; j < rowSlabs; j++) {
       const y0 = layout.bounds[j];
@@ -192,7 +203,20 @@ export class RealTransform2D {
     const { nx, ny } = this.grid;
     const c = this.columns[k];
     const Y = c.fft.transformButFirstAndLast(c.block, 1, c.scratch);
-    lastStageToWorkGrid(Y, this.work, this.rowOffset, this.rowStride, nx, ny, this.top, c.i0, c.i1, c.i0, c.i1 - c.i0);
+    lastStageToWorkGrid(
+      Y,
+      this.work,
+      this.rowOffset,
+      this.rowStride,
+      this.rowCuts,
+      nx,
+      ny,
+      this.top,
+      c.i0,
+      c.i1,
+      c.i0,
+      c.i1 - c.i0,
+    );
   }
 
   /**
@@ -253,6 +277,7 @@ export class RealTransform2D {
       this.work,
       this.rowOffset,
       this.rowStride,
+      this.rowCuts,
       nx,
       ny,
       this.top,
@@ -295,7 +320,7 @@ export class RealTransform2D {
   private finishInverseButLast(ySpectra: Float64Array): Float64Array {
     this.oneSlab();
     const { nx, ny } = this.grid;
-    lastStageToWorkGrid(ySpectra, this.work, this.rowOffset, this.rowStride, nx, ny, this.top);
+    lastStageToWorkGrid(ySpectra, this.work, this.rowOffset, this.rowStride, this.rowCuts, nx, ny, this.top);
     return this.xFFT.transformButLast(this.work, 1);
   }
 

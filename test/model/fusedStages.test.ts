@@ -28,7 +28,7 @@ describe('fused last stages equal the last stage followed by the pass, bit for b
       const src = randomArray(2 * ny * cols, nx + ny + top);
       const W = randomArray(2 * nx * ny, 1); // stale values must all be overwritten
       const one = rowSlabLayout(nx, ny, 1);
-      lastStageToWorkGrid(src, W, one.rowOffset, one.rowStride, nx, ny, top);
+      lastStageToWorkGrid(src, W, one.rowOffset, one.rowStride, one.rowCuts, nx, ny, top);
       const R = src.slice();
       lastStageInPlace(R, 2 * (ny / 4) * cols, 1);
       const ref = new Float64Array(2 * nx * ny);
@@ -48,10 +48,10 @@ describe('fused last stages equal the last stage followed by the pass, bit for b
       }
       expect(Array.from(W)).toEqual(Array.from(ref));
       // Cut into row slabs (one per thread), every point lands where the layout says, with the same bits.
-      for (const slabs of [2, 3]) {
+      for (const slabs of [2, 3, 5]) {
         const layout = rowSlabLayout(nx, ny, slabs);
         const S = randomArray(2 * nx * ny, slabs);
-        lastStageToWorkGrid(src, S, layout.rowOffset, layout.rowStride, nx, ny, top);
+        lastStageToWorkGrid(src, S, layout.rowOffset, layout.rowStride, layout.rowCuts, nx, ny, top);
         const moved = new Float64Array(2 * nx * ny);
         for (let x = 0; x < nx; x++)
           for (let y = 0; y < ny; y++) {
