@@ -2,7 +2,7 @@ import { MAX_THREADS } from '../lib/model/stepTeam';
 
 /**
  * Threads the app's step runs on unless the user chooses: every core the browser reports (grids
- * below 128² still step on one, workers/threadChoice.ts). Two threads were measured 1.3–1.65× faster
+ * below 128² still step on one, workers/threadChoice.ts). Two threads were measured 1.6–1.7× faster
  * than one from 128² up (DEFAULT_THREADS_MIN_POINTS in stepTeam.ts).
  */
 export function defaultThreads(): number {

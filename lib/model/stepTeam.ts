@@ -43,8 +43,8 @@ export const SMALL_GRID_POINTS = 128 * 128;
  * Below this many points a run takes one thread unless asked for more; from it up, every core.
  * Measured on the two-core development machine (2026-12-04, `npm run bench -- --threads 1,2`,
  * README "Threads"): since each thread's share lives in slabs of its own
- * (realTransform2D.ts, modeSlabs.ts), two threads step 1.3–1.4× faster than one at 128², about 1.6×
- * at 256² and 1.65× at 512². Threads stay a choice (`--threads`, the app's Threads control); the
+ * (realTransform2D.ts, modeSlabs.ts), two threads step 1.63× faster than one at 128², 1.73× at 256²
+ * and 1.68× at 512² (medians of five rounds). Threads stay a choice (`--threads`, the app's Threads control); the
  * bits are the same on any number.
  */
 export const DEFAULT_THREADS_MIN_POINTS = SMALL_GRID_POINTS;
