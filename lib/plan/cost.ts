@@ -16,12 +16,14 @@ import measuredTwoLayer from './measuredTwoLayerStep.json';
  *                   kept rows (Int32)                                          2⌊ny/3⌋ + 1
  *   RealTransform2D packed block, complex work grid                            2·ny·C + 2·nx·ny
  *                   row mask (Uint8)                                           ny bytes
+ *                   row slab layout (Int32)                                    2·ny + 2
  *     y FFT         twiddles, scratch                                          2·ny + 2·ny·C
  *     x FFT         twiddles, scratch                                          2·nx + 2·nx·ny
  *   NonlinearTerm   the largest speeds |u|, |v|                                2
  *   Forcing         steady pattern, annulus lists (Int32 × 2), a draw pair     2S + 2M int32 + 2
  *   Model           a spectrum buffer for fields                               2S
  *   Stepper         the kick pair                                              2
+ *                   slab range (Int32), stage layout (Int32; modeSlabs.ts)     2 + 2 + C, ny bytes
  * For large square grids this is ≈ 13 N + 4 N + 8/3 N doubles ≈ 157 bytes per grid point (N = nx·ny).
  *
  * Two layers (lib/model/twoLayer*.ts) keep the grid, the model's transform, the one-layer
@@ -80,6 +82,7 @@ export function modelMemory(nx: number, ny: number, forcedModes: number, layers:
     [owner, 'packed block', 2 * ny * C, 8],
     [owner, 'complex work grid', 2 * nx * ny, 8],
     [owner, 'row mask', ny, 1],
+    [owner, 'row slab layout (offset, stride per row; run cuts)', 2 * ny + 2, 4],
     [owner, 'y FFT twiddles and scratch', 2 * ny + 2 * ny * C, 8],
     [owner, 'x FFT twiddles and scratch', 2 * nx + 2 * nx * ny, 8],
   ];
@@ -92,6 +95,7 @@ export function modelMemory(nx: number, ny: number, forcedModes: number, layers:
     ['RealTransform2D', 'packed block', 2 * ny * C, 8],
     ['RealTransform2D', 'complex work grid', 2 * nx * ny, 8],
     ['RealTransform2D', 'row mask', ny, 1],
+    ['RealTransform2D', 'row slab layout (offset, stride per row; run cuts)', 2 * ny + 2, 4],
     ['BatchFFT (y)', 'twiddles and scratch', 2 * ny + 2 * ny * C, 8],
     ['BatchFFT (x)', 'twiddles and scratch', 2 * nx + 2 * nx * ny, 8],
     ['Forcing', 'steady pattern and draw pair', 2 * S + 2, 8],
@@ -103,6 +107,7 @@ export function modelMemory(nx: number, ny: number, forcedModes: number, layers:
       ? [
           ['TwoLayerStepper', 'state q̂₁, q̂₂ and RK stages a, b, c, d, w', 6 * 4 * S, 8],
           ['TwoLayerStepper', 'kick pair', 2, 8],
+          ['TwoLayerStepper', 'slab range of a member', 2, 4],
           ['TwoLayerStepper', 'phase arguments and the speed maxima of up to 64 threads', 2 + 4 * 64, 8],
           ['TwoLayerLinearOperator', 'rates 1/K², 1/(K² + k_d²), hyper, large-scale', 4 * S, 8],
           ['TwoLayerLinearOperator', '2 × 2 propagators e^{L dt/2}, e^{L dt}', 2 * 8 * S, 8],
@@ -118,6 +123,9 @@ export function modelMemory(nx: number, ny: number, forcedModes: number, layers:
       : [
           ['Stepper', 'state q̂ and RK stages a, b, c, d, w', 6 * 2 * S, 8],
           ['Stepper', 'kick pair', 2, 8],
+          ['Stepper', 'slab range of a member', 2, 4],
+          ['ModeSlabs', 'stage layout: origin, stride per slab; place, row step per column', 2 + C, 4],
+          ['ModeSlabs', 'kept-row mask', ny, 1],
           ['Stepper', 'phase arguments and the speed maxima of up to 64 threads', 2 + 2 * 64, 8],
           ['NonlinearTerm', 'largest speeds |u|, |v|', 2, 8],
         ];
