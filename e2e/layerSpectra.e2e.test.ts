@@ -3,7 +3,7 @@ import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parseCsv } from '../lib/io/csv';
 import { launchChromium, type BrowserSession } from './support/browser';
-import { inkPixels, openApp, openView, readText, screenshot, waitForTime, type AppPage } from './support/app';
+import { inkPixels, openApp, openView, pause, readText, screenshot, waitForTime, type AppPage } from './support/app';
 
 async function csvOf(page: Page, testid: string): Promise<Record<string, number[]>> {
   const [d] = await Promise.all([page.waitForEvent('download'), page.getByTestId(testid).click()]);
@@ -72,6 +72,21 @@ describe('Spectra and Flux of a two-layer run in Chromium', () => {
       if (mode === 'exchange') await screenshot(page, 'two-layer-flux-exchange.png');
     }
     await expect(page.getByTestId('layer-flux-caption').locator('sub').first().innerText()).resolves.toBe('bt');
+    // The numbers and the CSV of one moment: paused, and the last update shown (the run moves on otherwise).
+    await pause(page);
+    const exchangeShown = () => page.getByTestId('layer-flux').getAttribute('data-exchange');
+    let last = await exchangeShown();
+    await expect
+      .poll(
+        async () => {
+          const now = await exchangeShown();
+          const same = now === last;
+          last = now;
+          return same;
+        },
+        { timeout: 10_000, interval: 300 },
+      )
+      .toBe(true);
     const csv = await csvOf(page, 'export-layer-flux-csv');
     expect(Object.keys(csv)).toEqual(['k', 'exchange_X', 'k_edge', 'Pi', 'Pi_barotropic', 'Pi_baroclinic']);
     // Advection conserves energy: the flux through the last edge is zero to round-off (docs/two-layer.md) [derived].
