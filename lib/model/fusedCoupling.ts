@@ -10,7 +10,7 @@
  * u_i + i·v_i becomes (u_i·v_i, v_i² − u_i²), and the coupling product u₁v₂ − u₂v₁ = J(ψ₁, ψ₂) is
  * written to the real grid X: the value at work-grid index t (doubles) goes to X[t/2], so X holds
  * (x, y) at x·ny + y. `speeds` receives max|u₁|, max|v₁|, max|u₂|, max|v₂| from `at` on. W1 and W2
- * are work grids of the same layout; `run` is the transforms' `xLastRun`. The grids' rows y are
+ * are work grids of the same layout; `run` is their x transform's `lastRun`. The grids' rows y are
  * the transforms' `cols` batch columns (default: the whole run as one); with c0..c1, only those.
  */
 export function lastStageProductsCoupled(

@@ -52,9 +52,9 @@ export interface RowSlab {
  * Normalisation as in `grid.ts`: forward divides by nx·ny, inverse does not.
  *
  * The stepper's passes come in two kinds that threads share differently (docs/threads.md): the y
- * side works on ranges of kx columns (`inverseYColumns`, `forwardYColumns`), the x side on ranges
- * of grid rows y (`inverseXRows`, `forwardXRows`); the arrays they write are `alloc`ated, so that
- * they can live in shared memory.
+ * side works on column slabs (`inverseYSlab`, `forwardYSlab`), the x side on row slabs
+ * (`inverseXSlab`, `forwardXSlab`); the arrays they write are `alloc`ated, so that they can live in
+ * shared memory, and a transform built for P threads keeps each slab in one stretch of it.
  */
 /** Where the rows of an nx × ny work grid cut into `slabs` row slabs go (see RowSlab). */
 export interface RowSlabLayout {
@@ -240,11 +240,8 @@ export class RealTransform2D {
     return out;
   }
 
-  /**
-   * As `inverseBlockToWork`, but the x transform's last stage is left to the caller (`lastStageInPlace`
-   * or a fused equivalent with `xLastRun`) on the returned array.
-   */
-  inverseBlockToWorkButLast(): Float64Array {
+  /** As `inverseBlockToWork`, but the x transform's last stage is left to the caller. */
+  private inverseBlockToWorkButLast(): Float64Array {
     const ny = this.grid.ny;
     const top = this.top;
     const cols = 2 * (top + 1);
@@ -255,49 +252,8 @@ export class RealTransform2D {
   }
 
   /**
-   * As `inverseBlockToWorkButLast` for a caller that has written the y transform's first stage into
-   * the block itself (every entry; see fusedStages.ts, velocitiesFirstStageY).
-   */
-  inverseFirstStageDoneButLast(): Float64Array {
-    this.inverseYColumns(0, this.top + 1);
-    return this.inverseXRows(0, this.grid.ny);
-  }
-
-  /**
-   * The y side of `inverseFirstStageDoneButLast` for the kx columns kx0..kx1 − 1 of both fields: the
-   * y transform's middle stages, and its last stage onto the work grid (with that share of the
-   * zero columns). The caller wrote those columns' first stage into the block.
-   */
-  inverseYColumns(kx0: number, kx1: number): void {
-    this.oneSlab();
-    const { nx, ny } = this.grid;
-    // The y transform's last stage writes Z = A + iB, and Z(−kx), straight onto the x-major grid.
-    lastStageToWorkGrid(
-      this.yColumns(this.block, 1, true, kx0, kx1),
-      this.work,
-      this.rowOffset,
-      this.rowStride,
-      this.rowCuts,
-      nx,
-      ny,
-      this.top,
-      kx0,
-      kx1,
-    );
-  }
-
-  /**
-   * The x side: the backward x transform but its last stage, on grid rows y0..y1 − 1 of the work
-   * grid; returns the array holding it (the same whatever the rows).
-   */
-  inverseXRows(y0: number, y1: number): Float64Array {
-    this.oneSlab();
-    return this.xFFT.transformButLast(this.work, 1, this.xFFT.work, y0, y1);
-  }
-
-  /**
-   * The backward x transform but its last stage on row slab j (after `inverseYColumns` of every
-   * column); returns the slab's array holding it (its `work` or its `scratch`).
+   * The backward x transform but its last stage on row slab j (after `inverseYSlab` of every
+   * column slab); returns the slab's array holding it (its `work` or its `scratch`).
    */
   inverseXSlab(j: number): Float64Array {
     const slab = this.slabs[j];
@@ -325,72 +281,18 @@ export class RealTransform2D {
   }
 
   /**
-   * The y transform (but its last stage; `skipFirst`: but its first too) on kx columns kx0..kx1 − 1
-   * of both fields of `data` (the block): one batch of columns when that is all of them, else a's
-   * columns then b's. Returns the array holding the result.
-   */
-  private yColumns(data: Float64Array, sign: -1 | 1, skipFirst: boolean, kx0: number, kx1: number): Float64Array {
-    const b = this.top + 1;
-    if (kx0 === 0 && kx1 === b) return this.yStages(data, sign, skipFirst, 0, 2 * b);
-    this.yStages(data, sign, skipFirst, kx0, kx1);
-    return this.yStages(data, sign, skipFirst, b + kx0, b + kx1);
-  }
-
-  private yStages(data: Float64Array, sign: -1 | 1, skipFirst: boolean, c0: number, c1: number): Float64Array {
-    const y = this.yFFT;
-    return skipFirst
-      ? y.transformButFirstAndLast(data, sign, y.work, c0, c1)
-      : y.transformButLast(data, sign, y.work, c0, c1);
-  }
-
-  /** Doubles per output block of the x transform's last stage (see BatchFFT.lastRun). */
-  get xLastRun(): number {
-    return this.xFFT.lastRun;
-  }
-
-  /**
    * Forward of a work grid: on entry `grid` (`work`, or the array `inverseBlockToWork` returned)
    * holds a + i·b (x-major); on return the block holds the unnormalised half-line spectra of a and b,
    * y-transformed (row y = ky index, columns as above), in the array returned (this.block or the y
    * transform's scratch). Both work grids are overwritten.
    */
   forwardWorkToBlock(grid: Float64Array = this.work): Float64Array {
-    return this.yFFT.transform(this.forwardToBlockButY(grid), -1);
-  }
-
-  /**
-   * As `forwardWorkToBlock` without the y transform: the block as it enters it (this.block), for a
-   * caller that runs the y transform itself and fuses its last stage.
-   */
-  forwardToBlockButY(grid: Float64Array = this.work): Float64Array {
-    this.forwardXRows(grid, 0, this.grid.ny);
-    return this.block;
-  }
-
-  /**
-   * The x side of `forwardToBlockButY` on grid rows y0..y1 − 1: the forward x transform of those
-   * rows of `grid`, finished into those rows of the block.
-   */
-  forwardXRows(grid: Float64Array, y0: number, y1: number): void {
     this.oneSlab();
     const { nx, ny } = this.grid;
     const scratch = grid === this.work ? this.xFFT.work : this.work;
     // The x transform's last stage writes the half-line spectra of a and b straight into the block.
-    lastStageToBlock(this.xFFT.transformButLast(grid, -1, scratch, y0, y1), this.block, nx, ny, this.top, y0, y1);
-  }
-
-  /**
-   * The y side: the forward y transform but its last stage on kx columns kx0..kx1 − 1 of both
-   * fields of the block; returns the array holding it (the same whatever the columns).
-   */
-  forwardYColumns(kx0: number, kx1: number): Float64Array {
-    this.oneSlab();
-    return this.yColumns(this.block, -1, false, kx0, kx1);
-  }
-
-  /** The y transform, for callers of `forwardToBlockButY`. */
-  get yTransform(): BatchFFT {
-    return this.yFFT;
+    lastStageToBlock(this.xFFT.transformButLast(grid, -1, scratch), this.block, nx, ny, this.top);
+    return this.yFFT.transform(this.block, -1);
   }
 
   /** Grid fields a, b (row-major, grid.ts) from half-plane spectra aHat, bHat. */
