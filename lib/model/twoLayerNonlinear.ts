@@ -137,17 +137,28 @@ export class TwoLayerNonlinearTerm {
    * grids.
    */
   toGrid(k: number): void {
-    const { grid, xf1, xf2 } = this;
-    const { i0, i1 } = xf1.columns[k];
-    for (const [xf, psi] of [
-      [xf1, this.psi1],
-      [xf2, this.psi2],
-    ] as const) {
-      const c = xf.columns[k];
-      const { firstRadix, cosT, sinT } = c.fft;
-      velocitiesFirstStageY(psi, this.minusOne, grid, firstRadix, cosT, sinT, c.block, i0, i1, i0, i1 - i0);
-      xf.inverseYSlab(k);
-    }
+    this.layerToGrid(this.xf1, this.psi1, k);
+    this.layerToGrid(this.xf2, this.psi2, k);
+  }
+
+  /** One layer's part of `toGrid` (a helper rather than a loop over pairs, which would allocate). */
+  private layerToGrid(xf: RealTransform2D, psi: Float64Array, k: number): void {
+    const c = xf.columns[k];
+    const { firstRadix, cosT, sinT } = c.fft;
+    velocitiesFirstStageY(
+      psi,
+      this.minusOne,
+      this.grid,
+      firstRadix,
+      cosT,
+      sinT,
+      c.block,
+      c.i0,
+      c.i1,
+      c.i0,
+      c.i1 - c.i0,
+    );
+    xf.inverseYSlab(k);
   }
 
   /**
