@@ -20,7 +20,7 @@
  *                      wall time and the fitted exponent of jet spacing against the Rhines length
  */
 import { referenceUnavailable, runReference, type ReferenceTiming } from './reference';
-import { timeStep, type StepTiming } from './stepBench';
+import { stepRound } from './stepRound';
 import { fitScaling } from './scaling';
 import { median } from './timing';
 import { MIN_JETS, timeToJets } from './timeToJets';
@@ -46,9 +46,13 @@ const jetsSide = Number(value('--n') ?? 256);
 const runThreads = jetsSide * jetsSide >= DEFAULT_THREADS_MIN_POINTS ? availableParallelism() : 1;
 const threadCounts = (value('--threads') ?? (has('--time-to-jets') ? String(runThreads) : '1')).split(',').map(Number);
 if (threadCounts.some((t) => !(Number.isInteger(t) && t >= 1))) throw new Error('--threads: whole numbers ≥ 1');
-/** Helper threads for each count above one, started once (a helper takes about half a second to start). */
+/**
+ * Helper threads for the time to jets, which runs in this process (the step timings run each round in
+ * a process of their own, bench/stepRound.ts, which starts its own).
+ */
 const helperSets = new Map<number, NodeStepThreads>();
-for (const t of threadCounts) if (t > 1 && !helperSets.has(t)) helperSets.set(t, await startStepThreads(t));
+if (has('--time-to-jets'))
+  for (const t of threadCounts) if (t > 1 && !helperSets.has(t)) helperSets.set(t, await startStepThreads(t));
 const threadsFor = (t: number): StepThreads | null => helperSets.get(t)?.threads ?? null;
 async function finish(): Promise<never> {
   for (const h of helperSets.values()) await h.close();
@@ -101,9 +105,11 @@ if (has('--two-layer')) {
   const ratios = new Map<number, number[]>();
   for (let round = 1; round <= twoRounds; round++) {
     if (!json) console.log(`Two-layer step beside the one-layer step, one thread, round ${round} of ${twoRounds}`);
+    const round_ = stepRound(sizes, [1], [1, 2]);
     for (const n of sizes) {
-      const one = timeStep(n, null, 1);
-      const two = timeStep(n, null, 2);
+      const one = round_.find((t) => t.n === n && t.layers === 1);
+      const two = round_.find((t) => t.n === n && t.layers === 2);
+      if (!one || !two) throw new Error(`the round gave no timing at n = ${n}`);
       const ratio = two.ms_per_step / one.ms_per_step;
       ratios.set(n, [...(ratios.get(n) ?? []), ratio]);
       emit(
@@ -140,18 +146,19 @@ const oneThread = threadCounts.includes(1) ? 1 : threadCounts[0];
 for (let round = 1; round <= rounds; round++) {
   if (!json)
     console.log(
-      `Stria step benchmark (scheme ifrk4, Node ${process.version}); median of timed batches${rounds > 1 ? `, round ${round} of ${rounds}` : ''}`,
+      `Stria step benchmark (scheme ifrk4, Node ${process.version}); median of timed batches in a fresh process${rounds > 1 ? `, round ${round} of ${rounds}` : ''}`,
     );
-  const timings: StepTiming[] = [];
+  // The round's timings, in a process of their own (bench/stepRound.ts).
+  const timings = stepRound(sizes, threadCounts);
   for (const n of sizes) {
     const cells: string[] = [];
     for (const t of threadCounts) {
-      const timing = timeStep(n, threadsFor(t));
-      timings.push(timing);
+      const timing = timings.find((x) => x.n === n && x.asked_threads === t);
+      if (!timing) throw new Error(`the round gave no timing at n = ${n} on ${t} threads`);
       msBy.set(key(n, t), [...(msBy.get(key(n, t)) ?? []), timing.ms_per_step]);
       const base = timings.find((x) => x.n === n && x.threads === 1);
       const speedup = base && t > 1 ? base.ms_per_step / timing.ms_per_step : undefined;
-      emit({ ...timing, asked_threads: t, round, ...(speedup ? { speedup } : {}) }, '');
+      emit({ ...timing, round, ...(speedup ? { speedup } : {}) }, '');
       cells.push(
         `${timing.ms_per_step.toFixed(3).padStart(9)} ms/step on ${timing.threads}${speedup ? ` (×${speedup.toFixed(2)})` : ''}`,
       );
