@@ -23,9 +23,6 @@ import { referenceUnavailable, runReference, type ReferenceTiming } from './refe
 import { stepRound } from './stepRound';
 import { fitScaling } from './scaling';
 import { median } from './timing';
-import { MIN_JETS, timeToJets } from './timeToJets';
-import { timeFieldDraw } from './drawBench';
-import { scalingLaw } from './scalingLaw';
 import { availableParallelism } from 'node:os';
 import { startStepThreads, type NodeStepThreads } from '../cli/stepThreads';
 import type { StepThreads } from '../lib/model/threadTeam';
@@ -64,7 +61,10 @@ function emit(obj: Record<string, unknown>, line: string): void {
   else if (line) console.log(line);
 }
 
+// Each mode loads only its own modules: what a process has loaded can shift the speed of the step it
+// runs (bench/stepRound.ts), and the time to jets runs here.
 if (has('--time-to-jets')) {
+  const { MIN_JETS, timeToJets } = await import('./timeToJets');
   const n = Number(value('--n') ?? 256);
   if (!json)
     console.log(
@@ -88,6 +88,7 @@ if (has('--time-to-jets')) {
 }
 
 if (has('--scaling-law')) {
+  const { scalingLaw } = await import('./scalingLaw');
   const jobs = Number(value('--jobs') ?? availableParallelism());
   if (!json) console.log(`Rhines-scaling sweep (lib/sweep/rhinesExample.ts) through stria sweep on ${jobs} workers`);
   const r = scalingLaw(jobs);
@@ -128,6 +129,7 @@ if (has('--two-layer')) {
 }
 
 if (has('--draw')) {
+  const { timeFieldDraw } = await import('./drawBench');
   const d = await timeFieldDraw(Number(value('--n') ?? 512));
   emit(
     { kind: 'draw', ...d },
