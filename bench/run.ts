@@ -6,7 +6,8 @@
  *   --sizes a,b,c      other sizes
  *   --no-reference     skip the reference run
  *   --rounds R         alternate Stria and the reference R times (default 3, 1 with --scaling), quote the median
- *                      of the paired ratios: a shared machine drifts between the two measurements
+ *                      of the paired ratios: a shared machine drifts between the two measurements; each
+ *                      round's Stria timings run in a fresh process that loads only the step (stepRound.ts)
  *   --scaling          sizes 64..1024 and the fitted exponent of the cost against N² log N
  *   --threads a,b      time the step on each of these thread counts (default 1), with the speed-up over
  *                      one thread; the ratio to the reference is the one-thread step's
