@@ -44,7 +44,7 @@ export const SMALL_GRID_POINTS = 128 * 128;
  * Measured on the two-core development machine (2026-12-05, `npm run bench -- --threads 1,2`,
  * README "Threads"): since each thread's share lives in slabs of its own
  * (realTransform2D.ts, modeSlabs.ts), two threads step 1.39× faster than one at 128², 1.60× at 256²
- * and 1.68× at 512² (medians of five rounds, each in a fresh process); at 64², 0.84× (one round). Threads stay a choice (`--threads`, the app's Threads control); the
+ * and 1.68× at 512² (medians of five rounds, each in a fresh process). Threads stay a choice (`--threads`, the app's Threads control); the
  * bits are the same on any number.
  */
 export const DEFAULT_THREADS_MIN_POINTS = SMALL_GRID_POINTS;
