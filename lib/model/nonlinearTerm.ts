@@ -1,4 +1,4 @@
-import { lastStageProducts, lastStageToTendency, velocitiesFirstStageY } from './fusedStages';
+import { lastStageProducts, lastStageToTendency } from './fusedStages';
 import type { Grid } from './grid';
 import type { LinearOperator } from './linearOperator';
 import type { ModeSlabs } from './modeSlabs';
@@ -73,29 +73,9 @@ export class NonlinearTerm {
    * `layout`'s slabs (modeSlabs.ts).
    */
   toGrid(qHat: Float64Array, k: number, layout: ModeSlabs | null = null): void {
-    const xf = this.transform;
-    const c = xf.columns[k];
-    const { firstRadix, cosT, sinT } = c.fft;
-    const { grid } = this;
     const at = layout ? layout.origin[k] : 0;
-    const stride = layout ? layout.stride[k] : grid.nkx;
-    const width = c.i1 - c.i0;
-    velocitiesFirstStageY(
-      qHat,
-      this.lin.invK2,
-      grid,
-      firstRadix,
-      cosT,
-      sinT,
-      c.block,
-      c.i0,
-      c.i1,
-      c.i0,
-      width,
-      at,
-      stride,
-    );
-    xf.inverseYSlab(k);
+    const stride = layout ? layout.stride[k] : this.grid.nkx;
+    this.transform.velocitiesToGridSlab(k, qHat, this.lin.invK2, at, stride);
   }
 
   /**

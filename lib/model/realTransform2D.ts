@@ -1,6 +1,6 @@
 import { BatchFFT, lastStageInPlace } from './batchFFT';
 import { plainFloat64, type Float64Alloc } from './sharedArena';
-import { lastStageToBlock, lastStageToWorkGrid, type ColumnSlabLayout } from './fusedStages';
+import { lastStageToBlock, lastStageToWorkGrid, velocitiesFirstStageY, type ColumnSlabLayout } from './fusedStages';
 import type { Grid } from './grid';
 import { COLUMN_UNIT, ROW_UNIT, shareBound } from './stepTeam';
 
@@ -194,12 +194,38 @@ export class RealTransform2D {
   }
 
   /**
-   * The y side of the inverse on column slab k, whose block part holds the y transform's first
-   * stage (written by the caller: fusedStages.ts, velocitiesFirstStageY with the slab's origin and
-   * width): the middle stages, and the last one onto the work grid (with that share of the zero
-   * columns).
+   * The velocities of the nonlinear term onto the work grid, on column slab k: ψ̂ = −q̂·invK2 of the
+   * slab's kx columns, û = −i ky ψ̂ and v̂ = i kx ψ̂, formed inside the y transform's first stage
+   * (fusedStages.ts, velocitiesFirstStageY), then `inverseYSlab`. Mode (ky, kx) of q̂ is at
+   * qAt + 2·(ky·qStride + kx): the ordinary layout by default, or a slab of modeSlabs.ts.
    */
-  inverseYSlab(k: number): void {
+  velocitiesToGridSlab(k: number, qHat: Float64Array, invK2: Float64Array, qAt = 0, qStride = this.grid.nkx): void {
+    const c = this.columns[k];
+    const { firstRadix, cosT, sinT } = c.fft;
+    velocitiesFirstStageY(
+      qHat,
+      invK2,
+      this.grid,
+      firstRadix,
+      cosT,
+      sinT,
+      c.block,
+      c.i0,
+      c.i1,
+      c.i0,
+      c.i1 - c.i0,
+      qAt,
+      qStride,
+    );
+    this.inverseYSlab(k);
+  }
+
+  /**
+   * The y side of the inverse on column slab k, whose block part holds the y transform's first
+   * stage (written by `velocitiesToGridSlab`): the middle stages, and the last one onto the work
+   * grid (with that share of the zero columns).
+   */
+  private inverseYSlab(k: number): void {
     const { nx, ny } = this.grid;
     const c = this.columns[k];
     const Y = c.fft.transformButFirstAndLast(c.block, 1, c.scratch);

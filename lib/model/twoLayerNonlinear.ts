@@ -1,6 +1,6 @@
 import { BatchFFT } from './batchFFT';
 import { lastStageAddCoupling, lastStageProductsCoupled } from './fusedCoupling';
-import { lastStageToBlock, lastStageToTendency, velocitiesFirstStageY } from './fusedStages';
+import { lastStageToBlock, lastStageToTendency } from './fusedStages';
 import type { Grid } from './grid';
 import { columnSlabLayout, RealTransform2D } from './realTransform2D';
 import type { ColumnSlabLayout } from './fusedStages';
@@ -137,28 +137,8 @@ export class TwoLayerNonlinearTerm {
    * grids.
    */
   toGrid(k: number): void {
-    this.layerToGrid(this.xf1, this.psi1, k);
-    this.layerToGrid(this.xf2, this.psi2, k);
-  }
-
-  /** One layer's part of `toGrid` (a helper rather than a loop over pairs, which would allocate). */
-  private layerToGrid(xf: RealTransform2D, psi: Float64Array, k: number): void {
-    const c = xf.columns[k];
-    const { firstRadix, cosT, sinT } = c.fft;
-    velocitiesFirstStageY(
-      psi,
-      this.minusOne,
-      this.grid,
-      firstRadix,
-      cosT,
-      sinT,
-      c.block,
-      c.i0,
-      c.i1,
-      c.i0,
-      c.i1 - c.i0,
-    );
-    xf.inverseYSlab(k);
+    this.xf1.velocitiesToGridSlab(k, this.psi1, this.minusOne);
+    this.xf2.velocitiesToGridSlab(k, this.psi2, this.minusOne);
   }
 
   /**
