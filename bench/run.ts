@@ -107,10 +107,10 @@ if (has('--two-layer')) {
   const ratios = new Map<number, number[]>();
   for (let round = 1; round <= twoRounds; round++) {
     if (!json) console.log(`Two-layer step beside the one-layer step, one thread, round ${round} of ${twoRounds}`);
-    const round_ = stepRound(sizes, [1], [1, 2]);
+    const timings = stepRound(sizes, [1], [1, 2]);
     for (const n of sizes) {
-      const one = round_.find((t) => t.n === n && t.layers === 1);
-      const two = round_.find((t) => t.n === n && t.layers === 2);
+      const one = timings.find((t) => t.n === n && t.layers === 1);
+      const two = timings.find((t) => t.n === n && t.layers === 2);
       if (!one || !two) throw new Error(`the round gave no timing at n = ${n}`);
       const ratio = two.ms_per_step / one.ms_per_step;
       ratios.set(n, [...(ratios.get(n) ?? []), ratio]);

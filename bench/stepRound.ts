@@ -10,7 +10,7 @@ import type { StepTiming } from './stepBench';
  * timed in one process ran at 5.6–6.1 ms at 256² on one thread, but 7.0–7.5 ms, in every one of
  * a dozen processes, once the process had also loaded some unrelated modules (the benchmark's draw and
  * time-to-jets code, fft.js, comlink; not others), with every function of the step uniformly slower
- * (a matter of where the engine places code and data, not of the step); and a process now and then
+ * (a matter of how the engine compiles and places the code, not of the step); and a process now and then
  * ran the whole step 1.6× slower from start to end (9–11 ms, against 5.7 ms in the next process).
  * A command-line run (`stria run`) stepped at the lean figure. So each round starts a fresh process
  * that loads only the step: one slow process spoils one round, which the median over rounds resists,
